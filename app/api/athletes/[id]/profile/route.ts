@@ -1,0 +1,22 @@
+import { requireActor } from "@/features/access/server/permissions";
+import { profilePatchSchema } from "@/features/athletes/schemas";
+import { getAthleteProfile, updateAthleteProfile } from "@/features/athletes/server/profile";
+import { json, parseParams, readJson, route } from "@/features/platform/server/http";
+import { idParam } from "@/features/squads/schemas";
+
+export const dynamic = "force-dynamic";
+
+type Ctx = { params: Promise<{ id: string }> };
+
+export const GET = route<Ctx>(async (req, ctx) => {
+  const actor = await requireActor(req.headers);
+  const { id } = parseParams(await ctx.params, idParam);
+  return json(await getAthleteProfile(actor, id));
+});
+
+export const PATCH = route<Ctx>(async (req, ctx) => {
+  const actor = await requireActor(req.headers);
+  const { id } = parseParams(await ctx.params, idParam);
+  const patch = await readJson(req, profilePatchSchema);
+  return json({ profile: await updateAthleteProfile(actor, id, patch) });
+});

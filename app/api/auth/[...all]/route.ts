@@ -1,0 +1,11 @@
+import { getAuth } from "@/features/auth/server/auth";
+
+export const dynamic = "force-dynamic";
+
+export async function GET(req: Request) {
+  return getAuth().handler(req);
+}
+
+export async function POST(req: Request) {
+  return getAuth().handler(req);
+}

@@ -1,0 +1,22 @@
+import { requireActor } from "@/features/access/server/permissions";
+import { json, parseParams, readJson, route } from "@/features/platform/server/http";
+import { idParam, inviteSchema } from "@/features/squads/schemas";
+import { inviteToSquad, listOpenInvitations } from "@/features/squads/server/squads";
+import { publicOrigin } from "@/features/platform/server/origin";
+
+export const dynamic = "force-dynamic";
+
+type Ctx = { params: Promise<{ id: string }> };
+
+export const GET = route<Ctx>(async (req, ctx) => {
+  const actor = await requireActor(req.headers);
+  const { id } = parseParams(await ctx.params, idParam);
+  return json(await listOpenInvitations(actor, id));
+});
+
+export const POST = route<Ctx>(async (req, ctx) => {
+  const actor = await requireActor(req.headers);
+  const { id } = parseParams(await ctx.params, idParam);
+  const body = await readJson(req, inviteSchema);
+  return json(await inviteToSquad(actor, id, body, publicOrigin()), { status: 201 });
+});

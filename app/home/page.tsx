@@ -1,0 +1,7 @@
+import { redirect } from "next/navigation";
+import { homeFor, requirePageActor } from "@/features/auth/server/current";
+
+export default async function Home() {
+  const actor = await requirePageActor("/home");
+  redirect(homeFor(actor));
+}

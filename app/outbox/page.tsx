@@ -1,0 +1,57 @@
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { getOutboxMessage, listOutbox, localOutboxEnabled } from "@/features/messages/server/list";
+
+export const metadata = { title: "Outbox" };
+export const dynamic = "force-dynamic";
+
+const formatter = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" });
+
+export default async function OutboxPage({ searchParams }: { searchParams: Promise<{ id?: string }> }) {
+  if (!localOutboxEnabled()) notFound();
+  const { id } = await searchParams;
+  const message = typeof id === "string" && /^[0-9a-f-]{36}$/.test(id) ? await getOutboxMessage(id) : null;
+  const messages = await listOutbox();
+  return (
+    <div className="space-y-4">
+      <div>
+        <h1 className="text-2xl font-bold">Outbox</h1>
+        <p className="text-sm text-ink-soft">
+          Messages Tidemark sent on this local installation, newest first. Nothing here left the machine.
+        </p>
+      </div>
+      <div className="grid gap-6 lg:grid-cols-[2fr_3fr]">
+        <section className="card" aria-label="Messages">
+          {messages.length === 0 ? (
+            <p className="text-ink-soft">No messages yet. Invitations and password resets appear here.</p>
+          ) : (
+            <ul className="divide-y divide-rule">
+              {messages.map((m) => (
+                <li key={m.id} className="py-2">
+                  <Link href={`/outbox?id=${m.id}`} className="font-semibold text-tide hover:underline">{m.subject}</Link>
+                  <p className="text-xs text-ink-soft">
+                    to {m.to} · {m.kind.replace("_", " ")} · <time dateTime={m.createdAt.toISOString()}>{formatter.format(m.createdAt)} UTC</time>
+                  </p>
+                </li>
+              ))}
+            </ul>
+          )}
+        </section>
+        <section className="card" aria-label="Message">
+          {message ? (
+            <article className="space-y-3">
+              <h2 className="text-lg font-bold">{message.subject}</h2>
+              <p className="text-sm text-ink-soft">To {message.to}</p>
+              <pre className="whitespace-pre-wrap font-sans text-sm" data-testid="outbox-text">{message.text}</pre>
+              {typeof message.meta.url === "string" ? (
+                <a href={message.meta.url} className="btn-quiet">Open the link in this message</a>
+              ) : null}
+            </article>
+          ) : (
+            <p className="text-ink-soft">Choose a message to read it.</p>
+          )}
+        </section>
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,35 @@
+import { drizzle, type PostgresJsDatabase } from "drizzle-orm/postgres-js";
+import postgres from "postgres";
+import * as schema from "./schema";
+
+export type Database = PostgresJsDatabase<typeof schema>;
+
+const globalForDb = globalThis as unknown as { tidemarkSql?: postgres.Sql; tidemarkDb?: Database };
+
+function databaseUrl(): string {
+  const url = process.env.DATABASE_URL;
+  if (!url) throw new Error("DATABASE_URL is not set. Start Tidemark with `npm start` (it starts PostgreSQL and sets it).");
+  return url;
+}
+
+/** The one database client. Connections open lazily, so importing this module never touches the network. */
+export function getDb(): Database {
+  if (!globalForDb.tidemarkDb) {
+    const sql = postgres(databaseUrl(), {
+      max: Number(process.env.DATABASE_POOL_SIZE ?? 10),
+      onnotice: () => {},
+      connection: { application_name: "tidemark" },
+    });
+    globalForDb.tidemarkSql = sql;
+    globalForDb.tidemarkDb = drizzle(sql, { schema, casing: "snake_case" });
+  }
+  return globalForDb.tidemarkDb;
+}
+
+export async function closeDb(): Promise<void> {
+  await globalForDb.tidemarkSql?.end({ timeout: 5 });
+  globalForDb.tidemarkSql = undefined;
+  globalForDb.tidemarkDb = undefined;
+}
+
+export { schema };

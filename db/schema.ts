@@ -1,0 +1,203 @@
+import { sql } from "drizzle-orm";
+import {
+  bigint,
+  boolean,
+  check,
+  index,
+  integer,
+  jsonb,
+  pgEnum,
+  pgTable,
+  primaryKey,
+  real,
+  text,
+  timestamp,
+} from "drizzle-orm/pg-core";
+
+const createdAt = () => timestamp("created_at", { withTimezone: true }).notNull().defaultNow();
+const updatedAt = () =>
+  timestamp("updated_at", { withTimezone: true })
+    .notNull()
+    .defaultNow()
+    .$onUpdate(() => new Date());
+
+// ---------------------------------------------------------------------------------------------------------------------
+// better-auth's core tables (read through its Drizzle adapter). Field names follow better-auth; columns are snake_case.
+// ---------------------------------------------------------------------------------------------------------------------
+
+export const user = pgTable("user", {
+  id: text("id").primaryKey(),
+  name: text("name").notNull(),
+  email: text("email").notNull().unique(),
+  emailVerified: boolean("email_verified").notNull().default(false),
+  image: text("image"),
+  /** Site operator: manages users and squads; no special access to training data. */
+  isAdmin: boolean("is_admin").notNull().default(false),
+  createdAt: createdAt(),
+  updatedAt: updatedAt(),
+});
+
+export const session = pgTable(
+  "session",
+  {
+    id: text("id").primaryKey(),
+    expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
+    token: text("token").notNull().unique(),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+    ipAddress: text("ip_address"),
+    userAgent: text("user_agent"),
+    userId: text("user_id")
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
+  },
+  (t) => [index("session_user_idx").on(t.userId)],
+);
+
+export const account = pgTable(
+  "account",
+  {
+    id: text("id").primaryKey(),
+    accountId: text("account_id").notNull(),
+    providerId: text("provider_id").notNull(),
+    userId: text("user_id")
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
+    accessToken: text("access_token"),
+    refreshToken: text("refresh_token"),
+    idToken: text("id_token"),
+    accessTokenExpiresAt: timestamp("access_token_expires_at", { withTimezone: true }),
+    refreshTokenExpiresAt: timestamp("refresh_token_expires_at", { withTimezone: true }),
+    scope: text("scope"),
+    password: text("password"),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [index("account_user_idx").on(t.userId)],
+);
+
+export const verification = pgTable(
+  "verification",
+  {
+    id: text("id").primaryKey(),
+    identifier: text("identifier").notNull(),
+    value: text("value").notNull(),
+    expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [index("verification_identifier_idx").on(t.identifier)],
+);
+
+/** better-auth's rate-limit counters, kept in PostgreSQL so that several app servers share them. */
+export const rateLimit = pgTable("rate_limit", {
+  id: text("id").primaryKey(),
+  key: text("key").notNull().unique(),
+  count: integer("count").notNull(),
+  lastRequest: bigint("last_request", { mode: "number" }).notNull(),
+});
+
+// ---------------------------------------------------------------------------------------------------------------------
+// Squads, memberships, invitations
+// ---------------------------------------------------------------------------------------------------------------------
+
+export const squadRole = pgEnum("squad_role", ["head_coach", "coach", "athlete"]);
+export type SquadRole = (typeof squadRole.enumValues)[number];
+
+export const squad = pgTable("squad", {
+  id: text("id").primaryKey(),
+  name: text("name").notNull(),
+  createdAt: createdAt(),
+  updatedAt: updatedAt(),
+});
+
+export const membership = pgTable(
+  "membership",
+  {
+    squadId: text("squad_id")
+      .notNull()
+      .references(() => squad.id, { onDelete: "cascade" }),
+    userId: text("user_id")
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
+    role: squadRole("role").notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [primaryKey({ columns: [t.squadId, t.userId] }), index("membership_user_idx").on(t.userId)],
+);
+
+export const invitation = pgTable(
+  "invitation",
+  {
+    id: text("id").primaryKey(),
+    squadId: text("squad_id")
+      .notNull()
+      .references(() => squad.id, { onDelete: "cascade" }),
+    email: text("email").notNull(),
+    role: squadRole("role").notNull(),
+    /** SHA-256 of the token in the link; the token itself is never stored. */
+    tokenHash: text("token_hash").notNull().unique(),
+    invitedBy: text("invited_by")
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
+    expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
+    acceptedAt: timestamp("accepted_at", { withTimezone: true }),
+    acceptedBy: text("accepted_by").references(() => user.id, { onDelete: "set null" }),
+    revokedAt: timestamp("revoked_at", { withTimezone: true }),
+    createdAt: createdAt(),
+  },
+  (t) => [index("invitation_squad_idx").on(t.squadId)],
+);
+
+// ---------------------------------------------------------------------------------------------------------------------
+// Athlete profiles (the athlete's id is the user's id)
+// ---------------------------------------------------------------------------------------------------------------------
+
+export const sex = pgEnum("sex", ["female", "male"]);
+export const reminderTiming = pgEnum("reminder_timing", ["evening_before", "morning_of", "off"]);
+
+export const athleteProfile = pgTable(
+  "athlete_profile",
+  {
+    userId: text("user_id")
+      .primaryKey()
+      .references(() => user.id, { onDelete: "cascade" }),
+    birthYear: integer("birth_year"),
+    /** Sex as used by published sex-specific formulas (e.g. Banister's TRIMP). */
+    sex: sex("sex"),
+    bodyMassKg: real("body_mass_kg"),
+    restingHrBpm: integer("resting_hr_bpm"),
+    maxHrBpm: integer("max_hr_bpm"),
+    sports: text("sports").array().notNull().default(sql`'{}'::text[]`),
+    timeZone: text("time_zone").notNull().default("UTC"),
+    reminderTiming: reminderTiming("reminder_timing").notNull().default("evening_before"),
+    /** Local time of day for reminders, "HH:MM". */
+    reminderTime: text("reminder_time").notNull().default("19:00"),
+    remindSessions: boolean("remind_sessions").notNull().default(true),
+    remindRetests: boolean("remind_retests").notNull().default(true),
+    updatedAt: updatedAt(),
+  },
+  (t) => [
+    check("athlete_profile_mass", sql`${t.bodyMassKg} is null or (${t.bodyMassKg} > 20 and ${t.bodyMassKg} < 300)`),
+    check("athlete_profile_hr", sql`${t.restingHrBpm} is null or ${t.maxHrBpm} is null or ${t.restingHrBpm} < ${t.maxHrBpm}`),
+  ],
+);
+
+// ---------------------------------------------------------------------------------------------------------------------
+// Outbox: every outgoing message is written here first (the e-mail worker delivers it later).
+// ---------------------------------------------------------------------------------------------------------------------
+
+export const outbox = pgTable(
+  "outbox",
+  {
+    id: text("id").primaryKey(),
+    kind: text("kind").notNull(),
+    to: text("to_address").notNull(),
+    subject: text("subject").notNull(),
+    text: text("text_body").notNull(),
+    html: text("html_body").notNull(),
+    meta: jsonb("meta").$type<Record<string, unknown>>().notNull().default({}),
+    createdAt: createdAt(),
+  },
+  (t) => [index("outbox_to_idx").on(t.to)],
+);

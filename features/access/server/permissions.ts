@@ -1,0 +1,74 @@
+import "server-only";
+import { eq } from "drizzle-orm";
+import { getDb, schema } from "@/db/client";
+import { getAuth } from "@/features/auth/server/auth";
+import { HttpError, notFound, unauthenticated, forbidden } from "@/features/platform/server/http";
+import {
+  canEditAthlete,
+  canManageSquad,
+  canViewAthlete,
+  canViewRoster,
+  type Actor,
+  type AthleteTarget,
+  type Membership,
+} from "../lib/rules";
+
+export type { Actor } from "../lib/rules";
+
+export interface SignedInActor extends Actor {
+  name: string;
+  email: string;
+}
+
+async function membershipsOf(userId: string): Promise<Membership[]> {
+  return getDb()
+    .select({ squadId: schema.membership.squadId, role: schema.membership.role })
+    .from(schema.membership)
+    .where(eq(schema.membership.userId, userId));
+}
+
+/** The signed-in user with their memberships, or null. */
+export async function findActor(headers: Headers): Promise<SignedInActor | null> {
+  const result = await getAuth().api.getSession({ headers });
+  if (!result) return null;
+  const u = result.user as typeof result.user & { isAdmin?: boolean };
+  return {
+    userId: u.id,
+    name: u.name,
+    email: u.email,
+    isAdmin: Boolean(u.isAdmin),
+    memberships: await membershipsOf(u.id),
+  };
+}
+
+/** The signed-in user; 401 otherwise. Every route handler calls this (or findActor) first. */
+export async function requireActor(headers: Headers): Promise<SignedInActor> {
+  const actor = await findActor(headers);
+  if (!actor) throw unauthenticated();
+  return actor;
+}
+
+async function loadTarget(athleteId: string): Promise<AthleteTarget> {
+  return { userId: athleteId, memberships: await membershipsOf(athleteId) };
+}
+
+/**
+ * May this actor see (or edit) this athlete? A forbidden athlete answers 404, so that the existence of athletes outside
+ * the actor's squads is not revealed.
+ */
+export async function requireAthleteAccess(actor: Actor, athleteId: string, action: "view" | "edit"): Promise<void> {
+  const target = await loadTarget(athleteId);
+  const allowed = action === "view" ? canViewAthlete(actor, target) : canEditAthlete(actor, target);
+  if (!allowed) throw notFound("No such athlete.");
+}
+
+export function requireSquadManager(actor: Actor, squadId: string): void {
+  if (!canManageSquad(actor, squadId)) {
+    if (actor.memberships.some((m) => m.squadId === squadId)) throw forbidden("Only the squad's head coach may do this.");
+    throw notFound("No such squad.");
+  }
+}
+
+export function requireRosterAccess(actor: Actor, squadId: string): void {
+  if (!canViewRoster(actor, squadId)) throw new HttpError(404, "No such squad.");
+}

@@ -1,0 +1,68 @@
+import "server-only";
+import { betterAuth } from "better-auth";
+import { drizzleAdapter } from "better-auth/adapters/drizzle";
+import { getDb, schema } from "@/db/client";
+import { sendPasswordReset } from "@/features/messages/server/account-messages";
+
+function createAuth() {
+  const baseURL = process.env.BETTER_AUTH_URL ?? "http://127.0.0.1:3000";
+  return betterAuth({
+    baseURL,
+    secret: process.env.BETTER_AUTH_SECRET,
+    database: drizzleAdapter(getDb(), {
+      provider: "pg",
+      schema: {
+        user: schema.user,
+        session: schema.session,
+        account: schema.account,
+        verification: schema.verification,
+        rateLimit: schema.rateLimit,
+      },
+    }),
+    emailAndPassword: {
+      enabled: true,
+      minPasswordLength: 10,
+      maxPasswordLength: 128,
+      resetPasswordTokenExpiresIn: 60 * 60,
+      revokeSessionsOnPasswordReset: true,
+      sendResetPassword: async ({ user, url }) => {
+        await sendPasswordReset({ to: user.email, name: user.name, url });
+      },
+    },
+    user: {
+      additionalFields: {
+        isAdmin: { type: "boolean", required: false, defaultValue: false, input: false },
+      },
+    },
+    session: {
+      expiresIn: 60 * 60 * 24 * 14,
+      updateAge: 60 * 60 * 24,
+    },
+    rateLimit: {
+      enabled: process.env.TIDEMARK_DISABLE_RATE_LIMIT !== "1",
+      storage: "database",
+      window: 60,
+      max: 300,
+      customRules: {
+        "/sign-in/email": { window: 60, max: 8 },
+        "/sign-up/email": { window: 60, max: 8 },
+        "/request-password-reset": { window: 300, max: 5 },
+      },
+    },
+    advanced: {
+      // Secure cookies whenever the site is served over https (production); plain http only on loopback for local use.
+      useSecureCookies: baseURL.startsWith("https://"),
+      defaultCookieAttributes: { httpOnly: true, sameSite: "lax" },
+    },
+    trustedOrigins: [baseURL],
+  });
+}
+
+type Auth = ReturnType<typeof createAuth>;
+const globalForAuth = globalThis as unknown as { tidemarkAuth?: Auth };
+
+/** better-auth, created on first use so that building the app needs no database. */
+export function getAuth(): Auth {
+  globalForAuth.tidemarkAuth ??= createAuth();
+  return globalForAuth.tidemarkAuth;
+}

@@ -1,0 +1,27 @@
+import "server-only";
+import { desc, eq } from "drizzle-orm";
+import { getDb, schema } from "@/db/client";
+
+/** The local outbox is a development aid: shown only when the start or test harness turned it on. */
+export function localOutboxEnabled(): boolean {
+  return process.env.TIDEMARK_LOCAL_OUTBOX === "1";
+}
+
+export async function listOutbox(limit = 100) {
+  return getDb()
+    .select({
+      id: schema.outbox.id,
+      kind: schema.outbox.kind,
+      to: schema.outbox.to,
+      subject: schema.outbox.subject,
+      createdAt: schema.outbox.createdAt,
+    })
+    .from(schema.outbox)
+    .orderBy(desc(schema.outbox.createdAt))
+    .limit(limit);
+}
+
+export async function getOutboxMessage(id: string) {
+  const [row] = await getDb().select().from(schema.outbox).where(eq(schema.outbox.id, id));
+  return row ?? null;
+}

@@ -1,0 +1,58 @@
+"use client";
+import { useRouter } from "next/navigation";
+import { useState } from "react";
+import { SignUpForm } from "@/features/auth/components/SignUpForm";
+import { FormAlert } from "@/features/platform/components/form-bits";
+import { acceptInvitationRequest } from "../api";
+
+function destination(role: string): string {
+  return role === "athlete" ? "/settings?welcome=1" : "/roster";
+}
+
+export function AcceptButton({ token, role }: { token: string; role: string }) {
+  const router = useRouter();
+  const [error, setError] = useState<string>();
+  const [busy, setBusy] = useState(false);
+  return (
+    <div className="space-y-3">
+      <FormAlert>{error}</FormAlert>
+      <button
+        type="button"
+        className="btn"
+        disabled={busy}
+        onClick={async () => {
+          setBusy(true);
+          setError(undefined);
+          const result = await acceptInvitationRequest(token);
+          if (!result.ok) {
+            setBusy(false);
+            return setError(result.error);
+          }
+          router.push(destination(role));
+          router.refresh();
+        }}
+      >
+        {busy ? "Joining…" : "Join the squad"}
+      </button>
+    </div>
+  );
+}
+
+export function SignUpAndAccept({ token, email, role }: { token: string; email: string; role: string }) {
+  const router = useRouter();
+  const [error, setError] = useState<string>();
+  return (
+    <div className="space-y-3">
+      <FormAlert>{error}</FormAlert>
+      <SignUpForm
+        fixedEmail={email}
+        after={async () => {
+          const result = await acceptInvitationRequest(token);
+          if (!result.ok) return setError(result.error);
+          router.push(destination(role));
+          router.refresh();
+        }}
+      />
+    </div>
+  );
+}

@@ -1,0 +1,21 @@
+import { z } from "zod";
+
+export const squadRoleSchema = z.enum(["head_coach", "coach", "athlete"], {
+  error: "Role must be head coach, coach or athlete.",
+});
+
+export const ROLE_LABELS = { head_coach: "head coach", coach: "coach", athlete: "athlete" } as const;
+
+export const createSquadSchema = z.object({
+  name: z.string().trim().min(2, "Give the squad a name of at least 2 characters.").max(80, "Keep the name under 80 characters."),
+});
+
+export const inviteSchema = z.object({
+  email: z.string().trim().toLowerCase().pipe(z.email("Enter a valid e-mail address.")),
+  role: z.enum(["coach", "athlete"], { error: "Invite as coach or athlete." }),
+});
+
+export type InviteInput = z.infer<typeof inviteSchema>;
+
+export const idParam = z.object({ id: z.string().min(1).max(100) });
+export const tokenParam = z.object({ token: z.string().regex(/^[A-Za-z0-9_-]{20,100}$/) });

@@ -1,0 +1,149 @@
+/**
+ * `npm start`: PostgreSQL on loopback, migrations, demo data when empty, a production build when needed, and the app on
+ * http://127.0.0.1:3000. `npm run dev` does the same with the development server. Ctrl-C stops everything cleanly.
+ */
+import { spawn, type ChildProcess } from "node:child_process";
+import fs from "node:fs";
+import net from "node:net";
+import path from "node:path";
+import { applyMigrations } from "../db/migrate";
+import { DEMO_PASSWORD, DEMO_PEOPLE, seedDemoIfEmpty } from "../db/seed";
+import { ensureBuild } from "./build";
+import { DATA_DIR, intFromEnv, localAuthSecret, ROOT } from "./env";
+import { createDatabase, startCluster, type Cluster } from "./postgres";
+
+const dev = process.argv.includes("--dev");
+const LOCK = path.join(DATA_DIR, "tidemark.lock");
+
+function log(line: string) {
+  console.log(`[tidemark] ${line}`);
+}
+
+function alive(pid: number): boolean {
+  try {
+    process.kill(pid, 0);
+    return true;
+  } catch {
+    return false;
+  }
+}
+
+function takeLock(appPort: number): void {
+  fs.mkdirSync(DATA_DIR, { recursive: true });
+  if (fs.existsSync(LOCK)) {
+    const [pidText, portText] = fs.readFileSync(LOCK, "utf8").split(" ");
+    const pid = Number(pidText);
+    if (pid && alive(pid)) {
+      console.error(
+        `Tidemark is already running (process ${pid}, http://127.0.0.1:${portText?.trim() ?? "3000"}). ` +
+          "Use that one, or stop it with Ctrl-C in its terminal before starting again.",
+      );
+      process.exit(1);
+    }
+  }
+  fs.writeFileSync(LOCK, `${process.pid} ${appPort}`);
+}
+
+function releaseLock(): void {
+  try {
+    if (fs.readFileSync(LOCK, "utf8").startsWith(`${process.pid} `)) fs.rmSync(LOCK);
+  } catch {
+    /* already gone */
+  }
+}
+
+async function portIsFree(port: number): Promise<boolean> {
+  return new Promise((resolve) => {
+    const srv = net.createServer();
+    srv.once("error", () => resolve(false));
+    srv.listen(port, "127.0.0.1", () => srv.close(() => resolve(true)));
+  });
+}
+
+async function waitForHttp(url: string, child: ChildProcess, timeoutMs = 120_000): Promise<void> {
+  const deadline = Date.now() + timeoutMs;
+  while (Date.now() < deadline) {
+    if (child.exitCode !== null) throw new Error("The app server exited during start-up; see the output above.");
+    try {
+      const res = await fetch(url, { redirect: "manual" });
+      if (res.status < 500) return;
+    } catch {
+      /* not yet listening */
+    }
+    await new Promise((r) => setTimeout(r, 300));
+  }
+  throw new Error(`The app did not answer at ${url} within ${timeoutMs / 1000} s.`);
+}
+
+async function main() {
+  const appPort = intFromEnv("PORT", 3000);
+  const pgPort = intFromEnv("PGPORT", 54329);
+  takeLock(appPort);
+  if (!(await portIsFree(appPort))) {
+    releaseLock();
+    console.error(`Port ${appPort} on 127.0.0.1 is in use by another program. Stop it, or start with PORT=<other port> npm start.`);
+    process.exit(1);
+  }
+
+  let cluster: Cluster | undefined;
+  let app: ChildProcess | undefined;
+  let stopping = false;
+  const stop = async (code: number) => {
+    if (stopping) return;
+    stopping = true;
+    log("Stopping…");
+    if (app && app.exitCode === null) {
+      app.kill("SIGTERM");
+      await new Promise((r) => app!.once("exit", r));
+    }
+    if (cluster) {
+      await cluster.stop().catch((e) => console.error(String(e)));
+      log("PostgreSQL stopped.");
+    }
+    releaseLock();
+    process.exit(code);
+  };
+  process.on("SIGINT", () => void stop(0));
+  process.on("SIGTERM", () => void stop(0));
+
+  try {
+    log(`Starting PostgreSQL on 127.0.0.1:${pgPort} (data in .data/postgres)…`);
+    cluster = await startCluster({ dataDir: path.join(DATA_DIR, "postgres"), port: pgPort, log });
+    await createDatabase(cluster, "tidemark");
+    const databaseUrl = cluster.url("tidemark");
+    log("Applying migrations…");
+    await applyMigrations(databaseUrl);
+    if (await seedDemoIfEmpty(databaseUrl)) log("Loaded the Northfold Endurance demo.");
+
+    const origin = `http://127.0.0.1:${appPort}`;
+    const env: NodeJS.ProcessEnv = {
+      ...process.env,
+      DATABASE_URL: databaseUrl,
+      BETTER_AUTH_SECRET: localAuthSecret(),
+      BETTER_AUTH_URL: origin,
+      TIDEMARK_LOCAL_OUTBOX: "1",
+      NEXT_TELEMETRY_DISABLED: "1",
+    };
+    const nextBin = path.join(ROOT, "node_modules/next/dist/bin/next");
+    if (!dev) ensureBuild(".next", { ...env, NODE_ENV: "production" }, log);
+    const args = dev ? ["dev", "-H", "127.0.0.1", "-p", String(appPort)] : ["start", "-H", "127.0.0.1", "-p", String(appPort)];
+    app = spawn(process.execPath, [nextBin, ...args], { cwd: ROOT, env, stdio: "inherit" });
+    app.on("exit", (code) => {
+      if (!stopping) {
+        console.error(`The app server exited (code ${code}).`);
+        void stop(1);
+      }
+    });
+    await waitForHttp(`${origin}/`, app);
+    console.log("");
+    log(`Tidemark is running at ${origin}`);
+    log(`Demo sign-ins (password "${DEMO_PASSWORD}"):`);
+    for (const p of DEMO_PEOPLE) log(`  ${p.email.padEnd(28)} ${p.role.replace("_", " ")}`);
+    log(`Messages the app sends appear at ${origin}/outbox. Press Ctrl-C to stop.`);
+  } catch (e) {
+    console.error(e instanceof Error ? e.message : String(e));
+    await stop(1);
+  }
+}
+
+void main();
