@@ -2,14 +2,15 @@
  * `npm start`: PostgreSQL on loopback, migrations, demo data when empty, a production build when needed, and the app on
  * http://127.0.0.1:3000. `npm run dev` does the same with the development server. Ctrl-C stops everything cleanly.
  */
-import { spawn, type ChildProcess } from "node:child_process";
+import type { ChildProcess } from "node:child_process";
 import fs from "node:fs";
 import net from "node:net";
 import path from "node:path";
 import { applyMigrations } from "../db/migrate";
 import { DEMO_PASSWORD, DEMO_PEOPLE, seedDemoIfEmpty } from "../db/seed";
+import { startAppServer } from "./app-server";
 import { ensureBuild } from "./build";
-import { DATA_DIR, intFromEnv, localAuthSecret, ROOT } from "./env";
+import { DATA_DIR, intFromEnv, localAuthSecret } from "./env";
 import { createDatabase, startCluster, type Cluster } from "./postgres";
 
 const dev = process.argv.includes("--dev");
@@ -58,21 +59,6 @@ async function portIsFree(port: number): Promise<boolean> {
     srv.once("error", () => resolve(false));
     srv.listen(port, "127.0.0.1", () => srv.close(() => resolve(true)));
   });
-}
-
-async function waitForHttp(url: string, child: ChildProcess, timeoutMs = 120_000): Promise<void> {
-  const deadline = Date.now() + timeoutMs;
-  while (Date.now() < deadline) {
-    if (child.exitCode !== null) throw new Error("The app server exited during start-up; see the output above.");
-    try {
-      const res = await fetch(url, { redirect: "manual" });
-      if (res.status < 500) return;
-    } catch {
-      /* not yet listening */
-    }
-    await new Promise((r) => setTimeout(r, 300));
-  }
-  throw new Error(`The app did not answer at ${url} within ${timeoutMs / 1000} s.`);
 }
 
 async function main() {
@@ -124,17 +110,16 @@ async function main() {
       TIDEMARK_LOCAL_OUTBOX: "1",
       NEXT_TELEMETRY_DISABLED: "1",
     };
-    const nextBin = path.join(ROOT, "node_modules/next/dist/bin/next");
     if (!dev) ensureBuild(".next", { ...env, NODE_ENV: "production" }, log);
-    const args = dev ? ["dev", "-H", "127.0.0.1", "-p", String(appPort)] : ["start", "-H", "127.0.0.1", "-p", String(appPort)];
-    app = spawn(process.execPath, [nextBin, ...args], { cwd: ROOT, env, stdio: "inherit" });
+    log(dev ? "Starting the development server…" : "Starting the app server…");
+    const server = await startAppServer({ mode: dev ? "dev" : "start", port: appPort, env });
+    app = server.process;
     app.on("exit", (code) => {
       if (!stopping) {
         console.error(`The app server exited (code ${code}).`);
         void stop(1);
       }
     });
-    await waitForHttp(`${origin}/`, app);
     console.log("");
     log(`Tidemark is running at ${origin}`);
     log(`Demo sign-ins (password "${DEMO_PASSWORD}"):`);

@@ -1,0 +1,71 @@
+/**
+ * Calls the app's route handlers in-process, as a browser would: same URLs, JSON bodies and the session cookie.
+ */
+import * as authRoute from "@/app/api/auth/[...all]/route";
+
+export const ORIGIN = process.env.BETTER_AUTH_URL ?? "http://127.0.0.1:3999";
+
+type Handler = (req: Request, ctx: { params: Promise<Record<string, string>> }) => Promise<Response>;
+type RouteModule = Partial<Record<"GET" | "POST" | "PATCH" | "PUT" | "DELETE", unknown>>;
+
+export interface CallOptions {
+  body?: unknown;
+  rawBody?: string;
+  params?: Record<string, string>;
+  headers?: Record<string, string>;
+  query?: string;
+}
+
+export class Browser {
+  cookie = "";
+
+  constructor(readonly ip = "198.51.100.1") {}
+
+  async call(mod: RouteModule, method: keyof RouteModule, path: string, opts: CallOptions = {}) {
+    const handler = mod[method] as Handler | undefined;
+    if (!handler) throw new Error(`${method} is not exported for ${path}`);
+    const headers: Record<string, string> = { origin: ORIGIN, "x-forwarded-for": this.ip, ...opts.headers };
+    if (this.cookie) headers.cookie = this.cookie;
+    let body: string | undefined;
+    if (opts.rawBody !== undefined) body = opts.rawBody;
+    else if (opts.body !== undefined) body = JSON.stringify(opts.body);
+    if (body !== undefined) headers["content-type"] = "application/json";
+    const req = new Request(`${ORIGIN}${path}${opts.query ?? ""}`, { method, headers, body });
+    const res = await handler(req, { params: Promise.resolve(opts.params ?? {}) });
+    const setCookies = res.headers.getSetCookie();
+    for (const c of setCookies) this.absorbCookie(c);
+    const text = await res.text();
+    let json: unknown = undefined;
+    try {
+      json = text ? JSON.parse(text) : undefined;
+    } catch {
+      json = text;
+    }
+    return { status: res.status, json: json as any, headers: res.headers }; // eslint-disable-line @typescript-eslint/no-explicit-any
+  }
+
+  private absorbCookie(setCookie: string) {
+    const [pair] = setCookie.split(";");
+    if (!pair) return;
+    const [name, ...rest] = pair.split("=");
+    const value = rest.join("=");
+    const jar = new Map(this.cookie ? this.cookie.split("; ").map((c) => [c.split("=")[0]!, c.slice(c.indexOf("=") + 1)]) : []);
+    if (value === "" || /max-age=0/i.test(setCookie)) jar.delete(name!.trim());
+    else jar.set(name!.trim(), value);
+    this.cookie = [...jar].map(([k, v]) => `${k}=${v}`).join("; ");
+  }
+
+  auth(method: "GET" | "POST", path: string, body?: unknown) {
+    return this.call(authRoute, method, `/api/auth${path}`, { body });
+  }
+
+  async signUp(name: string, email: string, password = "correct-horse-battery") {
+    const r = await this.auth("POST", "/sign-up/email", { name, email, password });
+    if (r.status !== 200) throw new Error(`sign-up failed: ${r.status} ${JSON.stringify(r.json)}`);
+    return r.json.user as { id: string; email: string; name: string };
+  }
+
+  async signIn(email: string, password = "correct-horse-battery") {
+    return this.auth("POST", "/sign-in/email", { email, password });
+  }
+}
