@@ -1,0 +1,96 @@
+import { describe, expect, it } from "vitest";
+import { syntheticRamp } from "@/test/support/synthetic-ramp";
+import { analyzeCsv } from "./analyze";
+
+// Threshold detection against synthetic ramps whose thresholds are known by construction (model documented in
+// test/support/synthetic-ramp.ts: ACSM leg-cycling VO2, V-slope and VE/VCO2 breakpoints after Beaver, Wasserman & Whipp 1986).
+// Tolerances (ours): VT1 within 10 % of the true VO2, VT2 within 8 %, peak VO2 within 5 %, on at least 85 % of 40 tests.
+
+function cases() {
+  return Array.from({ length: 40 }, (_, i) => {
+    const seed = i + 1;
+    return syntheticRamp({
+      seed,
+      peakW: 250 + ((seed * 37) % 180),
+      rampWPerMin: 20 + ((seed * 7) % 16),
+      vt1Fraction: 0.42 + ((seed * 13) % 15) / 100,
+      vt2Fraction: 0.72 + ((seed * 11) % 10) / 100,
+      massKg: 55 + ((seed * 17) % 40),
+    });
+  });
+}
+
+describe("threshold detection on synthetic ramp tests", () => {
+  const results = cases().map(({ csv, truth }) => ({ truth, a: analyzeCsv(csv, { bodyMassKg: truth.massKg }) }));
+
+  it("reads every generated file", () => {
+    expect(results.every((r) => r.a.ok)).toBe(true);
+  });
+
+  it("recovers VT1, VT2 and peak VO2 within tolerance on a large majority", () => {
+    let vt1 = 0, vt2 = 0, peak = 0;
+    for (const { truth, a } of results) {
+      if (!a.ok) continue;
+      if (a.vt1 && Math.abs(a.vt1.vo2MlMin / truth.vt1Vo2MlMin - 1) <= 0.1) vt1++;
+      if (a.vt2 && Math.abs(a.vt2.vo2MlMin / truth.vt2Vo2MlMin - 1) <= 0.08) vt2++;
+      if (Math.abs(a.peak.vo2MlMin / truth.peakVo2MlMin - 1) <= 0.05) peak++;
+    }
+    expect(vt1).toBeGreaterThanOrEqual(34);
+    expect(vt2).toBeGreaterThanOrEqual(34);
+    expect(peak).toBeGreaterThanOrEqual(34);
+  });
+
+  it("reports each threshold with heart rate, power, time, methods, agreement and a confidence in 0–1", () => {
+    // The generator's default test (a 350 W ramp at 25 W/min).
+    const { csv, truth } = syntheticRamp({ seed: 1 });
+    const a = analyzeCsv(csv, { bodyMassKg: truth.massKg });
+    if (!a.ok || !a.vt1 || !a.vt2) throw new Error("expected both thresholds");
+    for (const t of [a.vt1, a.vt2]) {
+      expect(t.confidence).toBeGreaterThanOrEqual(0);
+      expect(t.confidence).toBeLessThanOrEqual(1);
+      expect(t.hrBpm).toBeGreaterThan(60);
+      expect(t.powerW).toBeGreaterThan(0);
+      expect(t.timeS).toBeGreaterThan(0);
+      expect(t.vo2MlKgMin).toBeCloseTo(t.vo2MlMin / truth.massKg, 0);
+    }
+    expect(a.vt1.methods[0]).toBe("v-slope");
+    expect(a.vt2.methods[0]).toBe("ve-vco2-slope");
+    expect(a.vt1.timeS).toBeLessThan(a.vt2.timeS);
+    // Power at VT1 near the model's VT1 power, allowing for the VO2 lag of a ramp (tau 35 s at 20–35 W/min).
+    expect(Math.abs(a.vt1.powerW! - truth.vt1PowerW)).toBeLessThan(45);
+    expect(a.peak.rer).toBeGreaterThan(1.05);
+  });
+
+  it("a file without breakpoints gets null thresholds with reasons, not numbers", () => {
+    const a = analyzeCsv(syntheticRamp({ seed: 5, noBreakpoints: true }).csv);
+    if (!a.ok) throw new Error(a.error);
+    expect(a.vt1).toBeNull();
+    expect(a.vt2).toBeNull();
+    expect(a.vt1Reason).toMatch(/VT1 not found/);
+    expect(a.vt2Reason).toMatch(/VT2 not found/);
+    expect(a.warnings.join(" ")).toMatch(/not found/);
+    expect(a.peak.vo2MlMin).toBeGreaterThan(0);
+  });
+
+  it("a two-minute file is too short: null thresholds with a warning", () => {
+    const a = analyzeCsv(syntheticRamp({ seed: 2, warmupS: 30, peakW: 90, rampWPerMin: 30, recoveryS: 0 }).csv);
+    if (!a.ok) throw new Error(a.error);
+    expect(a.vt1).toBeNull();
+    expect(a.vt2).toBeNull();
+    expect(a.warnings.join(" ")).toMatch(/Too few points/);
+  });
+
+  it("warns when peak RER stays below 1.05 (probably not maximal)", () => {
+    const a = analyzeCsv(syntheticRamp({ seed: 4, noBreakpoints: true }).csv);
+    if (!a.ok) throw new Error(a.error);
+    expect(a.peak.rer).toBeLessThan(1.05);
+    expect(a.warnings.join(" ")).toMatch(/not maximal/);
+  });
+
+  it("removes aberrant breaths", () => {
+    const a = analyzeCsv(syntheticRamp({ seed: 9, aberrantShare: 0.05 }).csv);
+    if (!a.ok) throw new Error(a.error);
+    expect(a.breathsRemoved).toBeGreaterThan(0);
+    expect(a.breathsRemoved).toBeLessThan(a.breathsRead * 0.12);
+  });
+});

@@ -1,0 +1,105 @@
+import { describe, expect, it } from "vitest";
+import { linearRegression } from "simple-statistics";
+import { fitHinge, fitLine, hingeAt } from "./breakpoint";
+
+// Deterministic noise (mulberry32) so the checks are repeatable.
+function rng(seed: number) {
+  return () => {
+    seed |= 0;
+    seed = (seed + 0x6d2b79f5) | 0;
+    let t = Math.imul(seed ^ (seed >>> 15), 1 | seed);
+    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
+
+/** Brute force: a fresh 3-parameter least-squares fit per candidate (the O(n²) method the prefix sums replace). */
+function bruteForceHinge(xs: number[], ys: number[], minSeg: number) {
+  const idx = xs.map((_, i) => i).sort((a, b) => xs[a]! - xs[b]!);
+  const sx = idx.map((i) => xs[i]!), sy = idx.map((i) => ys[i]!);
+  let best = { rss: Infinity, x0: NaN };
+  for (let k = minSeg; k <= sx.length - minSeg; k++) {
+    const x0 = sx[k - 1]!;
+    // Normal equations built directly from the data.
+    const rows = sx.map((x) => [1, x, Math.max(0, x - x0)]);
+    const A = [0, 1, 2].map((i) => [0, 1, 2].map((j) => rows.reduce((s, r) => s + r[i]! * r[j]!, 0)));
+    const r = [0, 1, 2].map((i) => rows.reduce((s, row, q) => s + row[i]! * sy[q]!, 0));
+    // Gaussian elimination
+    const M = A.map((row, i) => [...row, r[i]!]);
+    for (let p = 0; p < 3; p++) {
+      for (let q = p + 1; q < 3; q++) {
+        const f = M[q]![p]! / M[p]![p]!;
+        for (let c = p; c < 4; c++) M[q]![c]! -= f * M[p]![c]!;
+      }
+    }
+    const beta = [0, 0, 0];
+    for (let p = 2; p >= 0; p--) {
+      let s = M[p]![3]!;
+      for (let c = p + 1; c < 3; c++) s -= M[p]![c]! * beta[c]!;
+      beta[p] = s / M[p]![p]!;
+    }
+    const rss = rows.reduce((s, row, q) => s + (sy[q]! - (beta[0]! + beta[1]! * row[1]! + beta[2]! * row[2]!)) ** 2, 0);
+    if (rss < best.rss) best = { rss, x0 };
+  }
+  return best;
+}
+
+describe("continuous two-segment regression", () => {
+  it("recovers an exact breakpoint and both slopes from noise-free data", () => {
+    const xs = Array.from({ length: 60 }, (_, i) => 1000 + i * 50);
+    const ys = xs.map((x) => -100 + 0.95 * x + 0.4 * Math.max(0, x - 2500));
+    const fit = fitHinge(xs, ys)!;
+    expect(fit.x0).toBeCloseTo(2500, 6);
+    expect(fit.slopeBefore).toBeCloseTo(0.95, 9);
+    expect(fit.slopeAfter).toBeCloseTo(1.35, 9);
+    expect(fit.rss).toBeLessThan(1e-6);
+    expect(hingeAt(fit, 3000)).toBeCloseTo(-100 + 0.95 * 3000 + 0.4 * 500, 6);
+  });
+
+  it("each segment matches simple-statistics' ordinary least squares on noise-free data", () => {
+    // Reference library: simple-statistics linearRegression (REFERENCES.md).
+    const xs = Array.from({ length: 40 }, (_, i) => i * 2.5);
+    const ys = xs.map((x) => (x <= 50 ? 3 + 0.5 * x : 3 + 0.5 * 50 + 2.0 * (x - 50)));
+    const fit = fitHinge(xs, ys)!;
+    const left = linearRegression(xs.filter((x) => x <= fit.x0).map((x, i) => [x, ys[i]!]));
+    const rightPts = xs.map((x, i) => [x, ys[i]!] as [number, number]).filter(([x]) => x >= fit.x0);
+    const right = linearRegression(rightPts);
+    expect(fit.slopeBefore).toBeCloseTo(left.m, 8);
+    expect(fit.intercept).toBeCloseTo(left.b, 8);
+    expect(fit.slopeAfter).toBeCloseTo(right.m, 8);
+  });
+
+  it("fitLine agrees with simple-statistics on noisy data", () => {
+    const r = rng(7);
+    const xs = Array.from({ length: 200 }, () => r() * 100);
+    const ys = xs.map((x) => 4 + 1.7 * x + (r() - 0.5) * 20);
+    const mine = fitLine(xs, ys);
+    const ref = linearRegression(xs.map((x, i) => [x, ys[i]!]));
+    expect(mine.slope).toBeCloseTo(ref.m, 9);
+    expect(mine.intercept).toBeCloseTo(ref.b, 9);
+  });
+
+  it("the prefix-sum search finds the same breakpoint as a brute-force refit per candidate", () => {
+    for (const seed of [1, 2, 3, 4, 5]) {
+      const r = rng(seed);
+      const xs = Array.from({ length: 150 }, () => 800 + r() * 3000);
+      const ys = xs.map((x) => 0.9 * x + 0.5 * Math.max(0, x - 2200) + (r() - 0.5) * 150);
+      const fast = fitHinge(xs, ys, { minSegment: 5 })!;
+      const slow = bruteForceHinge(xs, ys, 5);
+      expect(fast.x0).toBeCloseTo(slow.x0, 6);
+      expect(fast.rss).toBeCloseTo(slow.rss, 3);
+    }
+  });
+
+  it("a straight line gives almost no gain from a breakpoint", () => {
+    const r = rng(11);
+    const xs = Array.from({ length: 120 }, (_, i) => i);
+    const ys = xs.map((x) => 2 + 3 * x + (r() - 0.5) * 10);
+    const fit = fitHinge(xs, ys)!;
+    expect(fit.gain).toBeLessThan(0.05);
+  });
+
+  it("refuses too few points", () => {
+    expect(fitHinge([1, 2, 3], [1, 2, 3])).toBeNull();
+  });
+});

@@ -1,0 +1,156 @@
+/**
+ * Continuous two-segment ("hinge") regression: y = a + b·x + c·max(0, x − x0), with the breakpoint x0 searched over the
+ * data points. Sums over the right-hand segment come from suffix sums, so every candidate costs O(1) and the whole search
+ * O(n log n) for the sort. Used for the V-slope method (Beaver, Wasserman & Whipp 1986) and the VE/VCO2 breakpoint.
+ */
+
+export interface HingeFit {
+  /** Breakpoint on the x axis. */
+  x0: number;
+  intercept: number;
+  slopeBefore: number;
+  slopeAfter: number;
+  /** Residual sum of squares of the hinge fit and of one straight line through all points. */
+  rss: number;
+  rssLine: number;
+  /** Share of the straight line's residual that the breakpoint removes, 0–1. */
+  gain: number;
+  n: number;
+  nBefore: number;
+}
+
+export interface LineFit {
+  intercept: number;
+  slope: number;
+  rss: number;
+}
+
+/** Ordinary least squares of y on x. */
+export function fitLine(xs: ArrayLike<number>, ys: ArrayLike<number>): LineFit {
+  const n = xs.length;
+  let sx = 0, sy = 0;
+  for (let i = 0; i < n; i++) {
+    sx += xs[i]!;
+    sy += ys[i]!;
+  }
+  const mx = sx / n, my = sy / n;
+  let sxx = 0, sxy = 0, syy = 0;
+  for (let i = 0; i < n; i++) {
+    const dx = xs[i]! - mx, dy = ys[i]! - my;
+    sxx += dx * dx;
+    sxy += dx * dy;
+    syy += dy * dy;
+  }
+  const slope = sxx > 0 ? sxy / sxx : 0;
+  return { slope, intercept: my - slope * mx, rss: Math.max(0, syy - slope * sxy) };
+}
+
+/** Solves the symmetric 3×3 system A·β = r by Cramer's rule; null when singular. */
+function solve3(a: number[][], r: number[]): [number, number, number] | null {
+  const det = (m: number[][]) =>
+    m[0]![0]! * (m[1]![1]! * m[2]![2]! - m[1]![2]! * m[2]![1]!) -
+    m[0]![1]! * (m[1]![0]! * m[2]![2]! - m[1]![2]! * m[2]![0]!) +
+    m[0]![2]! * (m[1]![0]! * m[2]![1]! - m[1]![1]! * m[2]![0]!);
+  const d = det(a);
+  if (!Number.isFinite(d) || Math.abs(d) < 1e-12) return null;
+  const col = (k: number) => a.map((row, i) => row.map((v, j) => (j === k ? r[i]! : v)));
+  return [det(col(0)) / d, det(col(1)) / d, det(col(2)) / d];
+}
+
+export interface HingeOptions {
+  /** Fewest points on each side of the breakpoint (default 5). */
+  minSegment?: number;
+  /** Only consider breakpoints with x0 inside [lo, hi]. */
+  range?: [number, number];
+}
+
+/** Best continuous two-segment fit; null when there are too few points. */
+export function fitHinge(xsIn: ArrayLike<number>, ysIn: ArrayLike<number>, opts: HingeOptions = {}): HingeFit | null {
+  const minSeg = Math.max(3, opts.minSegment ?? 5);
+  const n = xsIn.length;
+  if (n < 2 * minSeg) return null;
+  const order = Array.from({ length: n }, (_, i) => i).sort((i, j) => xsIn[i]! - xsIn[j]!);
+  // Centre and scale for numerical stability; the fit is invariant to this.
+  let mx = 0, my = 0;
+  for (let i = 0; i < n; i++) {
+    mx += xsIn[i]!;
+    my += ysIn[i]!;
+  }
+  mx /= n;
+  my /= n;
+  let sdx = 0;
+  for (let i = 0; i < n; i++) sdx += (xsIn[i]! - mx) ** 2;
+  sdx = Math.sqrt(sdx / n) || 1;
+  const x = new Float64Array(n), y = new Float64Array(n);
+  for (let k = 0; k < n; k++) {
+    x[k] = (xsIn[order[k]!]! - mx) / sdx;
+    y[k] = ysIn[order[k]!]! - my;
+  }
+  let Sx = 0, Sxx = 0, Sy = 0, Sxy = 0, Syy = 0;
+  for (let k = 0; k < n; k++) {
+    Sx += x[k]!;
+    Sxx += x[k]! * x[k]!;
+    Sy += y[k]!;
+    Sxy += x[k]! * y[k]!;
+    Syy += y[k]! * y[k]!;
+  }
+  const line = fitLine(x, y);
+  // Suffix sums over k..n-1.
+  const c = new Float64Array(n + 1), s1 = new Float64Array(n + 1), s2 = new Float64Array(n + 1);
+  const sy = new Float64Array(n + 1), sxy = new Float64Array(n + 1);
+  for (let k = n - 1; k >= 0; k--) {
+    c[k] = c[k + 1]! + 1;
+    s1[k] = s1[k + 1]! + x[k]!;
+    s2[k] = s2[k + 1]! + x[k]! * x[k]!;
+    sy[k] = sy[k + 1]! + y[k]!;
+    sxy[k] = sxy[k + 1]! + x[k]! * y[k]!;
+  }
+  const lo = opts.range ? (opts.range[0] - mx) / sdx : -Infinity;
+  const hi = opts.range ? (opts.range[1] - mx) / sdx : Infinity;
+  let best: { rss: number; k: number; beta: [number, number, number]; x0: number } | null = null;
+  for (let k = minSeg; k <= n - minSeg; k++) {
+    // Breakpoint at x[k-1]: points k..n-1 form the right segment (h = x − x0 > 0 there).
+    const x0 = x[k - 1]!;
+    if (x0 < lo || x0 > hi) continue;
+    if (x[k]! === x0) continue;
+    const m = c[k]!;
+    const Sh = s1[k]! - m * x0;
+    const Shh = s2[k]! - 2 * x0 * s1[k]! + m * x0 * x0;
+    const Sxh = s2[k]! - x0 * s1[k]!;
+    const Shy = sxy[k]! - x0 * sy[k]!;
+    const beta = solve3(
+      [
+        [n, Sx, Sh],
+        [Sx, Sxx, Sxh],
+        [Sh, Sxh, Shh],
+      ],
+      [Sy, Sxy, Shy],
+    );
+    if (!beta) continue;
+    const rss = Syy - (beta[0] * Sy + beta[1] * Sxy + beta[2] * Shy);
+    if (!best || rss < best.rss) best = { rss, k, beta, x0 };
+  }
+  if (!best) return null;
+  const [a, b, cc] = best.beta;
+  const x0 = best.x0 * sdx + mx;
+  const slopeBefore = b / sdx;
+  const slopeAfter = (b + cc) / sdx;
+  const intercept = a + my - slopeBefore * mx;
+  const rss = Math.max(0, best.rss);
+  return {
+    x0,
+    intercept,
+    slopeBefore,
+    slopeAfter,
+    rss,
+    rssLine: line.rss,
+    gain: line.rss > 0 ? Math.max(0, 1 - rss / line.rss) : 0,
+    n,
+    nBefore: best.k,
+  };
+}
+
+/** The hinge model's value at x. */
+export function hingeAt(fit: HingeFit, x: number): number {
+  return fit.intercept + fit.slopeBefore * x + (fit.slopeAfter - fit.slopeBefore) * Math.max(0, x - fit.x0);
+}

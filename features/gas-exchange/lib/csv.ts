@@ -1,0 +1,250 @@
+/**
+ * Reads a gas-exchange CSV (breath-by-breath or time-averaged) into breaths with units in their names.
+ * Tolerates a byte-order mark, blank lines, semicolon or tab delimiters and decimal commas; guesses columns from common
+ * header variants; an explicit mapping overrides the guess. Bad cells become warnings and dropped rows, never a crash.
+ */
+import Papa from "papaparse";
+
+export const CHANNELS = ["time", "vo2", "vco2", "ve", "hr", "power", "speed", "rf"] as const;
+export type Channel = (typeof CHANNELS)[number];
+export const REQUIRED_CHANNELS: Channel[] = ["time", "vo2", "vco2", "ve"];
+
+export const CHANNEL_LABELS: Record<Channel, string> = {
+  time: "time",
+  vo2: "VO2",
+  vco2: "VCO2",
+  ve: "VE",
+  hr: "heart rate",
+  power: "power",
+  speed: "speed",
+  rf: "breathing frequency",
+};
+
+export interface Breath {
+  timeS: number;
+  vo2MlMin: number;
+  vco2MlMin: number;
+  veLMin: number;
+  hrBpm: number | null;
+  powerW: number | null;
+  speedKmh: number | null;
+  rfPerMin: number | null;
+}
+
+export type ColumnMapping = Partial<Record<Channel, string>>;
+
+export interface DetectedColumn {
+  header: string;
+  /** Unit the values were read in, before conversion. */
+  unit: string;
+  /** How the unit was decided. */
+  unitReason: "header" | "values" | "default";
+}
+
+export type ReadResult =
+  | { ok: true; breaths: Breath[]; columns: Partial<Record<Channel, DetectedColumn>>; headers: string[]; warnings: string[] }
+  | { ok: false; error: string; headers: string[] };
+
+function normaliseHeader(h: string): string {
+  return h
+    .toLowerCase()
+    .replace(/\(.*?\)|\[.*?\]/g, "")
+    .replace(/[’'`]/g, "")
+    .replace(/[^a-z0-9]/g, "");
+}
+
+const ALIASES: Record<Channel, string[]> = {
+  time: ["times", "time", "t", "ts", "elapsed", "elapsedtime", "timesec", "timeelapsed", "testtime"],
+  vo2: ["vo2mlmin", "vo2", "vo2lmin", "vo2stpd", "vo2abs"],
+  vco2: ["vco2mlmin", "vco2", "vco2lmin", "vco2stpd", "vco2abs"],
+  ve: ["velmin", "ve", "vebtps", "vent", "ventilation", "minuteventilation"],
+  hr: ["hrbpm", "hr", "heartrate", "pulse", "hf"],
+  power: ["powerw", "power", "load", "watts", "watt", "workrate", "wr", "work"],
+  speed: ["speedkmh", "speed", "velocity", "treadmillspeed"],
+  rf: ["rfpermin", "rf", "bf", "rr", "breathingfrequency", "respiratoryrate", "fr"],
+};
+
+function guessColumns(headers: string[]): ColumnMapping {
+  const out: ColumnMapping = {};
+  const used = new Set<string>();
+  for (const channel of CHANNELS) {
+    for (const alias of ALIASES[channel]) {
+      const hit = headers.find((h) => !used.has(h) && normaliseHeader(h) === alias);
+      if (hit) {
+        out[channel] = hit;
+        used.add(hit);
+        break;
+      }
+    }
+  }
+  return out;
+}
+
+/** Seconds from "123.4", "mm:ss", "hh:mm:ss" (fractions allowed); NaN when unreadable. */
+export function parseTime(raw: string): number {
+  const s = raw.trim();
+  if (!s) return NaN;
+  if (s.includes(":")) {
+    const parts = s.split(":");
+    if (parts.length > 3 || parts.some((p) => !/^\d+(\.\d+)?$/.test(p))) return NaN;
+    return parts.reduce((acc, p) => acc * 60 + Number(p), 0);
+  }
+  return parseNumber(s);
+}
+
+export function parseNumber(raw: string): number {
+  const s = raw.trim();
+  if (!/^[-+]?(\d+([.,]\d*)?|[.,]\d+)([eE][-+]?\d+)?$/.test(s)) return NaN;
+  return Number(s.replace(",", "."));
+}
+
+function median(values: number[]): number {
+  if (!values.length) return NaN;
+  const s = [...values].sort((a, b) => a - b);
+  const m = s.length >> 1;
+  return s.length % 2 ? s[m]! : (s[m - 1]! + s[m]!) / 2;
+}
+
+function unitFromHeader(header: string): "l" | "ml" | null {
+  const h = header.toLowerCase().replace(/\s/g, "");
+  if (/ml\/?(min|·min|\*min)|mlmin|ml\/m\b/.test(h)) return "ml";
+  if (/(^|[^m])l\/?(min|·min|\*min)|(^|[^m])lmin|\(l\)/.test(h)) return "l";
+  return null;
+}
+
+function describeRows(rows: number[]): string {
+  const shown = rows.slice(0, 5).join(", ");
+  return rows.length > 5 ? `${shown} and ${rows.length - 5} more` : shown;
+}
+
+const LIMITS = {
+  vo2MlMin: [50, 9000],
+  vco2MlMin: [50, 10000],
+  veLMin: [2, 350],
+  hrBpm: [25, 250],
+  powerW: [0, 3000],
+  speedKmh: [0, 60],
+  rfPerMin: [2, 120],
+} as const;
+
+export function readGasExchangeCsv(text: string, mapping: ColumnMapping = {}): ReadResult {
+  const clean = text.replace(/^\uFEFF/, "");
+  const parsed = Papa.parse<string[]>(clean, {
+    skipEmptyLines: "greedy",
+    delimitersToGuess: [",", ";", "\t", "|"],
+  });
+  const rows = parsed.data.filter((r) => Array.isArray(r) && r.some((c) => c.trim() !== ""));
+  const headers = (rows[0] ?? []).map((h) => h.trim());
+  if (rows.length < 2) return { ok: false, error: "The file has no data rows under a header line.", headers };
+
+  const guessed = guessColumns(headers);
+  const chosen: ColumnMapping = { ...guessed };
+  for (const [channel, header] of Object.entries(mapping) as [Channel, string | undefined][]) {
+    if (header === undefined) continue;
+    if (!headers.includes(header)) {
+      return { ok: false, error: `The mapping names a column "${header}" for ${CHANNEL_LABELS[channel]}, but the file has no such column.`, headers };
+    }
+    for (const c of CHANNELS) if (chosen[c] === header && c !== channel) delete chosen[c];
+    chosen[channel] = header;
+  }
+  const missing = REQUIRED_CHANNELS.filter((c) => !chosen[c]);
+  if (missing.length) {
+    return {
+      ok: false,
+      error: `The file has no column for ${missing.map((c) => CHANNEL_LABELS[c]).join(", ")}. Found columns: ${headers.join(", ") || "none"}. Map the columns by hand if they have other names.`,
+      headers,
+    };
+  }
+  const index = Object.fromEntries(CHANNELS.map((c) => [c, chosen[c] ? headers.indexOf(chosen[c]!) : -1])) as Record<Channel, number>;
+  const warnings: string[] = [];
+
+  const dataRows = rows.slice(1);
+  const cell = (row: string[], c: Channel) => (index[c] >= 0 ? (row[index[c]] ?? "") : "");
+  // Decide VO2/VCO2 units: header first, then the values (below 10 means L/min).
+  const columns: Partial<Record<Channel, DetectedColumn>> = {};
+  const scale: Partial<Record<Channel, number>> = {};
+  for (const c of ["vo2", "vco2"] as const) {
+    const header = chosen[c]!;
+    const fromHeader = unitFromHeader(header);
+    if (fromHeader) {
+      columns[c] = { header, unit: fromHeader === "l" ? "L/min" : "mL/min", unitReason: "header" };
+      scale[c] = fromHeader === "l" ? 1000 : 1;
+    } else {
+      const sample = dataRows.slice(0, 2000).map((r) => parseNumber(cell(r, c))).filter((v) => Number.isFinite(v) && v > 0);
+      const m = median(sample);
+      const litres = Number.isFinite(m) && m < 10;
+      columns[c] = { header, unit: litres ? "L/min" : "mL/min", unitReason: "values" };
+      scale[c] = litres ? 1000 : 1;
+      if (litres) warnings.push(`${CHANNEL_LABELS[c]} read as L/min (typical values below 10) and converted to mL/min.`);
+    }
+  }
+  const veHeader = chosen.ve!;
+  columns.ve = { header: veHeader, unit: unitFromHeader(veHeader) === "ml" ? "mL/min" : "L/min", unitReason: unitFromHeader(veHeader) ? "header" : "default" };
+  scale.ve = columns.ve.unit === "mL/min" ? 0.001 : 1;
+  columns.time = { header: chosen.time!, unit: "s", unitReason: "default" };
+  const optionalUnits: Record<"hr" | "power" | "speed" | "rf", string> = { hr: "bpm", power: "W", speed: "km/h", rf: "1/min" };
+  for (const c of ["hr", "power", "speed", "rf"] as const) {
+    if (chosen[c]) columns[c] = { header: chosen[c]!, unit: optionalUnits[c], unitReason: "default" };
+  }
+  if (chosen.speed && /m\/s|ms-1|mps/i.test(chosen.speed)) {
+    columns.speed = { header: chosen.speed, unit: "m/s", unitReason: "header" };
+    scale.speed = 3.6;
+  }
+
+  const breaths: Breath[] = [];
+  const badRequired: number[] = [];
+  const outOfRange: number[] = [];
+  const backwards: number[] = [];
+  const optionalDropped: Record<string, number> = {};
+  let lastTime = -Infinity;
+  dataRows.forEach((row, i) => {
+    const line = i + 2;
+    const timeS = parseTime(cell(row, "time"));
+    const vo2 = parseNumber(cell(row, "vo2")) * scale.vo2!;
+    const vco2 = parseNumber(cell(row, "vco2")) * scale.vco2!;
+    const ve = parseNumber(cell(row, "ve")) * scale.ve!;
+    if (![timeS, vo2, vco2, ve].every(Number.isFinite)) return void badRequired.push(line);
+    if (
+      vo2 < LIMITS.vo2MlMin[0] || vo2 > LIMITS.vo2MlMin[1] ||
+      vco2 < LIMITS.vco2MlMin[0] || vco2 > LIMITS.vco2MlMin[1] ||
+      ve < LIMITS.veLMin[0] || ve > LIMITS.veLMin[1] || timeS < 0
+    ) {
+      return void outOfRange.push(line);
+    }
+    if (timeS < lastTime) return void backwards.push(line);
+    lastTime = timeS;
+    const optional = (c: "hr" | "power" | "speed" | "rf", limits: readonly [number, number]) => {
+      if (index[c] < 0) return null;
+      const raw = cell(row, c);
+      if (raw.trim() === "") return null;
+      const v = parseNumber(raw) * (scale[c] ?? 1);
+      if (!Number.isFinite(v) || v < limits[0] || v > limits[1]) {
+        optionalDropped[c] = (optionalDropped[c] ?? 0) + 1;
+        return null;
+      }
+      return v;
+    };
+    breaths.push({
+      timeS,
+      vo2MlMin: vo2,
+      vco2MlMin: vco2,
+      veLMin: ve,
+      hrBpm: optional("hr", LIMITS.hrBpm),
+      powerW: optional("power", LIMITS.powerW),
+      speedKmh: optional("speed", LIMITS.speedKmh),
+      rfPerMin: optional("rf", LIMITS.rfPerMin),
+    });
+  });
+  if (badRequired.length) warnings.push(`${badRequired.length} row(s) dropped: missing or non-numeric time, VO2, VCO2 or VE (line ${describeRows(badRequired)}).`);
+  if (outOfRange.length) warnings.push(`${outOfRange.length} row(s) dropped: negative or physiologically impossible values (line ${describeRows(outOfRange)}).`);
+  if (backwards.length) warnings.push(`${backwards.length} row(s) dropped: time goes backwards (line ${describeRows(backwards)}).`);
+  for (const [c, count] of Object.entries(optionalDropped)) {
+    warnings.push(`${count} ${CHANNEL_LABELS[c as Channel]} value(s) ignored: not a number or out of range.`);
+  }
+  for (let i = 1; i < breaths.length; i++) {
+    const gap = breaths[i]!.timeS - breaths[i - 1]!.timeS;
+    if (gap > 30) warnings.push(`A gap of ${Math.round(gap)} s without data at ${Math.round(breaths[i - 1]!.timeS)} s.`);
+  }
+  if (breaths.length === 0) return { ok: false, error: "No usable rows: every row lacked a readable time, VO2, VCO2 or VE.", headers };
+  return { ok: true, breaths, columns, headers, warnings };
+}
