@@ -1,0 +1,121 @@
+/**
+ * The intensity budget: a target share of time per zone with a tolerance, and the weekly check of planned or completed
+ * minutes against it. Presets: polarised (about 80 % zone 1, mostly zone 3 for the rest; Seiler & Kjerland 2006, shares
+ * from memory), pyramidal (intermediate athletes: about 10 % zone 3, 10–15 % zone 2; common practice) and beginner (common
+ * practice). The volume ramp cap of 10 % a week is common practice with weak evidence (Buist et al. 2008): a caution.
+ */
+
+export type Shares = [number, number, number];
+
+export interface Budget {
+  name: string;
+  shares: Shares;
+  /** Allowed deviation of each share, as a fraction (0.05 = 5 percentage points). */
+  tolerance: number;
+}
+
+export const BUDGET_PRESETS = {
+  polarised: { name: "Polarised", shares: [0.8, 0.05, 0.15], tolerance: 0.05 },
+  pyramidal: { name: "Pyramidal", shares: [0.77, 0.13, 0.1], tolerance: 0.05 },
+  beginner: { name: "Beginner", shares: [0.9, 0.07, 0.03], tolerance: 0.05 },
+  recovery: { name: "Recovery", shares: [0.97, 0.03, 0], tolerance: 0.03 },
+} as const satisfies Record<string, Budget>;
+
+export type BudgetPreset = keyof typeof BUDGET_PRESETS;
+
+export const DEFAULT_RAMP_CAP = 0.1;
+
+export type BreachCode = "too_much_high" | "too_little_low" | "too_much_moderate" | "volume_ramp" | "no_easy_day" | "retest_overdue";
+
+export interface Breach {
+  code: BreachCode;
+  message: string;
+  numbers: Record<string, number>;
+}
+
+export interface WeekInput {
+  /** Minutes per zone for the week (planned or done). */
+  minutesByZone: Shares;
+  /** Per day of the week (7 entries, Monday first): minutes per zone. */
+  days?: Shares[];
+  /** Total minutes of the previous weeks, most recent last. */
+  previousWeeksMinutes?: number[];
+  budget: Budget;
+  rampCap?: number;
+  retestOverdue?: boolean;
+}
+
+export interface WeekCheck {
+  totalMin: number;
+  shares: Shares;
+  breaches: Breach[];
+  ok: boolean;
+}
+
+const pct = (v: number) => Math.round(v * 1000) / 10;
+const r1 = (v: number) => Math.round(v * 10) / 10;
+
+/** A day counts as easy when it has no zone 2 or zone 3 minutes (rest days are easy). */
+export function isEasyDay(day: Shares): boolean {
+  return day[1] === 0 && day[2] === 0;
+}
+
+export function checkWeek(input: WeekInput): WeekCheck {
+  const [z1, z2, z3] = input.minutesByZone;
+  const total = z1 + z2 + z3;
+  const shares: Shares = total > 0 ? [z1 / total, z2 / total, z3 / total] : [0, 0, 0];
+  const { budget } = input;
+  const tol = budget.tolerance;
+  const breaches: Breach[] = [];
+  if (total > 0) {
+    if (shares[2] > budget.shares[2] + tol) {
+      // Minutes of zone 3 to remove, or zone 1 minutes to add, to come back within the budget.
+      const maxShare = budget.shares[2] + tol;
+      const removeZ3 = z3 - (maxShare * (z1 + z2)) / (1 - maxShare);
+      const addZ1 = z3 / maxShare - total;
+      breaches.push({
+        code: "too_much_high",
+        message: `Zone 3 is ${pct(shares[2])} % of the week; the ${budget.name.toLowerCase()} budget allows ${pct(maxShare)} %. Remove about ${Math.ceil(removeZ3)} min of zone 3 or add about ${Math.ceil(addZ1)} min of zone 1.`,
+        numbers: { sharePct: pct(shares[2]), allowedPct: pct(maxShare), removeZone3Min: Math.ceil(removeZ3), addZone1Min: Math.ceil(addZ1) },
+      });
+    }
+    if (shares[1] > budget.shares[1] + tol) {
+      const maxShare = budget.shares[1] + tol;
+      breaches.push({
+        code: "too_much_moderate",
+        message: `Zone 2 is ${pct(shares[1])} % of the week; the budget allows ${pct(maxShare)} %.`,
+        numbers: { sharePct: pct(shares[1]), allowedPct: pct(maxShare) },
+      });
+    }
+    if (shares[0] < budget.shares[0] - tol) {
+      const minShare = budget.shares[0] - tol;
+      const addZ1 = (minShare * total - z1) / (1 - minShare);
+      breaches.push({
+        code: "too_little_low",
+        message: `Zone 1 is only ${pct(shares[0])} % of the week; the budget asks for at least ${pct(minShare)} %. Add about ${Math.ceil(addZ1)} min of zone 1 or turn harder minutes into easy ones.`,
+        numbers: { sharePct: pct(shares[0]), minimumPct: pct(minShare), addZone1Min: Math.ceil(addZ1) },
+      });
+    }
+  }
+  const cap = input.rampCap ?? DEFAULT_RAMP_CAP;
+  const previous = (input.previousWeeksMinutes ?? []).slice(-4).filter((m) => m > 0);
+  if (previous.length && total > 0) {
+    // Compared with the biggest of the last four weeks, so that an unloading week does not make the next loading week a breach.
+    const reference = Math.max(...previous);
+    const rise = total / reference - 1;
+    if (rise > cap + 1e-9) {
+      breaches.push({
+        code: "volume_ramp",
+        message: `Volume rises ${pct(rise)} % over the biggest of the last weeks (${Math.round(reference)} min); the cap is ${pct(cap)} %. Keep the week under ${Math.floor(reference * (1 + cap))} min.`,
+        numbers: { risePct: pct(rise), capPct: pct(cap), referenceMin: Math.round(reference), totalMin: r1(total) },
+      });
+    }
+  }
+  if (input.days && input.days.length === 7 && !input.days.some(isEasyDay)) {
+    breaches.push({ code: "no_easy_day", message: "Every day of the week has zone 2 or zone 3 work: plan at least one easy or rest day.", numbers: { easyDays: 0 } });
+  }
+  if (input.retestOverdue) {
+    breaches.push({ code: "retest_overdue", message: "The retest is overdue: the zones may no longer match the athlete's fitness.", numbers: {} });
+  }
+  return { totalMin: r1(total), shares, breaches, ok: breaches.length === 0 };
+}

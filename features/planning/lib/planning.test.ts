@@ -1,0 +1,113 @@
+import { describe, expect, it } from "vitest";
+import { BUDGET_PRESETS, checkWeek } from "./budget";
+import { expand, structureSchema } from "./session";
+import { planSeason, SeasonError } from "./season";
+
+describe("structured sessions", () => {
+  const intervals = structureSchema.parse([
+    { type: "step", kind: "warmup", durationS: 900, zone: 1 },
+    { type: "repeat", times: 5, steps: [{ type: "step", kind: "work", durationS: 240, zone: 3 }, { type: "step", kind: "recovery", durationS: 180, zone: 1 }] },
+    { type: "step", kind: "cooldown", durationS: 600, zone: 1 },
+  ]);
+
+  it("5 × (4 min zone 3, 3 min zone 1) with 15 min warm-up and 10 min cool-down: 60 min, 20 of them in zone 3 (arithmetic)", () => {
+    const e = expand(intervals);
+    expect(e.totalS).toBe(3600);
+    expect(e.minutesByZone).toEqual([40, 0, 20]);
+    expect(e.steps).toHaveLength(12);
+  });
+
+  it("nested repeats multiply out", () => {
+    const nested = structureSchema.parse([{ type: "repeat", times: 2, steps: [{ type: "repeat", times: 3, steps: [{ type: "step", kind: "work", durationS: 60, zone: 3 }] }, { type: "step", kind: "recovery", durationS: 300, zone: 1 }] }]);
+    expect(expand(nested).minutesByZone).toEqual([10, 0, 6]);
+  });
+
+  it("times distance steps from a speed per zone, and says when it cannot", () => {
+    const s = structureSchema.parse([{ type: "step", kind: "work", distanceM: 10000, zone: 1 }]);
+    expect(expand(s, { 1: 12 }).totalS).toBe(3000);
+    const e = expand(s);
+    expect(e.untimedSteps).toBe(1);
+    expect(e.warnings[0]).toMatch(/no speed/);
+  });
+
+  it("rejects impossible structures with clear messages", () => {
+    const bad = (v: unknown) => structureSchema.safeParse(v).error?.issues.map((i) => i.message).join(" | ") ?? "";
+    expect(bad([])).toMatch(/at least one step/);
+    expect(bad([{ type: "step", kind: "work", zone: 2 }])).toMatch(/either a duration or a distance/);
+    expect(bad([{ type: "step", kind: "work", durationS: 60, distanceM: 100, zone: 2 }])).toMatch(/either a duration or a distance/);
+    expect(bad([{ type: "step", kind: "sprint", durationS: 60, zone: 4 }])).toMatch(/warm-up, work|zone 1, 2 or 3/);
+    expect(bad([{ type: "repeat", times: 1, steps: [{ type: "step", kind: "work", durationS: 60, zone: 2 }] }])).toMatch(/at least twice/);
+    const deep = { type: "repeat", times: 2, steps: [{ type: "repeat", times: 2, steps: [{ type: "repeat", times: 2, steps: [{ type: "repeat", times: 2, steps: [{ type: "step", kind: "work", durationS: 10, zone: 3 }] }] }] }] };
+    expect(bad([deep])).toMatch(/nest at most 3/);
+  });
+});
+
+describe("weekly intensity budget", () => {
+  it("a polarised week within 80/5/15 ± 5 passes (Seiler & Kjerland 2006 shares, from memory)", () => {
+    const r = checkWeek({ minutesByZone: [480, 30, 90], budget: BUDGET_PRESETS.polarised });
+    expect(r.ok).toBe(true);
+    expect(r.totalMin).toBe(600);
+  });
+
+  it("too much zone 3 is flagged with the minutes to remove or add", () => {
+    // 600 min, 150 in zone 3 = 25 % vs 20 % allowed: remove 150 − 0.2·450/0.8 = 37.5 → 38 min, or add 150/0.2 − 600 = 150 min of zone 1.
+    const r = checkWeek({ minutesByZone: [420, 30, 150], budget: BUDGET_PRESETS.polarised });
+    const b = r.breaches.find((x) => x.code === "too_much_high")!;
+    expect(b.numbers).toMatchObject({ sharePct: 25, allowedPct: 20, removeZone3Min: 38, addZone1Min: 150 });
+    expect(b.message).toMatch(/Remove about 38 min of zone 3/);
+    expect(r.breaches.map((x) => x.code)).toContain("too_little_low");
+  });
+
+  it("volume ramp above 10 % of the biggest recent week is flagged (common practice, weak evidence)", () => {
+    const r = checkWeek({ minutesByZone: [560, 20, 80], previousWeeksMinutes: [500, 580, 600, 390], budget: BUDGET_PRESETS.polarised });
+    expect(r.breaches.map((b) => b.code)).toEqual([]);
+    const over = checkWeek({ minutesByZone: [600, 20, 80], previousWeeksMinutes: [500, 600, 390], budget: BUDGET_PRESETS.polarised });
+    expect(over.breaches.map((b) => b.code)).toEqual(["volume_ramp"]);
+    expect(over.breaches[0]!.numbers).toMatchObject({ risePct: 16.7, referenceMin: 600 });
+  });
+
+  it("a week without an easy day and an overdue retest are flagged", () => {
+    const hardDay: [number, number, number] = [60, 5, 10];
+    const r = checkWeek({ minutesByZone: [420, 35, 70], days: Array(7).fill(hardDay), budget: BUDGET_PRESETS.polarised, retestOverdue: true });
+    expect(r.breaches.map((b) => b.code)).toEqual(expect.arrayContaining(["no_easy_day", "retest_overdue"]));
+  });
+});
+
+describe("season planning", () => {
+  const season = planSeason({ startDate: "2027-01-06", events: [{ date: "2027-09-26", name: "Autumn marathon" }], weeklyHours: 8 });
+
+  it("orders the blocks toward the event and ends with transition", () => {
+    const order = season.map((w) => w.block).filter((b, i, a) => a[i - 1] !== b);
+    expect(order).toEqual(["general_preparation", "specific_preparation", "pre_competition", "taper", "competition", "transition"]);
+    expect(season[0]!.weekStart).toBe("2027-01-04");
+    expect(season.find((w) => w.block === "competition")!.events).toEqual(["Autumn marathon"]);
+    expect(season.filter((w) => w.block === "taper")).toHaveLength(2);
+  });
+
+  it("loads 3:1 and never raises volume more than 10 % over the biggest of the last four weeks", () => {
+    const prep = season.filter((w) => w.role === "loading" || w.role === "unloading").slice(0, 8).map((w) => w.role);
+    expect(prep).toEqual(["loading", "loading", "loading", "unloading", "loading", "loading", "loading", "unloading"]);
+    for (let i = 1; i < season.length; i++) {
+      const ref = Math.max(...season.slice(Math.max(0, i - 4), i).map((w) => w.volumeHours));
+      expect(season[i]!.volumeHours).toBeLessThanOrEqual(ref * 1.1 + 0.25);
+    }
+    expect(Math.max(...season.map((w) => w.volumeHours))).toBeLessThanOrEqual(8 * 1.3 + 0.25);
+  });
+
+  it("places retests every 12 weeks or earlier, in unloading weeks, never more than 16 apart", () => {
+    const idx = season.filter((w) => w.retest).map((w) => w.index);
+    expect(idx.length).toBeGreaterThanOrEqual(2);
+    let last = 0;
+    for (const i of idx) {
+      expect(i - last).toBeLessThanOrEqual(16);
+      expect(["unloading", "recovery"]).toContain(season[i]!.role);
+      last = i;
+    }
+  });
+
+  it("refuses impossible inputs", () => {
+    expect(() => planSeason({ startDate: "2027-01-06", events: [{ date: "2027-01-10", name: "x" }], weeklyHours: 8 })).toThrow(SeasonError);
+    expect(() => planSeason({ startDate: "2027-01-06", events: [{ date: "2027-06-10", name: "x" }], weeklyHours: 8, retestEveryWeeks: 20 })).toThrow(/12 to 16/);
+    expect(() => planSeason({ startDate: "not a date", events: [{ date: "2027-06-10", name: "x" }], weeklyHours: 8 })).toThrow(/not a date/);
+  });
+});

@@ -1,0 +1,187 @@
+/**
+ * Periodisation: from a start date, event dates and weekly hours, the season's weeks with their block, loading or unloading
+ * role, volume target, intensity budget and retests.
+ * - Loading pattern 3:1 by default (or 2:1): loading weeks rise 5 % each, never more than the ramp cap over the biggest of
+ *   the last four weeks; unloading weeks at 65 % of the week before (common practice).
+ * - Taper before each event: two weeks (75 %, then 55 % of the last loading week) when there is room, one otherwise — a
+ *   40–60 % volume reduction over about two weeks (Bosquet et al. 2007, from memory).
+ * - Blocks before the first taper: general preparation ≈ 55 %, specific ≈ 30 %, pre-competition ≈ 15 % of the weeks;
+ *   the event week is competition; two transition weeks after the last event.
+ * - Retests every 12 weeks by default (12–16), each placed in an unloading week at or before the due week.
+ */
+import { BUDGET_PRESETS, DEFAULT_RAMP_CAP, type BudgetPreset } from "./budget";
+
+export type BlockName = "general_preparation" | "specific_preparation" | "pre_competition" | "taper" | "competition" | "transition";
+
+export const BLOCK_LABELS: Record<BlockName, string> = {
+  general_preparation: "General preparation",
+  specific_preparation: "Specific preparation",
+  pre_competition: "Pre-competition",
+  taper: "Taper",
+  competition: "Competition",
+  transition: "Transition",
+};
+
+export interface SeasonInput {
+  startDate: string;
+  events: { date: string; name: string }[];
+  weeklyHours: number;
+  level?: "trained" | "beginner";
+  loadingWeeks?: 2 | 3;
+  rampCap?: number;
+  retestEveryWeeks?: number;
+}
+
+export interface SeasonWeek {
+  index: number;
+  /** Monday of the week, YYYY-MM-DD. */
+  weekStart: string;
+  block: BlockName;
+  role: "loading" | "unloading" | "taper" | "event" | "recovery";
+  volumeHours: number;
+  budget: BudgetPreset;
+  retest: boolean;
+  events: string[];
+}
+
+export class SeasonError extends Error {}
+
+const DAY_MS = 86_400_000;
+
+export function parseDate(iso: string): number {
+  if (!/^\d{4}-\d{2}-\d{2}$/.test(iso)) throw new SeasonError(`"${iso}" is not a date (YYYY-MM-DD).`);
+  const t = Date.parse(`${iso}T00:00:00Z`);
+  if (Number.isNaN(t)) throw new SeasonError(`"${iso}" is not a date.`);
+  return t;
+}
+
+export function formatDate(t: number): string {
+  return new Date(t).toISOString().slice(0, 10);
+}
+
+export function mondayOf(iso: string): string {
+  const t = parseDate(iso);
+  const dow = (new Date(t).getUTCDay() + 6) % 7;
+  return formatDate(t - dow * DAY_MS);
+}
+
+export function planSeason(input: SeasonInput): SeasonWeek[] {
+  const cap = input.rampCap ?? DEFAULT_RAMP_CAP;
+  const every = input.retestEveryWeeks ?? 12;
+  if (every < 12 || every > 16) throw new SeasonError("Retests come every 12 to 16 weeks.");
+  if (!(input.weeklyHours > 0 && input.weeklyHours <= 40)) throw new SeasonError("Weekly hours must be between 0 and 40.");
+  if (!input.events.length) throw new SeasonError("Give at least one event date.");
+  const start = parseDate(mondayOf(input.startDate));
+  const events = [...input.events].sort((a, b) => a.date.localeCompare(b.date));
+  const eventWeek = (d: string) => Math.floor((parseDate(mondayOf(d)) - start) / (7 * DAY_MS));
+  const eventWeeks = events.map((e) => eventWeek(e.date));
+  if (eventWeeks[0]! < 3) throw new SeasonError("The first event must be at least three weeks after the start.");
+  if (eventWeeks[eventWeeks.length - 1]! > 104) throw new SeasonError("A season spans at most two years.");
+  const total = eventWeeks[eventWeeks.length - 1]! + 3; // two transition weeks after the last event
+  const trained = (input.level ?? "trained") === "trained";
+  const loadingWeeks = input.loadingWeeks ?? 3;
+
+  const block: BlockName[] = new Array(total);
+  const role: SeasonWeek["role"][] = new Array(total);
+  let previousEvent = -1;
+  for (let e = 0; e < eventWeeks.length; e++) {
+    const ev = eventWeeks[e]!;
+    const room = ev - previousEvent - 1;
+    const taper = room >= 8 ? 2 : room >= 3 ? 1 : 0;
+    const prepEnd = ev - taper; // exclusive
+    const prepStart = previousEvent + 1;
+    const prep = prepEnd - prepStart;
+    for (let w = prepStart; w < prepEnd; w++) {
+      const f = (w - prepStart) / Math.max(1, prep);
+      if (e === 0) block[w] = f < 0.55 ? "general_preparation" : f < 0.85 ? "specific_preparation" : "pre_competition";
+      else block[w] = f < 0.7 ? "specific_preparation" : "pre_competition";
+    }
+    for (let w = prepEnd; w < ev; w++) {
+      block[w] = "taper";
+      role[w] = "taper";
+    }
+    block[ev] = "competition";
+    role[ev] = "event";
+    previousEvent = ev;
+  }
+  for (let w = previousEvent + 1; w < total; w++) {
+    block[w] = "transition";
+    role[w] = "recovery";
+  }
+  // Loading cycles within the preparation weeks (reset at each block change after competition).
+  let cyclePos = 0;
+  for (let w = 0; w < total; w++) {
+    if (role[w]) {
+      cyclePos = 0;
+      continue;
+    }
+    role[w] = cyclePos < loadingWeeks ? "loading" : "unloading";
+    cyclePos = (cyclePos + 1) % (loadingWeeks + 1);
+  }
+
+  const base = input.weeklyHours;
+  const ceiling = base * 1.3;
+  const volumes: number[] = [];
+  let lastLoading = base / 1.05;
+  for (let w = 0; w < total; w++) {
+    const recent = volumes.slice(-4);
+    const reference = recent.length ? Math.max(...recent) : base;
+    let v: number;
+    switch (role[w]) {
+      case "loading":
+        v = Math.min(lastLoading * 1.05, ceiling, reference * (1 + cap));
+        lastLoading = v;
+        break;
+      case "unloading":
+        v = lastLoading * 0.65;
+        break;
+      case "taper": {
+        const nextIsTaper = role[w + 1] === "taper";
+        v = lastLoading * (nextIsTaper ? 0.75 : 0.55);
+        break;
+      }
+      case "event":
+        v = lastLoading * 0.45;
+        break;
+      default:
+        v = lastLoading * 0.4;
+    }
+    volumes.push(Math.round(v * 4) / 4);
+  }
+
+  const budgetFor = (b: BlockName): BudgetPreset => {
+    if (b === "transition") return "recovery";
+    if (b === "general_preparation") return trained ? "pyramidal" : "beginner";
+    return trained ? "polarised" : "pyramidal";
+  };
+
+  // Retests: due every `every` weeks from the start; the latest unloading week at or before the due week, not before the
+  // previous retest + 8 weeks; otherwise the due week itself.
+  const retest = new Array<boolean>(total).fill(false);
+  let last = 0;
+  for (let due = every; due < total; due = last + every) {
+    let placed = -1;
+    for (let w = due; w >= Math.max(last + 8, due - 4); w--) {
+      if (role[w] === "unloading" || role[w] === "recovery") {
+        placed = w;
+        break;
+      }
+    }
+    if (placed === -1) placed = due;
+    retest[placed] = true;
+    last = placed;
+  }
+
+  return Array.from({ length: total }, (_, w) => ({
+    index: w,
+    weekStart: formatDate(start + w * 7 * DAY_MS),
+    block: block[w]!,
+    role: role[w]!,
+    volumeHours: volumes[w]!,
+    budget: budgetFor(block[w]!),
+    retest: retest[w]!,
+    events: events.filter((_, i) => eventWeeks[i] === w).map((e) => e.name),
+  }));
+}
+
+export { BUDGET_PRESETS };

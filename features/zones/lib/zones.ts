@@ -1,0 +1,102 @@
+/**
+ * Zones from the two ventilatory thresholds: the three-zone model (below VT1, VT1–VT2, above VT2; Seiler & Kjerland 2006)
+ * and an optional five-zone subdivision of our own (common practice: an easy split of zone 1 and a split of zone 2 at its
+ * midpoint). Each zone is given in every measure the thresholds carry: heart rate, power and speed/pace, with an RPE band.
+ */
+
+export type Measure = "hrBpm" | "powerW" | "speedKmh";
+export const MEASURES: Measure[] = ["hrBpm", "powerW", "speedKmh"];
+
+export interface ThresholdPoint {
+  hrBpm?: number | null;
+  powerW?: number | null;
+  speedKmh?: number | null;
+}
+
+export interface Range {
+  /** Inclusive lower bound; null = open. */
+  min: number | null;
+  /** Exclusive upper bound; null = open. */
+  max: number | null;
+}
+
+export interface Zone {
+  zone: number;
+  /** The three-zone parent (1–3). */
+  parent: 1 | 2 | 3;
+  name: string;
+  ranges: Partial<Record<Measure, Range>>;
+  /** CR-10 perceived exertion band (common practice, from memory). */
+  rpe: [number, number];
+}
+
+const THREE: { name: string; rpe: [number, number] }[] = [
+  { name: "Zone 1 · low", rpe: [1, 3] },
+  { name: "Zone 2 · moderate", rpe: [4, 6] },
+  { name: "Zone 3 · high", rpe: [7, 10] },
+];
+
+function presentMeasures(vt1: ThresholdPoint, vt2: ThresholdPoint): Measure[] {
+  return MEASURES.filter((m) => vt1[m] != null && vt2[m] != null);
+}
+
+export class ZoneError extends Error {}
+
+export function threeZones(vt1: ThresholdPoint, vt2: ThresholdPoint): Zone[] {
+  const measures = presentMeasures(vt1, vt2);
+  if (!measures.length) throw new ZoneError("Both thresholds need at least one shared measure (heart rate, power or speed).");
+  for (const m of measures) {
+    if (!(vt1[m]! < vt2[m]!)) throw new ZoneError(`VT1 must lie below VT2 (${m}: ${vt1[m]} vs ${vt2[m]}).`);
+  }
+  return THREE.map((z, i) => ({
+    zone: i + 1,
+    parent: (i + 1) as 1 | 2 | 3,
+    name: z.name,
+    rpe: z.rpe,
+    ranges: Object.fromEntries(
+      measures.map((m) => [m, i === 0 ? { min: null, max: vt1[m]! } : i === 1 ? { min: vt1[m]!, max: vt2[m]! } : { min: vt2[m]!, max: null }]),
+    ),
+  }));
+}
+
+/** Five zones: 1 below 85 % of VT1, 2 up to VT1, 3 VT1 to the VT1–VT2 midpoint, 4 up to VT2, 5 above VT2. */
+export function fiveZones(vt1: ThresholdPoint, vt2: ThresholdPoint): Zone[] {
+  const three = threeZones(vt1, vt2);
+  const measures = Object.keys(three[0]!.ranges) as Measure[];
+  const cut = (f: (m: Measure) => [number | null, number | null]) => Object.fromEntries(measures.map((m) => [m, { min: f(m)[0], max: f(m)[1] }]));
+  const mid = (m: Measure) => (vt1[m]! + vt2[m]!) / 2;
+  return [
+    { zone: 1, parent: 1, name: "Zone 1 · recovery", rpe: [1, 2], ranges: cut((m) => [null, 0.85 * vt1[m]!]) },
+    { zone: 2, parent: 1, name: "Zone 2 · endurance", rpe: [2, 3], ranges: cut((m) => [0.85 * vt1[m]!, vt1[m]!]) },
+    { zone: 3, parent: 2, name: "Zone 3 · tempo", rpe: [4, 5], ranges: cut((m) => [vt1[m]!, mid(m)]) },
+    { zone: 4, parent: 2, name: "Zone 4 · threshold", rpe: [5, 6], ranges: cut((m) => [mid(m), vt2[m]!]) },
+    { zone: 5, parent: 3, name: "Zone 5 · high", rpe: [7, 10], ranges: cut((m) => [vt2[m]!, null]) },
+  ];
+}
+
+/** The zone a value falls in for a measure (bounds: lower inclusive, upper exclusive), or null when not covered. */
+export function zoneOf(value: number, zones: Zone[], measure: Measure): number | null {
+  for (const z of zones) {
+    const r = z.ranges[measure];
+    if (!r) return null;
+    if ((r.min === null || value >= r.min) && (r.max === null || value < r.max)) return z.zone;
+  }
+  return null;
+}
+
+/** Pace in seconds per km from a speed in km/h. */
+export function paceSPerKm(speedKmh: number): number {
+  return 3600 / speedKmh;
+}
+
+export function formatPace(secondsPerKm: number): string {
+  const total = Math.round(secondsPerKm);
+  return `${Math.floor(total / 60)}:${String(total % 60).padStart(2, "0")} /km`;
+}
+
+/** The zone set in force on a date ("YYYY-MM-DD"): the latest one effective on or before it. */
+export function zoneSetInForce<T extends { effectiveFrom: string }>(sets: T[], date: string): T | null {
+  let best: T | null = null;
+  for (const s of sets) if (s.effectiveFrom <= date && (!best || s.effectiveFrom > best.effectiveFrom)) best = s;
+  return best;
+}
