@@ -92,10 +92,19 @@ export function parseTime(raw: string): number {
   return parseNumber(s);
 }
 
+/** A decimal number with a point or a decimal comma; NaN for anything else (empty, text, hexadecimal, infinities). */
 export function parseNumber(raw: string): number {
-  const s = raw.trim();
-  if (!/^[-+]?(\d+([.,]\d*)?|[.,]\d+)([eE][-+]?\d+)?$/.test(s)) return NaN;
-  return Number(s.replace(",", "."));
+  if (raw === "") return NaN;
+  const first = raw.charCodeAt(0), end = raw.charCodeAt(raw.length - 1);
+  let s = first <= 32 || end <= 32 ? raw.trim() : raw;
+  if (s === "") return NaN;
+  if (s.includes(",")) s = s.replace(",", ".");
+  // Number() also reads "0x1f", "Infinity" and "1_0"-free forms; refuse the first two explicitly.
+  const last = s.charCodeAt(s.length - 1);
+  if (!((last >= 48 && last <= 57) || last === 46)) return NaN;
+  if (s.length > 1 && (s[1] === "x" || s[1] === "X" || s[1] === "b" || s[1] === "B" || s[1] === "o" || s[1] === "O")) return NaN;
+  const n = Number(s);
+  return Number.isFinite(n) ? n : NaN;
 }
 
 function median(values: number[]): number {
@@ -133,7 +142,8 @@ export function readGasExchangeCsv(text: string, mapping: ColumnMapping = {}): R
     skipEmptyLines: "greedy",
     delimitersToGuess: [",", ";", "\t", "|"],
   });
-  const rows = parsed.data.filter((r) => Array.isArray(r) && r.some((c) => c.trim() !== ""));
+  // skipEmptyLines "greedy" already drops blank and whitespace-only lines.
+  const rows = parsed.data;
   const headers = (rows[0] ?? []).map((h) => h.trim());
   if (rows.length < 2) return { ok: false, error: "The file has no data rows under a header line.", headers };
 
@@ -170,7 +180,7 @@ export function readGasExchangeCsv(text: string, mapping: ColumnMapping = {}): R
       columns[c] = { header, unit: fromHeader === "l" ? "L/min" : "mL/min", unitReason: "header" };
       scale[c] = fromHeader === "l" ? 1000 : 1;
     } else {
-      const sample = dataRows.slice(0, 2000).map((r) => parseNumber(cell(r, c))).filter((v) => Number.isFinite(v) && v > 0);
+      const sample = dataRows.slice(0, 300).map((r) => parseNumber(cell(r, c))).filter((v) => Number.isFinite(v) && v > 0);
       const m = median(sample);
       const litres = Number.isFinite(m) && m < 10;
       columns[c] = { header, unit: litres ? "L/min" : "mL/min", unitReason: "values" };
@@ -197,44 +207,59 @@ export function readGasExchangeCsv(text: string, mapping: ColumnMapping = {}): R
   const backwards: number[] = [];
   const optionalDropped: Record<string, number> = {};
   let lastTime = -Infinity;
-  dataRows.forEach((row, i) => {
+  const iTime = index.time, iVo2 = index.vo2, iVco2 = index.vco2, iVe = index.ve;
+  const optionalColumns = (["hr", "power", "speed", "rf"] as const).map((c) => ({
+    c,
+    at: index[c],
+    scale: scale[c] ?? 1,
+    limits: LIMITS[({ hr: "hrBpm", power: "powerW", speed: "speedKmh", rf: "rfPerMin" } as const)[c]],
+  }));
+  const optionalValues: (number | null)[] = [null, null, null, null];
+  for (let i = 0; i < dataRows.length; i++) {
+    const row = dataRows[i]!;
     const line = i + 2;
-    const timeS = parseTime(cell(row, "time"));
-    const vo2 = parseNumber(cell(row, "vo2")) * scale.vo2!;
-    const vco2 = parseNumber(cell(row, "vco2")) * scale.vco2!;
-    const ve = parseNumber(cell(row, "ve")) * scale.ve!;
-    if (![timeS, vo2, vco2, ve].every(Number.isFinite)) return void badRequired.push(line);
+    const timeS = parseTime(row[iTime] ?? "");
+    const vo2 = parseNumber(row[iVo2] ?? "") * scale.vo2!;
+    const vco2 = parseNumber(row[iVco2] ?? "") * scale.vco2!;
+    const ve = parseNumber(row[iVe] ?? "") * scale.ve!;
+    if (!(Number.isFinite(timeS) && Number.isFinite(vo2) && Number.isFinite(vco2) && Number.isFinite(ve))) {
+      badRequired.push(line);
+      continue;
+    }
     if (
       vo2 < LIMITS.vo2MlMin[0] || vo2 > LIMITS.vo2MlMin[1] ||
       vco2 < LIMITS.vco2MlMin[0] || vco2 > LIMITS.vco2MlMin[1] ||
       ve < LIMITS.veLMin[0] || ve > LIMITS.veLMin[1] || timeS < 0
     ) {
-      return void outOfRange.push(line);
+      outOfRange.push(line);
+      continue;
     }
-    if (timeS < lastTime) return void backwards.push(line);
+    if (timeS < lastTime) {
+      backwards.push(line);
+      continue;
+    }
     lastTime = timeS;
-    const optional = (c: "hr" | "power" | "speed" | "rf", limits: readonly [number, number]) => {
-      if (index[c] < 0) return null;
-      const raw = cell(row, c);
-      if (raw.trim() === "") return null;
-      const v = parseNumber(raw) * (scale[c] ?? 1);
-      if (!Number.isFinite(v) || v < limits[0] || v > limits[1]) {
-        optionalDropped[c] = (optionalDropped[c] ?? 0) + 1;
-        return null;
-      }
-      return v;
-    };
+    for (let k = 0; k < 4; k++) {
+      const col = optionalColumns[k]!;
+      optionalValues[k] = null;
+      if (col.at < 0) continue;
+      const raw = row[col.at] ?? "";
+      if (raw === "" || raw.trim() === "") continue;
+      const v = parseNumber(raw) * col.scale;
+      if (!Number.isFinite(v) || v < col.limits[0] || v > col.limits[1]) optionalDropped[col.c] = (optionalDropped[col.c] ?? 0) + 1;
+      else optionalValues[k] = v;
+    }
     breaths.push({
       timeS,
       vo2MlMin: vo2,
       vco2MlMin: vco2,
       veLMin: ve,
-      hrBpm: optional("hr", LIMITS.hrBpm),
-      powerW: optional("power", LIMITS.powerW),
-      speedKmh: optional("speed", LIMITS.speedKmh),
-      rfPerMin: optional("rf", LIMITS.rfPerMin),
+      hrBpm: optionalValues[0]!,
+      powerW: optionalValues[1]!,
+      speedKmh: optionalValues[2]!,
+      rfPerMin: optionalValues[3]!,
     });
-  });
+  }
   if (badRequired.length) warnings.push(`${badRequired.length} row(s) dropped: missing or non-numeric time, VO2, VCO2 or VE (line ${describeRows(badRequired)}).`);
   if (outOfRange.length) warnings.push(`${outOfRange.length} row(s) dropped: negative or physiologically impossible values (line ${describeRows(outOfRange)}).`);
   if (backwards.length) warnings.push(`${backwards.length} row(s) dropped: time goes backwards (line ${describeRows(backwards)}).`);

@@ -1,0 +1,64 @@
+/**
+ * `npm run bench`: speed as ratios against a floor measured in the same run, never as absolute times.
+ * - Gas-exchange analysis of a 60-minute 1 Hz CSV against papaparse parsing the same file (target ≤ 1.5).
+ * - Expanding a structured session, and checking a season's weekly budgets, against the same floor.
+ */
+import Papa from "papaparse";
+import { analyzeCsv } from "../features/gas-exchange/lib/analyze";
+import { checkWeek, BUDGET_PRESETS } from "../features/planning/lib/budget";
+import { planSeason } from "../features/planning/lib/season";
+import { expand, structureSchema } from "../features/planning/lib/session";
+import { syntheticRamp } from "../test/support/synthetic-ramp";
+
+function timeIt(fn: () => void, minMs = 400): number {
+  for (let i = 0; i < 3; i++) fn(); // warm up
+  let runs = 0;
+  const start = performance.now();
+  while (performance.now() - start < minMs) {
+    fn();
+    runs++;
+  }
+  return (performance.now() - start) / runs;
+}
+
+/** A 60-minute test sampled at 1 Hz: 45 min steady, then a 15-min ramp (rows are one second apart). */
+function sixtyMinuteCsv(): string {
+  const { rows } = syntheticRamp({ seed: 42, warmupS: 2700, warmupW: 150, rampWPerMin: 15, peakW: 375, recoveryS: 0 });
+  const lines = ["time_s,vo2_ml_min,vco2_ml_min,ve_l_min,hr_bpm,power_w,rf_per_min"];
+  let j = 0;
+  for (let t = 0; t < 3600; t++) {
+    while (j < rows.length - 1 && rows[j + 1]![0]! <= t) j++;
+    const r = rows[j]!;
+    lines.push([t, r[1]!.toFixed(0), r[2]!.toFixed(0), r[3]!.toFixed(1), r[4]!.toFixed(0), r[5]!.toFixed(0), r[6]!.toFixed(0)].join(","));
+  }
+  return lines.join("\n") + "\n";
+}
+
+const csv = sixtyMinuteCsv();
+const floor = timeIt(() => Papa.parse(csv, { skipEmptyLines: "greedy" }));
+const analysis = timeIt(() => {
+  const a = analyzeCsv(csv);
+  if (!a.ok) throw new Error(a.error);
+});
+
+const session = structureSchema.parse([
+  { type: "step", kind: "warmup", durationS: 900, zone: 1 },
+  { type: "repeat", times: 6, steps: [{ type: "repeat", times: 3, steps: [{ type: "step", kind: "work", durationS: 60, zone: 3 }, { type: "step", kind: "recovery", durationS: 60, zone: 1 }] }, { type: "step", kind: "recovery", durationS: 300, zone: 1 }] },
+  { type: "step", kind: "cooldown", durationS: 600, zone: 1 },
+]);
+const expansion = timeIt(() => expand(session));
+const season = planSeason({ startDate: "2027-01-04", events: [{ date: "2027-10-03", name: "Event" }], weeklyHours: 9 });
+const seasonCheck = timeIt(() => {
+  const previous: number[] = [];
+  for (const w of season) {
+    const total = w.volumeHours * 60;
+    checkWeek({ minutesByZone: [total * 0.8, total * 0.05, total * 0.15], previousWeeksMinutes: previous, budget: BUDGET_PRESETS[w.budget] });
+    previous.push(total);
+  }
+});
+
+const ratio = (x: number) => (x / floor).toFixed(3);
+console.log(`floor: papaparse parsing a 60-minute 1 Hz CSV (${(csv.length / 1024).toFixed(0)} KB), measured in this run = 1`);
+console.log(`gas-exchange analysis of the same file: ${ratio(analysis)} × floor (target ≤ 1.5) ${analysis / floor <= 1.5 ? "OK" : "ABOVE TARGET"}`);
+console.log(`expanding a 6 × (3 × (1 min, 1 min), 5 min) session: ${ratio(expansion)} × floor`);
+console.log(`checking a ${season.length}-week season's budgets: ${ratio(seasonCheck)} × floor`);
