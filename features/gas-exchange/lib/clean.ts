@@ -111,10 +111,22 @@ function averageGroup(breaths: Breath[], from: number, to: number): Breath {
     vo2 += b.vo2MlMin;
     vco2 += b.vco2MlMin;
     ve += b.veLMin;
-    if (b.hrBpm !== null) (hr += b.hrBpm), hrN++;
-    if (b.powerW !== null) (p += b.powerW), pN++;
-    if (b.speedKmh !== null) (sp += b.speedKmh), spN++;
-    if (b.rfPerMin !== null) (rf += b.rfPerMin), rfN++;
+    if (b.hrBpm !== null) {
+      hr += b.hrBpm;
+      hrN++;
+    }
+    if (b.powerW !== null) {
+      p += b.powerW;
+      pN++;
+    }
+    if (b.speedKmh !== null) {
+      sp += b.speedKmh;
+      spN++;
+    }
+    if (b.rfPerMin !== null) {
+      rf += b.rfPerMin;
+      rfN++;
+    }
   }
   const n = to - from;
   return {
