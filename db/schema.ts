@@ -2,6 +2,7 @@ import { sql } from "drizzle-orm";
 import {
   bigint,
   boolean,
+  customType,
   check,
   index,
   integer,
@@ -12,6 +13,7 @@ import {
   real,
   text,
   timestamp,
+  uniqueIndex,
 } from "drizzle-orm/pg-core";
 
 const createdAt = () => timestamp("created_at", { withTimezone: true }).notNull().defaultNow();
@@ -200,4 +202,108 @@ export const outbox = pgTable(
     createdAt: createdAt(),
   },
   (t) => [index("outbox_to_idx").on(t.to)],
+);
+
+// ---------------------------------------------------------------------------------------------------------------------
+// Screening, tests, stored files and zone sets
+// ---------------------------------------------------------------------------------------------------------------------
+
+/** A readiness questionnaire answered before testing; each save is kept with its date. */
+export const screening = pgTable(
+  "screening",
+  {
+    id: text("id").primaryKey(),
+    athleteId: text("athlete_id")
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
+    answers: jsonb("answers").$type<Record<string, boolean>>().notNull(),
+    anyYes: boolean("any_yes").notNull(),
+    notes: text("notes"),
+    recordedBy: text("recorded_by")
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
+    createdAt: createdAt(),
+  },
+  (t) => [index("screening_athlete_idx").on(t.athleteId, t.createdAt)],
+);
+
+export const testKind = pgEnum("test_kind", ["gas_exchange", "talk", "submax", "manual"]);
+export const testEnd = pgEnum("test_end", ["exhaustion", "plan", "stop_sign"]);
+
+export const athleteTest = pgTable(
+  "athlete_test",
+  {
+    id: text("id").primaryKey(),
+    athleteId: text("athlete_id")
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
+    kind: testKind("kind").notNull(),
+    sport: text("sport").notNull(),
+    protocol: text("protocol").notNull(),
+    testDate: text("test_date").notNull(),
+    endedBy: testEnd("ended_by").notNull(),
+    stopSign: text("stop_sign"),
+    bodyMassKg: real("body_mass_kg"),
+    /** What was entered: talk-test stages, submaximal stages, the CSV column mapping. */
+    input: jsonb("input").$type<Record<string, unknown>>().notNull(),
+    /** The engine's full result (analysis points for the charts, peak, warnings). */
+    result: jsonb("result").$type<Record<string, unknown>>().notNull(),
+    /** Thresholds as detected, and as adjusted by a coach (null until adjusted). */
+    detected: jsonb("detected").$type<ThresholdPair>().notNull(),
+    adjusted: jsonb("adjusted").$type<ThresholdPair>(),
+    adjustedBy: text("adjusted_by").references(() => user.id, { onDelete: "set null" }),
+    adjustedAt: timestamp("adjusted_at", { withTimezone: true }),
+    createdBy: text("created_by")
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
+    createdAt: createdAt(),
+  },
+  (t) => [index("athlete_test_athlete_idx").on(t.athleteId, t.testDate)],
+);
+
+export interface ThresholdValues {
+  timeS?: number | null;
+  vo2MlMin?: number | null;
+  hrBpm?: number | null;
+  powerW?: number | null;
+  speedKmh?: number | null;
+}
+export interface ThresholdPair {
+  vt1: ThresholdValues | null;
+  vt2: ThresholdValues | null;
+}
+
+const bytea = customType<{ data: Buffer; driverData: Buffer }>({ dataType: () => "bytea" });
+
+/** The original uploaded file, kept in PostgreSQL. */
+export const testFile = pgTable("test_file", {
+  testId: text("test_id")
+    .primaryKey()
+    .references(() => athleteTest.id, { onDelete: "cascade" }),
+  filename: text("filename").notNull(),
+  contentType: text("content_type").notNull(),
+  sizeBytes: integer("size_bytes").notNull(),
+  data: bytea("data").notNull(),
+  createdAt: createdAt(),
+});
+
+export const zoneSet = pgTable(
+  "zone_set",
+  {
+    id: text("id").primaryKey(),
+    athleteId: text("athlete_id")
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
+    sport: text("sport").notNull(),
+    testId: text("test_id").references(() => athleteTest.id, { onDelete: "set null" }),
+    effectiveFrom: text("effective_from").notNull(),
+    model: text("model").notNull().default("three"),
+    vt1: jsonb("vt1").$type<ThresholdValues>().notNull(),
+    vt2: jsonb("vt2").$type<ThresholdValues>().notNull(),
+    source: text("source").notNull(),
+    createdBy: text("created_by").references(() => user.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [index("zone_set_athlete_idx").on(t.athleteId, t.sport, t.effectiveFrom), uniqueIndex("zone_set_test_idx").on(t.testId)],
 );

@@ -8,7 +8,7 @@ import { analyzeCsv } from "../features/gas-exchange/lib/analyze";
 import { checkWeek, BUDGET_PRESETS } from "../features/planning/lib/budget";
 import { planSeason } from "../features/planning/lib/season";
 import { expand, structureSchema } from "../features/planning/lib/session";
-import { syntheticRamp } from "../test/support/synthetic-ramp";
+import { syntheticRamp } from "../features/gas-exchange/lib/synthetic-ramp";
 
 function timeIt(fn: () => void, minMs = 400): number {
   for (let i = 0; i < 3; i++) fn(); // warm up

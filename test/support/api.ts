@@ -11,6 +11,7 @@ type RouteModule = Partial<Record<"GET" | "POST" | "PATCH" | "PUT" | "DELETE", u
 export interface CallOptions {
   body?: unknown;
   rawBody?: string;
+  form?: FormData;
   params?: Record<string, string>;
   headers?: Record<string, string>;
   query?: string;
@@ -26,10 +27,17 @@ export class Browser {
     if (!handler) throw new Error(`${method} is not exported for ${path}`);
     const headers: Record<string, string> = { origin: ORIGIN, "x-forwarded-for": this.ip, ...opts.headers };
     if (this.cookie) headers.cookie = this.cookie;
-    let body: string | undefined;
-    if (opts.rawBody !== undefined) body = opts.rawBody;
+    let body: BodyInit | undefined;
+    if (opts.form) {
+      // Serialise the form once, so that the multipart boundary and length are set as a browser would.
+      const probe = new Request(ORIGIN, { method: "POST", body: opts.form });
+      headers["content-type"] = probe.headers.get("content-type")!;
+      const bytes = new Uint8Array(await probe.arrayBuffer());
+      headers["content-length"] = String(bytes.length);
+      body = bytes;
+    } else if (opts.rawBody !== undefined) body = opts.rawBody;
     else if (opts.body !== undefined) body = JSON.stringify(opts.body);
-    if (body !== undefined) headers["content-type"] = "application/json";
+    if (body !== undefined && !opts.form) headers["content-type"] ??= "application/json";
     const req = new Request(`${ORIGIN}${path}${opts.query ?? ""}`, { method, headers, body });
     const res = await handler(req, { params: Promise.resolve(opts.params ?? {}) });
     const setCookies = res.headers.getSetCookie();

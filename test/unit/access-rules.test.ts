@@ -1,6 +1,7 @@
 // Access rules, role by role, as PRODUCT.md's role table states them (the product's own specification).
 import { describe, expect, it } from "vitest";
 import {
+  canCoachAthlete,
   canEditAthlete,
   canManageSquad,
   canOperateSite,
@@ -75,5 +76,16 @@ describe("squad rules", () => {
   it("coached squads leave out squads where the actor is an athlete", () => {
     const both: Actor = { userId: "m", isAdmin: false, memberships: [{ squadId: "s1", role: "coach" }, { squadId: "s3", role: "athlete" }] };
     expect(coachedSquadIds(both)).toEqual(["s1"]);
+  });
+});
+
+describe("coaching an athlete (tests, zones, plans)", () => {
+  it("is for the athlete's coaches, not the athlete, other athletes or outsiders", () => {
+    expect(canCoachAthlete(actors.headCoach!, athleteA)).toBe(true);
+    expect(canCoachAthlete(actors.coach!, athleteA)).toBe(true);
+    expect(canCoachAthlete(actors.athleteA!, athleteA)).toBe(false);
+    expect(canCoachAthlete(actors.athleteB!, athleteA)).toBe(false);
+    expect(canCoachAthlete(actors.otherCoach!, athleteA)).toBe(false);
+    expect(canCoachAthlete(actors.admin!, athleteA)).toBe(false);
   });
 });

@@ -1,10 +1,10 @@
-// The analysis command on generated files (synthetic ramps, model in test/support/synthetic-ramp.ts).
+// The analysis command on generated files (synthetic ramps, model in features/gas-exchange/lib/synthetic-ramp.ts).
 import { spawnSync } from "node:child_process";
 import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { syntheticRamp } from "@/test/support/synthetic-ramp";
+import { syntheticRamp } from "@/features/gas-exchange/lib/synthetic-ramp";
 
 let dir = "";
 const run = (args: string[]) =>

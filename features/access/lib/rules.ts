@@ -45,9 +45,14 @@ export function canViewAthlete(actor: Actor, target: AthleteTarget): boolean {
   return athleteSquads(target).some((squadId) => isCoachOf(actor, squadId));
 }
 
-/** Edit tests, zones, plans and sessions of an athlete: their coaches. The athlete edits their own profile and logs. */
+/** Edit an athlete's profile and own records: the athlete, or a coach of a squad the athlete belongs to. */
 export function canEditAthlete(actor: Actor, target: AthleteTarget): boolean {
   return canViewAthlete(actor, target);
+}
+
+/** Coach an athlete — record tests, set zones, plan sessions: a coach of a squad the athlete belongs to, not the athlete. */
+export function canCoachAthlete(actor: Actor, target: AthleteTarget): boolean {
+  return athleteSquads(target).some((squadId) => isCoachOf(actor, squadId));
 }
 
 /** See the roster of a squad: its coaches. */

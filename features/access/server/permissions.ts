@@ -4,6 +4,7 @@ import { getDb, schema } from "@/db/client";
 import { getAuth } from "@/features/auth/server/auth";
 import { HttpError, notFound, unauthenticated, forbidden } from "@/features/platform/server/http";
 import {
+  canCoachAthlete,
   canEditAthlete,
   canManageSquad,
   canViewAthlete,
@@ -56,10 +57,11 @@ async function loadTarget(athleteId: string): Promise<AthleteTarget> {
  * May this actor see (or edit) this athlete? A forbidden athlete answers 404, so that the existence of athletes outside
  * the actor's squads is not revealed.
  */
-export async function requireAthleteAccess(actor: Actor, athleteId: string, action: "view" | "edit"): Promise<void> {
+export async function requireAthleteAccess(actor: Actor, athleteId: string, action: "view" | "edit" | "coach"): Promise<void> {
   const target = await loadTarget(athleteId);
-  const allowed = action === "view" ? canViewAthlete(actor, target) : canEditAthlete(actor, target);
-  if (!allowed) throw notFound("No such athlete.");
+  if (!canViewAthlete(actor, target)) throw notFound("No such athlete.");
+  if (action === "edit" && !canEditAthlete(actor, target)) throw forbidden();
+  if (action === "coach" && !canCoachAthlete(actor, target)) throw forbidden("Only the athlete's coaches may do this.");
 }
 
 export function requireSquadManager(actor: Actor, squadId: string): void {

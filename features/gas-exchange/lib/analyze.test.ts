@@ -1,9 +1,9 @@
 import { describe, expect, it } from "vitest";
-import { syntheticRamp } from "@/test/support/synthetic-ramp";
+import { syntheticRamp } from "@/features/gas-exchange/lib/synthetic-ramp";
 import { analyzeCsv } from "./analyze";
 
 // Threshold detection against synthetic ramps whose thresholds are known by construction (model documented in
-// test/support/synthetic-ramp.ts: ACSM leg-cycling VO2, V-slope and VE/VCO2 breakpoints after Beaver, Wasserman & Whipp 1986).
+// features/gas-exchange/lib/synthetic-ramp.ts: ACSM leg-cycling VO2, V-slope and VE/VCO2 breakpoints after Beaver, Wasserman & Whipp 1986).
 // Tolerances (ours): VT1 within 10 % of the true VO2, VT2 within 8 %, peak VO2 within 5 %, on at least 85 % of 40 tests.
 
 function cases() {

@@ -102,6 +102,10 @@ function localMean(points: Breath[], t: number, halfS: number, f: (b: Breath) =>
   return c ? s / c : null;
 }
 
+function nearest(points: Breath[], t: number): Breath {
+  return points.reduce((best, p) => (Math.abs(p.timeS - t) < Math.abs(best.timeS - t) ? p : best), points[0]!);
+}
+
 /** The time at which a rising signal reaches `value`: median time of the points within 3 % of it. */
 function timeAtValue(points: Breath[], value: number, f: (b: Breath) => number): number {
   let near = points.filter((p) => Math.abs(f(p) - value) <= 0.03 * value).map((p) => p.timeS);
@@ -142,12 +146,17 @@ function confidenceOf(fit: HingeFit, slopeRatio: number, agreementPct: number | 
   return round(0.35 * fitScore + 0.25 * slopeScore + 0.4 * agreementScore, 2);
 }
 
+/** The numbers at a moment of the test (means over ±15 s): used for detected thresholds and while a coach drags a marker. */
+export function valuesAt(points: Breath[], t: number, bodyMassKg?: number | null) {
+  return describeAt(points, t, bodyMassKg);
+}
+
 function describeAt(points: Breath[], t: number, bodyMassKg: number | null | undefined) {
-  const vo2 = localMean(points, t, 15, (p) => p.vo2MlMin)!;
+  const vo2 = localMean(points, t, 15, (p) => p.vo2MlMin) ?? nearest(points, t).vo2MlMin;
   return {
     vo2MlMin: round(vo2),
     vo2MlKgMin: bodyMassKg ? round(vo2 / bodyMassKg, 1) : null,
-    vco2MlMin: round(localMean(points, t, 15, (p) => p.vco2MlMin)!),
+    vco2MlMin: round(localMean(points, t, 15, (p) => p.vco2MlMin) ?? nearest(points, t).vco2MlMin),
     hrBpm: ((v) => (v === null ? null : round(v)))(localMean(points, t, 15, (p) => p.hrBpm)),
     powerW: ((v) => (v === null ? null : round(v)))(localMean(points, t, 15, (p) => p.powerW)),
     speedKmh: ((v) => (v === null ? null : round(v, 1)))(localMean(points, t, 15, (p) => p.speedKmh)),

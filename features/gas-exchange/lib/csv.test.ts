@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { syntheticRamp } from "@/test/support/synthetic-ramp";
+import { syntheticRamp } from "@/features/gas-exchange/lib/synthetic-ramp";
 import { parseTime, readGasExchangeCsv } from "./csv";
 
 describe("reading gas-exchange CSV files", () => {

@@ -1,5 +1,6 @@
 /**
- * Synthetic cycle-ergometer ramp tests with known thresholds, for testing threshold detection.
+ * Synthetic cycle-ergometer ramp tests with known thresholds: the test suite checks threshold detection against them, and
+ * the demo uses them as its invented lab files.
  *
  * The model (documented so that the checks are reproducible):
  * - Protocol: `warmupS` at `warmupW`, then a ramp of `rampWPerMin` up to `peakW`, then `recoveryS` at 30 W.

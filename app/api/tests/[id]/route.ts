@@ -1,0 +1,14 @@
+import { requireActor } from "@/features/access/server/permissions";
+import { getTest } from "@/features/athlete-tests/server/tests";
+import { json, parseParams, route } from "@/features/platform/server/http";
+import { idParam } from "@/features/squads/schemas";
+
+export const dynamic = "force-dynamic";
+
+type Ctx = { params: Promise<{ id: string }> };
+
+export const GET = route<Ctx>(async (req, ctx) => {
+  const actor = await requireActor(req.headers);
+  const { id } = parseParams(await ctx.params, idParam);
+  return json(await getTest(actor, id));
+});

@@ -1,0 +1,16 @@
+import { requireActor } from "@/features/access/server/permissions";
+import { thresholdPatchSchema } from "@/features/athlete-tests/schemas";
+import { adjustThresholds } from "@/features/athlete-tests/server/tests";
+import { json, parseParams, readJson, route } from "@/features/platform/server/http";
+import { idParam } from "@/features/squads/schemas";
+
+export const dynamic = "force-dynamic";
+
+type Ctx = { params: Promise<{ id: string }> };
+
+export const PATCH = route<Ctx>(async (req, ctx) => {
+  const actor = await requireActor(req.headers);
+  const { id } = parseParams(await ctx.params, idParam);
+  const body = await readJson(req, thresholdPatchSchema);
+  return json(await adjustThresholds(actor, id, body));
+});

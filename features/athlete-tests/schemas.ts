@@ -1,0 +1,98 @@
+import { z } from "zod";
+import { SPORTS } from "@/features/athletes/schemas";
+import { submaxSchema } from "@/features/field-tests/lib/submax";
+import { talkTestSchema } from "@/features/field-tests/lib/talk-test";
+import { CHANNELS } from "@/features/gas-exchange/lib/csv";
+
+/** Readiness questions before a test (our wording, in the spirit of common pre-participation screens). */
+export const SCREENING_QUESTIONS = [
+  { id: "heart", text: "Has a doctor ever said you have a heart condition, or that you should exercise only under medical supervision?" },
+  { id: "chest_pain", text: "Do you get chest pain or pressure at rest, in daily life or when you exercise?" },
+  { id: "dizziness", text: "Have you lost your balance from dizziness, fainted or lost consciousness in the past year?" },
+  { id: "bone_joint", text: "Do you have a bone, joint or muscle problem that hard exercise could make worse?" },
+  { id: "medication", text: "Do you take medicine for blood pressure or a heart condition?" },
+  { id: "pregnancy", text: "Are you pregnant, or have you given birth in the past six months?" },
+  { id: "other", text: "Is there any other reason you should not take part in a hard exercise test?" },
+] as const;
+
+export type ScreeningQuestionId = (typeof SCREENING_QUESTIONS)[number]["id"];
+
+export const screeningSchema = z.object({
+  answers: z.object(
+    Object.fromEntries(SCREENING_QUESTIONS.map((q) => [q.id, z.boolean({ error: "Answer yes or no." })])) as Record<ScreeningQuestionId, z.ZodBoolean>,
+    { error: "Answer every question." },
+  ),
+  notes: z.string().trim().max(1000, "Keep the notes under 1000 characters.").optional(),
+});
+
+/** Signs for stopping a test (our wording of the usual indications, after the ACSM Guidelines' list; from memory). */
+export const STOP_SIGNS = [
+  { id: "chest_pain", text: "Chest pain, pressure or angina-like discomfort" },
+  { id: "blood_pressure", text: "Blood pressure falls as work rises, or climbs very high (systolic above 250 or diastolic above 115 mmHg)" },
+  { id: "heart_rate", text: "Heart rate fails to rise with the workload, or the rhythm becomes irregular" },
+  { id: "poor_perfusion", text: "Signs of poor perfusion: pallor, bluish lips or skin, cold and clammy skin" },
+  { id: "confusion", text: "Confusion, dizziness, unsteadiness or sudden silence" },
+  { id: "severe_fatigue", text: "Severe fatigue or breathlessness out of proportion to the work" },
+  { id: "equipment", text: "Equipment failure" },
+  { id: "request", text: "The athlete asks to stop" },
+] as const;
+
+export const STOP_SIGN_IDS = STOP_SIGNS.map((s) => s.id) as [string, ...string[]];
+
+const isoDate = z
+  .string()
+  .regex(/^\d{4}-\d{2}-\d{2}$/, "Enter the date as YYYY-MM-DD.")
+  .refine((d) => !Number.isNaN(Date.parse(`${d}T00:00:00Z`)), "Enter a real calendar date.");
+
+export const testMetaSchema = z
+  .object({
+    sport: z.enum(SPORTS, { error: "Choose the sport of the test." }),
+    protocol: z.string().trim().min(2, "Describe the protocol (for example: ramp 25 W/min).").max(200, "Keep the protocol under 200 characters."),
+    date: isoDate,
+    endedBy: z.enum(["exhaustion", "plan", "stop_sign"], { error: "Say how the test ended." }),
+    stopSign: z.enum(STOP_SIGN_IDS, { error: "Choose which stop sign ended the test." }).nullable().optional(),
+  })
+  .refine((m) => m.endedBy !== "stop_sign" || !!m.stopSign, { path: ["stopSign"], message: "Choose which stop sign ended the test." });
+
+const thresholdEntry = z
+  .object({
+    hrBpm: z.number().int().min(60, "Heart rate must be at least 60 bpm.").max(230, "Heart rate must be at most 230 bpm.").nullable().optional(),
+    powerW: z.number().positive("Power must be above 0 W.").max(2500, "Power must be at most 2500 W.").nullable().optional(),
+    speedKmh: z.number().positive("Speed must be above 0 km/h.").max(45, "Speed must be at most 45 km/h.").nullable().optional(),
+  })
+  .refine((t) => t.hrBpm != null || t.powerW != null || t.speedKmh != null, { message: "Give at least a heart rate, a power or a speed." });
+
+export const jsonTestSchema = z.discriminatedUnion("kind", [
+  z.object({ kind: z.literal("talk"), meta: testMetaSchema, talk: talkTestSchema, fiveZones: z.boolean().optional() }),
+  z.object({ kind: z.literal("submax"), meta: testMetaSchema, submax: submaxSchema }),
+  z.object({ kind: z.literal("manual"), meta: testMetaSchema, vt1: thresholdEntry, vt2: thresholdEntry, fiveZones: z.boolean().optional() }),
+], { error: "The test kind must be talk, submax or manual (gas-exchange tests are uploaded as a file)." });
+
+export type JsonTestInput = z.infer<typeof jsonTestSchema>;
+
+export const mappingSchema = z
+  .record(z.enum(CHANNELS), z.string().min(1).max(200))
+  .refine((m) => Object.keys(m).length <= CHANNELS.length, "Too many mapped columns.");
+
+export const uploadFieldsSchema = testMetaSchema.and(
+  z.object({
+    mapping: mappingSchema.optional(),
+    bodyMassKg: z.number().gt(20, "Body mass must be above 20 kg.").lt(300, "Body mass must be below 300 kg.").nullable().optional(),
+    fiveZones: z.boolean().optional(),
+  }),
+);
+
+export const MAX_UPLOAD_BYTES = 10 * 1024 * 1024;
+
+const adjustedPoint = z.union([
+  z.object({ timeS: z.number().min(0, "Time must be 0 s or later.").max(6 * 3600) }),
+  thresholdEntry,
+]);
+
+export const thresholdPatchSchema = z.object({
+  vt1: adjustedPoint.nullable(),
+  vt2: adjustedPoint.nullable(),
+  fiveZones: z.boolean().optional(),
+});
+
+export type ThresholdPatch = z.infer<typeof thresholdPatchSchema>;

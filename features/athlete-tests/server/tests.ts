@@ -1,0 +1,273 @@
+import "server-only";
+import { randomUUID } from "node:crypto";
+import { desc, eq } from "drizzle-orm";
+import { getDb, schema } from "@/db/client";
+import type { ThresholdPair, ThresholdValues } from "@/db/schema";
+import { requireAthleteAccess } from "@/features/access/server/permissions";
+import type { Actor } from "@/features/access/lib/rules";
+import { estimateVo2Max } from "@/features/field-tests/lib/submax";
+import { analyzeTalkTest } from "@/features/field-tests/lib/talk-test";
+import { analyzeCsv, valuesAt, type Threshold } from "@/features/gas-exchange/lib/analyze";
+import type { Breath, ColumnMapping } from "@/features/gas-exchange/lib/csv";
+import { fuelProfile } from "@/features/physiology/lib/fuel";
+import { HttpError, notFound } from "@/features/platform/server/http";
+import { saveZoneSetForTest, zonesFor, type ZoneSetView } from "@/features/zones/server/zone-sets";
+import type { z } from "zod";
+import type { JsonTestInput, testMetaSchema, ThresholdPatch } from "../schemas";
+
+type Meta = z.infer<typeof testMetaSchema>;
+
+/** Compact chart points: [timeS, vo2MlMin, vco2MlMin, veLMin, hrBpm, powerW, speedKmh]. */
+export type PointRow = [number, number, number, number, number | null, number | null, number | null];
+
+export function toRows(points: Breath[]): PointRow[] {
+  const r = (v: number | null, d = 0) => (v === null ? null : Math.round(v * 10 ** d) / 10 ** d);
+  return points.map((p) => [r(p.timeS, 1)!, r(p.vo2MlMin)!, r(p.vco2MlMin)!, r(p.veLMin, 1)!, r(p.hrBpm), r(p.powerW), r(p.speedKmh, 2)]);
+}
+
+export function fromRows(rows: PointRow[]): Breath[] {
+  return rows.map(([timeS, vo2MlMin, vco2MlMin, veLMin, hrBpm, powerW, speedKmh]) => ({ timeS, vo2MlMin, vco2MlMin, veLMin, hrBpm, powerW, speedKmh, rfPerMin: null }));
+}
+
+function thresholdValues(t: Threshold | null): ThresholdValues | null {
+  if (!t) return null;
+  return { timeS: t.timeS, vo2MlMin: t.vo2MlMin, hrBpm: t.hrBpm, powerW: t.powerW, speedKmh: t.speedKmh };
+}
+
+async function profileMass(athleteId: string): Promise<number | null> {
+  const [p] = await getDb().select({ m: schema.athleteProfile.bodyMassKg }).from(schema.athleteProfile).where(eq(schema.athleteProfile.userId, athleteId));
+  return p?.m ?? null;
+}
+
+function decodeText(bytes: Uint8Array): string {
+  if (bytes.includes(0)) throw new HttpError(415, "This file is not a text CSV (it contains binary data). Export the test as CSV and try again.");
+  try {
+    return new TextDecoder("utf-8", { fatal: true }).decode(bytes);
+  } catch {
+    // Many lab exports are Latin-1; every byte sequence is valid there.
+    return new TextDecoder("latin1").decode(bytes);
+  }
+}
+
+const hasBoth = (p: ThresholdPair) => p.vt1 !== null && p.vt2 !== null;
+
+/** A gas-exchange upload: analysed, stored with its file and, when both thresholds were found, a zone set. One transaction. */
+export async function createGasExchangeTest(
+  actor: Actor,
+  athleteId: string,
+  meta: Meta & { mapping?: ColumnMapping; bodyMassKg?: number | null; fiveZones?: boolean },
+  file: { name: string; type: string; bytes: Uint8Array },
+) {
+  await requireAthleteAccess(actor, athleteId, "coach");
+  if (file.bytes.length === 0) throw new HttpError(400, "The file is empty.");
+  const text = decodeText(file.bytes);
+  const mass = meta.bodyMassKg ?? (await profileMass(athleteId));
+  const a = analyzeCsv(text, { mapping: meta.mapping, bodyMassKg: mass });
+  if (!a.ok) throw new HttpError(422, a.error, { headers: a.headers });
+  const detected: ThresholdPair = { vt1: thresholdValues(a.vt1), vt2: thresholdValues(a.vt2) };
+  const result = {
+    kind: "gas_exchange",
+    points: toRows(a.points),
+    peak: a.peak,
+    warnings: a.warnings,
+    onsetS: a.onsetS,
+    endS: a.endS,
+    columns: a.columns,
+    breathsRead: a.breathsRead,
+    breathsRemoved: a.breathsRemoved,
+    bodyMassKg: mass,
+    vt1Detail: a.vt1 ? { methods: a.vt1.methods, methodResults: a.vt1.methodResults, agreement: a.vt1.agreement, confidence: a.vt1.confidence, warnings: a.vt1.warnings } : null,
+    vt1Reason: a.vt1Reason,
+    vt2Detail: a.vt2 ? { methods: a.vt2.methods, methodResults: a.vt2.methodResults, agreement: a.vt2.agreement, confidence: a.vt2.confidence, warnings: a.vt2.warnings } : null,
+    vt2Reason: a.vt2Reason,
+  };
+  const id = randomUUID();
+  await getDb().transaction(async (tx) => {
+    await tx.insert(schema.athleteTest).values({
+      id,
+      athleteId,
+      kind: "gas_exchange",
+      sport: meta.sport,
+      protocol: meta.protocol,
+      testDate: meta.date,
+      endedBy: meta.endedBy,
+      stopSign: meta.stopSign ?? null,
+      bodyMassKg: mass,
+      input: { mapping: meta.mapping ?? {}, filename: file.name, fiveZones: meta.fiveZones ?? false },
+      result,
+      detected,
+      createdBy: actor.userId,
+    });
+    await tx.insert(schema.testFile).values({
+      testId: id,
+      filename: file.name.slice(0, 200),
+      contentType: file.type || "text/csv",
+      sizeBytes: file.bytes.length,
+      data: Buffer.from(file.bytes),
+    });
+    if (hasBoth(detected)) {
+      await saveZoneSetForTest(tx, { athleteId, sport: meta.sport, testId: id, effectiveFrom: meta.date, vt1: detected.vt1!, vt2: detected.vt2!, five: meta.fiveZones ?? false, source: "gas-exchange test (detected)", createdBy: actor.userId });
+    }
+  });
+  return { id, detected, warnings: a.warnings, vt1Reason: a.vt1Reason, vt2Reason: a.vt2Reason };
+}
+
+/** Talk tests, submaximal estimates and thresholds entered by hand. One transaction. */
+export async function createJsonTest(actor: Actor, athleteId: string, input: JsonTestInput) {
+  await requireAthleteAccess(actor, athleteId, "coach");
+  const id = randomUUID();
+  let detected: ThresholdPair = { vt1: null, vt2: null };
+  let result: Record<string, unknown>;
+  let stored: Record<string, unknown>;
+  let five = false;
+  if (input.kind === "talk") {
+    const r = analyzeTalkTest(input.talk);
+    const unitKey = input.talk.workloadUnit === "W" ? "powerW" : "speedKmh";
+    const v = (t: typeof r.vt1) => (t ? { hrBpm: t.hrBpm, [unitKey]: t.workload } : null);
+    detected = { vt1: v(r.vt1), vt2: v(r.vt2) };
+    result = { kind: "talk", ...r };
+    stored = { talk: input.talk };
+    five = input.fiveZones ?? false;
+  } else if (input.kind === "submax") {
+    const r = estimateVo2Max(input.submax);
+    result = { kind: "submax", ...r };
+    stored = { submax: input.submax };
+  } else {
+    detected = { vt1: input.vt1, vt2: input.vt2 };
+    zonesFor(input.vt1, input.vt2);
+    result = { kind: "manual", warnings: [] };
+    stored = {};
+    five = input.fiveZones ?? false;
+  }
+  await getDb().transaction(async (tx) => {
+    await tx.insert(schema.athleteTest).values({
+      id,
+      athleteId,
+      kind: input.kind,
+      sport: input.meta.sport,
+      protocol: input.meta.protocol,
+      testDate: input.meta.date,
+      endedBy: input.meta.endedBy,
+      stopSign: input.meta.stopSign ?? null,
+      input: { ...stored, fiveZones: five },
+      result,
+      detected,
+      createdBy: actor.userId,
+    });
+    if (hasBoth(detected)) {
+      await saveZoneSetForTest(tx, {
+        athleteId,
+        sport: input.meta.sport,
+        testId: id,
+        effectiveFrom: input.meta.date,
+        vt1: detected.vt1!,
+        vt2: detected.vt2!,
+        five,
+        source: input.kind === "talk" ? "talk test" : "thresholds entered by hand",
+        createdBy: actor.userId,
+      });
+    }
+  });
+  return { id, detected, result };
+}
+
+async function loadTest(actor: Actor, testId: string) {
+  const [row] = await getDb().select().from(schema.athleteTest).where(eq(schema.athleteTest.id, testId));
+  if (!row) throw notFound("No such test.");
+  await requireAthleteAccess(actor, row.athleteId, "view").catch(() => {
+    throw notFound("No such test.");
+  });
+  return row;
+}
+
+export async function getTest(actor: Actor, testId: string) {
+  const row = await loadTest(actor, testId);
+  const db = getDb();
+  const [athlete] = await db.select({ name: schema.user.name }).from(schema.user).where(eq(schema.user.id, row.athleteId));
+  const [adjuster] = row.adjustedBy ? await db.select({ name: schema.user.name }).from(schema.user).where(eq(schema.user.id, row.adjustedBy)) : [];
+  const [zs] = await db.select().from(schema.zoneSet).where(eq(schema.zoneSet.testId, row.id));
+  const [file] = await db.select({ filename: schema.testFile.filename, sizeBytes: schema.testFile.sizeBytes }).from(schema.testFile).where(eq(schema.testFile.testId, row.id));
+  let zoneSet: ZoneSetView | null = null;
+  if (zs) {
+    const z = zonesFor(zs.vt1, zs.vt2);
+    zoneSet = { id: zs.id, sport: zs.sport, effectiveFrom: zs.effectiveFrom, model: zs.model === "five" ? "five" : "three", source: zs.source, testId: zs.testId, vt1: zs.vt1, vt2: zs.vt2, zones: z.three, fiveZones: zs.model === "five" ? z.five : null };
+  }
+  let fuel = null;
+  if (row.kind === "gas_exchange") {
+    const points = fromRows((row.result.points as PointRow[]) ?? []);
+    const peak = row.result.peak as { vo2MlMin: number } | undefined;
+    const onset = Number(row.result.onsetS ?? 0), end = Number(row.result.endS ?? Infinity);
+    fuel = fuelProfile(points.filter((p) => p.timeS >= onset && p.timeS <= end), { vo2PeakMlMin: peak?.vo2MlMin });
+  }
+  return {
+    id: row.id,
+    athleteId: row.athleteId,
+    athleteName: athlete?.name ?? "",
+    kind: row.kind,
+    sport: row.sport,
+    protocol: row.protocol,
+    date: row.testDate,
+    endedBy: row.endedBy,
+    stopSign: row.stopSign,
+    bodyMassKg: row.bodyMassKg,
+    input: row.input,
+    result: row.result,
+    detected: row.detected,
+    adjusted: row.adjusted,
+    adjustedBy: adjuster?.name ?? null,
+    adjustedAt: row.adjustedAt,
+    effective: row.adjusted ?? row.detected,
+    zoneSet,
+    fuel,
+    file: file ?? null,
+  };
+}
+
+export type TestView = Awaited<ReturnType<typeof getTest>>;
+
+export async function listTests(actor: Actor, athleteId: string) {
+  await requireAthleteAccess(actor, athleteId, "view");
+  return getDb()
+    .select({ id: schema.athleteTest.id, kind: schema.athleteTest.kind, sport: schema.athleteTest.sport, protocol: schema.athleteTest.protocol, date: schema.athleteTest.testDate, adjustedAt: schema.athleteTest.adjustedAt })
+    .from(schema.athleteTest)
+    .where(eq(schema.athleteTest.athleteId, athleteId))
+    .orderBy(desc(schema.athleteTest.testDate), desc(schema.athleteTest.createdAt));
+}
+
+/** A coach moves the thresholds: the detected values stay, the adjusted ones and the zone set change. One transaction. */
+export async function adjustThresholds(actor: Actor, testId: string, patch: ThresholdPatch) {
+  const row = await loadTest(actor, testId);
+  await requireAthleteAccess(actor, row.athleteId, "coach");
+  const points = row.kind === "gas_exchange" ? fromRows((row.result.points as PointRow[]) ?? []) : [];
+  const resolve = (p: ThresholdPatch["vt1"]): ThresholdValues | null => {
+    if (p === null) return null;
+    if ("timeS" in p) {
+      if (!points.length) throw new HttpError(400, "Only gas-exchange tests take a threshold time; give heart rate, power or speed instead.");
+      const v = valuesAt(points, p.timeS, row.bodyMassKg);
+      return { timeS: v.timeS, vo2MlMin: v.vo2MlMin, hrBpm: v.hrBpm, powerW: v.powerW, speedKmh: v.speedKmh };
+    }
+    return { hrBpm: p.hrBpm ?? null, powerW: p.powerW ?? null, speedKmh: p.speedKmh ?? null };
+  };
+  const adjusted: ThresholdPair = { vt1: resolve(patch.vt1), vt2: resolve(patch.vt2) };
+  if (adjusted.vt1?.timeS != null && adjusted.vt2?.timeS != null && adjusted.vt1.timeS >= adjusted.vt2.timeS) {
+    throw new HttpError(400, "VT1 must come before VT2.", { fieldErrors: { vt1: ["VT1 must come before VT2."] } });
+  }
+  const five = patch.fiveZones ?? Boolean(row.input.fiveZones);
+  await getDb().transaction(async (tx) => {
+    await tx
+      .update(schema.athleteTest)
+      .set({ adjusted, adjustedBy: actor.userId, adjustedAt: new Date(), input: { ...row.input, fiveZones: five } })
+      .where(eq(schema.athleteTest.id, testId));
+    if (hasBoth(adjusted)) {
+      await saveZoneSetForTest(tx, { athleteId: row.athleteId, sport: row.sport, testId, effectiveFrom: row.testDate, vt1: adjusted.vt1!, vt2: adjusted.vt2!, five, source: `${row.kind === "gas_exchange" ? "gas-exchange test" : row.kind === "talk" ? "talk test" : "thresholds by hand"} (adjusted)`, createdBy: actor.userId });
+    }
+  });
+  return getTest(actor, testId);
+}
+
+export async function getTestFile(actor: Actor, testId: string) {
+  const row = await loadTest(actor, testId);
+  const [file] = await getDb().select().from(schema.testFile).where(eq(schema.testFile.testId, row.id));
+  if (!file) throw notFound("This test has no stored file.");
+  return file;
+}

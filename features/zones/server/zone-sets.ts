@@ -1,0 +1,109 @@
+import "server-only";
+import { randomUUID } from "node:crypto";
+import { and, asc, desc, eq, lte } from "drizzle-orm";
+import { getDb, schema, type Database } from "@/db/client";
+import type { ThresholdValues } from "@/db/schema";
+import { requireAthleteAccess } from "@/features/access/server/permissions";
+import type { Actor } from "@/features/access/lib/rules";
+import { HttpError } from "@/features/platform/server/http";
+import { fiveZones, threeZones, ZoneError, type Zone } from "../lib/zones";
+
+type Tx = Pick<Database, "insert" | "update" | "select">;
+
+export interface ZoneSetView {
+  id: string;
+  sport: string;
+  effectiveFrom: string;
+  model: "three" | "five";
+  source: string;
+  testId: string | null;
+  vt1: ThresholdValues;
+  vt2: ThresholdValues;
+  zones: Zone[];
+  fiveZones: Zone[] | null;
+}
+
+function point(v: ThresholdValues) {
+  return { hrBpm: v.hrBpm ?? null, powerW: v.powerW ?? null, speedKmh: v.speedKmh ?? null };
+}
+
+/** The zones of a threshold pair; a 400 with the reason when they do not make zones. */
+export function zonesFor(vt1: ThresholdValues, vt2: ThresholdValues): { three: Zone[]; five: Zone[] } {
+  try {
+    return { three: threeZones(point(vt1), point(vt2)), five: fiveZones(point(vt1), point(vt2)) };
+  } catch (e) {
+    if (e instanceof ZoneError) throw new HttpError(400, e.message, { fieldErrors: { vt2: [e.message] } });
+    throw e;
+  }
+}
+
+function view(row: typeof schema.zoneSet.$inferSelect): ZoneSetView {
+  const z = zonesFor(row.vt1, row.vt2);
+  return {
+    id: row.id,
+    sport: row.sport,
+    effectiveFrom: row.effectiveFrom,
+    model: row.model === "five" ? "five" : "three",
+    source: row.source,
+    testId: row.testId,
+    vt1: row.vt1,
+    vt2: row.vt2,
+    zones: z.three,
+    fiveZones: row.model === "five" ? z.five : null,
+  };
+}
+
+/** Creates or replaces the zone set that a test produced (one per test), inside the caller's transaction. */
+export async function saveZoneSetForTest(
+  tx: Tx,
+  p: { athleteId: string; sport: string; testId: string; effectiveFrom: string; vt1: ThresholdValues; vt2: ThresholdValues; five: boolean; source: string; createdBy: string },
+): Promise<void> {
+  zonesFor(p.vt1, p.vt2); // validates the pair
+  const values = {
+    athleteId: p.athleteId,
+    sport: p.sport,
+    testId: p.testId,
+    effectiveFrom: p.effectiveFrom,
+    model: p.five ? "five" : "three",
+    vt1: p.vt1,
+    vt2: p.vt2,
+    source: p.source,
+    createdBy: p.createdBy,
+  };
+  await tx
+    .insert(schema.zoneSet)
+    .values({ id: randomUUID(), ...values })
+    .onConflictDoUpdate({ target: schema.zoneSet.testId, set: values });
+}
+
+/** The zone set in force on a date per sport, and the athlete's history. */
+export async function getZones(actor: Actor, athleteId: string, date?: string) {
+  await requireAthleteAccess(actor, athleteId, "view");
+  const db = getDb();
+  const history = await db
+    .select()
+    .from(schema.zoneSet)
+    .where(eq(schema.zoneSet.athleteId, athleteId))
+    .orderBy(desc(schema.zoneSet.effectiveFrom), desc(schema.zoneSet.createdAt));
+  const day = date ?? new Date().toISOString().slice(0, 10);
+  const inForce: Record<string, ZoneSetView> = {};
+  for (const row of [...history].sort((a, b) => a.effectiveFrom.localeCompare(b.effectiveFrom))) {
+    if (row.effectiveFrom <= day) inForce[row.sport] = view(row);
+  }
+  return { date: day, inForce, history: history.map(view) };
+}
+
+/** For other features: the zone set in force for one sport on one day, or null (no permission check: callers check). */
+export async function zoneSetOnDate(athleteId: string, sport: string, date: string): Promise<ZoneSetView | null> {
+  const [row] = await getDb()
+    .select()
+    .from(schema.zoneSet)
+    .where(and(eq(schema.zoneSet.athleteId, athleteId), eq(schema.zoneSet.sport, sport), lte(schema.zoneSet.effectiveFrom, date)))
+    .orderBy(desc(schema.zoneSet.effectiveFrom), desc(schema.zoneSet.createdAt))
+    .limit(1);
+  return row ? view(row) : null;
+}
+
+export async function listZoneSets(athleteId: string) {
+  return getDb().select().from(schema.zoneSet).where(eq(schema.zoneSet.athleteId, athleteId)).orderBy(asc(schema.zoneSet.effectiveFrom));
+}
