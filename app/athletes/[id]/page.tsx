@@ -1,10 +1,19 @@
+import Link from "next/link";
 import { notFound } from "next/navigation";
+import { canCoachAthlete } from "@/features/access/lib/rules";
 import { requirePageActor } from "@/features/auth/server/current";
 import { getAthleteProfile } from "@/features/athletes/server/profile";
 import { ProfileForm } from "@/features/athletes/components/ProfileForm";
+import { getScreening } from "@/features/athlete-tests/server/screening";
+import { listTests } from "@/features/athlete-tests/server/tests";
 import { HttpError } from "@/features/platform/server/http";
+import { ZoneSetList, ZonesInForce } from "@/features/zones/components/ZoneHistory";
+import { getZones } from "@/features/zones/server/zone-sets";
+import { membershipsOfAthlete } from "@/features/access/server/permissions";
 
 export const metadata = { title: "Athlete" };
+
+const KIND_LABELS = { gas_exchange: "Gas-exchange test", talk: "Talk test", submax: "Submaximal estimate", manual: "Thresholds entered by hand" } as const;
 
 export default async function AthletePage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
@@ -13,16 +22,54 @@ export default async function AthletePage({ params }: { params: Promise<{ id: st
     if (e instanceof HttpError && e.status === 404) notFound();
     throw e;
   });
+  const [tests, zones, screening, memberships] = await Promise.all([listTests(actor, id), getZones(actor, id), getScreening(actor, id), membershipsOfAthlete(id)]);
+  const coaches = canCoachAthlete(actor, { userId: id, memberships });
   return (
-    <div className="mx-auto max-w-2xl space-y-4">
+    <div className="space-y-6">
       <div>
         <p className="text-sm font-semibold uppercase tracking-widest text-tide">Athlete</p>
         <h1 className="text-2xl font-bold">{data.athlete.name}</h1>
         <p className="text-sm text-ink-soft">{data.athlete.email}</p>
       </div>
-      <div className="card">
+      <section className="card space-y-4" aria-labelledby="zones-heading">
+        <h2 id="zones-heading" className="text-lg font-bold">Zones in force today</h2>
+        <ZonesInForce inForce={zones.inForce} emptyText="No zones yet. Record a test to derive them." />
+        <ZoneSetList history={zones.history} />
+      </section>
+      <section className="card space-y-3" aria-labelledby="tests-heading">
+        <div className="flex flex-wrap items-center justify-between gap-3">
+          <h2 id="tests-heading" className="text-lg font-bold">Tests</h2>
+          {coaches ? (
+            <nav aria-label="Record a test" className="flex flex-wrap gap-2 text-sm">
+              <Link className="btn" href={`/athletes/${id}/tests/new?kind=gas`}>Upload a gas-exchange test</Link>
+              <Link className="btn-quiet" href={`/athletes/${id}/tests/new?kind=talk`}>Talk test</Link>
+              <Link className="btn-quiet" href={`/athletes/${id}/tests/new?kind=submax`}>Submaximal estimate</Link>
+              <Link className="btn-quiet" href={`/athletes/${id}/tests/new?kind=manual`}>Enter thresholds</Link>
+            </nav>
+          ) : null}
+        </div>
+        {screening.advice ? <p role="alert" className="rounded-md border border-alert/40 bg-alert-wash p-3 text-sm text-alert">{screening.advice}</p> : null}
+        <p className="text-sm">
+          Readiness screening: {screening.latest ? `answered on ${new Date(screening.latest.date).toISOString().slice(0, 10)}${screening.latest.anyYes ? " — at least one yes" : " — all no"}` : "not answered yet"}.{" "}
+          <Link href={`/athletes/${id}/screening`} className="font-semibold text-tide underline">{screening.latest ? "Review or update" : "Answer the questions"}</Link>
+        </p>
+        {tests.length === 0 ? (
+          <p className="text-ink-soft">No tests recorded yet.</p>
+        ) : (
+          <ul className="divide-y divide-rule">
+            {tests.map((t) => (
+              <li key={t.id} className="flex flex-wrap items-baseline justify-between gap-2 py-2">
+                <Link href={`/tests/${t.id}`} className="font-semibold text-tide hover:underline">{KIND_LABELS[t.kind]} · {t.date}</Link>
+                <span className="text-sm text-ink-soft">{t.protocol}{t.adjustedAt ? " · thresholds adjusted" : ""}</span>
+              </li>
+            ))}
+          </ul>
+        )}
+      </section>
+      <section className="card" aria-labelledby="profile-heading">
+        <h2 id="profile-heading" className="mb-4 text-lg font-bold">Profile</h2>
         <ProfileForm athleteId={data.athlete.id} initial={data.profile} isSelf={actor.userId === id} />
-      </div>
+      </section>
     </div>
   );
 }

@@ -49,6 +49,11 @@ export async function requireActor(headers: Headers): Promise<SignedInActor> {
   return actor;
 }
 
+/** The memberships of an athlete, for pages that decide what to offer with the pure rules. */
+export async function membershipsOfAthlete(athleteId: string): Promise<Membership[]> {
+  return membershipsOf(athleteId);
+}
+
 async function loadTarget(athleteId: string): Promise<AthleteTarget> {
   return { userId: athleteId, memberships: await membershipsOf(athleteId) };
 }

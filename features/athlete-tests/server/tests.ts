@@ -6,9 +6,9 @@ import type { ThresholdPair, ThresholdValues } from "@/db/schema";
 import { requireAthleteAccess } from "@/features/access/server/permissions";
 import type { Actor } from "@/features/access/lib/rules";
 import { estimateVo2Max } from "@/features/field-tests/lib/submax";
-import { analyzeTalkTest } from "@/features/field-tests/lib/talk-test";
-import { analyzeCsv, valuesAt, type Threshold } from "@/features/gas-exchange/lib/analyze";
-import type { Breath, ColumnMapping } from "@/features/gas-exchange/lib/csv";
+import { analyzeCsv, valuesAt } from "@/features/gas-exchange/lib/analyze";
+import type { ColumnMapping } from "@/features/gas-exchange/lib/csv";
+import { fromRows, gasExchangeRecord, talkTestRecord, type PointRow } from "../lib/records";
 import { fuelProfile } from "@/features/physiology/lib/fuel";
 import { HttpError, notFound } from "@/features/platform/server/http";
 import { saveZoneSetForTest, zonesFor, type ZoneSetView } from "@/features/zones/server/zone-sets";
@@ -16,23 +16,6 @@ import type { z } from "zod";
 import type { JsonTestInput, testMetaSchema, ThresholdPatch } from "../schemas";
 
 type Meta = z.infer<typeof testMetaSchema>;
-
-/** Compact chart points: [timeS, vo2MlMin, vco2MlMin, veLMin, hrBpm, powerW, speedKmh]. */
-export type PointRow = [number, number, number, number, number | null, number | null, number | null];
-
-export function toRows(points: Breath[]): PointRow[] {
-  const r = (v: number | null, d = 0) => (v === null ? null : Math.round(v * 10 ** d) / 10 ** d);
-  return points.map((p) => [r(p.timeS, 1)!, r(p.vo2MlMin)!, r(p.vco2MlMin)!, r(p.veLMin, 1)!, r(p.hrBpm), r(p.powerW), r(p.speedKmh, 2)]);
-}
-
-export function fromRows(rows: PointRow[]): Breath[] {
-  return rows.map(([timeS, vo2MlMin, vco2MlMin, veLMin, hrBpm, powerW, speedKmh]) => ({ timeS, vo2MlMin, vco2MlMin, veLMin, hrBpm, powerW, speedKmh, rfPerMin: null }));
-}
-
-function thresholdValues(t: Threshold | null): ThresholdValues | null {
-  if (!t) return null;
-  return { timeS: t.timeS, vo2MlMin: t.vo2MlMin, hrBpm: t.hrBpm, powerW: t.powerW, speedKmh: t.speedKmh };
-}
 
 async function profileMass(athleteId: string): Promise<number | null> {
   const [p] = await getDb().select({ m: schema.athleteProfile.bodyMassKg }).from(schema.athleteProfile).where(eq(schema.athleteProfile.userId, athleteId));
@@ -64,23 +47,7 @@ export async function createGasExchangeTest(
   const mass = meta.bodyMassKg ?? (await profileMass(athleteId));
   const a = analyzeCsv(text, { mapping: meta.mapping, bodyMassKg: mass });
   if (!a.ok) throw new HttpError(422, a.error, { headers: a.headers });
-  const detected: ThresholdPair = { vt1: thresholdValues(a.vt1), vt2: thresholdValues(a.vt2) };
-  const result = {
-    kind: "gas_exchange",
-    points: toRows(a.points),
-    peak: a.peak,
-    warnings: a.warnings,
-    onsetS: a.onsetS,
-    endS: a.endS,
-    columns: a.columns,
-    breathsRead: a.breathsRead,
-    breathsRemoved: a.breathsRemoved,
-    bodyMassKg: mass,
-    vt1Detail: a.vt1 ? { methods: a.vt1.methods, methodResults: a.vt1.methodResults, agreement: a.vt1.agreement, confidence: a.vt1.confidence, warnings: a.vt1.warnings } : null,
-    vt1Reason: a.vt1Reason,
-    vt2Detail: a.vt2 ? { methods: a.vt2.methods, methodResults: a.vt2.methodResults, agreement: a.vt2.agreement, confidence: a.vt2.confidence, warnings: a.vt2.warnings } : null,
-    vt2Reason: a.vt2Reason,
-  };
+  const { detected, result } = gasExchangeRecord(a, mass);
   const id = randomUUID();
   await getDb().transaction(async (tx) => {
     await tx.insert(schema.athleteTest).values({
@@ -121,11 +88,7 @@ export async function createJsonTest(actor: Actor, athleteId: string, input: Jso
   let stored: Record<string, unknown>;
   let five = false;
   if (input.kind === "talk") {
-    const r = analyzeTalkTest(input.talk);
-    const unitKey = input.talk.workloadUnit === "W" ? "powerW" : "speedKmh";
-    const v = (t: typeof r.vt1) => (t ? { hrBpm: t.hrBpm, [unitKey]: t.workload } : null);
-    detected = { vt1: v(r.vt1), vt2: v(r.vt2) };
-    result = { kind: "talk", ...r };
+    ({ detected, result } = talkTestRecord(input.talk));
     stored = { talk: input.talk };
     five = input.fiveZones ?? false;
   } else if (input.kind === "submax") {

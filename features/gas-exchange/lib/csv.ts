@@ -64,7 +64,7 @@ const ALIASES: Record<Channel, string[]> = {
   rf: ["rfpermin", "rf", "bf", "rr", "breathingfrequency", "respiratoryrate", "fr"],
 };
 
-function guessColumns(headers: string[]): ColumnMapping {
+export function guessColumns(headers: string[]): ColumnMapping {
   const out: ColumnMapping = {};
   const used = new Set<string>();
   for (const channel of CHANNELS) {

@@ -1,0 +1,206 @@
+"use client";
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useRouter } from "next/navigation";
+import { useState, type DragEvent } from "react";
+import { useForm, useWatch } from "react-hook-form";
+import { z } from "zod";
+import { CHANNEL_LABELS, CHANNELS, guessColumns, readGasExchangeCsv, REQUIRED_CHANNELS, type Channel, type ColumnMapping } from "@/features/gas-exchange/lib/csv";
+import { FieldError, FormAlert } from "@/features/platform/components/form-bits";
+import { ApiError } from "@/features/squads/api";
+import { uploadGasExchange } from "../api";
+import { MAX_UPLOAD_BYTES, testMetaSchema } from "../schemas";
+import { MetaFields } from "./MetaFields";
+
+const formSchema = z.object({
+  meta: testMetaSchema,
+  bodyMassKg: z.number({ error: "Enter body mass in kg." }).gt(20, "Body mass must be above 20 kg.").lt(300, "Body mass must be below 300 kg.").nullable(),
+  fiveZones: z.boolean(),
+});
+type FormValues = z.infer<typeof formSchema>;
+
+interface Picked {
+  file: File;
+  headers: string[];
+  mapping: ColumnMapping;
+  rows: number;
+  units: Partial<Record<Channel, string>>;
+  problem: string | null;
+  warnings: string[];
+}
+
+function inspect(file: File, text: string, mapping?: ColumnMapping): Picked {
+  const firstLine = text.replace(/^\uFEFF/, "").split(/\r?\n/, 1)[0] ?? "";
+  const result = readGasExchangeCsv(text, mapping);
+  if (!result.ok) {
+    const headers = result.headers.length ? result.headers : firstLine.split(/[;,\t]/).map((h) => h.trim());
+    return { file, headers, mapping: mapping ?? guessColumns(headers), rows: 0, units: {}, problem: result.error, warnings: [] };
+  }
+  const picked: ColumnMapping = {};
+  const units: Partial<Record<Channel, string>> = {};
+  for (const c of CHANNELS) {
+    const col = result.columns[c];
+    if (col) {
+      picked[c] = col.header;
+      units[c] = `${col.unit}${col.unitReason === "values" ? " (from the values)" : col.unitReason === "header" ? " (from the header)" : ""}`;
+    }
+  }
+  return { file, headers: result.headers, mapping: picked, rows: result.breaths.length, units, problem: null, warnings: result.warnings };
+}
+
+export function GasExchangeUpload({ athleteId, defaultMassKg, today }: { athleteId: string; defaultMassKg: number | null; today: string }) {
+  const router = useRouter();
+  const [picked, setPicked] = useState<Picked | null>(null);
+  const [text, setText] = useState("");
+  const [fileError, setFileError] = useState<string>();
+  const [progress, setProgress] = useState<number | null>(null);
+  const [dragging, setDragging] = useState(false);
+  const { register, control, handleSubmit, formState, setError } = useForm<FormValues>({
+    resolver: zodResolver(formSchema),
+    defaultValues: { meta: { sport: "cycling", protocol: "", date: today, endedBy: "exhaustion", stopSign: null }, bodyMassKg: defaultMassKg, fiveZones: false },
+  });
+
+  async function choose(file: File | undefined) {
+    setFileError(undefined);
+    setPicked(null);
+    if (!file) return;
+    if (file.size > MAX_UPLOAD_BYTES) return setFileError("The file is larger than 10 MB. Export a shorter file or averaged data.");
+    if (file.size === 0) return setFileError("The file is empty.");
+    const t = await file.text();
+    if (t.includes("\u0000")) return setFileError("This file is not a text CSV (it contains binary data). Export the test as CSV.");
+    setText(t);
+    setPicked(inspect(file, t));
+  }
+
+  function remap(channel: Channel, header: string) {
+    if (!picked) return;
+    const mapping: ColumnMapping = { ...picked.mapping };
+    if (header) mapping[channel] = header;
+    else delete mapping[channel];
+    const next = inspect(picked.file, text, mapping);
+    setPicked({ ...next, mapping });
+  }
+
+  const onDrop = (e: DragEvent) => {
+    e.preventDefault();
+    setDragging(false);
+    void choose(e.dataTransfer.files[0]);
+  };
+
+  const onSubmit = handleSubmit(async (values) => {
+    if (!picked || picked.problem) return;
+    const form = new FormData();
+    form.set("file", picked.file);
+    form.set("sport", values.meta.sport);
+    form.set("protocol", values.meta.protocol);
+    form.set("date", values.meta.date);
+    form.set("endedBy", values.meta.endedBy);
+    if (values.meta.stopSign) form.set("stopSign", values.meta.stopSign);
+    form.set("mapping", JSON.stringify(picked.mapping));
+    if (values.bodyMassKg !== null) form.set("bodyMassKg", String(values.bodyMassKg));
+    form.set("fiveZones", String(values.fiveZones));
+    setProgress(0);
+    try {
+      const { id } = await uploadGasExchange(athleteId, form, setProgress);
+      setProgress(1);
+      router.push(`/tests/${id}`);
+    } catch (e) {
+      setProgress(null);
+      setError("root", { message: e instanceof ApiError ? e.message : "The upload failed." });
+    }
+  });
+
+  return (
+    <form onSubmit={onSubmit} noValidate className="space-y-6">
+      <FormAlert>{formState.errors.root?.message}</FormAlert>
+      <section aria-labelledby="file-heading" className="space-y-3">
+        <h2 id="file-heading" className="text-lg font-bold">1. The test file</h2>
+        <label
+          htmlFor="gas-file"
+          onDragOver={(e) => {
+            e.preventDefault();
+            setDragging(true);
+          }}
+          onDragLeave={() => setDragging(false)}
+          onDrop={onDrop}
+          className={`flex cursor-pointer flex-col items-center justify-center rounded-lg border-2 border-dashed p-8 text-center ${dragging ? "border-tide bg-tide-wash" : "border-rule bg-paper"}`}
+        >
+          <span className="font-semibold">Drop a breath-by-breath or averaged CSV here, or choose a file</span>
+          <span className="mt-1 text-sm text-ink-soft">Time, VO2, VCO2 and VE are needed; heart rate, power, speed and breathing frequency are used when present. Up to 10 MB.</span>
+          <span className="btn-quiet mt-3">Choose a CSV file</span>
+        </label>
+        <input id="gas-file" type="file" accept=".csv,.txt,text/csv,text/plain" className="sr-only" onChange={(e) => void choose(e.target.files?.[0])} />
+        <FieldError id="gas-file-error" message={fileError} />
+      </section>
+
+      {picked ? (
+        <section aria-labelledby="mapping-heading" className="space-y-3">
+          <h2 id="mapping-heading" className="text-lg font-bold">2. Check the columns</h2>
+          <p className="text-sm text-ink-soft">
+            {picked.file.name}: {picked.problem ? "the columns need your help." : `${picked.rows} rows read.`} Tidemark guessed each column from its header; correct any that are wrong.
+          </p>
+          <table className="w-full text-left text-sm">
+            <thead>
+              <tr className="border-b border-rule text-ink-soft">
+                <th scope="col" className="py-1 pr-3">Measure</th>
+                <th scope="col" className="py-1 pr-3">Column in the file</th>
+                <th scope="col" className="py-1 pr-3">Unit read</th>
+              </tr>
+            </thead>
+            <tbody>
+              {CHANNELS.map((c) => (
+                <tr key={c} className="border-b border-rule/60">
+                  <th scope="row" className="py-1 pr-3 font-semibold">
+                    {CHANNEL_LABELS[c]}
+                    {REQUIRED_CHANNELS.includes(c) ? <span className="text-alert"> (required)</span> : null}
+                  </th>
+                  <td className="py-1 pr-3">
+                    <select aria-label={`Column for ${CHANNEL_LABELS[c]}`} className="field-input mt-0" value={picked.mapping[c] ?? ""} onChange={(e) => remap(c, e.target.value)}>
+                      <option value="">— not in the file —</option>
+                      {picked.headers.map((h) => (
+                        <option key={h} value={h}>{h}</option>
+                      ))}
+                    </select>
+                  </td>
+                  <td className="py-1 pr-3 text-ink-soft">{picked.units[c] ?? "—"}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+          {picked.problem ? <FormAlert>{picked.problem}</FormAlert> : null}
+          {picked.warnings.length ? (
+            <ul className="list-disc pl-5 text-sm text-ink-soft">
+              {picked.warnings.slice(0, 6).map((w) => (
+                <li key={w}>{w}</li>
+              ))}
+            </ul>
+          ) : null}
+        </section>
+      ) : null}
+
+      <section aria-labelledby="about-heading" className="space-y-3">
+        <h2 id="about-heading" className="text-lg font-bold">{picked ? "3." : "2."} About the test</h2>
+        <MetaFields register={register} errors={formState.errors} endedBy={useWatch({ control, name: "meta.endedBy" })} protocolHint="for example: cycle ergometer ramp, 25 W/min" />
+        <div className="grid gap-4 sm:grid-cols-2">
+          <div>
+            <label htmlFor="bodyMassKg" className="field-label">Body mass on the day <span className="font-normal text-ink-soft">(kg, for mL/kg/min)</span></label>
+            <input id="bodyMassKg" type="number" step="0.1" className="field-input num" aria-describedby="bodyMassKg-error" {...register("bodyMassKg", { setValueAs: (v) => (v === "" || v == null ? null : Number(v)) })} />
+            <FieldError id="bodyMassKg-error" message={formState.errors.bodyMassKg?.message} />
+          </div>
+          <label className="mt-7 flex items-center gap-2 text-sm">
+            <input type="checkbox" {...register("fiveZones")} /> Also show the five-zone subdivision
+          </label>
+        </div>
+      </section>
+
+      {progress !== null ? (
+        <div>
+          <label htmlFor="upload-progress" className="text-sm font-semibold">{progress < 1 ? "Uploading…" : "Analysing…"}</label>
+          <progress id="upload-progress" className="block w-full" max={1} value={progress} />
+        </div>
+      ) : null}
+      <button type="submit" className="btn" disabled={!picked || !!picked.problem || formState.isSubmitting}>
+        {formState.isSubmitting ? "Analysing…" : "Analyse and save the test"}
+      </button>
+    </form>
+  );
+}
