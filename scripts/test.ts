@@ -87,6 +87,8 @@ async function main(): Promise<number> {
       BETTER_AUTH_URL: origin,
       TIDEMARK_LOCAL_OUTBOX: "1",
       TIDEMARK_DIST_DIR: ".next-test",
+      // Every browser test signs in from 127.0.0.1; the limit itself is tested in the integration tests.
+      TIDEMARK_SIGN_IN_LIMIT_PER_MIN: "200",
     };
     ensureBuild(".next-test", appEnv, log);
     app = await startAppServer({ mode: "start", port, env: appEnv, quiet: true });

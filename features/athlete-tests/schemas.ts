@@ -71,7 +71,7 @@ export const jsonTestSchema = z.discriminatedUnion("kind", [
 export type JsonTestInput = z.infer<typeof jsonTestSchema>;
 
 export const mappingSchema = z
-  .record(z.enum(CHANNELS), z.string().min(1).max(200))
+  .partialRecord(z.enum(CHANNELS), z.string().min(1).max(200))
   .refine((m) => Object.keys(m).length <= CHANNELS.length, "Too many mapped columns.");
 
 export const uploadFieldsSchema = testMetaSchema.and(

@@ -99,6 +99,20 @@ describe("gas-exchange tests", () => {
     expect(create.status).toBe(403);
   });
 
+  it("takes an explicit column mapping for files with other headers", async () => {
+    const csv = syntheticRamp({ seed: 4, headers: ["secs", "oxygen", "carbon", "vent", "pulse", "watts", "breaths"] }).csv;
+    const mapping = JSON.stringify({ time: "secs", vo2: "oxygen", vco2: "carbon", ve: "vent", hr: "pulse", power: "watts" });
+    const ok = await s.coach.browser.call(testsRoute, "POST", `/api/athletes/${s.athleteA.id}/tests`, { params: { id: s.athleteA.id }, form: upload(csv, { mapping, date: "2026-10-01" }) });
+    expect(ok.status).toBe(201);
+    expect(ok.json.detected.vt1.hrBpm).toBeGreaterThan(100);
+    const unmapped = await s.coach.browser.call(testsRoute, "POST", `/api/athletes/${s.athleteA.id}/tests`, { params: { id: s.athleteA.id }, form: upload(csv, { date: "2026-10-02" }) });
+    expect(unmapped.status).toBe(422);
+    expect(unmapped.json.error).toMatch(/no column for time, VO2, VCO2\./); // "vent" is a known alias of VE
+    const wrong = await s.coach.browser.call(testsRoute, "POST", `/api/athletes/${s.athleteA.id}/tests`, { params: { id: s.athleteA.id }, form: upload(csv, { mapping: JSON.stringify({ vo2: "nope" }) }) });
+    expect(wrong.status).toBe(422);
+    expect(wrong.json.error).toMatch(/no such column/);
+  });
+
   it("bad uploads answer 4xx with the reason and store nothing", async () => {
     const before = await testRows();
     const post = (form: FormData) => s.coach.browser.call(testsRoute, "POST", `/api/athletes/${s.athleteA.id}/tests`, { params: { id: s.athleteA.id }, form });

@@ -105,7 +105,8 @@ export function GasExchangeUpload({ athleteId, defaultMassKg, today }: { athlete
       router.push(`/tests/${id}`);
     } catch (e) {
       setProgress(null);
-      setError("root", { message: e instanceof ApiError ? e.message : "The upload failed." });
+      const fields = e instanceof ApiError ? Object.entries(e.fieldErrors).map(([k, v]) => `${k}: ${v[0]}`).join("; ") : "";
+      setError("root", { message: `${e instanceof ApiError ? e.message : "The upload failed."}${fields ? ` (${fields})` : ""}` });
     }
   });
 

@@ -4,6 +4,11 @@ import { drizzleAdapter } from "better-auth/adapters/drizzle";
 import { getDb, schema } from "@/db/client";
 import { sendPasswordReset } from "@/features/messages/server/account-messages";
 
+function signInLimit(): number {
+  const n = Number(process.env.TIDEMARK_SIGN_IN_LIMIT_PER_MIN ?? 8);
+  return Number.isInteger(n) && n > 0 ? n : 8;
+}
+
 function createAuth() {
   const baseURL = process.env.BETTER_AUTH_URL ?? "http://127.0.0.1:3000";
   return betterAuth({
@@ -44,8 +49,8 @@ function createAuth() {
       window: 60,
       max: 300,
       customRules: {
-        "/sign-in/email": { window: 60, max: 8 },
-        "/sign-up/email": { window: 60, max: 8 },
+        "/sign-in/email": { window: 60, max: signInLimit() },
+        "/sign-up/email": { window: 60, max: signInLimit() },
         "/request-password-reset": { window: 300, max: 5 },
       },
     },

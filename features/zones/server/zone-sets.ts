@@ -87,7 +87,9 @@ export async function getZones(actor: Actor, athleteId: string, date?: string) {
     .orderBy(desc(schema.zoneSet.effectiveFrom), desc(schema.zoneSet.createdAt));
   const day = date ?? new Date().toISOString().slice(0, 10);
   const inForce: Record<string, ZoneSetView> = {};
-  for (const row of [...history].sort((a, b) => a.effectiveFrom.localeCompare(b.effectiveFrom))) {
+  // Oldest first, so that the latest effective date wins, and among sets of the same day the newest.
+  const chronological = [...history].sort((a, b) => a.effectiveFrom.localeCompare(b.effectiveFrom) || a.createdAt.getTime() - b.createdAt.getTime());
+  for (const row of chronological) {
     if (row.effectiveFrom <= day) inForce[row.sport] = view(row);
   }
   return { date: day, inForce, history: history.map(view) };

@@ -1,0 +1,48 @@
+/** Shared browser-test helpers: Debian's chromium through playwright-core, and a page that records every problem. */
+import fs from "node:fs";
+import path from "node:path";
+import { chromium, type Browser, type Page } from "playwright-core";
+
+export const BASE = process.env.TIDEMARK_BASE_URL ?? "";
+export const SHOTS = path.resolve("test/.artifacts/screenshots");
+
+export async function launch(): Promise<Browser> {
+  if (!BASE) throw new Error("TIDEMARK_BASE_URL is not set: run the browser tests through `npm test`.");
+  fs.mkdirSync(SHOTS, { recursive: true });
+  return chromium.launch({
+    executablePath: process.env.CHROMIUM_PATH ?? "/usr/bin/chromium",
+    args: ["--headless", "--no-sandbox", "--disable-gpu", "--disable-background-networking", "--disable-component-update", "--disable-sync"],
+  });
+}
+
+export async function newPage(browser: Browser): Promise<{ page: Page; problems: string[] }> {
+  const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+  const page = await context.newPage();
+  const problems: string[] = [];
+  page.on("console", (m) => {
+    if (m.type() === "error") problems.push(`console: ${m.text()}`);
+  });
+  page.on("response", (r) => {
+    if (r.status() >= 400) problems.push(`HTTP ${r.status()}: ${r.request().method()} ${r.url()}`);
+  });
+  page.on("pageerror", (e) => problems.push(`page error: ${e.message}`));
+  page.on("requestfailed", (r) => {
+    // Next.js cancels its own route prefetches when the page navigates on; that is not a failed request.
+    if (r.failure()?.errorText === "net::ERR_ABORTED" && new URL(r.url()).searchParams.has("_rsc")) return;
+    problems.push(`request failed: ${r.url()} ${r.failure()?.errorText}`);
+  });
+  return { page, problems };
+}
+
+export async function signIn(page: Page, email: string, password = "northfold-demo") {
+  await page.goto(`${BASE}/sign-in`);
+  await page.getByLabel("E-mail").fill(email);
+  await page.getByLabel("Password").fill(password);
+  await page.getByRole("button", { name: "Sign in" }).click();
+  // Signing in lands on /home, which forwards to the role's home page.
+  await page.waitForURL((u) => !u.pathname.startsWith("/sign-in") && u.pathname !== "/home");
+}
+
+export async function shot(page: Page, name: string) {
+  await page.screenshot({ path: path.join(SHOTS, `${name}.png`), fullPage: true });
+}
