@@ -307,3 +307,86 @@ export const zoneSet = pgTable(
   },
   (t) => [index("zone_set_athlete_idx").on(t.athleteId, t.sport, t.effectiveFrom), uniqueIndex("zone_set_test_idx").on(t.testId)],
 );
+
+// ---------------------------------------------------------------------------------------------------------------------
+// Planning: session templates, seasons, planned sessions and their repeat series
+// ---------------------------------------------------------------------------------------------------------------------
+
+export const sessionTemplate = pgTable(
+  "session_template",
+  {
+    id: text("id").primaryKey(),
+    squadId: text("squad_id")
+      .notNull()
+      .references(() => squad.id, { onDelete: "cascade" }),
+    name: text("name").notNull(),
+    sport: text("sport").notNull(),
+    description: text("description").notNull().default(""),
+    structure: jsonb("structure").$type<unknown[]>().notNull(),
+    totalS: integer("total_s").notNull(),
+    minutesByZone: jsonb("minutes_by_zone").$type<[number, number, number]>().notNull(),
+    createdBy: text("created_by").references(() => user.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [index("session_template_squad_idx").on(t.squadId)],
+);
+
+export const season = pgTable(
+  "season",
+  {
+    id: text("id").primaryKey(),
+    athleteId: text("athlete_id")
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
+    name: text("name").notNull(),
+    sport: text("sport").notNull(),
+    startDate: text("start_date").notNull(),
+    events: jsonb("events").$type<{ date: string; name: string }[]>().notNull(),
+    weeklyHours: real("weekly_hours").notNull(),
+    level: text("level").notNull(),
+    retestEveryWeeks: integer("retest_every_weeks").notNull(),
+    /** The generated weeks (block, role, volume, budget preset, retest), editable by the coach. */
+    weeks: jsonb("weeks").$type<Record<string, unknown>[]>().notNull(),
+    createdBy: text("created_by").references(() => user.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+  },
+  (t) => [index("season_athlete_idx").on(t.athleteId, t.startDate)],
+);
+
+export const sessionSeries = pgTable("session_series", {
+  id: text("id").primaryKey(),
+  athleteId: text("athlete_id")
+    .notNull()
+    .references(() => user.id, { onDelete: "cascade" }),
+  rrule: text("rrule").notNull(),
+  createdAt: createdAt(),
+});
+
+export const plannedSession = pgTable(
+  "planned_session",
+  {
+    id: text("id").primaryKey(),
+    athleteId: text("athlete_id")
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
+    /** Local calendar day in the athlete's time zone, YYYY-MM-DD. */
+    date: text("date").notNull(),
+    kind: text("kind").notNull().default("training"),
+    sport: text("sport").notNull(),
+    title: text("title").notNull(),
+    templateId: text("template_id").references(() => sessionTemplate.id, { onDelete: "set null" }),
+    /** A snapshot of the steps at planning time. */
+    structure: jsonb("structure").$type<unknown[]>().notNull(),
+    totalS: integer("total_s").notNull(),
+    minutesByZone: jsonb("minutes_by_zone").$type<[number, number, number]>().notNull(),
+    seriesId: text("series_id").references(() => sessionSeries.id, { onDelete: "set null" }),
+    /** An occurrence edited on its own no longer follows its series. */
+    detached: boolean("detached").notNull().default(false),
+    notes: text("notes").notNull().default(""),
+    createdBy: text("created_by").references(() => user.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [index("planned_session_athlete_date_idx").on(t.athleteId, t.date), index("planned_session_series_idx").on(t.seriesId)],
+);

@@ -1,0 +1,20 @@
+import { requireActor } from "@/features/access/server/permissions";
+import { json, parseParams, readJson, route } from "@/features/platform/server/http";
+import { seasonSchema } from "@/features/planning/schemas";
+import { createSeason, listSeasons } from "@/features/planning/server/planning";
+import { idParam } from "@/features/squads/schemas";
+
+export const dynamic = "force-dynamic";
+type Ctx = { params: Promise<{ id: string }> };
+
+export const GET = route<Ctx>(async (req, ctx) => {
+  const actor = await requireActor(req.headers);
+  const { id } = parseParams(await ctx.params, idParam);
+  return json(await listSeasons(actor, id));
+});
+
+export const POST = route<Ctx>(async (req, ctx) => {
+  const actor = await requireActor(req.headers);
+  const { id } = parseParams(await ctx.params, idParam);
+  return json(await createSeason(actor, id, await readJson(req, seasonSchema)), { status: 201 });
+});

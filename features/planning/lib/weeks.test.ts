@@ -1,0 +1,79 @@
+import { describe, expect, it } from "vitest";
+import ICAL from "ical.js";
+import { expandDates, rruleText } from "./recurrence";
+import { summariseWeeks, type WeekSession } from "./weeks";
+
+describe("recurrence (RFC 5545 RRULE via rrule, cross-checked with ical.js)", () => {
+  it("a weekly Tuesday/Thursday rule keeps its weekdays across the March daylight-saving change (Europe, 28 March 2027)", () => {
+    const repeat = { byWeekday: ["TU", "TH"] as ("TU" | "TH")[], count: 8 };
+    const mine = expandDates("2027-03-16", repeat);
+    expect(mine).toEqual(["2027-03-16", "2027-03-18", "2027-03-23", "2027-03-25", "2027-03-30", "2027-04-01", "2027-04-06", "2027-04-08"]);
+    for (const d of mine) expect([2, 4]).toContain(new Date(`${d}T12:00:00Z`).getUTCDay());
+    // The same rule expanded by ical.js (reference library, REFERENCES.md) from an iCalendar event with a date start.
+    const ics = ["BEGIN:VCALENDAR", "VERSION:2.0", "PRODID:-//test//EN", "BEGIN:VEVENT", "UID:x", "DTSTAMP:20270101T000000Z", "DTSTART;VALUE=DATE:20270316", `RRULE:${rruleText("2027-03-16", repeat)}`, "SUMMARY:Intervals", "END:VEVENT", "END:VCALENDAR"].join("\r\n");
+    const event = new ICAL.Event(new ICAL.Component(ICAL.parse(ics)).getFirstSubcomponent("vevent")!);
+    const it2 = event.iterator();
+    const theirs: string[] = [];
+    for (let next = it2.next(); next && theirs.length < 20; next = it2.next()) theirs.push(next.toString().slice(0, 10));
+    expect(theirs).toEqual(mine);
+  });
+
+  it("an end date includes that day", () => {
+    expect(expandDates("2027-10-25", { byWeekday: ["SU"], until: "2027-11-07" })).toEqual(["2027-10-31", "2027-11-07"]);
+  });
+});
+
+describe("weekly budget summaries", () => {
+  const s = (id: string, date: string, m: [number, number, number], title = id): WeekSession => ({ id, date, title, kind: "training", minutesByZone: m });
+
+  it("sums planned minutes per ISO week and checks them against the season week's budget", () => {
+    const weeks = summariseWeeks({
+      from: "2027-03-01",
+      to: "2027-03-14",
+      today: "2027-03-01",
+      sessions: [s("a", "2027-03-01", [60, 0, 0]), s("b", "2027-03-03", [40, 0, 20]), s("c", "2027-03-06", [120, 0, 0]), s("d", "2027-03-08", [90, 0, 0])],
+      seasonWeeks: [{ weekStart: "2027-03-01", budget: "polarised", block: "general_preparation", retest: false }],
+    });
+    expect(weeks.map((w) => w.weekStart)).toEqual(["2027-03-01", "2027-03-08"]);
+    // 220 of 240 min in zone 1 (91.7 %), 20 in zone 3 (8.3 %): within 80/5/15 ± 5 (hand computation).
+    expect(weeks[0]!.plannedMinByZone).toEqual([220, 0, 20]);
+    expect(weeks[0]!.overBudget).toBe(false);
+    expect(weeks[0]!.budget.name).toBe("Polarised");
+  });
+
+  it("flags too much zone 3 and proposes moving the hardest session to a week where it fits", () => {
+    const sessions = [
+      s("easy1", "2027-03-01", [60, 0, 0]),
+      s("int1", "2027-03-02", [30, 0, 30], "4 × 8 min"),
+      s("int2", "2027-03-04", [30, 0, 25], "5 × 5 min"),
+      s("easy2", "2027-03-06", [90, 0, 0]),
+      s("easy3", "2027-03-09", [60, 0, 0]),
+      s("easy4", "2027-03-11", [60, 0, 0]),
+      s("easy5", "2027-03-13", [40, 0, 0]),
+    ];
+    const [first, second] = summariseWeeks({ from: "2027-03-01", to: "2027-03-08", today: "2027-03-01", sessions });
+    // Week 1: 55 of 265 min in zone 3 = 20.75 % > 15 % + 5 % (hand computation).
+    expect(first!.overBudget).toBe(true);
+    expect(first!.flags.map((f) => f.code)).toContain("too_much_high");
+    expect(first!.fix).toMatchObject({ action: "move", sessionId: "int1", toDate: "2027-03-09" });
+    expect(second!.overBudget).toBe(false);
+    // Applying the fix clears both weeks.
+    const moved = sessions.map((x) => (x.id === "int1" ? { ...x, date: "2027-03-09" } : x));
+    const after = summariseWeeks({ from: "2027-03-01", to: "2027-03-08", today: "2027-03-01", sessions: moved });
+    expect(after.map((w) => w.overBudget)).toEqual([false, false]);
+  });
+
+  it("flags an overdue retest when its week has passed without a test", () => {
+    const weeks = summariseWeeks({
+      from: "2027-03-15",
+      to: "2027-03-15",
+      today: "2027-03-17",
+      sessions: [],
+      seasonWeeks: [{ weekStart: "2027-03-01", budget: "polarised", block: "x", retest: true }],
+      testDates: ["2027-01-10"],
+    });
+    expect(weeks[0]!.flags.map((f) => f.code)).toEqual(["retest_overdue"]);
+    const done = summariseWeeks({ from: "2027-03-15", to: "2027-03-15", today: "2027-03-17", sessions: [], seasonWeeks: [{ weekStart: "2027-03-01", budget: "polarised", block: "x", retest: true }], testDates: ["2027-03-03"] });
+    expect(done[0]!.flags).toEqual([]);
+  });
+});

@@ -1,0 +1,146 @@
+/**
+ * Weekly summaries for the calendar's budget band: planned (and later done) minutes per zone per ISO week, checked against
+ * the week's intensity budget, with the reasons and a concrete fix when the week is over budget.
+ */
+import { BUDGET_PRESETS, checkWeek, type Breach, type Budget, type BudgetPreset, type Shares } from "./budget";
+import { formatDate, mondayOf, parseDate } from "./season";
+
+export interface WeekSession {
+  id: string;
+  date: string;
+  title: string;
+  kind: string;
+  minutesByZone: Shares;
+}
+
+export interface SeasonWeekInfo {
+  weekStart: string;
+  budget: BudgetPreset;
+  block: string;
+  retest: boolean;
+}
+
+export interface Fix {
+  action: "move";
+  sessionId: string;
+  title: string;
+  toDate: string;
+  message: string;
+}
+
+export interface WeekSummary {
+  weekStart: string;
+  plannedMinByZone: Shares;
+  doneMinByZone: Shares;
+  budget: { name: string; shares: Shares; tolerance: number };
+  overBudget: boolean;
+  flags: Pick<Breach, "code" | "message">[];
+  breaches: Breach[];
+  fix: Fix | null;
+  block: string | null;
+}
+
+const DAY = 86_400_000;
+export const addDays = (iso: string, n: number) => formatDate(parseDate(iso) + n * DAY);
+
+function minutesOf(sessions: WeekSession[]): Shares {
+  const m: Shares = [0, 0, 0];
+  for (const s of sessions) for (let z = 0; z < 3; z++) m[z]! += s.minutesByZone[z]!;
+  return m;
+}
+
+/** Total minutes of the four weeks before a week, oldest first. */
+function previousTotals(weekStart: string, sessions: WeekSession[]): number[] {
+  return [4, 3, 2, 1].map((k) => {
+    const ws = addDays(weekStart, -7 * k);
+    const m = minutesOf(sessions.filter((s) => s.date >= ws && s.date < addDays(ws, 7)));
+    return m[0] + m[1] + m[2];
+  });
+}
+
+function daysOf(weekStart: string, sessions: WeekSession[]): Shares[] {
+  return Array.from({ length: 7 }, (_, i) => minutesOf(sessions.filter((s) => s.date === addDays(weekStart, i))));
+}
+
+export interface SummariseInput {
+  from: string;
+  to: string;
+  sessions: WeekSession[];
+  seasonWeeks?: SeasonWeekInfo[];
+  defaultBudget?: BudgetPreset;
+  /** Dates of the athlete's tests, to tell whether a past retest was done. */
+  testDates?: string[];
+  today?: string;
+}
+
+function weekBudget(weekStart: string, input: SummariseInput): { budget: Budget; block: string | null; retest: boolean } {
+  const sw = input.seasonWeeks?.find((w) => w.weekStart === weekStart);
+  const preset = sw?.budget ?? input.defaultBudget ?? "polarised";
+  return { budget: BUDGET_PRESETS[preset], block: sw?.block ?? null, retest: sw?.retest ?? false };
+}
+
+function check(weekStart: string, sessions: WeekSession[], input: SummariseInput, previousTotals: number[], retestOverdue: boolean) {
+  const inWeek = sessions.filter((s) => s.date >= weekStart && s.date < addDays(weekStart, 7));
+  const planned = minutesOf(inWeek);
+  const { budget, block } = weekBudget(weekStart, input);
+  // The easy-day rule applies only to weeks with training on most days; a week of two sessions has easy days by itself.
+  const result = checkWeek({ minutesByZone: planned, days: daysOf(weekStart, inWeek), previousWeeksMinutes: previousTotals, budget, retestOverdue });
+  return { inWeek, planned, budget, block, result };
+}
+
+/** A retest week in the past without a test on or after its Monday is overdue. */
+function isRetestOverdue(weekStart: string, input: SummariseInput): boolean {
+  const today = input.today ?? new Date().toISOString().slice(0, 10);
+  const retestWeeks = (input.seasonWeeks ?? []).filter((w) => w.retest && addDays(w.weekStart, 7) <= today && w.weekStart <= weekStart);
+  const last = retestWeeks.at(-1);
+  if (!last) return false;
+  return !(input.testDates ?? []).some((d) => d >= last.weekStart);
+}
+
+export function summariseWeeks(input: SummariseInput): WeekSummary[] {
+  const first = mondayOf(input.from);
+  const last = mondayOf(input.to);
+  const out: WeekSummary[] = [];
+  for (let w = first; w <= last; w = addDays(w, 7)) {
+    const previous = previousTotals(w, input.sessions);
+    const overdue = isRetestOverdue(w, input) && w <= (input.today ?? new Date().toISOString().slice(0, 10));
+    const { inWeek, planned, budget, block, result } = check(w, input.sessions, input, previous, overdue);
+    const budgetBreaches = result.breaches.filter((b) => b.code !== "retest_overdue");
+    out.push({
+      weekStart: w,
+      plannedMinByZone: planned.map((v) => Math.round(v * 10) / 10) as Shares,
+      doneMinByZone: [0, 0, 0],
+      budget: { name: budget.name, shares: [...budget.shares] as Shares, tolerance: budget.tolerance },
+      overBudget: budgetBreaches.length > 0,
+      flags: result.breaches.map((b) => ({ code: b.code, message: b.message })),
+      breaches: result.breaches,
+      fix: budgetBreaches.length ? proposeFix(w, inWeek, input) : null,
+      block,
+    });
+  }
+  return out;
+}
+
+/**
+ * A one-click fix: move the session with the most zone 3 (or zone 2) minutes to the same weekday of a neighbouring week
+ * where it fits the budget, preferring the next week.
+ */
+export function proposeFix(weekStart: string, inWeek: WeekSession[], input: SummariseInput): Fix | null {
+  const candidates = inWeek.filter((s) => s.kind !== "retest").sort((a, b) => b.minutesByZone[2] + b.minutesByZone[1] - (a.minutesByZone[2] + a.minutesByZone[1]));
+  const breachesOf = (week: string, sessions: WeekSession[]) =>
+    check(week, sessions, input, previousTotals(week, sessions), false).result.breaches.filter((b) => b.code !== "retest_overdue");
+  for (const s of candidates) {
+    if (s.minutesByZone[2] + s.minutesByZone[1] === 0) break;
+    for (const shift of [7, -7, 14]) {
+      const toDate = addDays(s.date, shift);
+      if (toDate < (input.today ?? "0000-00-00")) continue;
+      const moved = input.sessions.map((x) => (x.id === s.id ? { ...x, date: toDate } : x));
+      const targetWeek = mondayOf(toDate);
+      // Both weeks, and the week after the target (its ramp), must then keep their budget.
+      if ([weekStart, targetWeek, addDays(targetWeek, 7)].every((w) => breachesOf(w, moved).length === 0 || (w === addDays(targetWeek, 7) && breachesOf(w, moved).length <= breachesOf(w, input.sessions).length))) {
+        return { action: "move", sessionId: s.id, title: s.title, toDate, message: `Move "${s.title}" to ${toDate}: both weeks then keep their budget.` };
+      }
+    }
+  }
+  return null;
+}

@@ -1,0 +1,179 @@
+import "server-only";
+import { randomUUID } from "node:crypto";
+import { and, asc, eq, gte, lte } from "drizzle-orm";
+import type { z } from "zod";
+import { getDb, schema, type Database } from "@/db/client";
+import { requireAthleteAccess } from "@/features/access/server/permissions";
+import { isCoachOf, type Actor } from "@/features/access/lib/rules";
+import { HttpError, notFound } from "@/features/platform/server/http";
+import { zoneSetOnDate } from "@/features/zones/server/zone-sets";
+import { expandDates, rruleText } from "../lib/recurrence";
+import { planSeason, SeasonError, mondayOf } from "../lib/season";
+import { expand, type Block } from "../lib/session";
+import { addDays, summariseWeeks, type SeasonWeekInfo } from "../lib/weeks";
+import type { createSessionSchema, patchSessionSchema, seasonSchema } from "../schemas";
+
+type Tx = Pick<Database, "insert" | "update" | "select" | "delete">;
+
+function totals(structure: Block[]) {
+  const e = expand(structure);
+  return { totalS: Math.round(e.totalS), minutesByZone: e.minutesByZone.map((m) => Math.round(m * 10) / 10) as [number, number, number] };
+}
+
+export async function listSessions(actor: Actor, athleteId: string, from: string, to: string) {
+  await requireAthleteAccess(actor, athleteId, "view");
+  const rows = await getDb()
+    .select()
+    .from(schema.plannedSession)
+    .where(and(eq(schema.plannedSession.athleteId, athleteId), gte(schema.plannedSession.date, from), lte(schema.plannedSession.date, to)))
+    .orderBy(asc(schema.plannedSession.date), asc(schema.plannedSession.createdAt));
+  const series = new Map<string, string>();
+  for (const r of rows) {
+    if (r.seriesId && !series.has(r.seriesId)) {
+      const [s] = await getDb().select().from(schema.sessionSeries).where(eq(schema.sessionSeries.id, r.seriesId));
+      if (s) series.set(s.id, s.rrule);
+    }
+  }
+  return Promise.all(
+    rows.map(async (r) => {
+      const zones = await zoneSetOnDate(athleteId, r.sport, r.date);
+      return { ...r, rrule: r.seriesId ? (series.get(r.seriesId) ?? null) : null, zoneSet: zones ? { id: zones.id, effectiveFrom: zones.effectiveFrom, zones: zones.zones } : null };
+    }),
+  );
+}
+
+/** Creates a session (from a template or in full), or a weekly series of them; one transaction. */
+export async function createSession(actor: Actor, athleteId: string, input: z.infer<typeof createSessionSchema>) {
+  await requireAthleteAccess(actor, athleteId, "coach");
+  const db = getDb();
+  let base: { title: string; sport: string; kind: string; structure: Block[]; templateId: string | null; notes: string };
+  if ("templateId" in input) {
+    const [t] = await db.select().from(schema.sessionTemplate).where(eq(schema.sessionTemplate.id, input.templateId));
+    if (!t || !isCoachOf(actor, t.squadId)) throw new HttpError(400, "Unknown template.", { fieldErrors: { templateId: ["No such template in your squads."] } });
+    base = { title: t.name, sport: t.sport, kind: "training", structure: t.structure as Block[], templateId: t.id, notes: "" };
+  } else {
+    base = { title: input.title, sport: input.sport, kind: input.kind, structure: input.structure, templateId: null, notes: input.notes ?? "" };
+  }
+  const dates = input.repeat ? expandDates(input.date, input.repeat) : [input.date];
+  if (!dates.length) throw new HttpError(400, "The repeat rule gives no dates.", { fieldErrors: { repeat: ["The rule gives no dates from the start date on."] } });
+  const ids: string[] = [];
+  await db.transaction(async (tx) => {
+    let seriesId: string | null = null;
+    if (input.repeat) {
+      seriesId = randomUUID();
+      await tx.insert(schema.sessionSeries).values({ id: seriesId, athleteId, rrule: rruleText(input.date, input.repeat) });
+    }
+    for (const date of dates) {
+      const id = randomUUID();
+      ids.push(id);
+      await tx.insert(schema.plannedSession).values({ id, athleteId, date, seriesId, createdBy: actor.userId, ...base, ...totals(base.structure) });
+    }
+  });
+  return { id: ids[0]!, ids, dates };
+}
+
+async function loadSession(actor: Actor, id: string, action: "view" | "coach") {
+  const [row] = await getDb().select().from(schema.plannedSession).where(eq(schema.plannedSession.id, id));
+  if (!row) throw notFound("No such session.");
+  await requireAthleteAccess(actor, row.athleteId, "view").catch(() => {
+    throw notFound("No such session.");
+  });
+  if (action === "coach") await requireAthleteAccess(actor, row.athleteId, "coach");
+  return row;
+}
+
+/** Moves or edits a session, or its whole series from this occurrence on (scope "series"); one transaction. */
+export async function updateSession(actor: Actor, id: string, patch: z.infer<typeof patchSessionSchema>) {
+  const row = await loadSession(actor, id, "coach");
+  const db = getDb();
+  const fields = {
+    ...(patch.title !== undefined ? { title: patch.title } : {}),
+    ...(patch.notes !== undefined ? { notes: patch.notes } : {}),
+    ...(patch.structure !== undefined ? { structure: patch.structure, ...totals(patch.structure) } : {}),
+  };
+  await db.transaction(async (tx: Tx) => {
+    if (patch.scope === "series" && row.seriesId) {
+      const shift = patch.date ? Math.round((Date.parse(patch.date) - Date.parse(row.date)) / 86_400_000) : 0;
+      const members = await tx
+        .select()
+        .from(schema.plannedSession)
+        .where(and(eq(schema.plannedSession.seriesId, row.seriesId), eq(schema.plannedSession.detached, false), gte(schema.plannedSession.date, row.date)));
+      for (const m of members) {
+        await tx.update(schema.plannedSession).set({ ...fields, ...(shift ? { date: addDays(m.date, shift) } : {}) }).where(eq(schema.plannedSession.id, m.id));
+      }
+    } else {
+      await tx
+        .update(schema.plannedSession)
+        .set({ ...fields, ...(patch.date ? { date: patch.date } : {}), detached: row.seriesId ? true : row.detached })
+        .where(eq(schema.plannedSession.id, id));
+    }
+  });
+  const [updated] = await db.select().from(schema.plannedSession).where(eq(schema.plannedSession.id, id));
+  return updated!;
+}
+
+export async function deleteSession(actor: Actor, id: string, scope: "one" | "series") {
+  const row = await loadSession(actor, id, "coach");
+  const db = getDb();
+  if (scope === "series" && row.seriesId) {
+    await db.delete(schema.plannedSession).where(and(eq(schema.plannedSession.seriesId, row.seriesId), gte(schema.plannedSession.date, row.date), eq(schema.plannedSession.detached, false)));
+  } else {
+    await db.delete(schema.plannedSession).where(eq(schema.plannedSession.id, id));
+  }
+}
+
+export async function duplicateSession(actor: Actor, id: string, date: string) {
+  const row = await loadSession(actor, id, "coach");
+  return createSession(actor, row.athleteId, { date, title: row.title, sport: row.sport as never, kind: row.kind as "training" | "retest", structure: row.structure as Block[], notes: row.notes });
+}
+
+// ---------------------------------------------------------------------------------------------------------------------
+
+const RETEST_STRUCTURE: Block[] = [
+  { type: "step", kind: "warmup", durationS: 600, zone: 1 },
+  { type: "step", kind: "work", durationS: 900, zone: 2 },
+  { type: "step", kind: "cooldown", durationS: 600, zone: 1 },
+];
+
+/** Generates a season and places its retest sessions (Wednesday of each retest week); one transaction. */
+export async function createSeason(actor: Actor, athleteId: string, input: z.infer<typeof seasonSchema>) {
+  await requireAthleteAccess(actor, athleteId, "coach");
+  let weeks;
+  try {
+    weeks = planSeason({ startDate: input.startDate, events: input.events, weeklyHours: input.weeklyHours, level: input.level, loadingWeeks: input.loadingWeeks, retestEveryWeeks: input.retestEveryWeeks });
+  } catch (e) {
+    if (e instanceof SeasonError) throw new HttpError(400, e.message);
+    throw e;
+  }
+  const id = randomUUID();
+  await getDb().transaction(async (tx) => {
+    await tx.insert(schema.season).values({ id, athleteId, name: input.name, sport: input.sport, startDate: weeks[0]!.weekStart, events: input.events, weeklyHours: input.weeklyHours, level: input.level, retestEveryWeeks: input.retestEveryWeeks, weeks: weeks as unknown as Record<string, unknown>[], createdBy: actor.userId });
+    for (const w of weeks.filter((x) => x.retest)) {
+      await tx.insert(schema.plannedSession).values({ id: randomUUID(), athleteId, date: addDays(w.weekStart, 2), kind: "retest", sport: input.sport, title: "Retest: threshold test", structure: RETEST_STRUCTURE, ...totals(RETEST_STRUCTURE), createdBy: actor.userId, notes: "Retest to keep the zones in step with fitness. Answer the readiness questions first." });
+    }
+  });
+  return { id, weeks };
+}
+
+export async function listSeasons(actor: Actor, athleteId: string) {
+  await requireAthleteAccess(actor, athleteId, "view");
+  return getDb().select().from(schema.season).where(eq(schema.season.athleteId, athleteId)).orderBy(asc(schema.season.startDate));
+}
+
+/** Per ISO week: planned minutes per zone against the budget of the season week, with flags and a fix. */
+export async function weekSummaries(actor: Actor, athleteId: string, from: string, to: string) {
+  await requireAthleteAccess(actor, athleteId, "view");
+  const db = getDb();
+  const start = addDays(mondayOf(from), -28);
+  const end = addDays(mondayOf(to), 6);
+  const [sessions, seasons, tests] = await Promise.all([
+    db
+      .select({ id: schema.plannedSession.id, date: schema.plannedSession.date, title: schema.plannedSession.title, kind: schema.plannedSession.kind, minutesByZone: schema.plannedSession.minutesByZone })
+      .from(schema.plannedSession)
+      .where(and(eq(schema.plannedSession.athleteId, athleteId), gte(schema.plannedSession.date, start), lte(schema.plannedSession.date, end))),
+    db.select({ weeks: schema.season.weeks }).from(schema.season).where(eq(schema.season.athleteId, athleteId)),
+    db.select({ date: schema.athleteTest.testDate }).from(schema.athleteTest).where(eq(schema.athleteTest.athleteId, athleteId)),
+  ]);
+  const seasonWeeks = seasons.flatMap((s) => s.weeks as unknown as SeasonWeekInfo[]);
+  return summariseWeeks({ from, to, sessions, seasonWeeks, testDates: tests.map((t) => t.date) }).map(({ breaches, ...w }) => ({ ...w, breaches }));
+}
