@@ -31,6 +31,7 @@ export default async function RootLayout({ children }: { children: ReactNode }) 
             {actor ? (
               <>
                 {isCoach ? <Link href="/roster" className="text-sm font-semibold hover:text-tide">Roster</Link> : null}
+                {isCoach ? <Link href="/templates" className="text-sm font-semibold hover:text-tide">Templates</Link> : null}
                 {isAthlete ? <Link href="/today" className="text-sm font-semibold hover:text-tide">Today</Link> : null}
                 {isAthlete ? <Link href="/zones" className="text-sm font-semibold hover:text-tide">My zones</Link> : null}
                 {isAthlete ? <Link href="/settings" className="text-sm font-semibold hover:text-tide">Settings</Link> : null}

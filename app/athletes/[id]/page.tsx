@@ -41,6 +41,7 @@ export default async function AthletePage({ params }: { params: Promise<{ id: st
           <h2 id="tests-heading" className="text-lg font-bold">Tests</h2>
           {coaches ? (
             <nav aria-label="Record a test" className="flex flex-wrap gap-2 text-sm">
+              <Link className="btn-quiet" href={`/athletes/${id}/plan`}>Plan</Link>
               <Link className="btn" href={`/athletes/${id}/tests/new?kind=gas`}>Upload a gas-exchange test</Link>
               <Link className="btn-quiet" href={`/athletes/${id}/tests/new?kind=talk`}>Talk test</Link>
               <Link className="btn-quiet" href={`/athletes/${id}/tests/new?kind=submax`}>Submaximal estimate</Link>

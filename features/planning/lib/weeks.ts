@@ -114,7 +114,7 @@ export function summariseWeeks(input: SummariseInput): WeekSummary[] {
       overBudget: budgetBreaches.length > 0,
       flags: result.breaches.map((b) => ({ code: b.code, message: b.message })),
       breaches: result.breaches,
-      fix: budgetBreaches.length ? proposeFix(w, inWeek, input) : null,
+      fix: budgetBreaches.some((b) => b.code !== "volume_ramp") ? proposeFix(w, inWeek, input) : null,
       block,
     });
   }
@@ -127,8 +127,9 @@ export function summariseWeeks(input: SummariseInput): WeekSummary[] {
  */
 export function proposeFix(weekStart: string, inWeek: WeekSession[], input: SummariseInput): Fix | null {
   const candidates = inWeek.filter((s) => s.kind !== "retest").sort((a, b) => b.minutesByZone[2] + b.minutesByZone[1] - (a.minutesByZone[2] + a.minutesByZone[1]));
+  // The share and easy-day breaches are what a move can cure; a volume ramp needs shorter sessions instead.
   const breachesOf = (week: string, sessions: WeekSession[]) =>
-    check(week, sessions, input, previousTotals(week, sessions), false).result.breaches.filter((b) => b.code !== "retest_overdue");
+    check(week, sessions, input, previousTotals(week, sessions), false).result.breaches.filter((b) => b.code !== "retest_overdue" && b.code !== "volume_ramp");
   for (const s of candidates) {
     if (s.minutesByZone[2] + s.minutesByZone[1] === 0) break;
     for (const shift of [7, -7, 14]) {
@@ -137,7 +138,7 @@ export function proposeFix(weekStart: string, inWeek: WeekSession[], input: Summ
       const moved = input.sessions.map((x) => (x.id === s.id ? { ...x, date: toDate } : x));
       const targetWeek = mondayOf(toDate);
       // Both weeks, and the week after the target (its ramp), must then keep their budget.
-      if ([weekStart, targetWeek, addDays(targetWeek, 7)].every((w) => breachesOf(w, moved).length === 0 || (w === addDays(targetWeek, 7) && breachesOf(w, moved).length <= breachesOf(w, input.sessions).length))) {
+      if (breachesOf(weekStart, moved).length === 0 && breachesOf(targetWeek, moved).length === 0) {
         return { action: "move", sessionId: s.id, title: s.title, toDate, message: `Move "${s.title}" to ${toDate}: both weeks then keep their budget.` };
       }
     }

@@ -165,7 +165,8 @@ export async function weekSummaries(actor: Actor, athleteId: string, from: strin
   await requireAthleteAccess(actor, athleteId, "view");
   const db = getDb();
   const start = addDays(mondayOf(from), -28);
-  const end = addDays(mondayOf(to), 6);
+  // Two weeks beyond the range too: a proposed fix may move a session into them.
+  const end = addDays(mondayOf(to), 6 + 14);
   const [sessions, seasons, tests] = await Promise.all([
     db
       .select({ id: schema.plannedSession.id, date: schema.plannedSession.date, title: schema.plannedSession.title, kind: schema.plannedSession.kind, minutesByZone: schema.plannedSession.minutesByZone })

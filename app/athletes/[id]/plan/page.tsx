@@ -1,0 +1,64 @@
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { canCoachAthlete } from "@/features/access/lib/rules";
+import { membershipsOfAthlete } from "@/features/access/server/permissions";
+import { requirePageActor } from "@/features/auth/server/current";
+import { getAthleteProfile } from "@/features/athletes/server/profile";
+import { HttpError } from "@/features/platform/server/http";
+import { PlanCalendar } from "@/features/planning/components/PlanCalendar";
+import { SeasonForm } from "@/features/planning/components/SeasonForm";
+import { SeasonRibbon } from "@/features/planning/components/SeasonRibbon";
+import { mondayOf, type SeasonWeek } from "@/features/planning/lib/season";
+import { listSeasons, weekSummaries } from "@/features/planning/server/planning";
+import { listTemplates } from "@/features/planning/server/templates";
+
+export const metadata = { title: "Plan" };
+
+export default async function PlanPage({ params, searchParams }: { params: Promise<{ id: string }>; searchParams: Promise<{ week?: string }> }) {
+  const { id } = await params;
+  const { week } = await searchParams;
+  const actor = await requirePageActor(`/athletes/${id}/plan`);
+  const data = await getAthleteProfile(actor, id).catch((e) => {
+    if (e instanceof HttpError && e.status === 404) notFound();
+    throw e;
+  });
+  const memberships = await membershipsOfAthlete(id);
+  const canEdit = canCoachAthlete(actor, { userId: id, memberships });
+  const athleteSquads = new Set(memberships.filter((m) => m.role === "athlete").map((m) => m.squadId));
+  const [seasons, templates] = await Promise.all([listSeasons(actor, id), canEdit ? listTemplates(actor) : Promise.resolve([])]);
+  const today = new Date().toISOString().slice(0, 10);
+  const current = seasons.find((s) => {
+    const w = s.weeks as unknown as SeasonWeek[];
+    return w.length && w[0]!.weekStart <= today && w[w.length - 1]!.weekStart >= mondayOf(today);
+  }) ?? seasons.at(-1);
+  const seasonWeeks = (current?.weeks ?? []) as unknown as SeasonWeek[];
+  const overBudget: Record<string, string[]> = {};
+  if (seasonWeeks.length) {
+    const summaries = await weekSummaries(actor, id, seasonWeeks[0]!.weekStart, seasonWeeks[seasonWeeks.length - 1]!.weekStart);
+    for (const s of summaries) if (s.flags.length) overBudget[s.weekStart] = s.flags.map((f) => f.message);
+  }
+  const initialDate = week && /^\d{4}-\d{2}-\d{2}$/.test(week) ? week : today;
+  return (
+    <div className="space-y-6">
+      <div className="flex flex-wrap items-end justify-between gap-3">
+        <div>
+          <p className="text-sm font-semibold uppercase tracking-widest text-tide"><Link href={`/athletes/${id}`} className="hover:underline">{data.athlete.name}</Link></p>
+          <h1 className="text-2xl font-bold">Plan</h1>
+        </div>
+        {canEdit ? <Link href="/templates" className="btn-quiet">Session templates</Link> : null}
+      </div>
+      {current ? (
+        <div className="card"><SeasonRibbon athleteId={id} name={current.name} weeks={seasonWeeks} overBudget={overBudget} /></div>
+      ) : canEdit ? (
+        <section className="card space-y-3" aria-labelledby="season-h">
+          <h2 id="season-h" className="font-bold">No season yet</h2>
+          <p className="text-sm text-ink-soft">Generate a season toward the athlete&apos;s event: blocks, loading and unloading weeks, volume targets, intensity budgets and retests. Everything can be edited afterwards.</p>
+          <SeasonForm athleteId={id} today={today} sport={data.profile.sports[0] ?? "running"} />
+        </section>
+      ) : (
+        <p className="text-ink-soft">No season planned yet.</p>
+      )}
+      <PlanCalendar athleteId={id} templates={templates.filter((t) => athleteSquads.has(t.squadId)).map((t) => ({ id: t.id, name: t.name, sport: t.sport, totalS: t.totalS, minutesByZone: t.minutesByZone }))} initialDate={initialDate} canEdit={canEdit} />
+    </div>
+  );
+}

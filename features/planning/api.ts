@@ -1,0 +1,71 @@
+"use client";
+import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import { apiFetch } from "@/features/squads/api";
+import type { WeekSummary } from "./lib/weeks";
+
+export interface SessionDto {
+  id: string;
+  date: string;
+  title: string;
+  kind: string;
+  sport: string;
+  minutesByZone: [number, number, number];
+  totalS: number;
+  seriesId: string | null;
+  rrule: string | null;
+}
+
+export const sessionsKey = (athleteId: string, from: string, to: string) => ["sessions", athleteId, from, to];
+export const weeksKey = (athleteId: string, from: string, to: string) => ["weeks", athleteId, from, to];
+
+export function useSessions(athleteId: string, from: string, to: string) {
+  return useQuery({ queryKey: sessionsKey(athleteId, from, to), queryFn: () => apiFetch<SessionDto[]>(`/api/athletes/${athleteId}/sessions?from=${from}&to=${to}`), enabled: !!from });
+}
+
+export function useWeeks(athleteId: string, from: string, to: string) {
+  return useQuery({ queryKey: weeksKey(athleteId, from, to), queryFn: () => apiFetch<WeekSummary[]>(`/api/athletes/${athleteId}/weeks?from=${from}&to=${to}`), enabled: !!from });
+}
+
+/** Moves a session at once in the cache and rolls back with the server's reason when it refuses. */
+export function useMoveSession(athleteId: string, from: string, to: string) {
+  const qc = useQueryClient();
+  const key = sessionsKey(athleteId, from, to);
+  return useMutation({
+    mutationFn: (v: { id: string; date: string; scope?: "one" | "series" }) => apiFetch(`/api/sessions/${v.id}`, { method: "PATCH", body: JSON.stringify({ date: v.date, scope: v.scope ?? "one" }) }),
+    onMutate: async (v) => {
+      await qc.cancelQueries({ queryKey: key });
+      const previous = qc.getQueryData<SessionDto[]>(key);
+      qc.setQueryData<SessionDto[]>(key, (old) => old?.map((s) => (s.id === v.id ? { ...s, date: v.date } : s)));
+      return { previous };
+    },
+    onError: (_e, _v, ctx) => {
+      if (ctx?.previous) qc.setQueryData(key, ctx.previous);
+    },
+    onSettled: () => {
+      void qc.invalidateQueries({ queryKey: ["sessions", athleteId] });
+      void qc.invalidateQueries({ queryKey: ["weeks", athleteId] });
+    },
+  });
+}
+
+export function useCreateSession(athleteId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (body: unknown) => apiFetch<{ id: string }>(`/api/athletes/${athleteId}/sessions`, { method: "POST", body: JSON.stringify(body) }),
+    onSettled: () => {
+      void qc.invalidateQueries({ queryKey: ["sessions", athleteId] });
+      void qc.invalidateQueries({ queryKey: ["weeks", athleteId] });
+    },
+  });
+}
+
+export function useDeleteSession(athleteId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (v: { id: string; scope: "one" | "series" }) => apiFetch(`/api/sessions/${v.id}?scope=${v.scope}`, { method: "DELETE" }),
+    onSettled: () => {
+      void qc.invalidateQueries({ queryKey: ["sessions", athleteId] });
+      void qc.invalidateQueries({ queryKey: ["weeks", athleteId] });
+    },
+  });
+}

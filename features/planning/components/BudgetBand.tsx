@@ -1,0 +1,50 @@
+"use client";
+import type { WeekSummary } from "../lib/weeks";
+
+const ZONE_BG = ["bg-zone-1", "bg-zone-2", "bg-zone-3"];
+
+/** A week's planned minutes per zone as a stacked bar against the budget's shares, with its state and reasons. */
+export function BudgetBand({ week, preview, onApplyFix, busy }: { week: WeekSummary; preview?: boolean; onApplyFix?: () => void; busy?: boolean }) {
+  const total = week.plannedMinByZone.reduce((a, b) => a + b, 0);
+  const label = `Week of ${week.weekStart}`;
+  return (
+    <section aria-label={`Budget, ${label}`} data-testid={`${preview ? "preview" : "band"}-${week.weekStart}`} data-over={week.overBudget ? "yes" : "no"} className={`rounded-md border px-3 py-2 ${week.overBudget ? "border-alert/60 bg-alert-wash/50" : "border-rule bg-paper"} ${preview ? "ring-2 ring-tide" : ""}`}>
+      <div className="flex flex-wrap items-baseline justify-between gap-2 text-sm">
+        <p className="font-semibold">
+          {label}
+          {week.block ? <span className="font-normal text-ink-soft"> · {week.block.replaceAll("_", " ")}</span> : null}
+          {preview ? <span className="ml-2 text-tide">preview of the drop</span> : null}
+        </p>
+        <p className="num text-ink-soft">
+          {Math.round(total)} min planned · zone 1 {Math.round(week.plannedMinByZone[0])} · zone 2 {Math.round(week.plannedMinByZone[1])} · zone 3 {Math.round(week.plannedMinByZone[2])} min · {week.budget.name} budget {week.budget.shares.map((s) => Math.round(s * 100)).join("/")} % ± {Math.round(week.budget.tolerance * 100)}
+        </p>
+      </div>
+      <div className="relative mt-1 h-4 overflow-hidden rounded bg-ground" role="img" aria-label={`${label}: ${week.plannedMinByZone.map((m, i) => `zone ${i + 1} ${total ? Math.round((100 * m) / total) : 0} %`).join(", ")}`}>
+        <div className="flex h-full">
+          {week.plannedMinByZone.map((m, i) => (total ? <div key={i} className={ZONE_BG[i]} style={{ width: `${(100 * m) / total}%` }} /> : null))}
+        </div>
+        {/* Budget targets: where zone 1 should end and zone 3 should start. */}
+        <div className="absolute inset-y-0 border-l-2 border-dashed border-ink" style={{ left: `${week.budget.shares[0] * 100}%` }} title="Budget: end of zone 1" />
+        <div className="absolute inset-y-0 border-l-2 border-dashed border-ink/60" style={{ left: `${(1 - week.budget.shares[2]) * 100}%` }} title="Budget: start of zone 3" />
+      </div>
+      {week.flags.length ? (
+        <ul className="mt-1 space-y-0.5 text-sm">
+          {week.overBudget ? <li className="font-semibold text-alert">Over budget</li> : null}
+          {week.flags.map((f) => (
+            <li key={f.code} data-flag={f.code}>{f.message}</li>
+          ))}
+        </ul>
+      ) : total ? (
+        <p className="mt-1 text-sm text-ink-soft">Within budget.</p>
+      ) : (
+        <p className="mt-1 text-sm text-ink-soft">Nothing planned yet.</p>
+      )}
+      {week.fix && onApplyFix && !preview ? (
+        <p className="mt-1 flex flex-wrap items-center gap-2 text-sm">
+          <span>Suggested fix: {week.fix.message}</span>
+          <button type="button" className="btn-quiet py-1" onClick={onApplyFix} disabled={busy}>Apply the fix</button>
+        </p>
+      ) : null}
+    </section>
+  );
+}

@@ -1,0 +1,276 @@
+"use client";
+import dayGridPlugin from "@fullcalendar/daygrid";
+import interactionPlugin, { Draggable } from "@fullcalendar/interaction";
+import FullCalendar from "@fullcalendar/react";
+import type { DatesSetArg, EventClickArg, EventDropArg, EventInput } from "@fullcalendar/core";
+import type { EventReceiveArg } from "@fullcalendar/interaction";
+import { useEffect, useMemo, useRef, useState } from "react";
+import { FormAlert, FormNotice } from "@/features/platform/components/form-bits";
+import { useQueryClient } from "@tanstack/react-query";
+import { ApiError, apiFetch } from "@/features/squads/api";
+import { useCreateSession, useDeleteSession, useMoveSession, useSessions, useWeeks, type SessionDto } from "../api";
+import { BUDGET_PRESETS, type BudgetPreset } from "../lib/budget";
+import { mondayOf } from "../lib/season";
+import { addDays, summariseWeeks, type SeasonWeekInfo, type WeekSession, type WeekSummary } from "../lib/weeks";
+import { BudgetBand } from "./BudgetBand";
+
+export interface TrayTemplate {
+  id: string;
+  name: string;
+  sport: string;
+  totalS: number;
+  minutesByZone: [number, number, number];
+}
+
+const presetOf = (name: string): BudgetPreset => (Object.entries(BUDGET_PRESETS).find(([, b]) => b.name === name)?.[0] as BudgetPreset) ?? "polarised";
+
+function zoneText(m: [number, number, number]) {
+  return `z1 ${Math.round(m[0])} · z2 ${Math.round(m[1])} · z3 ${Math.round(m[2])} min`;
+}
+
+export function PlanCalendar({ athleteId, templates, initialDate, canEdit }: { athleteId: string; templates: TrayTemplate[]; initialDate: string; canEdit: boolean }) {
+  const calendarRef = useRef<FullCalendar>(null);
+  const trayRef = useRef<HTMLUListElement>(null);
+  const [range, setRange] = useState<{ from: string; to: string }>({ from: "", to: "" });
+  const [message, setMessage] = useState<{ kind: "ok" | "error"; text: string }>();
+  const [preview, setPreview] = useState<WeekSummary | null>(null);
+  const [selected, setSelected] = useState<SessionDto | null>(null);
+  const [scope, setScope] = useState<"one" | "series">("one");
+  const sessions = useSessions(athleteId, range.from, range.to);
+  const weeks = useWeeks(athleteId, range.from, range.to);
+  const move = useMoveSession(athleteId, range.from, range.to);
+  const create = useCreateSession(athleteId);
+  const remove = useDeleteSession(athleteId);
+
+  // An external drag can end anywhere; the preview ends with it.
+  useEffect(() => {
+    const clear = () => setTimeout(() => setPreview(null), 0);
+    document.addEventListener("pointerup", clear);
+    document.addEventListener("mouseup", clear);
+    return () => {
+      document.removeEventListener("pointerup", clear);
+      document.removeEventListener("mouseup", clear);
+    };
+  }, []);
+
+  useEffect(() => {
+    if (!trayRef.current || !canEdit) return;
+    const d = new Draggable(trayRef.current, {
+      itemSelector: "[data-template-id]",
+      eventData: (el) => ({ title: el.getAttribute("data-title") ?? "", create: true, extendedProps: { templateId: el.getAttribute("data-template-id") } }),
+    });
+    return () => d.destroy();
+  }, [canEdit]);
+
+  const events: EventInput[] = useMemo(
+    () =>
+      (sessions.data ?? []).map((s) => ({
+        id: s.id,
+        title: `${s.kind === "retest" ? "⟳ " : ""}${s.title} · ${Math.round(s.totalS / 60)} min`,
+        start: s.date,
+        allDay: true,
+        classNames: [s.kind === "retest" ? "tm-retest" : "tm-session", s.minutesByZone[2] > 0 ? "tm-hard" : "tm-easy"],
+        extendedProps: { session: s },
+      })),
+    [sessions.data],
+  );
+
+  const seasonWeeks: SeasonWeekInfo[] = useMemo(() => (weeks.data ?? []).map((w) => ({ weekStart: w.weekStart, budget: presetOf(w.budget.name), block: w.block ?? "", retest: false })), [weeks.data]);
+
+  function previewFor(date: string, moving: { id?: string; templateId?: string }) {
+    const base: WeekSession[] = (sessions.data ?? []).map((s) => ({ id: s.id, date: s.date, title: s.title, kind: s.kind, minutesByZone: s.minutesByZone }));
+    let next = base;
+    if (moving.id) next = base.map((s) => (s.id === moving.id ? { ...s, date } : s));
+    else if (moving.templateId) {
+      const t = templates.find((x) => x.id === moving.templateId);
+      if (t) next = [...base, { id: "__new", date, title: t.name, kind: "training", minutesByZone: t.minutesByZone }];
+    }
+    const week = mondayOf(date);
+    const [summary] = summariseWeeks({ from: week, to: week, sessions: next, seasonWeeks, today: "0000-00-00" });
+    setPreview(summary ?? null);
+  }
+
+  const fail = (e: unknown) => setMessage({ kind: "error", text: e instanceof ApiError ? `The server refused: ${e.message}` : "That did not work; the calendar shows the last saved plan." });
+
+  const onDrop = (info: EventDropArg) => {
+    setPreview(null);
+    const s = info.event.extendedProps.session as SessionDto;
+    const date = info.event.startStr.slice(0, 10);
+    setMessage(undefined);
+    move.mutate(
+      { id: s.id, date, scope: s.seriesId ? scope : "one" },
+      {
+        onError: (e) => {
+          info.revert();
+          fail(e);
+        },
+        onSuccess: () => setMessage({ kind: "ok", text: `Moved "${s.title}" to ${date}.` }),
+      },
+    );
+  };
+
+  const onReceive = (info: EventReceiveArg) => {
+    setPreview(null);
+    const templateId = info.event.extendedProps.templateId as string;
+    const date = info.event.startStr.slice(0, 10);
+    info.event.remove();
+    setMessage(undefined);
+    create.mutate({ date, templateId }, { onError: fail, onSuccess: () => setMessage({ kind: "ok", text: `Planned "${info.event.title}" on ${date}.` }) });
+  };
+
+  const weekList = weeks.data ?? [];
+  return (
+    <div className="grid gap-6 lg:grid-cols-[1fr_16rem]">
+      <div className="space-y-3">
+        <div className="space-y-2" aria-live="polite">
+          {weeks.isPending && range.from ? <p role="status" className="text-sm text-ink-soft">Checking the weeks against their budgets…</p> : null}
+          {weeks.isError ? <FormAlert>The budget check could not be loaded: {weeks.error.message}</FormAlert> : null}
+          {weekList.map((w) => (
+            // The preview lies over the band instead of replacing it: the calendar must not move while something is dragged.
+            <div key={w.weekStart} className="relative">
+              <BudgetBand
+                week={w}
+                busy={move.isPending}
+                onApplyFix={canEdit && w.fix ? () => move.mutate({ id: w.fix!.sessionId, date: w.fix!.toDate }, { onError: fail, onSuccess: () => setMessage({ kind: "ok", text: `Applied: ${w.fix!.message}` }) }) : undefined}
+              />
+              {preview && preview.weekStart === w.weekStart ? (
+                <div className="absolute inset-x-0 top-0 z-20 shadow-lg">
+                  <BudgetBand week={preview} preview />
+                </div>
+              ) : null}
+            </div>
+          ))}
+        </div>
+        {message ? message.kind === "ok" ? <FormNotice>{message.text}</FormNotice> : <FormAlert>{message.text}</FormAlert> : null}
+        {sessions.isError ? <FormAlert>The sessions could not be loaded: {sessions.error.message}</FormAlert> : null}
+        {canEdit && (sessions.data ?? []).some((s) => s.seriesId) ? (
+          <fieldset className="flex flex-wrap gap-4 text-sm">
+            <legend className="sr-only">Moving a repeating session</legend>
+            <span className="font-semibold">Moving a repeating session changes</span>
+            <label className="flex items-center gap-1"><input type="radio" checked={scope === "one"} onChange={() => setScope("one")} /> this occurrence</label>
+            <label className="flex items-center gap-1"><input type="radio" checked={scope === "series"} onChange={() => setScope("series")} /> the series from here on</label>
+          </fieldset>
+        ) : null}
+        <div className="tm-calendar rounded-lg border border-rule bg-paper p-2">
+          <FullCalendar
+            ref={calendarRef}
+            plugins={[dayGridPlugin, interactionPlugin]}
+            initialView="dayGridWeek"
+            initialDate={initialDate}
+            views={{ dayGridFourWeek: { type: "dayGrid", duration: { weeks: 4 }, buttonText: "4 weeks" } }}
+            headerToolbar={{ left: "prev,next today", center: "title", right: "dayGridWeek,dayGridFourWeek,dayGridMonth" }}
+            buttonText={{ today: "This week", week: "Week", month: "Month" }}
+            firstDay={1}
+            height="auto"
+            editable={canEdit}
+            droppable={canEdit}
+            eventStartEditable={canEdit}
+            eventDurationEditable={false}
+            events={events}
+            datesSet={(arg: DatesSetArg) => {
+              const from = arg.startStr.slice(0, 10);
+              const to = addDays(arg.endStr.slice(0, 10), -1);
+              setRange((r) => (r.from === from && r.to === to ? r : { from, to }));
+            }}
+            eventAllow={(span, moving) => {
+              const date = span.startStr.slice(0, 10);
+              const s = moving?.extendedProps.session as SessionDto | undefined;
+              previewFor(date, s ? { id: s.id } : { templateId: moving?.extendedProps.templateId as string });
+              return true;
+            }}
+            eventDragStop={() => setPreview(null)}
+            eventDrop={onDrop}
+            eventReceive={onReceive}
+            eventClick={(arg: EventClickArg) => setSelected(arg.event.extendedProps.session as SessionDto)}
+          />
+        </div>
+        {selected ? (
+          <section className="card space-y-2" aria-label="Selected session">
+            <h3 className="font-bold">{selected.title} · {selected.date}</h3>
+            <p className="num text-sm">{Math.round(selected.totalS / 60)} min · {zoneText(selected.minutesByZone)}{selected.rrule ? ` · repeats (${selected.rrule})` : ""}</p>
+            {canEdit ? (
+              <div className="flex flex-wrap gap-2 text-sm">
+                <DuplicateButton sessionId={selected.id} date={addDays(selected.date, 7)} onDone={(t) => setMessage({ kind: "ok", text: t })} onError={fail} athleteId={athleteId} />
+                <button type="button" className="btn-quiet py-1" onClick={() => remove.mutate({ id: selected.id, scope: "one" }, { onSuccess: () => { setSelected(null); setMessage({ kind: "ok", text: "Session deleted." }); }, onError: fail })}>Delete</button>
+                {selected.seriesId ? <button type="button" className="btn-quiet py-1" onClick={() => remove.mutate({ id: selected.id, scope: "series" }, { onSuccess: () => { setSelected(null); setMessage({ kind: "ok", text: "Series deleted from this occurrence on." }); }, onError: fail })}>Delete the series from here</button> : null}
+                <button type="button" className="text-sm underline" onClick={() => setSelected(null)}>Close</button>
+              </div>
+            ) : null}
+          </section>
+        ) : null}
+      </div>
+      {canEdit ? (
+        <aside aria-labelledby="tray-heading" className="space-y-3">
+          <h2 id="tray-heading" className="font-bold">Template tray</h2>
+          <p className="text-xs text-ink-soft">Drag a template onto a day. The band of the week shows the result before you drop.</p>
+          {templates.length === 0 ? <p className="text-sm text-ink-soft">No templates yet. Build one on the templates page.</p> : null}
+          <ul ref={trayRef} className="space-y-2">
+            {templates.map((t) => (
+              <li key={t.id} data-template-id={t.id} data-title={t.name} className="cursor-grab rounded-md border border-rule bg-paper p-2 text-sm shadow-sm hover:border-tide">
+                <p className="font-semibold">{t.name}</p>
+                <p className="num text-xs text-ink-soft">{Math.round(t.totalS / 60)} min · {zoneText(t.minutesByZone)}</p>
+              </li>
+            ))}
+          </ul>
+          <KeyboardPlanner templates={templates} defaultDate={range.from || initialDate} onPlan={(templateId, date) => create.mutate({ date, templateId }, { onError: fail, onSuccess: () => { setMessage({ kind: "ok", text: `Planned on ${date}.` }); calendarRef.current?.getApi().gotoDate(date); } })} />
+        </aside>
+      ) : null}
+    </div>
+  );
+}
+
+function DuplicateButton({ sessionId, date, onDone, onError, athleteId }: { sessionId: string; date: string; onDone: (t: string) => void; onError: (e: unknown) => void; athleteId: string }) {
+  const qc = useQueryClient();
+  const [busy, setBusy] = useState(false);
+  return (
+    <button
+      type="button"
+      className="btn-quiet py-1"
+      disabled={busy}
+      onClick={async () => {
+        setBusy(true);
+        try {
+          await apiFetch(`/api/sessions/${sessionId}`, { method: "POST", body: JSON.stringify({ date }) });
+          await Promise.all([qc.invalidateQueries({ queryKey: ["sessions", athleteId] }), qc.invalidateQueries({ queryKey: ["weeks", athleteId] })]);
+          onDone(`Copied to ${date}.`);
+        } catch (e) {
+          onError(e);
+        } finally {
+          setBusy(false);
+        }
+      }}
+    >
+      Copy to the next week
+    </button>
+  );
+}
+
+/** Planning without a pointer: choose a template and a day. */
+function KeyboardPlanner({ templates, defaultDate, onPlan }: { templates: TrayTemplate[]; defaultDate: string; onPlan: (templateId: string, date: string) => void }) {
+  const [templateId, setTemplateId] = useState("");
+  const [date, setDate] = useState(defaultDate);
+  if (!templates.length) return null;
+  return (
+    <form
+      className="space-y-2 rounded-md border border-rule p-2 text-sm"
+      onSubmit={(e) => {
+        e.preventDefault();
+        if (templateId && date) onPlan(templateId, date);
+      }}
+    >
+      <p className="font-semibold">Plan without dragging</p>
+      <label className="block">
+        <span className="field-label">Template</span>
+        <select className="field-input" value={templateId} onChange={(e) => setTemplateId(e.target.value)}>
+          <option value="">Choose…</option>
+          {templates.map((t) => <option key={t.id} value={t.id}>{t.name}</option>)}
+        </select>
+      </label>
+      <label className="block">
+        <span className="field-label">Day</span>
+        <input type="date" className="field-input num" value={date} onChange={(e) => setDate(e.target.value)} />
+      </label>
+      <button type="submit" className="btn w-full" disabled={!templateId || !date}>Plan it</button>
+    </form>
+  );
+}

@@ -1,0 +1,49 @@
+import Link from "next/link";
+import { BLOCK_LABELS, type BlockName, type SeasonWeek } from "../lib/season";
+
+const BLOCK_STYLE: Record<BlockName, string> = {
+  general_preparation: "bg-tide-wash",
+  specific_preparation: "bg-zone-1",
+  pre_competition: "bg-zone-2/40",
+  taper: "bg-paper",
+  competition: "bg-zone-3 text-white",
+  transition: "bg-ground",
+};
+
+/** The strip of a season's weeks: block, volume target, budget state and retest marks; a week opens in the calendar. */
+export function SeasonRibbon({ athleteId, name, weeks, overBudget }: { athleteId: string; name: string; weeks: SeasonWeek[]; overBudget: Record<string, string[]> }) {
+  const blocks = [...new Set(weeks.map((w) => w.block))];
+  return (
+    <section aria-label={`Season ribbon: ${name}`} className="space-y-2">
+      <div className="flex flex-wrap items-baseline justify-between gap-2">
+        <h2 className="font-bold">{name}</h2>
+        <ul className="flex flex-wrap gap-3 text-xs">
+          {blocks.map((b) => (
+            <li key={b} className="flex items-center gap-1"><span aria-hidden className={`inline-block h-3 w-3 rounded-sm border border-rule ${BLOCK_STYLE[b]}`} />{BLOCK_LABELS[b]}</li>
+          ))}
+          <li>⟳ retest</li>
+          <li><span className="font-bold text-alert">!</span> over budget</li>
+        </ul>
+      </div>
+      <ol className="flex gap-0.5 overflow-x-auto pb-1">
+        {weeks.map((w) => {
+          const flags = overBudget[w.weekStart] ?? [];
+          return (
+            <li key={w.weekStart} className="min-w-12 flex-1">
+              <Link
+                href={`/athletes/${athleteId}/plan?week=${w.weekStart}`}
+                className={`block rounded border px-1 py-1 text-center text-[11px] leading-tight ${BLOCK_STYLE[w.block]} ${flags.length ? "border-alert" : "border-rule"}`}
+                title={`Week of ${w.weekStart}: ${BLOCK_LABELS[w.block]}, ${w.role}, ${w.volumeHours} h target${w.retest ? ", retest" : ""}${w.events.length ? `, ${w.events.join(", ")}` : ""}${flags.length ? ` — ${flags.join("; ")}` : ""}`}
+                aria-label={`Week of ${w.weekStart}, ${BLOCK_LABELS[w.block]}, ${w.volumeHours} hours${w.retest ? ", retest" : ""}${flags.length ? ", over budget" : ""}`}
+              >
+                <span className="block num">{w.weekStart.slice(5)}</span>
+                <span className="block num font-semibold">{w.volumeHours} h</span>
+                <span className="block">{w.retest ? "⟳" : "\u00a0"}{flags.length ? <span className="font-bold text-alert">!</span> : null}</span>
+              </Link>
+            </li>
+          );
+        })}
+      </ol>
+    </section>
+  );
+}

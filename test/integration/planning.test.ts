@@ -1,0 +1,123 @@
+// Planning through the real route handlers on real PostgreSQL.
+import { beforeAll, describe, expect, it } from "vitest";
+import * as templatesRoute from "@/app/api/templates/route";
+import * as sessionsRoute from "@/app/api/athletes/[id]/sessions/route";
+import * as sessionRoute from "@/app/api/sessions/[id]/route";
+import * as weeksRoute from "@/app/api/athletes/[id]/weeks/route";
+import * as seasonsRoute from "@/app/api/athletes/[id]/seasons/route";
+import { makeSquad } from "../support/squad";
+import { query, resetDatabase } from "../support/db";
+
+type Squad = Awaited<ReturnType<typeof makeSquad>>;
+let s: Squad;
+let other: Squad;
+let intervalsId = "";
+let easyId = "";
+
+const step = (kind: string, min: number, zone: number) => ({ type: "step", kind, durationS: min * 60, zone });
+
+beforeAll(async () => {
+  await resetDatabase();
+  s = await makeSquad("p");
+  other = await makeSquad("q");
+  const t1 = await s.coach.browser.call(templatesRoute, "POST", "/api/templates", {
+    body: { squadId: s.squadId, name: "5 × 4 min", sport: "running", structure: [step("warmup", 15, 1), { type: "repeat", times: 5, steps: [step("work", 4, 3), step("recovery", 3, 1)] }, step("cooldown", 10, 1)] },
+  });
+  expect(t1.status).toBe(201);
+  expect(t1.json.minutesByZone).toEqual([40, 0, 20]);
+  intervalsId = t1.json.id;
+  easyId = (await s.coach.browser.call(templatesRoute, "POST", "/api/templates", { body: { squadId: s.squadId, name: "Easy 60", sport: "running", structure: [step("work", 60, 1)] } })).json.id;
+});
+
+const weeks = async (from: string, to: string) => (await s.coach.browser.call(weeksRoute, "GET", `/api/athletes/${s.athleteA.id}/weeks`, { params: { id: s.athleteA.id }, query: `?from=${from}&to=${to}` })).json;
+const plan = (body: unknown, who = s.coach.browser) => who.call(sessionsRoute, "POST", `/api/athletes/${s.athleteA.id}/sessions`, { params: { id: s.athleteA.id }, body });
+
+describe("sessions and weekly budgets", () => {
+  it("moving a session into another week changes both weeks' planned minutes and flags", async () => {
+    for (const d of ["2027-03-01", "2027-03-03", "2027-03-05"]) expect((await plan({ date: d, templateId: easyId })).status).toBe(201);
+    const a = await plan({ date: "2027-03-02", templateId: intervalsId });
+    const b = await plan({ date: "2027-03-04", templateId: intervalsId });
+    for (const d of ["2027-03-08", "2027-03-10", "2027-03-12"]) await plan({ date: d, templateId: easyId });
+    let w = await weeks("2027-03-01", "2027-03-08");
+    // Week 1: 3 × 60 easy + 2 × (40 z1, 20 z3) = 260 z1, 40 z3 → 13.3 % zone 3: within 15 % + 5 % (hand computation).
+    expect(w[0].plannedMinByZone).toEqual([260, 0, 40]);
+    expect(w[0].overBudget).toBe(false);
+    const c = await plan({ date: "2027-03-06", templateId: intervalsId });
+    w = await weeks("2027-03-01", "2027-03-08");
+    expect(w[0].plannedMinByZone).toEqual([300, 0, 60]); // 16.7 % zone 3, still within
+    const d2 = await plan({ date: "2027-03-07", templateId: intervalsId });
+    w = await weeks("2027-03-01", "2027-03-08");
+    // 340 z1, 80 z3 of 420 → 19.0 % zone 3; zone 1 81 % — within; add one more to break it.
+    const e = await plan({ date: "2027-03-07", templateId: intervalsId });
+    w = await weeks("2027-03-01", "2027-03-08");
+    expect(w[0].plannedMinByZone).toEqual([380, 0, 100]); // 20.8 % zone 3 > 20 %
+    expect(w[0].overBudget).toBe(true);
+    expect(w[0].flags.map((f: { code: string }) => f.code)).toContain("too_much_high");
+    expect(w[0].fix).toBeTruthy();
+    const moved = await s.coach.browser.call(sessionRoute, "PATCH", `/api/sessions/${e.json.id}`, { params: { id: e.json.id }, body: { date: "2027-03-09" } });
+    expect(moved.status).toBe(200);
+    w = await weeks("2027-03-01", "2027-03-08");
+    expect(w[0].plannedMinByZone).toEqual([340, 0, 80]);
+    expect(w[0].overBudget).toBe(false);
+    expect(w[1].plannedMinByZone).toEqual([220, 0, 20]);
+    expect([a, b, c, d2].every((r) => r.status === 201)).toBe(true);
+  });
+
+  it("a coach of another squad cannot create, move or read sessions for this athlete; the athlete cannot plan", async () => {
+    const r = await plan({ date: "2027-03-20", templateId: easyId }, other.head.browser);
+    expect(r.status).toBe(404);
+    const [row] = await query<{ id: string }>(`select id from planned_session where athlete_id = $1 limit 1`, [s.athleteA.id]);
+    const move = await other.head.browser.call(sessionRoute, "PATCH", `/api/sessions/${row!.id}`, { params: { id: row!.id }, body: { date: "2027-03-21" } });
+    expect(move.status).toBe(404);
+    const read = await other.head.browser.call(sessionsRoute, "GET", `/api/athletes/${s.athleteA.id}/sessions`, { params: { id: s.athleteA.id }, query: "?from=2027-03-01&to=2027-03-31" });
+    expect(read.status).toBe(404);
+    const own = await plan({ date: "2027-03-20", templateId: easyId }, s.athleteA.browser);
+    expect(own.status).toBe(403);
+    const othersTemplate = await plan({ date: "2027-03-20", templateId: (await other.head.browser.call(templatesRoute, "POST", "/api/templates", { body: { squadId: other.squadId, name: "Theirs", sport: "running", structure: [step("work", 30, 1)] } })).json.id });
+    expect(othersTemplate.status).toBe(400);
+  });
+
+  it("bad dates and unknown templates answer 400 and write nothing", async () => {
+    const before = (await query<{ n: number }>(`select count(*)::int as n from planned_session`))[0]!.n;
+    for (const body of [{ date: "2027-02-30", templateId: easyId }, { date: "next tuesday", templateId: easyId }, { date: "2027-03-20", templateId: "nope" }, { date: "2027-03-20" }, { date: "2027-03-20", templateId: easyId, repeat: { byWeekday: ["XX"], count: 3 } }]) {
+      const r = await plan(body);
+      expect(r.status, JSON.stringify(body)).toBe(400);
+      expect(r.json.error).toBeTruthy();
+    }
+    const bad = await s.coach.browser.call(weeksRoute, "GET", `/api/athletes/${s.athleteA.id}/weeks`, { params: { id: s.athleteA.id }, query: "?from=2027-03-10&to=2027-03-01" });
+    expect(bad.status).toBe(400);
+    expect((await query<{ n: number }>(`select count(*)::int as n from planned_session`))[0]!.n).toBe(before);
+  });
+
+  it("a weekly repeat creates its occurrences; editing the series moves the rest, one occurrence stays on its own", async () => {
+    const r = await plan({ date: "2027-05-04", templateId: easyId, repeat: { byWeekday: ["TU"], count: 4 } });
+    expect(r.status).toBe(201);
+    expect(r.json.dates).toEqual(["2027-05-04", "2027-05-11", "2027-05-18", "2027-05-25"]);
+    const [, second, third] = r.json.ids as string[];
+    await s.coach.browser.call(sessionRoute, "PATCH", `/api/sessions/${second}`, { params: { id: second! }, body: { title: "Easy 60 on grass" } });
+    const series = await s.coach.browser.call(sessionRoute, "PATCH", `/api/sessions/${r.json.id}`, { params: { id: r.json.id }, body: { date: "2027-05-05", scope: "series" } });
+    expect(series.status).toBe(200);
+    const rows = await query<{ id: string; date: string; title: string }>(`select id, date, title from planned_session where series_id is not null order by date`);
+    expect(rows.map((x) => x.date)).toEqual(["2027-05-05", "2027-05-11", "2027-05-19", "2027-05-26"]);
+    expect(rows.find((x) => x.id === second)!.title).toBe("Easy 60 on grass");
+    const del = await s.coach.browser.call(sessionRoute, "DELETE", `/api/sessions/${third}`, { params: { id: third! }, query: "?scope=series" });
+    expect(del.status).toBe(204);
+    expect((await query(`select 1 from planned_session where series_id is not null`)).length).toBe(2);
+  });
+
+  it("a season places retest sessions in unloading weeks and an overdue retest is flagged", async () => {
+    const r = await s.coach.browser.call(seasonsRoute, "POST", `/api/athletes/${s.athleteB.id}/seasons`, {
+      params: { id: s.athleteB.id },
+      body: { name: "Autumn marathon", sport: "running", startDate: "2026-01-05", events: [{ date: "2026-10-04", name: "Autumn marathon" }], weeklyHours: 7 },
+    });
+    expect(r.status).toBe(201);
+    const retests = await query<{ date: string }>(`select date from planned_session where athlete_id = $1 and kind = 'retest' order by date`, [s.athleteB.id]);
+    expect(retests.length).toBeGreaterThanOrEqual(2);
+    const retestWeek = r.json.weeks.find((w: { retest: boolean }) => w.retest);
+    expect(["unloading", "recovery"]).toContain(retestWeek.role);
+    const w = await s.coach.browser.call(weeksRoute, "GET", `/api/athletes/${s.athleteB.id}/weeks`, { params: { id: s.athleteB.id }, query: `?from=2026-05-04&to=2026-05-04` });
+    expect(w.json[0].flags.map((f: { code: string }) => f.code)).toContain("retest_overdue");
+    const bad = await s.coach.browser.call(seasonsRoute, "POST", `/api/athletes/${s.athleteB.id}/seasons`, { params: { id: s.athleteB.id }, body: { name: "x", sport: "running", startDate: "2026-01-05", events: [{ date: "2026-01-08", name: "too soon" }], weeklyHours: 7 } });
+    expect(bad.status).toBe(400);
+  });
+});
