@@ -30,7 +30,8 @@ export default async function TodayPage() {
       </div>
       <section className="card" aria-labelledby="sessions-heading">
         <h2 id="sessions-heading" className="text-lg font-bold">Your sessions</h2>
-        <p className="mt-2 text-ink-soft">No sessions are planned for today. When your coach plans your week, today&apos;s sessions appear here with targets in your own heart rate, power or pace.</p>
+        <p className="mt-2 text-ink-soft">Today&apos;s sessions with targets in your own heart rate, power or pace come to this page soon. Meanwhile your coach&apos;s plan is on your calendar.</p>
+        <Link href={`/athletes/${actor.userId}/plan`} className="btn-quiet mt-3">My plan and calendar</Link>
       </section>
       <div className="grid gap-6 md:grid-cols-2">
         <section className="card" aria-labelledby="squad-heading">

@@ -30,6 +30,7 @@ export default async function AthletePage({ params }: { params: Promise<{ id: st
         <p className="text-sm font-semibold uppercase tracking-widest text-tide">Athlete</p>
         <h1 className="text-2xl font-bold">{data.athlete.name}</h1>
         <p className="text-sm text-ink-soft">{data.athlete.email}</p>
+        <Link className="btn mt-3" href={`/athletes/${id}/plan`}>Plan and calendar</Link>
       </div>
       <section className="card space-y-4" aria-labelledby="zones-heading">
         <h2 id="zones-heading" className="text-lg font-bold">Zones in force today</h2>
@@ -41,7 +42,6 @@ export default async function AthletePage({ params }: { params: Promise<{ id: st
           <h2 id="tests-heading" className="text-lg font-bold">Tests</h2>
           {coaches ? (
             <nav aria-label="Record a test" className="flex flex-wrap gap-2 text-sm">
-              <Link className="btn-quiet" href={`/athletes/${id}/plan`}>Plan</Link>
               <Link className="btn" href={`/athletes/${id}/tests/new?kind=gas`}>Upload a gas-exchange test</Link>
               <Link className="btn-quiet" href={`/athletes/${id}/tests/new?kind=talk`}>Talk test</Link>
               <Link className="btn-quiet" href={`/athletes/${id}/tests/new?kind=submax`}>Submaximal estimate</Link>
