@@ -1,17 +1,10 @@
 import { describe, expect, it } from "vitest";
 import { linearRegression } from "simple-statistics";
 import { fitHinge, fitLine, hingeAt } from "./breakpoint";
+import { mulberry32 } from "./synthetic-ramp";
 
-// Deterministic noise (mulberry32) so the checks are repeatable.
-function rng(seed: number) {
-  return () => {
-    seed |= 0;
-    seed = (seed + 0x6d2b79f5) | 0;
-    let t = Math.imul(seed ^ (seed >>> 15), 1 | seed);
-    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+// Deterministic noise so the checks are repeatable.
+const rng = mulberry32;
 
 /** Brute force: a fresh 3-parameter least-squares fit per candidate (the O(n²) method the prefix sums replace). */
 function bruteForceHinge(xs: number[], ys: number[], minSeg: number) {
