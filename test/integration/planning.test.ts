@@ -5,6 +5,7 @@ import * as sessionsRoute from "@/app/api/athletes/[id]/sessions/route";
 import * as sessionRoute from "@/app/api/sessions/[id]/route";
 import * as weeksRoute from "@/app/api/athletes/[id]/weeks/route";
 import * as seasonsRoute from "@/app/api/athletes/[id]/seasons/route";
+import * as testsRoute from "@/app/api/athletes/[id]/tests/route";
 import { makeSquad } from "../support/squad";
 import { query, resetDatabase } from "../support/db";
 
@@ -61,6 +62,20 @@ describe("sessions and weekly budgets", () => {
     expect(w[0].overBudget).toBe(false);
     expect(w[1].plannedMinByZone).toEqual([220, 0, 20]);
     expect([a, b, c, d2].every((r) => r.status === 201)).toBe(true);
+  });
+
+  it("each session reads the zone set in force on its own date: before a retest the old one, from it on the new one", async () => {
+    const meta = (date: string) => ({ sport: "running", protocol: "lab report", date, endedBy: "plan" });
+    const manual = (date: string, hr: number) => s.coach.browser.call(testsRoute, "POST", `/api/athletes/${s.athleteA.id}/tests`, { params: { id: s.athleteA.id }, body: { kind: "manual", meta: meta(date), vt1: { hrBpm: hr }, vt2: { hrBpm: hr + 20 } } });
+    expect((await manual("2027-02-01", 140)).status).toBe(201);
+    expect((await manual("2027-03-05", 146)).status).toBe(201);
+    const r = await s.athleteA.browser.call(sessionsRoute, "GET", `/api/athletes/${s.athleteA.id}/sessions`, { params: { id: s.athleteA.id }, query: "?from=2027-03-01&to=2027-03-12" });
+    expect(r.status).toBe(200);
+    const byDate = (d: string) => r.json.find((x: { date: string }) => x.date === d);
+    expect(byDate("2027-03-04").zoneSet.effectiveFrom).toBe("2027-02-01");
+    expect(byDate("2027-03-04").zoneSet.zones[0].ranges.hrBpm.max).toBe(140);
+    expect(byDate("2027-03-05").zoneSet.effectiveFrom).toBe("2027-03-05");
+    expect(byDate("2027-03-08").zoneSet.zones[0].ranges.hrBpm.max).toBe(146);
   });
 
   it("a coach of another squad cannot create, move or read sessions for this athlete; the athlete cannot plan", async () => {

@@ -6,7 +6,8 @@ import { getDb, schema, type Database } from "@/db/client";
 import { requireAthleteAccess } from "@/features/access/server/permissions";
 import { isCoachOf, type Actor } from "@/features/access/lib/rules";
 import { HttpError, notFound } from "@/features/platform/server/http";
-import { zoneSetOnDate } from "@/features/zones/server/zone-sets";
+import { zoneSetInForce } from "@/features/zones/lib/zones";
+import { zoneSetsOf } from "@/features/zones/server/zone-sets";
 import { expandDates, rruleText } from "../lib/recurrence";
 import { planSeason, SeasonError, mondayOf } from "../lib/season";
 import { expand, type Block } from "../lib/session";
@@ -34,12 +35,11 @@ export async function listSessions(actor: Actor, athleteId: string, from: string
       if (s) series.set(s.id, s.rrule);
     }
   }
-  return Promise.all(
-    rows.map(async (r) => {
-      const zones = await zoneSetOnDate(athleteId, r.sport, r.date);
-      return { ...r, rrule: r.seriesId ? (series.get(r.seriesId) ?? null) : null, zoneSet: zones ? { id: zones.id, effectiveFrom: zones.effectiveFrom, zones: zones.zones } : null };
-    }),
-  );
+  const zoneSets = await zoneSetsOf(athleteId);
+  return rows.map((r) => {
+    const zones = zoneSetInForce(zoneSets.filter((z) => z.sport === r.sport), r.date);
+    return { ...r, rrule: r.seriesId ? (series.get(r.seriesId) ?? null) : null, zoneSet: zones ? { id: zones.id, effectiveFrom: zones.effectiveFrom, zones: zones.zones } : null };
+  });
 }
 
 /** Creates a session (from a template or in full), or a weekly series of them; one transaction. */
@@ -176,5 +176,5 @@ export async function weekSummaries(actor: Actor, athleteId: string, from: strin
     db.select({ date: schema.athleteTest.testDate }).from(schema.athleteTest).where(eq(schema.athleteTest.athleteId, athleteId)),
   ]);
   const seasonWeeks = seasons.flatMap((s) => s.weeks as unknown as SeasonWeekInfo[]);
-  return summariseWeeks({ from, to, sessions, seasonWeeks, testDates: tests.map((t) => t.date) }).map(({ breaches, ...w }) => ({ ...w, breaches }));
+  return summariseWeeks({ from, to, sessions, seasonWeeks, testDates: tests.map((t) => t.date) });
 }

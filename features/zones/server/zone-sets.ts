@@ -1,6 +1,6 @@
 import "server-only";
 import { randomUUID } from "node:crypto";
-import { and, asc, desc, eq, lte } from "drizzle-orm";
+import { desc, eq } from "drizzle-orm";
 import { getDb, schema, type Database } from "@/db/client";
 import type { ThresholdValues } from "@/db/schema";
 import { requireAthleteAccess } from "@/features/access/server/permissions";
@@ -95,17 +95,15 @@ export async function getZones(actor: Actor, athleteId: string, date?: string) {
   return { date: day, inForce, history: history.map(view) };
 }
 
-/** For other features: the zone set in force for one sport on one day, or null (no permission check: callers check). */
-export async function zoneSetOnDate(athleteId: string, sport: string, date: string): Promise<ZoneSetView | null> {
-  const [row] = await getDb()
+/**
+ * For other features (no permission check: callers check): every zone set of an athlete, newest first, so that
+ * `zoneSetInForce` from the pure library picks the set in force on any date, the newest winning on a shared date.
+ */
+export async function zoneSetsOf(athleteId: string): Promise<ZoneSetView[]> {
+  const rows = await getDb()
     .select()
     .from(schema.zoneSet)
-    .where(and(eq(schema.zoneSet.athleteId, athleteId), eq(schema.zoneSet.sport, sport), lte(schema.zoneSet.effectiveFrom, date)))
-    .orderBy(desc(schema.zoneSet.effectiveFrom), desc(schema.zoneSet.createdAt))
-    .limit(1);
-  return row ? view(row) : null;
-}
-
-export async function listZoneSets(athleteId: string) {
-  return getDb().select().from(schema.zoneSet).where(eq(schema.zoneSet.athleteId, athleteId)).orderBy(asc(schema.zoneSet.effectiveFrom));
+    .where(eq(schema.zoneSet.athleteId, athleteId))
+    .orderBy(desc(schema.zoneSet.effectiveFrom), desc(schema.zoneSet.createdAt));
+  return rows.map(view);
 }
