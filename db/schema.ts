@@ -390,3 +390,73 @@ export const plannedSession = pgTable(
   },
   (t) => [index("planned_session_athlete_date_idx").on(t.athleteId, t.date), index("planned_session_series_idx").on(t.seriesId)],
 );
+
+// ---------------------------------------------------------------------------------------------------------------------
+// What was done: session logs (against a planned session or unplanned) and the activity files behind them
+// ---------------------------------------------------------------------------------------------------------------------
+
+export const logStatus = pgEnum("log_status", ["done", "partial", "skipped"]);
+
+export const sessionLog = pgTable(
+  "session_log",
+  {
+    id: text("id").primaryKey(),
+    athleteId: text("athlete_id")
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
+    /** The planned session this log answers; null for an unplanned session. One log per planned session. */
+    plannedSessionId: text("planned_session_id").references(() => plannedSession.id, { onDelete: "set null" }),
+    /** Local calendar day in the athlete's time zone, YYYY-MM-DD. */
+    date: text("date").notNull(),
+    sport: text("sport").notNull(),
+    title: text("title").notNull(),
+    status: logStatus("status").notNull(),
+    durationMin: real("duration_min"),
+    distanceKm: real("distance_km"),
+    /** CR-10 rating of perceived exertion for the whole session (Foster et al. 2001). */
+    rpe: real("rpe"),
+    notes: text("notes").notNull().default(""),
+    skipReason: text("skip_reason"),
+    /** Measured minutes per zone from an activity file, with the measure used; null without a file. */
+    measuredMinByZone: jsonb("measured_min_by_zone").$type<[number, number, number]>(),
+    zoneMeasure: text("zone_measure"),
+    zoneSetId: text("zone_set_id").references(() => zoneSet.id, { onDelete: "set null" }),
+    hrAvgBpm: real("hr_avg_bpm"),
+    powerAvgW: real("power_avg_w"),
+    speedAvgKmh: real("speed_avg_kmh"),
+    trimp: real("trimp"),
+    /** A key chosen by the client for an unplanned log, so that a repeated submit does not log twice. */
+    clientKey: text("client_key"),
+    loggedBy: text("logged_by").references(() => user.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [
+    index("session_log_athlete_date_idx").on(t.athleteId, t.date),
+    uniqueIndex("session_log_planned_idx").on(t.plannedSessionId),
+    uniqueIndex("session_log_client_key_idx").on(t.athleteId, t.clientKey),
+    check("session_log_rpe_range", sql`${t.rpe} IS NULL OR (${t.rpe} >= 0 AND ${t.rpe} <= 10)`),
+  ],
+);
+
+export const activityFile = pgTable(
+  "activity_file",
+  {
+    id: text("id").primaryKey(),
+    athleteId: text("athlete_id")
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
+    logId: text("log_id")
+      .notNull()
+      .references(() => sessionLog.id, { onDelete: "cascade" }),
+    filename: text("filename").notNull(),
+    format: text("format").notNull(),
+    sizeBytes: integer("size_bytes").notNull(),
+    startTime: timestamp("start_time", { withTimezone: true }),
+    summary: jsonb("summary").$type<Record<string, unknown>>().notNull(),
+    data: bytea("data").notNull(),
+    uploadedBy: text("uploaded_by").references(() => user.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+  },
+  (t) => [index("activity_file_log_idx").on(t.logId), index("activity_file_athlete_idx").on(t.athleteId)],
+);

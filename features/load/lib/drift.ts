@@ -72,3 +72,27 @@ export function detectDrift(entries: DriftEntry[], zoneSetFrom: string, today: s
     : `Heart rate at the same ${unit === "W" ? "power" : "speed"} is within ${thresholdBpm} bpm of the baseline (${meanDiff > 0 ? "+" : ""}${meanDiff.toFixed(1)} bpm).`;
   return { drifted, direction, meanDiffBpm: meanDiff, baselineSessions: baseline.length, recentSessions: recent.length, atX, expectedHrBpm: expected, recentHrBpm: seen, message };
 }
+
+export interface DriftLog {
+  date: string;
+  sport: string;
+  hrAvgBpm: number | null;
+  powerAvgW: number | null;
+  speedAvgKmh: number | null;
+}
+
+/** Drift per sport since that sport's latest zone set, against power where the logs have it, else speed; a drifted one first. */
+export function driftAcrossSports(logs: DriftLog[], zoneSets: { sport: string; effectiveFrom: string }[], today: string): (DriftResult & { sport: string }) | null {
+  let best: (DriftResult & { sport: string }) | null = null;
+  for (const sport of new Set(zoneSets.map((z) => z.sport))) {
+    const from = zoneSets.filter((z) => z.sport === sport && z.effectiveFrom <= today).map((z) => z.effectiveFrom).sort().at(-1);
+    if (!from) continue;
+    const usePower = logs.some((l) => l.sport === sport && l.powerAvgW != null);
+    const entries = logs
+      .filter((l) => l.sport === sport && l.hrAvgBpm != null && (usePower ? l.powerAvgW != null : l.speedAvgKmh != null))
+      .map((l) => ({ date: l.date, hrAvgBpm: l.hrAvgBpm!, x: usePower ? l.powerAvgW! : l.speedAvgKmh! }));
+    const r = detectDrift(entries, from, today, usePower ? "W" : "km/h");
+    if (r && (!best || (r.drifted && !best.drifted))) best = { ...r, sport };
+  }
+  return best;
+}

@@ -71,6 +71,8 @@ export interface SummariseInput {
   /** Dates of the athlete's tests, to tell whether a past retest was done. */
   testDates?: string[];
   today?: string;
+  /** What was done (logged minutes per zone by day), shown beside the plan; it does not change the budget check. */
+  done?: { date: string; minutesByZone: Shares }[];
 }
 
 function weekBudget(weekStart: string, input: SummariseInput): { budget: Budget; block: string | null; retest: boolean } {
@@ -109,7 +111,7 @@ export function summariseWeeks(input: SummariseInput): WeekSummary[] {
     out.push({
       weekStart: w,
       plannedMinByZone: planned.map((v) => Math.round(v * 10) / 10) as Shares,
-      doneMinByZone: [0, 0, 0],
+      doneMinByZone: minutesOf((input.done ?? []).filter((d) => d.date >= w && d.date < addDays(w, 7)).map((d) => ({ id: "", date: d.date, title: "", kind: "", minutesByZone: d.minutesByZone }))).map((v) => Math.round(v * 10) / 10) as Shares,
       budget: { name: budget.name, shares: [...budget.shares] as Shares, tolerance: budget.tolerance },
       overBudget: budgetBreaches.length > 0,
       flags: result.breaches.map((b) => ({ code: b.code, message: b.message })),

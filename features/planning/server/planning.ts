@@ -1,6 +1,6 @@
 import "server-only";
 import { randomUUID } from "node:crypto";
-import { and, asc, eq, gte, lte } from "drizzle-orm";
+import { and, asc, eq, gte, inArray, lte } from "drizzle-orm";
 import type { z } from "zod";
 import { getDb, schema, type Database } from "@/db/client";
 import { requireAthleteAccess } from "@/features/access/server/permissions";
@@ -8,6 +8,7 @@ import { isCoachOf, type Actor } from "@/features/access/lib/rules";
 import { HttpError, notFound } from "@/features/platform/server/http";
 import { zoneSetInForce } from "@/features/zones/lib/zones";
 import { zoneSetsOf } from "@/features/zones/server/zone-sets";
+import { logZoneMinutes } from "@/features/load/lib/report";
 import { expandDates, rruleText } from "../lib/recurrence";
 import { planSeason, SeasonError, mondayOf } from "../lib/season";
 import { expand, type Block } from "../lib/session";
@@ -36,9 +37,22 @@ export async function listSessions(actor: Actor, athleteId: string, from: string
     }
   }
   const zoneSets = await zoneSetsOf(athleteId);
+  const logs = rows.length
+    ? await getDb()
+        .select({ id: schema.sessionLog.id, plannedSessionId: schema.sessionLog.plannedSessionId, status: schema.sessionLog.status, durationMin: schema.sessionLog.durationMin, rpe: schema.sessionLog.rpe, measuredMinByZone: schema.sessionLog.measuredMinByZone, zoneMeasure: schema.sessionLog.zoneMeasure })
+        .from(schema.sessionLog)
+        .where(inArray(schema.sessionLog.plannedSessionId, rows.map((r) => r.id)))
+    : [];
+  const logOf = new Map(logs.map((l) => [l.plannedSessionId, l]));
   return rows.map((r) => {
     const zones = zoneSetInForce(zoneSets.filter((z) => z.sport === r.sport), r.date);
-    return { ...r, rrule: r.seriesId ? (series.get(r.seriesId) ?? null) : null, zoneSet: zones ? { id: zones.id, effectiveFrom: zones.effectiveFrom, zones: zones.zones } : null };
+    const log = logOf.get(r.id) ?? null;
+    return {
+      ...r,
+      rrule: r.seriesId ? (series.get(r.seriesId) ?? null) : null,
+      zoneSet: zones ? { id: zones.id, effectiveFrom: zones.effectiveFrom, zones: zones.zones } : null,
+      log: log ? { ...log, compliance: log.status === "skipped" || log.durationMin == null || r.totalS <= 0 ? 0 : log.durationMin / (r.totalS / 60) } : null,
+    };
   });
 }
 
@@ -167,14 +181,20 @@ export async function weekSummaries(actor: Actor, athleteId: string, from: strin
   const start = addDays(mondayOf(from), -28);
   // Two weeks beyond the range too: a proposed fix may move a session into them.
   const end = addDays(mondayOf(to), 6 + 14);
-  const [sessions, seasons, tests] = await Promise.all([
+  const [sessions, seasons, tests, logs] = await Promise.all([
     db
-      .select({ id: schema.plannedSession.id, date: schema.plannedSession.date, title: schema.plannedSession.title, kind: schema.plannedSession.kind, minutesByZone: schema.plannedSession.minutesByZone })
+      .select({ id: schema.plannedSession.id, date: schema.plannedSession.date, title: schema.plannedSession.title, kind: schema.plannedSession.kind, minutesByZone: schema.plannedSession.minutesByZone, totalS: schema.plannedSession.totalS })
       .from(schema.plannedSession)
       .where(and(eq(schema.plannedSession.athleteId, athleteId), gte(schema.plannedSession.date, start), lte(schema.plannedSession.date, end))),
     db.select({ weeks: schema.season.weeks }).from(schema.season).where(eq(schema.season.athleteId, athleteId)),
     db.select({ date: schema.athleteTest.testDate }).from(schema.athleteTest).where(eq(schema.athleteTest.athleteId, athleteId)),
+    db
+      .select({ date: schema.sessionLog.date, status: schema.sessionLog.status, durationMin: schema.sessionLog.durationMin, rpe: schema.sessionLog.rpe, measuredMinByZone: schema.sessionLog.measuredMinByZone, trimp: schema.sessionLog.trimp, plannedSessionId: schema.sessionLog.plannedSessionId })
+      .from(schema.sessionLog)
+      .where(and(eq(schema.sessionLog.athleteId, athleteId), gte(schema.sessionLog.date, mondayOf(from)), lte(schema.sessionLog.date, addDays(mondayOf(to), 6)))),
   ]);
   const seasonWeeks = seasons.flatMap((s) => s.weeks as unknown as SeasonWeekInfo[]);
-  return summariseWeeks({ from, to, sessions, seasonWeeks, testDates: tests.map((t) => t.date) });
+  const plannedById = new Map(sessions.map((s) => [s.id, s]));
+  const done = logs.map((l) => ({ date: l.date, minutesByZone: logZoneMinutes(l, l.plannedSessionId ? plannedById.get(l.plannedSessionId) : undefined) ?? ([0, 0, 0] as [number, number, number]) }));
+  return summariseWeeks({ from, to, sessions, seasonWeeks, testDates: tests.map((t) => t.date), done });
 }

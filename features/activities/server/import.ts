@@ -1,0 +1,120 @@
+import "server-only";
+import { randomUUID } from "node:crypto";
+import { and, eq } from "drizzle-orm";
+import { getDb, schema } from "@/db/client";
+import { requireAthleteAccess } from "@/features/access/server/permissions";
+import type { Actor } from "@/features/access/lib/rules";
+import { banisterTrimp, edwardsTrimp } from "@/features/load/lib/load";
+import { localDate } from "@/features/platform/lib/dates";
+import { HttpError } from "@/features/platform/server/http";
+import { zoneSetInForce } from "@/features/zones/lib/zones";
+import { zoneSetsOf } from "@/features/zones/server/zone-sets";
+import { ActivityError, readActivity, type Sport } from "../lib/read";
+import { chooseMeasure, matchPlanned, summarise, toStreams, zoneTime } from "../lib/streams";
+
+export interface ImportResult {
+  logId: string;
+  fileId: string;
+  matchedSessionId: string | null;
+  date: string;
+  sport: string;
+  format: string;
+  summary: ReturnType<typeof summarise>;
+  timeInZone: { measure: string; minutesByZone: [number, number, number]; zoneSetId: string } | null;
+  trimp: { value: number; method: "banister" | "edwards" } | null;
+  warnings: string[];
+}
+
+/**
+ * Imports an activity file: reads it, builds 1 Hz streams, computes time in zone with the zone set in force on its day,
+ * attaches it to the planned session of that day (the one given, or same sport and nearest duration) or logs it as
+ * unplanned, and keeps the file. Nothing is written unless everything worked (one transaction).
+ */
+export async function importActivity(actor: Actor, athleteId: string, file: { name: string; bytes: Uint8Array }, sessionId?: string): Promise<ImportResult> {
+  await requireAthleteAccess(actor, athleteId, "edit");
+  let activity;
+  try {
+    activity = readActivity(file.name, file.bytes);
+  } catch (e) {
+    if (e instanceof ActivityError) throw new HttpError(400, `The file could not be used: ${e.message}`);
+    throw e;
+  }
+  const db = getDb();
+  const [profile] = await db.select().from(schema.athleteProfile).where(eq(schema.athleteProfile.userId, athleteId));
+  const timeZone = profile?.timeZone ?? "UTC";
+  const date = localDate(activity.startTime ?? new Date(), timeZone);
+  const streams = toStreams(activity.samples);
+  const summary = summarise(activity.samples, streams);
+  const warnings = [...activity.warnings];
+
+  const dayRows = await db
+    .select({ id: schema.plannedSession.id, sport: schema.plannedSession.sport, totalS: schema.plannedSession.totalS, title: schema.plannedSession.title, logId: schema.sessionLog.id, fileId: schema.activityFile.id })
+    .from(schema.plannedSession)
+    .leftJoin(schema.sessionLog, eq(schema.sessionLog.plannedSessionId, schema.plannedSession.id))
+    .leftJoin(schema.activityFile, eq(schema.activityFile.logId, schema.sessionLog.id))
+    .where(and(eq(schema.plannedSession.athleteId, athleteId), eq(schema.plannedSession.date, date)));
+  let matched: (typeof dayRows)[number] | null = null;
+  if (sessionId) {
+    const [row] = await db.select().from(schema.plannedSession).where(and(eq(schema.plannedSession.id, sessionId), eq(schema.plannedSession.athleteId, athleteId)));
+    if (!row) throw new HttpError(400, "That planned session is not this athlete's.", { fieldErrors: { sessionId: ["No such session for this athlete."] } });
+    const [log] = await db.select({ id: schema.sessionLog.id }).from(schema.sessionLog).where(eq(schema.sessionLog.plannedSessionId, row.id));
+    matched = { id: row.id, sport: row.sport, totalS: row.totalS, title: row.title, logId: log?.id ?? null, fileId: null };
+  } else {
+    const open = dayRows.filter((r) => !r.fileId);
+    const id = matchPlanned(open, activity.sport, summary.elapsedS);
+    matched = open.find((r) => r.id === id) ?? null;
+  }
+  const sport: Sport = (activity.sport ?? (matched?.sport as Sport | undefined) ?? (profile?.sports[0] as Sport | undefined) ?? "running") as Sport;
+
+  const sets = (await zoneSetsOf(athleteId)).filter((z) => z.sport === sport);
+  const zones = zoneSetInForce(sets, date);
+  let timeInZone: ImportResult["timeInZone"] = null;
+  if (!zones) warnings.push(`No ${sport.replaceAll("_", " ")} zone set was in force on ${date}: time in zone was not computed.`);
+  else {
+    const measure = chooseMeasure(summary.channels, zones.vt1, zones.vt2);
+    if (!measure) warnings.push("The file and the zone set share no measure (heart rate, power or speed): time in zone was not computed.");
+    else {
+      const z = zoneTime(streams, measure, zones.vt1[measure]!, zones.vt2[measure]!);
+      timeInZone = { measure, minutesByZone: z.minutesByZone, zoneSetId: zones.id };
+      if (z.secondsWithoutData > 60) warnings.push(`${Math.round(z.secondsWithoutData / 60)} min without ${measure === "hrBpm" ? "heart rate" : measure === "powerW" ? "power" : "speed"} are not counted in any zone.`);
+    }
+  }
+
+  let trimp: ImportResult["trimp"] = null;
+  if (summary.hrAvgBpm !== null && profile?.maxHrBpm) {
+    if (profile.restingHrBpm && profile.sex) {
+      trimp = { value: banisterTrimp({ minutes: summary.recordedS / 60, hrAvgBpm: summary.hrAvgBpm, hrRestBpm: profile.restingHrBpm, hrMaxBpm: profile.maxHrBpm, sex: profile.sex }), method: "banister" };
+    } else {
+      trimp = { value: edwardsTrimp(Array.from(streams.hrBpm, (v) => (Number.isNaN(v) ? null : v)), profile.maxHrBpm), method: "edwards" };
+    }
+  } else if (summary.hrAvgBpm !== null) warnings.push("No maximal heart rate in the profile: TRIMP was not computed.");
+
+  const measured = {
+    measuredMinByZone: timeInZone?.minutesByZone ?? null,
+    zoneMeasure: timeInZone?.measure ?? null,
+    zoneSetId: timeInZone?.zoneSetId ?? null,
+    hrAvgBpm: summary.hrAvgBpm,
+    powerAvgW: summary.powerAvgW,
+    speedAvgKmh: summary.speedAvgKmh,
+    trimp: trimp?.value ?? null,
+  };
+  const durationMin = Math.round((summary.elapsedS / 60) * 10) / 10;
+  const distanceKm = summary.distanceKm !== null ? Math.round(summary.distanceKm * 100) / 100 : null;
+  const fileId = randomUUID();
+  let logId = "";
+  await db.transaction(async (tx) => {
+    if (matched?.logId) {
+      logId = matched.logId;
+      const [existing] = await tx.select().from(schema.sessionLog).where(eq(schema.sessionLog.id, logId));
+      await tx
+        .update(schema.sessionLog)
+        .set({ ...measured, durationMin: existing?.durationMin ?? durationMin, distanceKm: existing?.distanceKm ?? distanceKm, ...(existing?.status === "skipped" ? { status: "done" as const, skipReason: null } : {}) })
+        .where(eq(schema.sessionLog.id, logId));
+    } else {
+      logId = randomUUID();
+      await tx.insert(schema.sessionLog).values({ id: logId, athleteId, plannedSessionId: matched?.id ?? null, date, sport, title: matched?.title ?? `${sport[0]!.toUpperCase()}${sport.slice(1).replaceAll("_", " ")} (from file)`, status: "done", durationMin, distanceKm, loggedBy: actor.userId, ...measured });
+    }
+    await tx.insert(schema.activityFile).values({ id: fileId, athleteId, logId, filename: file.name.slice(0, 200), format: activity.format, sizeBytes: file.bytes.length, startTime: activity.startTime, summary: { ...summary, warnings, trimpMethod: trimp?.method ?? null }, data: Buffer.from(file.bytes), uploadedBy: actor.userId });
+  });
+  return { logId, fileId, matchedSessionId: matched?.id ?? null, date, sport, format: activity.format, summary, timeInZone, trimp, warnings };
+}

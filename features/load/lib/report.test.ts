@@ -1,0 +1,41 @@
+import { describe, expect, it } from "vitest";
+import { acwrRolling } from "./load";
+import { loadReport, logZoneMinutes, type ReportLog } from "./report";
+
+const log = (date: string, durationMin: number, rpe: number, extra: Partial<ReportLog> = {}): ReportLog => ({ date, status: "done", durationMin, rpe, measuredMinByZone: null, trimp: null, plannedSessionId: null, ...extra });
+
+describe("load report", () => {
+  it("daily session-RPE load (Foster et al. 2001: 60 min at RPE 5 → 300 AU) and weekly monotony and strain", () => {
+    // Week of Mon 2026-11-23: 300, 0, 300, 0, 300, 0, 0 → mean 128.57, SD 147.0 (population), monotony 0.8748, strain 787.3.
+    const logs = [log("2026-11-23", 60, 5), log("2026-11-25", 60, 5), log("2026-11-27", 60, 5)];
+    const r = loadReport({ logs, planned: [], from: "2026-11-23", to: "2026-11-29" });
+    expect(r.days[0]!.load).toBe(300);
+    const w = r.weeks[0]!;
+    expect(w.load).toBe(900);
+    const mean = 900 / 7, sd = Math.sqrt((3 * (300 - mean) ** 2 + 4 * mean ** 2) / 7);
+    expect(w.monotony).toBeCloseTo(mean / sd, 9);
+    expect(w.strain).toBeCloseTo(900 * (mean / sd), 6);
+  });
+
+  it("acute:chronic ratio per day equals the rolling definition (Hulin et al. 2016) over the same daily loads", () => {
+    const logs = Array.from({ length: 40 }, (_, i) => log(new Date(Date.UTC(2026, 9, 1 + i)).toISOString().slice(0, 10), 30 + (i % 7) * 10, 4 + (i % 3)));
+    const r = loadReport({ logs, planned: [], from: "2026-11-01", to: "2026-11-09" });
+    const daily = Array.from({ length: 40 }, (_, i) => (30 + (i % 7) * 10) * (4 + (i % 3)));
+    // 2026-11-09 is day index 39 of the logs (2026-10-01 + 39).
+    expect(r.days.at(-1)!.acwrRolling).toBeCloseTo(acwrRolling(daily.slice(0, 40))!, 9);
+    expect(r.latest.acwrEwma).not.toBeNull();
+  });
+
+  it("time per zone uses the file's measurement, else the planned split scaled to the logged minutes; compliance is done ÷ planned", () => {
+    const planned = [{ id: "p1", date: "2026-11-24", totalS: 3600, minutesByZone: [40, 10, 10] as [number, number, number] }, { id: "p2", date: "2026-11-26", totalS: 1800, minutesByZone: [30, 0, 0] as [number, number, number] }];
+    expect(logZoneMinutes(log("2026-11-24", 30, 6, { plannedSessionId: "p1" }), planned[0])).toEqual([20, 5, 5]);
+    const logs = [log("2026-11-24", 45, 6, { plannedSessionId: "p1", measuredMinByZone: [30, 10, 5] }), { ...log("2026-11-26", 0, 0, { plannedSessionId: "p2" }), status: "skipped" as const, durationMin: null, rpe: null }];
+    const w = loadReport({ logs, planned, from: "2026-11-23", to: "2026-11-29" }).weeks[0]!;
+    expect(w.minByZone).toEqual([30, 10, 5]);
+    expect(w.plannedMin).toBe(90);
+    expect(w.doneMin).toBe(45);
+    expect(w.compliance).toBeCloseTo(0.5, 9);
+    expect(w.sessionsDone).toBe(1);
+    expect(w.sessionsPlanned).toBe(2);
+  });
+});

@@ -1,0 +1,87 @@
+/**
+ * One roster row per athlete from the rows of the whole squad: zone-set age, next retest (and whether one is overdue), this
+ * week's budget state, the last four weeks' compliance, the load flag and zone drift. Pure; the server loads the rows.
+ */
+import { driftAcrossSports } from "@/features/load/lib/drift";
+import { loadReport, type ReportLog, type ReportPlanned } from "@/features/load/lib/report";
+import { mondayOf } from "@/features/planning/lib/season";
+import { addDays, summariseWeeks, type SeasonWeekInfo } from "@/features/planning/lib/weeks";
+
+/** A retest is due at the latest this long after the zones were set (common practice: 12–16 weeks). */
+export const RETEST_DUE_WEEKS = 16;
+
+export interface RosterInput {
+  athlete: { id: string; name: string; email: string; sports: string[] };
+  today: string;
+  zoneSets: { sport: string; effectiveFrom: string }[];
+  testDates: string[];
+  sessions: (ReportPlanned & { title: string; kind: string })[];
+  logs: (ReportLog & { sport: string; hrAvgBpm: number | null; powerAvgW: number | null; speedAvgKmh: number | null })[];
+  seasonWeeks: SeasonWeekInfo[];
+}
+
+export interface RosterRow {
+  id: string;
+  name: string;
+  email: string;
+  sports: string[];
+  zoneSetAgeDays: number | null;
+  nextRetest: string | null;
+  retestOverdue: boolean;
+  retestNote: string | null;
+  week: { overBudget: boolean; flags: string[]; plannedMin: number; doneMin: number };
+  compliance4w: number | null;
+  acwr: number | null;
+  loadFlag: "low" | "high" | null;
+  drift: { message: string; direction: "up" | "down" } | null;
+}
+
+const days = (a: string, b: string) => Math.round((Date.parse(`${b}T00:00:00Z`) - Date.parse(`${a}T00:00:00Z`)) / 86_400_000);
+
+export function rosterRow(input: RosterInput): RosterRow {
+  const { today } = input;
+  const monday = mondayOf(today);
+  const latestSet = input.zoneSets.filter((z) => z.effectiveFrom <= today).reduce<string | null>((m, z) => (m === null || z.effectiveFrom > m ? z.effectiveFrom : m), null);
+  const lastTest = input.testDates.filter((d) => d <= today).sort().at(-1) ?? null;
+  const retests = input.sessions.filter((s) => s.kind === "retest").map((s) => s.date).sort();
+  const nextRetest = retests.find((d) => d >= today) ?? null;
+  const missed = retests.filter((d) => d < today && !input.testDates.some((t) => t >= d)).at(-1) ?? null;
+  const dueBy = latestSet ? addDays(latestSet, RETEST_DUE_WEEKS * 7) : null;
+  let retestOverdue = false, retestNote: string | null = null;
+  if (missed) {
+    retestOverdue = true;
+    retestNote = `The retest planned for ${missed} has no test yet.`;
+  } else if (dueBy && dueBy < today && !(nextRetest && days(today, nextRetest) <= 7)) {
+    retestOverdue = true;
+    retestNote = `The zones are from ${latestSet}, more than ${RETEST_DUE_WEEKS} weeks ago.`;
+  } else if (!latestSet) retestNote = "No zones yet: a first test is due.";
+
+  const done = input.logs.map((l) => ({ date: l.date, minutesByZone: l.status === "skipped" ? ([0, 0, 0] as [number, number, number]) : (l.measuredMinByZone ?? [0, 0, 0]) }));
+  const [week] = summariseWeeks({ from: monday, to: monday, sessions: input.sessions, seasonWeeks: input.seasonWeeks, testDates: lastTest ? input.testDates : [], today, done });
+  const report = loadReport({ logs: input.logs, planned: input.sessions, from: addDays(today, -27), to: today });
+  // Compliance over the sessions planned up to today in the last four weeks.
+  const from4 = addDays(monday, -21);
+  const past = input.sessions.filter((s) => s.date >= from4 && s.date <= today);
+  const pastIds = new Set(past.map((s) => s.id));
+  const plannedMin = past.reduce((a, s) => a + s.totalS / 60, 0);
+  const doneMin = input.logs.filter((l) => l.plannedSessionId && pastIds.has(l.plannedSessionId) && l.status !== "skipped").reduce((a, l) => a + (l.durationMin ?? 0), 0);
+  const weekLoad = report.weeks.at(-1);
+
+  const d = driftAcrossSports(input.logs, input.zoneSets, today);
+  const drift: RosterRow["drift"] = d?.drifted ? { message: d.message, direction: d.direction! } : null;
+  return {
+    id: input.athlete.id,
+    name: input.athlete.name,
+    email: input.athlete.email,
+    sports: input.athlete.sports,
+    zoneSetAgeDays: latestSet ? days(latestSet, today) : null,
+    nextRetest,
+    retestOverdue,
+    retestNote,
+    week: { overBudget: week?.overBudget ?? false, flags: (week?.flags ?? []).map((f) => f.message), plannedMin: Math.round((week?.plannedMinByZone ?? [0, 0, 0]).reduce((a, b) => a + b, 0)), doneMin: Math.round(weekLoad?.doneMin ?? 0) },
+    compliance4w: plannedMin > 0 ? doneMin / plannedMin : null,
+    acwr: report.latest.acwrEwma ?? report.latest.acwrRolling,
+    loadFlag: report.latest.flag,
+    drift,
+  };
+}
