@@ -4,8 +4,18 @@ import { getAthleteProfile } from "@/features/athletes/server/profile";
 import { SPORT_LABELS } from "@/features/athletes/schemas";
 import { describeMe } from "@/features/squads/server/squads";
 import { ROLE_LABELS } from "@/features/squads/schemas";
+import { SessionCard } from "@/features/logs/components/SessionCard";
+import { UnplannedLogForm } from "@/features/logs/components/UnplannedLogForm";
+import { LOG_STATUS_LABELS } from "@/features/logs/schemas";
+import { sessionCards } from "@/features/logs/server/cards";
+import { localDate } from "@/features/platform/lib/dates";
+import { addDays } from "@/features/planning/lib/weeks";
+import { nextRetestOf } from "@/features/planning/server/planning";
 
 export const metadata = { title: "Today" };
+
+// A calendar day is already local to the athlete: format it as a plain date.
+const dayName = (iso: string) => new Intl.DateTimeFormat("en-GB", { timeZone: "UTC", weekday: "long", day: "numeric", month: "short" }).format(new Date(`${iso}T12:00:00Z`));
 
 export default async function TodayPage() {
   const actor = await requirePageActor("/today");
@@ -21,17 +31,51 @@ export default async function TodayPage() {
     );
   }
   const { profile } = await getAthleteProfile(actor, actor.userId);
-  const today = new Intl.DateTimeFormat("en-GB", { timeZone: profile.timeZone, weekday: "long", day: "numeric", month: "long" }).format(new Date());
+  const today = localDate(new Date(), profile.timeZone);
+  const [{ cards, unplanned }, retest] = await Promise.all([sessionCards(actor, actor.userId, today, addDays(today, 6)), nextRetestOf(actor, actor.userId, today)]);
+  const todays = cards.filter((c) => c.date === today);
+  const ahead = cards.filter((c) => c.date > today);
+  const retestIn = retest ? Math.round((Date.parse(retest.date) - Date.parse(today)) / 86_400_000) : null;
   return (
     <div className="space-y-6">
       <div>
-        <p className="text-sm font-semibold uppercase tracking-widest text-tide">Today · {today}</p>
+        <p className="text-sm font-semibold uppercase tracking-widest text-tide">Today · {dayName(today)}</p>
         <h1 className="text-3xl font-bold">Hello, {actor.name.split(" ")[0]}</h1>
       </div>
-      <section className="card" aria-labelledby="sessions-heading">
-        <h2 id="sessions-heading" className="text-lg font-bold">Your sessions</h2>
-        <p className="mt-2 text-ink-soft">Today&apos;s sessions with targets in your own heart rate, power or pace come to this page soon. Meanwhile your coach&apos;s plan is on your calendar.</p>
-        <Link href={`/athletes/${actor.userId}/plan`} className="btn-quiet mt-3">My plan and calendar</Link>
+      <section aria-labelledby="sessions-heading" className="space-y-3">
+        <h2 id="sessions-heading" className="text-lg font-bold">Today&apos;s sessions</h2>
+        {todays.length === 0 ? <p className="card text-ink-soft">Nothing is planned for today: a rest day, or log something you did below.</p> : todays.map((c) => <SessionCard key={c.id} s={c} canLog />)}
+      </section>
+      <div className="grid gap-6 md:grid-cols-2">
+        <section className="card" aria-labelledby="week-heading">
+          <h2 id="week-heading" className="text-lg font-bold">The week ahead</h2>
+          {ahead.length === 0 ? <p className="mt-2 text-ink-soft">Nothing planned in the next six days yet.</p> : (
+            <ul className="mt-2 divide-y divide-rule/70">
+              {ahead.map((c) => (
+                <li key={c.id} className="flex flex-wrap items-baseline justify-between gap-2 py-2 text-sm">
+                  <span><span className="font-semibold">{dayName(c.date)}</span> · {c.kind === "retest" ? "⟳ " : ""}{c.title}</span>
+                  <span className="num text-ink-soft">{Math.round(c.totalS / 60)} min{c.log ? ` · ${LOG_STATUS_LABELS[c.log.status]}` : ""}</span>
+                </li>
+              ))}
+            </ul>
+          )}
+          <Link href={`/athletes/${actor.userId}/plan`} className="btn-quiet mt-3">My plan and calendar</Link>
+        </section>
+        <section className="card" aria-labelledby="retest-heading">
+          <h2 id="retest-heading" className="text-lg font-bold">Next retest</h2>
+          {retest ? (
+            <>
+              <p className="mt-2"><span className="font-semibold">{dayName(retest.date)}</span> <span className="num text-ink-soft">({retestIn === 0 ? "today" : `in ${retestIn} day${retestIn === 1 ? "" : "s"}`})</span></p>
+              <p className="mt-1 text-sm text-ink-soft">Come rested: an easy day before, no hard training in the last 48 hours, your usual meal 2–3 hours ahead. Answer the readiness questions before the test.</p>
+              <Link href={`/athletes/${actor.userId}/screening`} className="btn-quiet mt-3">Readiness questions</Link>
+            </>
+          ) : <p className="mt-2 text-ink-soft">No retest is planned yet; your coach places one every 12–16 weeks.</p>}
+        </section>
+      </div>
+      <section className="card space-y-3" aria-labelledby="unplanned-heading">
+        <h2 id="unplanned-heading" className="text-lg font-bold">Log an unplanned session</h2>
+        {unplanned.length ? <p className="text-sm text-ink-soft">Logged this week without a plan: {unplanned.map((u) => `${u.title} (${Math.round(u.durationMin ?? 0)} min)`).join(", ")}.</p> : null}
+        <UnplannedLogForm athleteId={actor.userId} today={today} defaultSport={profile.sports[0] ?? "running"} />
       </section>
       <div className="grid gap-6 md:grid-cols-2">
         <section className="card" aria-labelledby="squad-heading">
@@ -43,6 +87,7 @@ export default async function TodayPage() {
               </li>
             ))}
           </ul>
+          <Link href={`/athletes/${actor.userId}`} className="btn-quiet mt-3">My zones, tests and load</Link>
         </section>
         <section className="card" aria-labelledby="profile-heading">
           <h2 id="profile-heading" className="text-lg font-bold">Your profile</h2>
@@ -53,14 +98,10 @@ export default async function TodayPage() {
             <dd className="num">{profile.restingHrBpm != null ? `${profile.restingHrBpm} bpm` : "not set"}</dd>
             <dt className="text-ink-soft">Maximal heart rate</dt>
             <dd className="num">{profile.maxHrBpm != null ? `${profile.maxHrBpm} bpm` : "not set"}</dd>
-            <dt className="text-ink-soft">Body mass</dt>
-            <dd className="num">{profile.bodyMassKg != null ? `${profile.bodyMassKg} kg` : "not set"}</dd>
             <dt className="text-ink-soft">Time zone</dt>
             <dd>{profile.timeZone}</dd>
             <dt className="text-ink-soft">Session reminders</dt>
-            <dd className="num">
-              {profile.reminderTiming === "off" ? "off" : `${profile.reminderTiming === "evening_before" ? "evening before" : "morning of"}, ${profile.reminderTime}`}
-            </dd>
+            <dd className="num">{profile.reminderTiming === "off" ? "off" : `${profile.reminderTiming === "evening_before" ? "evening before" : "morning of"}, ${profile.reminderTime}`}</dd>
           </dl>
           <Link href="/settings" className="btn-quiet mt-4">Edit profile and reminders</Link>
         </section>

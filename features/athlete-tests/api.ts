@@ -1,4 +1,5 @@
 "use client";
+import { uploadWithProgress } from "@/features/platform/lib/upload";
 import { ApiError, apiFetch } from "@/features/squads/api";
 
 export function createJsonTest(athleteId: string, body: unknown) {
@@ -6,26 +7,10 @@ export function createJsonTest(athleteId: string, body: unknown) {
 }
 
 /** Uploads a gas-exchange file with progress (XMLHttpRequest reports upload progress; fetch does not). */
-export function uploadGasExchange(athleteId: string, form: FormData, onProgress: (fraction: number) => void): Promise<{ id: string }> {
-  return new Promise((resolve, reject) => {
-    const xhr = new XMLHttpRequest();
-    xhr.open("POST", `/api/athletes/${encodeURIComponent(athleteId)}/tests`);
-    xhr.upload.onprogress = (e) => {
-      if (e.lengthComputable) onProgress(e.loaded / e.total);
-    };
-    xhr.onload = () => {
-      let body: { error?: string; fieldErrors?: Record<string, string[]>; id?: string } = {};
-      try {
-        body = JSON.parse(xhr.responseText);
-      } catch {
-        /* not JSON */
-      }
-      if (xhr.status === 201 && body.id) resolve({ id: body.id });
-      else reject(new ApiError(xhr.status, body.error ?? `The server answered ${xhr.status}.`, body.fieldErrors));
-    };
-    xhr.onerror = () => reject(new ApiError(0, "The upload failed: Tidemark could not be reached."));
-    xhr.send(form);
-  });
+export async function uploadGasExchange(athleteId: string, form: FormData, onProgress: (fraction: number) => void): Promise<{ id: string }> {
+  const body = await uploadWithProgress<{ id?: string }>(`/api/athletes/${encodeURIComponent(athleteId)}/tests`, form, onProgress);
+  if (!body.id) throw new ApiError(500, "The server did not say which test it saved.");
+  return { id: body.id };
 }
 
 export function patchThresholds(testId: string, body: unknown) {

@@ -13,6 +13,7 @@ export interface SessionDto {
   totalS: number;
   seriesId: string | null;
   rrule: string | null;
+  log: { id: string; status: "done" | "partial" | "skipped"; durationMin: number | null; rpe: number | null; measuredMinByZone: [number, number, number] | null; compliance: number } | null;
 }
 
 export const sessionsKey = (athleteId: string, from: string, to: string) => ["sessions", athleteId, from, to];

@@ -1,13 +1,7 @@
 "use client";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import type { RosterRow } from "@/features/roster/lib/roster";
 import type { InviteInput } from "./schemas";
-
-export interface RosterAthlete {
-  id: string;
-  name: string;
-  email: string;
-  sports: string[];
-}
 
 export class ApiError extends Error {
   constructor(
@@ -41,10 +35,10 @@ export async function acceptInvitationRequest(token: string): Promise<{ ok: true
   }
 }
 
-export function useRoster(squadId?: string) {
+export function useRoster(squadId: string) {
   return useQuery({
-    queryKey: ["athletes", squadId ?? "all"],
-    queryFn: () => apiFetch<RosterAthlete[]>(squadId ? `/api/athletes?squad=${encodeURIComponent(squadId)}` : "/api/athletes"),
+    queryKey: ["roster", squadId],
+    queryFn: () => apiFetch<{ squadId: string | null; rows: RosterRow[] }>(`/api/roster?squad=${encodeURIComponent(squadId)}`),
   });
 }
 

@@ -10,6 +10,10 @@ import { HttpError } from "@/features/platform/server/http";
 import { ZoneSetList, ZonesInForce } from "@/features/zones/components/ZoneHistory";
 import { getZones } from "@/features/zones/server/zone-sets";
 import { membershipsOfAthlete } from "@/features/access/server/permissions";
+import { LoadChart } from "@/features/load/components/LoadChart";
+import { athleteDrift, athleteLoad } from "@/features/load/server/load";
+import { localDate } from "@/features/platform/lib/dates";
+import { addDays } from "@/features/planning/lib/weeks";
 
 export const metadata = { title: "Athlete" };
 
@@ -22,7 +26,8 @@ export default async function AthletePage({ params }: { params: Promise<{ id: st
     if (e instanceof HttpError && e.status === 404) notFound();
     throw e;
   });
-  const [tests, zones, screening, memberships] = await Promise.all([listTests(actor, id), getZones(actor, id), getScreening(actor, id), membershipsOfAthlete(id)]);
+  const today = localDate(new Date(), data.profile.timeZone);
+  const [tests, zones, screening, memberships, load, drift] = await Promise.all([listTests(actor, id), getZones(actor, id), getScreening(actor, id), membershipsOfAthlete(id), athleteLoad(actor, id, addDays(today, -83), today), athleteDrift(actor, id, today)]);
   const coaches = canCoachAthlete(actor, { userId: id, memberships });
   return (
     <div className="space-y-6">
@@ -32,6 +37,15 @@ export default async function AthletePage({ params }: { params: Promise<{ id: st
         <p className="text-sm text-ink-soft">{data.athlete.email}</p>
         <Link className="btn mt-3" href={`/athletes/${id}/plan`}>Plan and calendar</Link>
       </div>
+      <section className="card space-y-3" aria-labelledby="load-heading">
+        <h2 id="load-heading" className="text-lg font-bold">Load, last 12 weeks</h2>
+        {drift?.drifted ? (
+          <p role="alert" className="rounded-md border border-alert/40 bg-alert-wash p-3 text-sm text-alert" data-testid="drift">
+            <strong>Zone drift ({drift.sport.replaceAll("_", " ")}):</strong> {drift.message} Based on {drift.baselineSessions} sessions after the zones were set and {drift.recentSessions} recent ones.
+          </p>
+        ) : null}
+        {load.weeks.some((w) => w.load > 0 || w.doneMin > 0) ? <LoadChart report={load} /> : <p className="text-ink-soft">No logged sessions in the last 12 weeks yet.</p>}
+      </section>
       <section className="card space-y-4" aria-labelledby="zones-heading">
         <h2 id="zones-heading" className="text-lg font-bold">Zones in force today</h2>
         <ZonesInForce inForce={zones.inForce} emptyText="No zones yet. Record a test to derive them." />

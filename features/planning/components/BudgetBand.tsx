@@ -6,6 +6,8 @@ const ZONE_BG = ["bg-zone-1", "bg-zone-2", "bg-zone-3"];
 /** A week's planned minutes per zone as a stacked bar against the budget's shares, with its state and reasons. */
 export function BudgetBand({ week, preview, onApplyFix, busy }: { week: WeekSummary; preview?: boolean; onApplyFix?: () => void; busy?: boolean }) {
   const total = week.plannedMinByZone.reduce((a, b) => a + b, 0);
+  const done = week.doneMinByZone.reduce((a, b) => a + b, 0);
+  const scale = Math.max(total, done);
   const label = `Week of ${week.weekStart}`;
   return (
     <section aria-label={`Budget, ${label}`} data-testid={`${preview ? "preview" : "band"}-${week.weekStart}`} data-over={week.overBudget ? "yes" : "no"} className={`rounded-md border px-3 py-2 ${week.overBudget ? "border-alert/60 bg-alert-wash/50" : "border-rule bg-paper"} ${preview ? "ring-2 ring-tide" : ""}`}>
@@ -27,6 +29,15 @@ export function BudgetBand({ week, preview, onApplyFix, busy }: { week: WeekSumm
         <div className="absolute inset-y-0 border-l-2 border-dashed border-ink" style={{ left: `${week.budget.shares[0] * 100}%` }} title="Budget: end of zone 1" />
         <div className="absolute inset-y-0 border-l-2 border-dashed border-ink/60" style={{ left: `${(1 - week.budget.shares[2]) * 100}%` }} title="Budget: start of zone 3" />
       </div>
+      {done > 0 || total > 0 ? (
+        <div className="mt-1 flex items-center gap-2 text-xs">
+          <span className="w-24 shrink-0 font-semibold">Done <span className="num">{Math.round(done)} min</span></span>
+          <div className="flex h-2 flex-1 overflow-hidden rounded bg-ground" role="img" aria-label={`Done so far: ${week.doneMinByZone.map((m, i) => `zone ${i + 1} ${Math.round(m)} min`).join(", ")} of ${Math.round(total)} planned minutes`}>
+            {week.doneMinByZone.map((m, i) => (scale ? <div key={i} className={`${ZONE_BG[i]} opacity-80`} style={{ width: `${(100 * m) / scale}%` }} /> : null))}
+          </div>
+          <span className="num shrink-0 text-ink-soft">{total ? Math.round((100 * done) / total) : 0} % of plan</span>
+        </div>
+      ) : null}
       {week.flags.length ? (
         <ul className="mt-1 space-y-0.5 text-sm">
           {week.overBudget ? <li className="font-semibold text-alert">Over budget</li> : null}

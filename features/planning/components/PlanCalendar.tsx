@@ -24,6 +24,9 @@ export interface TrayTemplate {
 
 const presetOf = (name: string): BudgetPreset => (Object.entries(BUDGET_PRESETS).find(([, b]) => b.name === name)?.[0] as BudgetPreset) ?? "polarised";
 
+const LOG_MARK = { done: "✓", partial: "◐", skipped: "✗" } as const;
+const LOG_WORD = { done: "done", partial: "partly done", skipped: "skipped" } as const;
+
 function zoneText(m: [number, number, number]) {
   return `z1 ${Math.round(m[0])} · z2 ${Math.round(m[1])} · z3 ${Math.round(m[2])} min`;
 }
@@ -66,10 +69,10 @@ export function PlanCalendar({ athleteId, templates, initialDate, canEdit }: { a
     () =>
       (sessions.data ?? []).map((s) => ({
         id: s.id,
-        title: `${s.kind === "retest" ? "⟳ " : ""}${s.title} · ${Math.round(s.totalS / 60)} min`,
+        title: `${s.log ? `${LOG_MARK[s.log.status]} ` : ""}${s.kind === "retest" ? "⟳ " : ""}${s.title} · ${Math.round(s.totalS / 60)} min`,
         start: s.date,
         allDay: true,
-        classNames: [s.kind === "retest" ? "tm-retest" : "tm-session", s.minutesByZone[2] > 0 ? "tm-hard" : "tm-easy"],
+        classNames: [s.kind === "retest" ? "tm-retest" : "tm-session", s.minutesByZone[2] > 0 ? "tm-hard" : "tm-easy", ...(s.log ? [`tm-log-${s.log.status}`] : [])],
         extendedProps: { session: s },
       })),
     [sessions.data],
@@ -182,12 +185,33 @@ export function PlanCalendar({ athleteId, templates, initialDate, canEdit }: { a
             eventDrop={onDrop}
             eventReceive={onReceive}
             eventClick={(arg: EventClickArg) => setSelected(arg.event.extendedProps.session as SessionDto)}
+            eventContent={(arg) => {
+              const s = arg.event.extendedProps.session as SessionDto | undefined;
+              return (
+                <div className="w-full overflow-hidden px-1" data-testid="calendar-event" data-log={s?.log?.status ?? "none"}>
+                  <p className="truncate">{arg.event.title}</p>
+                  {s?.log ? (
+                    <div className="mt-0.5 h-1 w-full rounded bg-white/40" title={`${LOG_WORD[s.log.status]}: ${Math.round(s.log.compliance * 100)} % of the planned time`}>
+                      <div className="h-full rounded bg-current" style={{ width: `${Math.min(100, s.log.compliance * 100)}%` }} />
+                    </div>
+                  ) : null}
+                </div>
+              );
+            }}
           />
         </div>
         {selected ? (
           <section className="card space-y-2" aria-label="Selected session">
             <h3 className="font-bold">{selected.title} · {selected.date}</h3>
             <p className="num text-sm">{Math.round(selected.totalS / 60)} min · {zoneText(selected.minutesByZone)}{selected.rrule ? ` · repeats (${selected.rrule})` : ""}</p>
+            {selected.log ? (
+              <p className="num text-sm" data-testid="selected-log">
+                <span className="font-semibold">{LOG_WORD[selected.log.status][0]!.toUpperCase() + LOG_WORD[selected.log.status].slice(1)}</span>
+                {selected.log.durationMin != null ? ` · ${Math.round(selected.log.durationMin)} min (${Math.round(selected.log.compliance * 100)} % of plan)` : ""}
+                {selected.log.rpe != null ? ` · RPE ${selected.log.rpe}` : ""}
+                {selected.log.measuredMinByZone ? ` · measured ${zoneText(selected.log.measuredMinByZone)}` : ""}
+              </p>
+            ) : <p className="text-sm text-ink-soft">Not logged yet.</p>}
             {canEdit ? (
               <div className="flex flex-wrap gap-2 text-sm">
                 <DuplicateButton sessionId={selected.id} date={addDays(selected.date, 7)} onDone={(t) => setMessage({ kind: "ok", text: t })} onError={fail} athleteId={athleteId} />

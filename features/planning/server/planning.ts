@@ -198,3 +198,15 @@ export async function weekSummaries(actor: Actor, athleteId: string, from: strin
   const done = logs.map((l) => ({ date: l.date, minutesByZone: logZoneMinutes(l, l.plannedSessionId ? plannedById.get(l.plannedSessionId) : undefined) ?? ([0, 0, 0] as [number, number, number]) }));
   return summariseWeeks({ from, to, sessions, seasonWeeks, testDates: tests.map((t) => t.date), done });
 }
+
+/** The next retest session on or after a date, or null. */
+export async function nextRetestOf(actor: Actor, athleteId: string, from: string) {
+  await requireAthleteAccess(actor, athleteId, "view");
+  const [row] = await getDb()
+    .select({ id: schema.plannedSession.id, date: schema.plannedSession.date, title: schema.plannedSession.title })
+    .from(schema.plannedSession)
+    .where(and(eq(schema.plannedSession.athleteId, athleteId), eq(schema.plannedSession.kind, "retest"), gte(schema.plannedSession.date, from)))
+    .orderBy(asc(schema.plannedSession.date))
+    .limit(1);
+  return row ?? null;
+}

@@ -1,29 +1,7 @@
-import type { Measure, Range, Zone } from "../lib/zones";
-import { formatPace, paceSPerKm } from "../lib/zones";
+import type { Measure, Zone } from "../lib/zones";
+import { paceText, rangeText } from "../lib/format";
 
 const SWATCH: Record<number, string> = { 1: "bg-zone-1", 2: "bg-zone-2", 3: "bg-zone-3" };
-
-function fmt(measure: Measure, v: number): string {
-  if (measure === "hrBpm") return `${Math.round(v)}`;
-  if (measure === "powerW") return `${Math.round(v)}`;
-  return v.toFixed(1);
-}
-
-function rangeText(measure: Measure, r: Range | undefined): string {
-  if (!r) return "—";
-  const unit = measure === "hrBpm" ? "bpm" : measure === "powerW" ? "W" : "km/h";
-  if (r.min === null && r.max !== null) return `below ${fmt(measure, r.max)} ${unit}`;
-  if (r.max === null && r.min !== null) return `${fmt(measure, r.min)} ${unit} and above`;
-  return `${fmt(measure, r.min!)}–${fmt(measure, r.max!)} ${unit}`;
-}
-
-function paceText(r: Range | undefined): string {
-  if (!r) return "—";
-  // Faster speed = shorter pace: the bounds swap.
-  if (r.min === null && r.max !== null) return `slower than ${formatPace(paceSPerKm(r.max))}`;
-  if (r.max === null && r.min !== null) return `${formatPace(paceSPerKm(r.min))} and faster`;
-  return `${formatPace(paceSPerKm(r.max!))} – ${formatPace(paceSPerKm(r.min!))}`;
-}
 
 /** A zone table: the zone number always printed beside its colour, every number with its unit. */
 export function ZoneTable({ zones, caption }: { zones: Zone[]; caption: string }) {

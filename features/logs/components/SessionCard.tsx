@@ -1,0 +1,75 @@
+import { SPORT_LABELS } from "@/features/athletes/schemas";
+import type { Block } from "@/features/planning/lib/session";
+import { targetText } from "@/features/zones/lib/format";
+import type { Zone } from "@/features/zones/lib/zones";
+import { LogPanel, type LogView } from "./LogPanel";
+
+const KIND: Record<string, string> = { warmup: "Warm-up", work: "Work", recovery: "Recovery", cooldown: "Cool-down" };
+const SWATCH = ["bg-zone-1", "bg-zone-2", "bg-zone-3"];
+
+function amount(s: Extract<Block, { type: "step" }>): string {
+  if (s.durationS !== undefined) return s.durationS % 60 === 0 ? `${s.durationS / 60} min` : `${Math.floor(s.durationS / 60)} min ${s.durationS % 60} s`;
+  return s.distanceM! >= 1000 ? `${(s.distanceM! / 1000).toFixed(s.distanceM! % 1000 ? 1 : 0)} km` : `${s.distanceM} m`;
+}
+
+function Steps({ blocks, zones, sport }: { blocks: Block[]; zones: Zone[] | null; sport: string }) {
+  return (
+    <ol className="space-y-1">
+      {blocks.map((b, i) =>
+        b.type === "repeat" ? (
+          <li key={i} className="rounded border border-rule/70 p-2">
+            <p className="text-sm font-semibold">{b.times} ×</p>
+            <Steps blocks={b.steps} zones={zones} sport={sport} />
+          </li>
+        ) : (
+          <li key={i} className="flex flex-wrap items-baseline gap-x-2 text-sm">
+            <span aria-hidden className={`inline-block h-3 w-3 rounded-sm border border-ink/20 ${SWATCH[b.zone - 1]}`} />
+            <span className="font-semibold">{KIND[b.kind]}</span>
+            <span className="num">{amount(b)}</span>
+            <span>zone {b.zone}</span>
+            <span className="num text-ink-soft">{zones ? (targetText(zones[b.zone - 1], sport) ?? "no numbers in the zone set") : "no zone set yet"}</span>
+          </li>
+        ),
+      )}
+    </ol>
+  );
+}
+
+export interface SessionCardData {
+  id: string;
+  athleteId: string;
+  date: string;
+  title: string;
+  sport: string;
+  kind: string;
+  totalS: number;
+  notes: string;
+  structure: unknown[];
+  zoneSet: { effectiveFrom: string; zones: Zone[] } | null;
+  log: LogView | null;
+  compliance: number;
+}
+
+/** A planned session with each step's target in the athlete's own numbers, how much of it was done, and its log. */
+export function SessionCard({ s, canLog }: { s: SessionCardData; canLog: boolean }) {
+  const plannedMin = s.totalS / 60;
+  const fill = Math.min(1, s.compliance);
+  return (
+    <article className="card space-y-3" aria-label={`Session: ${s.title}`} data-testid="session-card">
+      <header className="flex flex-wrap items-baseline justify-between gap-2">
+        <h3 className="text-lg font-bold">{s.kind === "retest" ? "⟳ " : ""}{s.title}</h3>
+        <p className="num text-sm text-ink-soft">{(SPORT_LABELS as Record<string, string>)[s.sport] ?? s.sport} · {Math.round(plannedMin)} min planned</p>
+      </header>
+      {s.notes ? <p className="text-sm">{s.notes}</p> : null}
+      <Steps blocks={s.structure as Block[]} zones={s.zoneSet?.zones ?? null} sport={s.sport} />
+      {s.zoneSet ? <p className="text-xs text-ink-soft">Targets from the zones in force since {s.zoneSet.effectiveFrom}.</p> : null}
+      <div>
+        <p className="text-xs font-semibold text-ink-soft">Done: <span className="num">{Math.round(s.compliance * 100)} % of the planned time</span></p>
+        <div className="mt-1 h-2 overflow-hidden rounded bg-ground" role="meter" aria-label="Share of the planned time done" aria-valuemin={0} aria-valuemax={100} aria-valuenow={Math.round(s.compliance * 100)}>
+          <div className="h-full bg-ink/70" style={{ width: `${fill * 100}%` }} />
+        </div>
+      </div>
+      {canLog ? <LogPanel sessionId={s.id} athleteId={s.athleteId} plannedMin={plannedMin} log={s.log} /> : null}
+    </article>
+  );
+}
