@@ -14,6 +14,13 @@ import { syntheticRamp, type RampOptions } from "../features/gas-exchange/lib/sy
 import { planSeason } from "../features/planning/lib/season";
 import { expand, type Block } from "../features/planning/lib/session";
 import { threeZones } from "../features/zones/lib/zones";
+import { encodeFit, type FitSecond } from "../features/activities/lib/fit-fixture";
+import { readActivity } from "../features/activities/lib/read";
+import { chooseMeasure, summarise, toStreams, zoneTime } from "../features/activities/lib/streams";
+import { banisterTrimp } from "../features/load/lib/load";
+import { flatten } from "../features/planning/lib/session";
+import { localDate } from "../features/platform/lib/dates";
+import { and, eq, lt } from "drizzle-orm";
 import * as schema from "./schema";
 
 export const DEMO_PASSWORD = "northfold-demo";
@@ -129,6 +136,7 @@ export async function seedDemoIfEmpty(databaseUrl: string): Promise<boolean> {
         for (const t of person.tests ?? []) await insertDemoTest(tx, people.get(person.email)!, coachId, person.profile?.bodyMassKg ?? null, t);
       }
       await insertDemoPlans(tx, squadId, coachId, people);
+      await insertDemoLogs(tx, people);
     });
     return true;
   } finally {
@@ -256,6 +264,9 @@ async function insertDemoPlans(tx: Tx, squadId: string, coachId: string, people:
     for (const weekOffset of [-14, -7, 0, 7]) {
       for (let d = 0; d < 7; d++) {
         let key = pattern[d];
+        // Every athlete has something planned today (in their own time zone), so that "today" is never empty in the demo.
+        const profile = DEMO_PEOPLE.find((p) => p.email === email)!.profile!;
+        if (!key && plusDays(monday, weekOffset + d) === localDate(new Date(), profile.timeZone ?? "UTC")) key = pattern.find((k) => k && DEMO_TEMPLATES.find((t) => t.key === k)!.structure.length === 1) ?? null;
         // The cyclist's current week carries two interval sessions too many: the demo's over-budget week.
         if (email.startsWith("cyclist") && weekOffset === 0 && (d === 4 || d === 6)) key = "bike-threshold";
         if (!key) continue;
@@ -269,6 +280,104 @@ async function insertDemoPlans(tx: Tx, squadId: string, coachId: string, people:
       const retest: Block[] = [st("warmup", 10, 1), st("work", 15, 2), st("cooldown", 10, 1)];
       const e = expand(retest);
       await tx.insert(schema.plannedSession).values({ id: randomUUID(), athleteId, date: plusDays(new Date().toISOString().slice(0, 10), 4), kind: "retest", sport: "running", title: "Retest: threshold test", structure: retest, totalS: Math.round(e.totalS), minutesByZone: e.minutesByZone, createdBy: coachId, notes: "Twelve weeks since the last talk test. Answer the readiness questions first." });
+    }
+  }
+}
+
+// Demo logs: the past planned sessions logged (a few partly done or skipped), each endurance athlete's latest past session
+// with an invented FIT file, and nine earlier weeks of logged sessions for the load chart — the cyclist's heart rate at the
+// same power creeping up in the last three weeks, the demo's zone drift.
+// ---------------------------------------------------------------------------------------------------------------------
+
+/** A deterministic pseudo-random number in [0, 1) (mulberry32), so that the demo is the same on every machine. */
+function rng(seed: number) {
+  let a = seed >>> 0;
+  return () => {
+    a = (a + 0x6d2b79f5) >>> 0;
+    let t = a;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
+
+const FIT_SPORT: Record<string, "running" | "cycling" | "crossCountrySkiing" | "rowing" | "swimming" | "walking"> = { running: "running", cycling: "cycling", rowing: "rowing", walking: "walking", swimming: "swimming", cross_country_skiing: "crossCountrySkiing", triathlon: "cycling" };
+
+async function insertDemoLogs(tx: Tx, people: Map<string, string>): Promise<void> {
+  const random = rng(20261201);
+  for (const person of DEMO_PEOPLE.filter((p) => p.role === "athlete")) {
+    const athleteId = people.get(person.email)!;
+    const profile = person.profile!;
+    const today = localDate(new Date(), profile.timeZone ?? "UTC");
+    const sets = await tx.select().from(schema.zoneSet).where(eq(schema.zoneSet.athleteId, athleteId));
+    const past = await tx.select().from(schema.plannedSession).where(and(eq(schema.plannedSession.athleteId, athleteId), lt(schema.plannedSession.date, today)));
+    past.sort((a, b) => (a.date < b.date ? -1 : 1));
+    const bikeZones = person.email.startsWith("cyclist") ? sets.find((z) => z.sport === "cycling") : undefined;
+    /** The cyclist's averages: heart rate on a line through the thresholds at the same power, seven beats higher once drifted. */
+    const bikeAverages = (k: number, drifted: boolean): Partial<typeof schema.sessionLog.$inferInsert> => {
+      const z = bikeZones;
+      if (!z?.vt1.powerW || !z.vt1.hrBpm || !z.vt2.powerW || !z.vt2.hrBpm) return {};
+      const power = Math.round(z.vt1.powerW * (0.8 + 0.05 * k));
+      const slope = (z.vt2.hrBpm - z.vt1.hrBpm) / (z.vt2.powerW - z.vt1.powerW);
+      return { powerAvgW: power, hrAvgBpm: Math.round(z.vt1.hrBpm + slope * (power - z.vt1.powerW)) + (drifted ? 7 : 0) + Math.round((random() - 0.5) * 2) };
+    };
+    const withFile = past.filter((p) => p.kind === "training").at(-1)?.id;
+    for (const p of past) {
+      const r = random();
+      const plannedMin = p.totalS / 60;
+      const hard = p.minutesByZone[2] > 0 ? 2 : p.minutesByZone[1] > 0 ? 1 : 0;
+      if (r < 0.07 && p.id !== withFile) {
+        await tx.insert(schema.sessionLog).values({ id: randomUUID(), athleteId, plannedSessionId: p.id, date: p.date, sport: p.sport, title: p.title, status: "skipped", skipReason: "Work ran late", loggedBy: athleteId });
+        continue;
+      }
+      const partial = r < 0.14 && p.id !== withFile;
+      const durationMin = Math.round(plannedMin * (partial ? 0.6 : 0.95 + random() * 0.1));
+      const rpe = [3, 5, 7][hard]! + (random() < 0.3 ? 1 : 0);
+      const logId = randomUUID();
+      let measured: Partial<typeof schema.sessionLog.$inferInsert> = {};
+      let file: typeof schema.activityFile.$inferInsert | null = null;
+      const sport = p.sport === "triathlon" ? "cycling" : p.sport;
+      const zones = sets.filter((z) => z.sport === sport || (p.sport === "triathlon" && z.sport === "cycling")).sort((a, b) => (a.effectiveFrom < b.effectiveFrom ? 1 : -1))[0];
+      if (p.id === withFile && zones) {
+        // An invented recording that follows the planned steps: each zone at a value inside it, with a little noise.
+        const at = (zone: number, key: "hrBpm" | "powerW" | "speedKmh") => {
+          const v1 = zones.vt1[key], v2 = zones.vt2[key];
+          if (v1 == null || v2 == null) return undefined;
+          const v = zone === 1 ? v1 * 0.88 : zone === 2 ? (v1 + v2) / 2 : v2 * 1.04;
+          return key === "speedKmh" ? v : Math.round(v);
+        };
+        const seconds: FitSecond[] = [];
+        for (const step of flatten(p.structure as Block[])) {
+          const n = Math.round((step.durationS ?? 600) * (durationMin / plannedMin));
+          for (let i = 0; i < n; i++) {
+            const noise = (random() - 0.5) * 4;
+            const hr = at(step.zone, "hrBpm"), pw = at(step.zone, "powerW"), sp = at(step.zone, "speedKmh");
+            seconds.push({ ...(hr !== undefined ? { hrBpm: Math.round(hr + noise) } : {}), ...(pw !== undefined ? { powerW: Math.max(0, Math.round(pw + noise * 3)) } : {}), ...(sp !== undefined ? { speedKmh: sp } : {}) });
+          }
+        }
+        const start = new Date(`${p.date}T07:00:00Z`);
+        const bytes = encodeFit({ start, sport: FIT_SPORT[p.sport] ?? "running", seconds });
+        const activity = readActivity("demo.fit", bytes);
+        const streams = toStreams(activity.samples);
+        const summary = summarise(activity.samples, streams);
+        const measure = chooseMeasure(summary.channels, zones.vt1, zones.vt2);
+        const zt = measure ? zoneTime(streams, measure, zones.vt1[measure]!, zones.vt2[measure]!) : null;
+        const trimp = summary.hrAvgBpm && profile.restingHrBpm && profile.maxHrBpm && profile.sex ? banisterTrimp({ minutes: summary.recordedS / 60, hrAvgBpm: summary.hrAvgBpm, hrRestBpm: profile.restingHrBpm, hrMaxBpm: profile.maxHrBpm, sex: profile.sex }) : null;
+        measured = { measuredMinByZone: zt?.minutesByZone ?? null, zoneMeasure: measure, zoneSetId: zones.id, hrAvgBpm: summary.hrAvgBpm, powerAvgW: summary.powerAvgW, speedAvgKmh: summary.speedAvgKmh, trimp };
+        file = { id: randomUUID(), athleteId, logId, filename: `${p.date}-${sport}.fit`, format: "fit", sizeBytes: bytes.length, startTime: start, summary: { ...summary, warnings: [], trimpMethod: trimp ? "banister" : null }, data: Buffer.from(bytes), uploadedBy: athleteId };
+      }
+      if (!file && bikeZones) measured = bikeAverages(1 + (past.indexOf(p) % 3), true);
+      await tx.insert(schema.sessionLog).values({ id: logId, athleteId, plannedSessionId: p.id, date: p.date, sport: p.sport, title: p.title, status: partial ? "partial" : "done", durationMin, rpe, notes: partial ? "Cut short: heavy legs." : "", loggedBy: athleteId, ...measured });
+      if (file) await tx.insert(schema.activityFile).values(file);
+    }
+    // Nine earlier weeks (weeks 3 to 11 back): four sessions a week, for the load chart and the acute:chronic ratio.
+    const monday = mondayOfToday();
+    for (let w = 11; w >= 3; w--) {
+      for (const [d, minutes, rpe] of [[1, 60, 6], [2, 45, 3], [3, 60, 5], [5, 100, 4]] as const) {
+        const date = plusDays(monday, -7 * w + d);
+        const extra = bikeAverages(d, w <= 4);
+        await tx.insert(schema.sessionLog).values({ id: randomUUID(), athleteId, date, sport: person.profile!.sports?.[0] ?? "running", title: "Logged session", status: "done", durationMin: Math.round(minutes * (0.9 + random() * 0.2)), rpe, loggedBy: athleteId, ...extra });
+      }
     }
   }
 }
