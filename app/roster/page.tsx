@@ -44,11 +44,11 @@ export default async function RosterPage({ searchParams }: { searchParams: Promi
           </nav>
         ) : null}
       </div>
-      <div className={manages ? "grid gap-6 lg:grid-cols-[2fr_1fr]" : ""}>
+      <div className="space-y-6">
         <section className="card" aria-label="Athletes">
           <RosterTable squadId={squad.id} />
         </section>
-        {manages ? <InvitePanel squadId={squad.id} localOutbox={process.env.TIDEMARK_LOCAL_OUTBOX === "1"} /> : null}
+        {manages ? <div className="max-w-xl"><InvitePanel squadId={squad.id} localOutbox={process.env.TIDEMARK_LOCAL_OUTBOX === "1"} /></div> : null}
       </div>
     </div>
   );

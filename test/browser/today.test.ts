@@ -1,0 +1,59 @@
+// The demo athlete opens today, marks the session done with RPE 6, and the demo coach sees it done on the calendar and in
+// the roster's compliance.
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { Browser, Page } from "playwright-core";
+import { BASE, launch, newPage, shot, signIn } from "../support/browser";
+
+let browser: Browser;
+beforeAll(async () => {
+  browser = await launch();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+async function complianceOf(page: Page, name: string): Promise<number> {
+  const row = page.getByTestId("roster-row").filter({ hasText: name });
+  await row.waitFor();
+  const text = (await row.getByTestId("compliance").innerText()).trim();
+  return /(\d+) %/.test(text) ? Number(/(\d+) %/.exec(text)![1]) : 0;
+}
+
+describe("today and logging", () => {
+  it("athlete logs today's session; coach sees it on the calendar and in the roster", async () => {
+    const coach = await newPage(browser);
+    await signIn(coach.page, "coach@northfold.test");
+    await coach.page.goto(`${BASE}/roster`);
+    const before = await complianceOf(coach.page, "Ines Varga");
+    await shot(coach.page, "roster-coach");
+    const href = await coach.page.getByRole("link", { name: "Ines Varga" }).getAttribute("href");
+    const athleteId = href!.split("/").pop()!;
+
+    const athlete = await newPage(browser);
+    await athlete.page.setViewportSize({ width: 390, height: 844 });
+    await signIn(athlete.page, "runner@northfold.test");
+    await athlete.page.goto(`${BASE}/today`);
+    const card = athlete.page.getByTestId("session-card").first();
+    await card.waitFor();
+    // Step targets are in the athlete's own numbers.
+    await expect(card.innerText()).resolves.toMatch(/bpm/);
+    await shot(athlete.page, "today-phone");
+    await card.getByLabel("Done", { exact: true }).check();
+    await card.getByLabel("Effort, whole session (RPE 0–10)").selectOption("6");
+    await card.getByRole("button", { name: "Save the log" }).click();
+    await card.getByTestId("log-summary").filter({ hasText: "RPE 6" }).waitFor();
+    await expect(card.getByTestId("log-summary").innerText()).resolves.toMatch(/Done/);
+    await shot(athlete.page, "today-logged");
+
+    await coach.page.goto(`${BASE}/athletes/${athleteId}/plan`);
+    await coach.page.locator('[data-testid="calendar-event"][data-log="done"]').first().waitFor();
+    const doneEvents = await coach.page.locator('[data-testid="calendar-event"][data-log="done"]').count();
+    expect(doneEvents).toBeGreaterThan(0);
+    await shot(coach.page, "calendar-with-logs");
+    await coach.page.goto(`${BASE}/roster`);
+    const after = await complianceOf(coach.page, "Ines Varga");
+    expect(after).toBeGreaterThan(before);
+    expect(coach.problems).toEqual([]);
+    expect(athlete.problems).toEqual([]);
+  });
+});
