@@ -9,6 +9,10 @@ import { checkWeek, BUDGET_PRESETS } from "../features/planning/lib/budget";
 import { planSeason } from "../features/planning/lib/season";
 import { expand, structureSchema } from "../features/planning/lib/session";
 import { syntheticRamp } from "../features/gas-exchange/lib/synthetic-ramp";
+import { Decoder, Stream } from "@garmin/fitsdk";
+import { encodeFit } from "../features/activities/lib/fit-fixture";
+import { readActivity } from "../features/activities/lib/read";
+import { chooseMeasure, summarise, toStreams, zoneTime } from "../features/activities/lib/streams";
 
 function timeIt(fn: () => void, minMs = 400): number {
   for (let i = 0; i < 3; i++) fn(); // warm up
@@ -62,3 +66,28 @@ console.log(`floor: papaparse parsing a 60-minute 1 Hz CSV (${(csv.length / 1024
 console.log(`gas-exchange analysis of the same file: ${ratio(analysis)} × floor (target ≤ 1.5) ${analysis / floor <= 1.5 ? "OK" : "ABOVE TARGET"}`);
 console.log(`expanding a 6 × (3 × (1 min, 1 min), 5 min) session: ${ratio(expansion)} × floor`);
 console.log(`checking a ${season.length}-week season's budgets: ${ratio(seasonCheck)} × floor`);
+
+// Activity import: a 3-hour 1 Hz FIT file to time in zone, against the FIT SDK's decode of the same file alone.
+const threeHours = encodeFit({
+  start: new Date("2026-11-29T08:00:00Z"),
+  sport: "cycling",
+  seconds: Array.from({ length: 3 * 3600 }, (_, i) => ({ hrBpm: 120 + Math.round(30 * Math.sin(i / 600)) + (i % 7), powerW: 180 + Math.round(60 * Math.sin(i / 300)) + (i % 11), speedKmh: 30 + (i % 5) })),
+});
+const sdkDecode = timeIt(() => {
+  const { messages } = new Decoder(Stream.fromByteArray(threeHours)).read({ applyScaleAndOffset: true, expandComponents: true, convertTypesToStrings: true, convertDateTimesToDates: true, mergeHeartRates: true });
+  if (!messages.recordMesgs?.length) throw new Error("no records");
+}, 1500);
+const fitImport = timeIt(() => {
+  const a = readActivity("ride.fit", threeHours);
+  const streams = toStreams(a.samples);
+  const summary = summarise(a.samples, streams);
+  const measure = chooseMeasure(summary.channels, { powerW: 200, hrBpm: 140 }, { powerW: 280, hrBpm: 165 })!;
+  zoneTime(streams, measure, 200, 280);
+}, 1500);
+console.log(`floor: @garmin/fitsdk decoding a 3-hour 1 Hz FIT file (${(threeHours.length / 1024).toFixed(0)} KB), measured in this run = 1`);
+console.log(`importing the same file to time in zone: ${(fitImport / sdkDecode).toFixed(3)} × floor (target ≤ 1.3) ${fitImport / sdkDecode <= 1.3 ? "OK" : "ABOVE TARGET"}`);
+
+// The roster needs PostgreSQL and the server modules: a child process with the react-server condition.
+const { spawnSync } = await import("node:child_process");
+const child = spawnSync(process.execPath, ["--conditions=react-server", "--import", "tsx", new URL("./bench-roster.ts", import.meta.url).pathname], { stdio: "inherit" });
+if (child.status !== 0) process.exitCode = child.status ?? 1;

@@ -10,6 +10,8 @@
  * (common practice, from memory).
  */
 
+import { dayNumber } from "@/features/platform/lib/days";
+
 export interface DriftEntry {
   date: string;
   hrAvgBpm: number;
@@ -39,7 +41,6 @@ export interface DriftResult {
   message: string;
 }
 
-const dayNumber = (iso: string) => Math.round(Date.parse(`${iso}T00:00:00Z`) / 86_400_000);
 
 export function detectDrift(entries: DriftEntry[], zoneSetFrom: string, today: string, unit: "W" | "km/h", opts: DriftOptions = {}): DriftResult | null {
   const { baselineDays = 21, recentDays = 21, thresholdBpm = 5, minBaseline = 3, minRecent = 3 } = opts;

@@ -39,3 +39,12 @@ describe("load report", () => {
     expect(w.sessionsPlanned).toBe(2);
   });
 });
+
+describe("latest load (the roster's shortcut)", () => {
+  it("gives the same ratios as the full report's last day", async () => {
+    const { latestLoad } = await import("./report");
+    const logs = Array.from({ length: 60 }, (_, i) => log(new Date(Date.UTC(2026, 8, 20 + i)).toISOString().slice(0, 10), 20 + ((i * 37) % 70), 2 + ((i * 13) % 8)));
+    const full = loadReport({ logs, planned: [], from: "2026-10-21", to: "2026-11-17" }).latest; // from = today − 27
+    expect(latestLoad(logs, "2026-11-17")).toEqual(full);
+  });
+});

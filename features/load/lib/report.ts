@@ -3,6 +3,7 @@
  * weekly load with monotony and strain, time per zone (measured from files where there are files, otherwise the planned
  * split scaled to the logged duration) and compliance (done minutes against planned minutes).
  */
+import { dayNumber, isoOfDay } from "@/features/platform/lib/days";
 import { acwrEwmaSeries, acwrFlag, acwrRolling, monotonyAndStrain, sessionRpeLoad } from "./load";
 
 type Shares = [number, number, number];
@@ -56,10 +57,10 @@ export interface LoadReport {
   unratedLogs: number;
 }
 
-const DAY = 86_400_000;
-const dayNum = (iso: string) => Math.round(Date.parse(`${iso}T00:00:00Z`) / DAY);
-const isoOf = (n: number) => new Date(n * DAY).toISOString().slice(0, 10);
-const mondayNum = (n: number) => n - ((new Date(n * DAY).getUTCDay() + 6) % 7);
+const dayNum = dayNumber;
+const isoOf = isoOfDay;
+// Day 0 (1970-01-01) was a Thursday.
+const mondayNum = (n: number) => n - ((((n + 3) % 7) + 7) % 7);
 
 /** Minutes per zone of a log: measured, or the planned split scaled to the logged duration, or null when unknown. */
 export function logZoneMinutes(log: ReportLog, planned: ReportPlanned | undefined): Shares | null {
@@ -97,25 +98,38 @@ export function loadReport(p: { logs: ReportLog[]; planned: ReportPlanned[]; fro
   const days: DayLoad[] = [];
   for (let n = first; n <= last; n++) {
     const i = n - origin;
-    days.push({ date: isoOf(n), load: daily[i]!, acwrRolling: acwrRolling(daily.slice(0, i + 1)), acwrEwma: ewma[i]!.ratio });
+    days.push({ date: isoOf(n), load: daily[i]!, acwrRolling: acwrRolling(daily.slice(Math.max(0, i - 27), i + 1)), acwrEwma: ewma[i]!.ratio });
+  }
+  // Bucket logs and planned sessions by week once (day numbers parsed once each).
+  const firstMonday = mondayNum(first);
+  const weekCount = Math.floor((last - firstMonday) / 7) + 1;
+  const logsByWeek: ReportLog[][] = Array.from({ length: weekCount }, () => []);
+  const plannedByWeek: ReportPlanned[][] = Array.from({ length: weekCount }, () => []);
+  for (const l of p.logs) {
+    const k = Math.floor((dayNum(l.date) - firstMonday) / 7);
+    if (k >= 0 && k < weekCount) logsByWeek[k]!.push(l);
+  }
+  for (const s of p.planned) {
+    const k = Math.floor((dayNum(s.date) - firstMonday) / 7);
+    if (k >= 0 && k < weekCount) plannedByWeek[k]!.push(s);
   }
   const weeks: WeekLoad[] = [];
-  for (let w = mondayNum(first); w <= last; w += 7) {
-    const inWeek = (iso: string) => dayNum(iso) >= w && dayNum(iso) < w + 7;
-    const week = Array.from({ length: 7 }, (_, k) => (w + k - origin >= 0 && w + k - origin < daily.length ? daily[w + k - origin]! : 0));
+  for (let k = 0; k < weekCount; k++) {
+    const w = firstMonday + 7 * k;
+    const week = Array.from({ length: 7 }, (_, j) => (w + j - origin >= 0 && w + j - origin < daily.length ? daily[w + j - origin]! : 0));
     const ms = monotonyAndStrain(week);
-    const logs = p.logs.filter((l) => inWeek(l.date));
-    const planned = p.planned.filter((s) => inWeek(s.date));
+    const logs = logsByWeek[k]!;
+    const planned = plannedByWeek[k]!;
     const minByZone: Shares = [0, 0, 0];
     let measured = 0, trimp = 0, doneMin = 0;
     for (const l of logs) {
       const z = logZoneMinutes(l, l.plannedSessionId ? plannedById.get(l.plannedSessionId) : undefined);
-      if (z) for (let k = 0; k < 3; k++) minByZone[k]! += z[k]!;
+      if (z) for (let i = 0; i < 3; i++) minByZone[i]! += z[i]!;
       if (l.measuredMinByZone) measured += l.measuredMinByZone[0] + l.measuredMinByZone[1] + l.measuredMinByZone[2];
       trimp += l.trimp ?? 0;
       if (l.status !== "skipped") doneMin += l.durationMin ?? 0;
     }
-    const plannedMin = planned.reduce((s, x) => s + x.totalS / 60, 0);
+    const plannedMin = planned.reduce((a, x) => a + x.totalS / 60, 0);
     const loggedIds = new Set(logs.filter((l) => l.status !== "skipped").map((l) => l.plannedSessionId));
     weeks.push({
       weekStart: isoOf(w),
@@ -129,10 +143,27 @@ export function loadReport(p: { logs: ReportLog[]; planned: ReportPlanned[]; fro
       doneMin: Math.round(doneMin * 10) / 10,
       compliance: plannedMin > 0 ? doneMin / plannedMin : null,
       sessionsPlanned: planned.length,
-      sessionsDone: planned.filter((s) => loggedIds.has(s.id)).length,
+      sessionsDone: planned.filter((x) => loggedIds.has(x.id)).length,
     });
   }
   const lastDay = days.at(-1);
   const latestRatio = lastDay?.acwrEwma ?? lastDay?.acwrRolling ?? null;
   return { days, weeks, latest: { acwrRolling: lastDay?.acwrRolling ?? null, acwrEwma: lastDay?.acwrEwma ?? null, flag: acwrFlag(latestRatio) }, unratedLogs: unrated };
+}
+
+/**
+ * Only the acute:chronic ratios of `today` — what the roster shows — without the day and week tables: the same numbers as
+ * `loadReport({ from: today − 27, to: today }).latest`, for many athletes at once.
+ */
+export function latestLoad(logs: ReportLog[], today: string): LoadReport["latest"] {
+  const last = dayNum(today), origin = last - 54;
+  const daily = new Array(55).fill(0) as number[];
+  for (const l of logs) {
+    if (l.status === "skipped" || l.rpe == null || l.durationMin == null) continue;
+    const d = dayNum(l.date) - origin;
+    if (d >= 0 && d < 55) daily[d]! += sessionRpeLoad(l.rpe, l.durationMin);
+  }
+  const ewma = acwrEwmaSeries(daily).at(-1)!.ratio;
+  const rolling = acwrRolling(daily.slice(-28));
+  return { acwrRolling: rolling, acwrEwma: ewma, flag: acwrFlag(ewma ?? rolling) };
 }

@@ -10,6 +10,7 @@
  * - Retests every 12 weeks by default (12–16), each placed in an unloading week at or before the due week.
  */
 import { BUDGET_PRESETS, DEFAULT_RAMP_CAP, type BudgetPreset } from "./budget";
+import { dayNumber, isoOfDay } from "@/features/platform/lib/days";
 
 export type BlockName = "general_preparation" | "specific_preparation" | "pre_competition" | "taper" | "competition" | "transition";
 
@@ -49,20 +50,21 @@ export class SeasonError extends Error {}
 const DAY_MS = 86_400_000;
 
 export function parseDate(iso: string): number {
-  if (!/^\d{4}-\d{2}-\d{2}$/.test(iso)) throw new SeasonError(`"${iso}" is not a date (YYYY-MM-DD).`);
-  const t = Date.parse(`${iso}T00:00:00Z`);
-  if (Number.isNaN(t)) throw new SeasonError(`"${iso}" is not a date.`);
-  return t;
+  if (typeof iso !== "string" || !/^\d{4}-\d{2}-\d{2}$/.test(iso)) throw new SeasonError(`"${iso}" is not a date (YYYY-MM-DD).`);
+  const n = dayNumber(iso);
+  if (Number.isNaN(n)) throw new SeasonError(`"${iso}" is not a date.`);
+  return n * DAY_MS;
 }
 
 export function formatDate(t: number): string {
-  return new Date(t).toISOString().slice(0, 10);
+  return isoOfDay(Math.floor(t / DAY_MS));
 }
 
 export function mondayOf(iso: string): string {
-  const t = parseDate(iso);
-  const dow = (new Date(t).getUTCDay() + 6) % 7;
-  return formatDate(t - dow * DAY_MS);
+  const n = parseDate(iso) / DAY_MS;
+  // Day 0 (1970-01-01) was a Thursday.
+  const dow = (((n + 3) % 7) + 7) % 7;
+  return isoOfDay(n - dow);
 }
 
 export function planSeason(input: SeasonInput): SeasonWeek[] {

@@ -53,13 +53,17 @@ function minutesOf(sessions: WeekSession[]): Shares {
 function previousTotals(weekStart: string, sessions: WeekSession[]): number[] {
   return [4, 3, 2, 1].map((k) => {
     const ws = addDays(weekStart, -7 * k);
-    const m = minutesOf(sessions.filter((s) => s.date >= ws && s.date < addDays(ws, 7)));
+    const we = addDays(ws, 7);
+    const m = minutesOf(sessions.filter((s) => s.date >= ws && s.date < we));
     return m[0] + m[1] + m[2];
   });
 }
 
 function daysOf(weekStart: string, sessions: WeekSession[]): Shares[] {
-  return Array.from({ length: 7 }, (_, i) => minutesOf(sessions.filter((s) => s.date === addDays(weekStart, i))));
+  return Array.from({ length: 7 }, (_, i) => {
+    const day = addDays(weekStart, i);
+    return minutesOf(sessions.filter((s) => s.date === day));
+  });
 }
 
 export interface SummariseInput {
@@ -73,6 +77,8 @@ export interface SummariseInput {
   today?: string;
   /** What was done (logged minutes per zone by day), shown beside the plan; it does not change the budget check. */
   done?: { date: string; minutesByZone: Shares }[];
+  /** Propose a fix for over-budget weeks (default); the roster only needs the state. */
+  withFix?: boolean;
 }
 
 function weekBudget(weekStart: string, input: SummariseInput): { budget: Budget; block: string | null; retest: boolean } {
@@ -82,7 +88,8 @@ function weekBudget(weekStart: string, input: SummariseInput): { budget: Budget;
 }
 
 function check(weekStart: string, sessions: WeekSession[], input: SummariseInput, previousTotals: number[], retestOverdue: boolean) {
-  const inWeek = sessions.filter((s) => s.date >= weekStart && s.date < addDays(weekStart, 7));
+  const weekEnd = addDays(weekStart, 7);
+  const inWeek = sessions.filter((s) => s.date >= weekStart && s.date < weekEnd);
   const planned = minutesOf(inWeek);
   const { budget, block } = weekBudget(weekStart, input);
   // The easy-day rule applies only to weeks with training on most days; a week of two sessions has easy days by itself.
@@ -104,6 +111,7 @@ export function summariseWeeks(input: SummariseInput): WeekSummary[] {
   const last = mondayOf(input.to);
   const out: WeekSummary[] = [];
   for (let w = first; w <= last; w = addDays(w, 7)) {
+    const next = addDays(w, 7);
     const previous = previousTotals(w, input.sessions);
     const overdue = isRetestOverdue(w, input) && w <= (input.today ?? new Date().toISOString().slice(0, 10));
     const { inWeek, planned, budget, block, result } = check(w, input.sessions, input, previous, overdue);
@@ -111,12 +119,12 @@ export function summariseWeeks(input: SummariseInput): WeekSummary[] {
     out.push({
       weekStart: w,
       plannedMinByZone: planned.map((v) => Math.round(v * 10) / 10) as Shares,
-      doneMinByZone: minutesOf((input.done ?? []).filter((d) => d.date >= w && d.date < addDays(w, 7)).map((d) => ({ id: "", date: d.date, title: "", kind: "", minutesByZone: d.minutesByZone }))).map((v) => Math.round(v * 10) / 10) as Shares,
+      doneMinByZone: minutesOf((input.done ?? []).filter((d) => d.date >= w && d.date < next).map((d) => ({ id: "", date: d.date, title: "", kind: "", minutesByZone: d.minutesByZone }))).map((v) => Math.round(v * 10) / 10) as Shares,
       budget: { name: budget.name, shares: [...budget.shares] as Shares, tolerance: budget.tolerance },
       overBudget: budgetBreaches.length > 0,
       flags: result.breaches.map((b) => ({ code: b.code, message: b.message })),
       breaches: result.breaches,
-      fix: budgetBreaches.some((b) => b.code !== "volume_ramp") ? proposeFix(w, inWeek, input) : null,
+      fix: input.withFix !== false && budgetBreaches.some((b) => b.code !== "volume_ramp") ? proposeFix(w, inWeek, input) : null,
       block,
     });
   }

@@ -3,7 +3,7 @@
  * week's budget state, the last four weeks' compliance, the load flag and zone drift. Pure; the server loads the rows.
  */
 import { driftAcrossSports } from "@/features/load/lib/drift";
-import { loadReport, type ReportLog, type ReportPlanned } from "@/features/load/lib/report";
+import { latestLoad, type ReportLog, type ReportPlanned } from "@/features/load/lib/report";
 import { mondayOf } from "@/features/planning/lib/season";
 import { addDays, summariseWeeks, type SeasonWeekInfo } from "@/features/planning/lib/weeks";
 
@@ -57,15 +57,16 @@ export function rosterRow(input: RosterInput): RosterRow {
   } else if (!latestSet) retestNote = "No zones yet: a first test is due.";
 
   const done = input.logs.map((l) => ({ date: l.date, minutesByZone: l.status === "skipped" ? ([0, 0, 0] as [number, number, number]) : (l.measuredMinByZone ?? [0, 0, 0]) }));
-  const [week] = summariseWeeks({ from: monday, to: monday, sessions: input.sessions, seasonWeeks: input.seasonWeeks, testDates: lastTest ? input.testDates : [], today, done });
-  const report = loadReport({ logs: input.logs, planned: input.sessions, from: addDays(today, -27), to: today });
+  const [week] = summariseWeeks({ from: monday, to: monday, sessions: input.sessions, seasonWeeks: input.seasonWeeks, testDates: lastTest ? input.testDates : [], today, done, withFix: false });
+  const latest = latestLoad(input.logs, today);
   // Compliance over the sessions planned up to today in the last four weeks.
   const from4 = addDays(monday, -21);
   const past = input.sessions.filter((s) => s.date >= from4 && s.date <= today);
   const pastIds = new Set(past.map((s) => s.id));
   const plannedMin = past.reduce((a, s) => a + s.totalS / 60, 0);
   const doneMin = input.logs.filter((l) => l.plannedSessionId && pastIds.has(l.plannedSessionId) && l.status !== "skipped").reduce((a, l) => a + (l.durationMin ?? 0), 0);
-  const weekLoad = report.weeks.at(-1);
+  const weekEnd = addDays(monday, 7);
+  const weekDoneMin = input.logs.filter((l) => l.status !== "skipped" && l.date >= monday && l.date < weekEnd).reduce((a, l) => a + (l.durationMin ?? 0), 0);
 
   const d = driftAcrossSports(input.logs, input.zoneSets, today);
   const drift: RosterRow["drift"] = d?.drifted ? { message: d.message, direction: d.direction! } : null;
@@ -78,10 +79,10 @@ export function rosterRow(input: RosterInput): RosterRow {
     nextRetest,
     retestOverdue,
     retestNote,
-    week: { overBudget: week?.overBudget ?? false, flags: (week?.flags ?? []).map((f) => f.message), plannedMin: Math.round((week?.plannedMinByZone ?? [0, 0, 0]).reduce((a, b) => a + b, 0)), doneMin: Math.round(weekLoad?.doneMin ?? 0) },
+    week: { overBudget: week?.overBudget ?? false, flags: (week?.flags ?? []).map((f) => f.message), plannedMin: Math.round((week?.plannedMinByZone ?? [0, 0, 0]).reduce((a, b) => a + b, 0)), doneMin: Math.round(weekDoneMin) },
     compliance4w: plannedMin > 0 ? doneMin / plannedMin : null,
-    acwr: report.latest.acwrEwma ?? report.latest.acwrRolling,
-    loadFlag: report.latest.flag,
+    acwr: latest.acwrEwma ?? latest.acwrRolling,
+    loadFlag: latest.flag,
     drift,
   };
 }

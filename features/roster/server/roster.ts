@@ -1,14 +1,16 @@
 import "server-only";
-import { and, asc, eq, gte, inArray, lte, sql } from "drizzle-orm";
+import { and, asc, eq, inArray, sql } from "drizzle-orm";
 import { getDb, schema } from "@/db/client";
 import { canViewRoster, coachedSquadIds, type Actor } from "@/features/access/lib/rules";
 import { forbidden } from "@/features/platform/server/http";
 import { localDate } from "@/features/platform/lib/dates";
-import { logColumns, plannedColumns } from "@/features/load/server/load";
 import type { ReportLog } from "@/features/load/lib/report";
 import { mondayOf } from "@/features/planning/lib/season";
 import { addDays, type SeasonWeekInfo } from "@/features/planning/lib/weeks";
 import { rosterRow, type RosterRow } from "../lib/roster";
+
+type PlannedRow = Record<string, unknown> & { id: string; athleteId: string; date: string; title: string; kind: string; totalS: number; minutesByZone: [number, number, number] };
+type LogRow = ReportLog & Record<string, unknown> & { athleteId: string; sport: string; hrAvgBpm: number | null; powerAvgW: number | null; speedAvgKmh: number | null };
 
 /** The roster of a squad (the first coached squad when none is named): a handful of queries for the whole squad. */
 export async function squadRoster(actor: Actor, squadId?: string, now = new Date()): Promise<{ squadId: string | null; rows: RosterRow[] }> {
@@ -27,12 +29,20 @@ export async function squadRoster(actor: Actor, squadId?: string, now = new Date
   const ids = athletes.map((a) => a.id);
   const today = localDate(now, "UTC");
   const monday = mondayOf(today);
-  const [zoneSets, tests, sessions, retests, logs, seasons] = await Promise.all([
+  const [zoneSets, tests, sessions, , logs, seasons] = await Promise.all([
     db.select({ athleteId: schema.zoneSet.athleteId, sport: schema.zoneSet.sport, effectiveFrom: schema.zoneSet.effectiveFrom }).from(schema.zoneSet).where(inArray(schema.zoneSet.athleteId, ids)),
     db.select({ athleteId: schema.athleteTest.athleteId, date: schema.athleteTest.testDate }).from(schema.athleteTest).where(inArray(schema.athleteTest.athleteId, ids)),
-    db.select(plannedColumns).from(schema.plannedSession).where(and(inArray(schema.plannedSession.athleteId, ids), gte(schema.plannedSession.date, addDays(monday, -28)), lte(schema.plannedSession.date, addDays(monday, 6)))),
-    db.select(plannedColumns).from(schema.plannedSession).where(and(inArray(schema.plannedSession.athleteId, ids), eq(schema.plannedSession.kind, "retest"), gte(schema.plannedSession.date, addDays(today, -180)))),
-    db.select(logColumns).from(schema.sessionLog).where(and(inArray(schema.sessionLog.athleteId, ids), gte(schema.sessionLog.date, addDays(today, -120)), lte(schema.sessionLog.date, addDays(monday, 6)))),
+    // The two big reads skip the ORM's row mapping: plain rows, named as the pure code wants them.
+    db.execute<PlannedRow>(sql`
+      select p.id, p.athlete_id as "athleteId", p.date, p.title, p.kind, p.total_s as "totalS", p.minutes_by_zone as "minutesByZone"
+      from planned_session p join membership m on m.user_id = p.athlete_id and m.squad_id = ${id} and m.role = 'athlete'
+      where (p.date between ${addDays(monday, -28)} and ${addDays(monday, 6)}) or (p.kind = 'retest' and p.date >= ${addDays(today, -180)})`),
+    Promise.resolve([] as PlannedRow[]),
+    db.execute<LogRow>(sql`
+      select l.athlete_id as "athleteId", l.date, l.status, l.duration_min as "durationMin", l.rpe, l.measured_min_by_zone as "measuredMinByZone", l.trimp,
+        l.planned_session_id as "plannedSessionId", l.sport, l.hr_avg_bpm as "hrAvgBpm", l.power_avg_w as "powerAvgW", l.speed_avg_kmh as "speedAvgKmh"
+      from session_log l join membership m on m.user_id = l.athlete_id and m.squad_id = ${id} and m.role = 'athlete'
+      where l.date between ${addDays(today, -120)} and ${addDays(monday, 6)}`),
     db.select({ athleteId: schema.season.athleteId, weeks: schema.season.weeks }).from(schema.season).where(inArray(schema.season.athleteId, ids)),
   ]);
   const group = <T extends { athleteId: string }>(rows: T[]) => {
@@ -44,18 +54,23 @@ export async function squadRoster(actor: Actor, squadId?: string, now = new Date
     }
     return m;
   };
-  const bySets = group(zoneSets), byTests = group(tests), bySessions = group(sessions), byRetests = group(retests), byLogs = group(logs), bySeasons = group(seasons);
+  const bySets = group(zoneSets), byTests = group(tests), bySessions = group([...sessions]), byLogs = group([...logs]), bySeasons = group(seasons);
+  const todayIn = new Map<string, string>();
+  const localToday = (tz: string | null) => {
+    if (!tz) return today;
+    let d = todayIn.get(tz);
+    if (!d) todayIn.set(tz, (d = localDate(now, tz)));
+    return d;
+  };
   const rows = athletes.map((a) => {
     const own = bySessions.get(a.id) ?? [];
-    const ownIds = new Set(own.map((s) => s.id));
-    const retestRows = (byRetests.get(a.id) ?? []).filter((r) => !ownIds.has(r.id));
     return rosterRow({
       athlete: { id: a.id, name: a.name, email: a.email, sports: a.sports },
-      today: a.timeZone ? localDate(now, a.timeZone) : today,
+      today: localToday(a.timeZone),
       zoneSets: bySets.get(a.id) ?? [],
       testDates: (byTests.get(a.id) ?? []).map((t) => t.date),
-      sessions: [...own, ...retestRows],
-      logs: (byLogs.get(a.id) ?? []) as (ReportLog & (typeof logs)[number])[],
+      sessions: own,
+      logs: byLogs.get(a.id) ?? [],
       seasonWeeks: (bySeasons.get(a.id) ?? []).flatMap((s) => s.weeks as unknown as SeasonWeekInfo[]),
     });
   });
