@@ -12,7 +12,10 @@ import { rosterRow, type RosterRow } from "../lib/roster";
 type PlannedRow = Record<string, unknown> & { id: string; athleteId: string; date: string; title: string; kind: string; totalS: number; minutesByZone: [number, number, number] };
 type LogRow = ReportLog & Record<string, unknown> & { athleteId: string; sport: string; hrAvgBpm: number | null; powerAvgW: number | null; speedAvgKmh: number | null };
 
-/** The roster of a squad (the first coached squad when none is named): a handful of queries for the whole squad. */
+/**
+ * The roster of a squad (the first coached squad when none is named): five queries for the whole squad, run together, then
+ * the pure `rosterRow` per athlete. The windows: five weeks of plan and retests back to 180 days; 120 days of logs (drift).
+ */
 export async function squadRoster(actor: Actor, squadId?: string, now = new Date()): Promise<{ squadId: string | null; rows: RosterRow[] }> {
   const id = squadId ?? coachedSquadIds(actor)[0];
   if (!id) return { squadId: null, rows: [] };
@@ -29,7 +32,7 @@ export async function squadRoster(actor: Actor, squadId?: string, now = new Date
   const ids = athletes.map((a) => a.id);
   const today = localDate(now, "UTC");
   const monday = mondayOf(today);
-  const [zoneSets, tests, sessions, , logs, seasons] = await Promise.all([
+  const [zoneSets, tests, sessions, logs, seasons] = await Promise.all([
     db.select({ athleteId: schema.zoneSet.athleteId, sport: schema.zoneSet.sport, effectiveFrom: schema.zoneSet.effectiveFrom }).from(schema.zoneSet).where(inArray(schema.zoneSet.athleteId, ids)),
     db.select({ athleteId: schema.athleteTest.athleteId, date: schema.athleteTest.testDate }).from(schema.athleteTest).where(inArray(schema.athleteTest.athleteId, ids)),
     // The two big reads skip the ORM's row mapping: plain rows, named as the pure code wants them.
@@ -37,7 +40,6 @@ export async function squadRoster(actor: Actor, squadId?: string, now = new Date
       select p.id, p.athlete_id as "athleteId", p.date, p.title, p.kind, p.total_s as "totalS", p.minutes_by_zone as "minutesByZone"
       from planned_session p join membership m on m.user_id = p.athlete_id and m.squad_id = ${id} and m.role = 'athlete'
       where (p.date between ${addDays(monday, -28)} and ${addDays(monday, 6)}) or (p.kind = 'retest' and p.date >= ${addDays(today, -180)})`),
-    Promise.resolve([] as PlannedRow[]),
     db.execute<LogRow>(sql`
       select l.athlete_id as "athleteId", l.date, l.status, l.duration_min as "durationMin", l.rpe, l.measured_min_by_zone as "measuredMinByZone", l.trimp,
         l.planned_session_id as "plannedSessionId", l.sport, l.hr_avg_bpm as "hrAvgBpm", l.power_avg_w as "powerAvgW", l.speed_avg_kmh as "speedAvgKmh"
