@@ -65,4 +65,25 @@ describe("reading gas-exchange CSV files", () => {
       expect(r.ok).toBe(false);
     }
   });
+
+  it("reads plain files in place exactly as papaparse reads them (cross-check against papaparse's own parse)", () => {
+    // A quote in the header sends a file through papaparse; the same file without it is read in place. Both must agree.
+    const { csv } = syntheticRamp({ seed: 3 });
+    const samples = [
+      csv,
+      csv.replace(/\n/g, "\r\n"),
+      csv.replace(/\n/g, "\r"),
+      csv.trimEnd(),
+      "time_s;vo2;vco2;ve;hr\n0;1,20;1,10;30,5;90\n00:05;1,25;1,12; 31 ;\n\n;;;;\n   \n0:10;1.3e0;1,15;-3;x\n15;1,4;1,2;32;91;extra\n20;1,5\n25;+1,45;1,21;33,25;92,5\n",
+      "time,vo2,vco2,ve,hr\n1,1000.123456789012345,900,30,90\n2,.5,900,30,\t\n3,1000.,900.0,030,0x1F\n4,1000,900,30,1_0\n,,,,\n5,1000,900,30,Infinity\n",
+      "time\tVO2\tVCO2\tVE\tHR\n0\t1000\t900\t30\t90\n1\t1010\t910\t30\t\t\n\t\t\t\t\n2\t1020\t920\t31\t92\n",
+    ];
+    for (const text of samples) {
+      const quoted = text.replace(/^([^,;\t\r\n]+)/, '"$1"');
+      expect(quoted).not.toBe(text);
+      const inPlace = readGasExchangeCsv(text);
+      const throughPapa = readGasExchangeCsv(quoted);
+      expect(inPlace).toEqual(throughPapa);
+    }
+  });
 });

@@ -121,6 +121,17 @@ function unitFromHeader(header: string): "l" | "ml" | null {
   return null;
 }
 
+/** The offset just past the n-th line break (or the end of the text). */
+function nthLineEnd(text: string, n: number): number {
+  let pos = 0;
+  for (let i = 0; i < n; i++) {
+    const next = text.indexOf("\n", pos);
+    if (next < 0) return text.length;
+    pos = next + 1;
+  }
+  return pos;
+}
+
 function describeRows(rows: number[]): string {
   const shown = rows.slice(0, 5).join(", ");
   return rows.length > 5 ? `${shown} and ${rows.length - 5} more` : shown;
@@ -136,16 +147,108 @@ const LIMITS = {
   rfPerMin: [2, 120],
 } as const;
 
+/** A cell that held nothing (or only spaces): optional channels read it as "no value", required ones as unreadable. */
+const EMPTY = Number.NEGATIVE_INFINITY;
+
+/** The numbers of some columns of the data rows, one array per column, in row order (NaN unreadable, EMPTY blank). */
+interface NumericColumns {
+  rows: number;
+  values: number[][];
+}
+
+function cellValue(raw: string, asTime: boolean): number {
+  if (raw === "" || raw.trim() === "") return EMPTY;
+  return asTime ? parseTime(raw) : parseNumber(raw);
+}
+
+/**
+ * The general path: papaparse reads every row (quotes, odd line breaks, anything), then each wanted cell is parsed.
+ * `greedy` drops blank lines and lines whose cells are all blank.
+ */
+function columnsThroughPapa(text: string, wanted: number[], timeAt: number): { headers: string[]; columns: NumericColumns } {
+  const rows = Papa.parse<string[]>(text, { skipEmptyLines: "greedy", delimitersToGuess: DELIMITERS }).data;
+  const headers = (rows[0] ?? []).map((h) => h.trim());
+  const values = wanted.map(() => [] as number[]);
+  for (let i = 1; i < rows.length; i++) {
+    const row = rows[i]!;
+    for (let k = 0; k < wanted.length; k++) values[k]!.push(cellValue(row[wanted[k]!] ?? "", wanted[k] === timeAt));
+  }
+  return { headers, columns: { rows: Math.max(0, rows.length - 1), values } };
+}
+
+/**
+ * The usual path for files without quotes: one pass over the characters after the header line, reading plain decimal
+ * numbers in place (digits, one decimal point or decimal comma, a sign) without making a string per cell; any other cell
+ * (a time as mm:ss, text, an exponent, spaces, long mantissas) goes through the same parsers as the general path, so both
+ * paths give the same numbers. Lines that are blank or whose cells are all blank are skipped, as papaparse's `greedy` does.
+ */
+function columnsInPlace(text: string, bodyStart: number, delimiter: string, wanted: number[], timeAt: number): NumericColumns {
+  const delim = delimiter.charCodeAt(0);
+  const slot = new Int32Array(Math.max(0, ...wanted) + 1).fill(-1);
+  wanted.forEach((col, k) => (slot[col] = k));
+  const values = wanted.map(() => [] as number[]);
+  const rowValues = new Float64Array(wanted.length);
+  const n = text.length;
+  let rows = 0;
+  let pos = bodyStart;
+  while (pos < n) {
+    let field = 0;
+    let content = false;
+    rowValues.fill(EMPTY);
+    // One line: fields up to a delimiter, the line up to \n, \r or \r\n.
+    for (;;) {
+      const fieldStart = pos;
+      const k = field < slot.length ? slot[field]! : -1;
+      let mantissa = 0, digits = 0, decimals = 0, seenPoint = false, negative = false, plain = true;
+      let c = 0;
+      while (pos < n) {
+        c = text.charCodeAt(pos);
+        if (c === delim || c === 10 || c === 13) break;
+        if (!(c === 32 || (c >= 9 && c <= 13) || c === 160 || c === 0xfeff)) content = true;
+        if (k >= 0 && plain) {
+          if (c >= 48 && c <= 57) {
+            mantissa = mantissa * 10 + (c - 48);
+            digits++;
+            if (seenPoint) decimals++;
+          } else if ((c === 46 || c === 44) && !seenPoint) seenPoint = true;
+          else if ((c === 45 || c === 43) && pos === fieldStart) negative = c === 45;
+          else plain = false;
+        }
+        pos++;
+      }
+      if (k >= 0 && pos > fieldStart) {
+        if (plain && digits > 0 && digits <= 15) {
+          // An exact integer divided by an exact power of ten rounds once, like Number() does on the same text.
+          const v = decimals ? mantissa / 10 ** decimals : mantissa;
+          rowValues[k] = negative ? -v : v;
+        } else {
+          rowValues[k] = cellValue(text.slice(fieldStart, pos), field === timeAt);
+        }
+      }
+      field++;
+      if (pos >= n || c !== delim) break;
+      pos++; // past the delimiter
+    }
+    if (pos < n) pos += text.charCodeAt(pos) === 13 && text.charCodeAt(pos + 1) === 10 ? 2 : 1;
+    if (!content) continue;
+    for (let k = 0; k < wanted.length; k++) values[k]!.push(rowValues[k]!);
+    rows++;
+  }
+  return { rows, values };
+}
+
+const DELIMITERS = [",", ";", "\t", "|"];
+
 export function readGasExchangeCsv(text: string, mapping: ColumnMapping = {}): ReadResult {
   const clean = text.replace(/^\uFEFF/, "");
-  const parsed = Papa.parse<string[]>(clean, {
-    skipEmptyLines: "greedy",
-    delimitersToGuess: [",", ";", "\t", "|"],
-  });
-  // skipEmptyLines "greedy" already drops blank and whitespace-only lines.
-  const rows = parsed.data;
-  const headers = (rows[0] ?? []).map((h) => h.trim());
-  if (rows.length < 2) return { ok: false, error: "The file has no data rows under a header line.", headers };
+  // The header line and the delimiter come from papaparse reading the first lines.
+  const firstBreak = clean.search(/\r\n|\n|\r/);
+  const headerLine = firstBreak < 0 ? clean : clean.slice(0, firstBreak);
+  const headEnd = nthLineEnd(clean, 20);
+  const head = Papa.parse<string[]>(clean.slice(0, headEnd), { skipEmptyLines: "greedy", delimitersToGuess: DELIMITERS, preview: 20 });
+  const headRows = head.data;
+  const headers = (headRows[0] ?? []).map((h) => h.trim());
+  if (headRows.length < 2) return { ok: false, error: "The file has no data rows under a header line.", headers };
 
   const guessed = guessColumns(headers);
   const chosen: ColumnMapping = { ...guessed };
@@ -166,10 +269,14 @@ export function readGasExchangeCsv(text: string, mapping: ColumnMapping = {}): R
     };
   }
   const index = Object.fromEntries(CHANNELS.map((c) => [c, chosen[c] ? headers.indexOf(chosen[c]!) : -1])) as Record<Channel, number>;
+  const wanted = CHANNELS.map((c) => index[c]).filter((i) => i >= 0);
+  const plainFile = firstBreak > 0 && headerLine.trim() !== "" && !clean.includes('"') && head.meta.delimiter.length === 1;
+  const columns0 = plainFile
+    ? columnsInPlace(clean, firstBreak + (clean.startsWith("\r\n", firstBreak) ? 2 : 1), head.meta.delimiter, wanted, index.time)
+    : columnsThroughPapa(clean, wanted, index.time).columns;
+  const column = (c: Channel): number[] | null => (index[c] >= 0 ? columns0.values[wanted.indexOf(index[c])]! : null);
   const warnings: string[] = [];
 
-  const dataRows = rows.slice(1);
-  const cell = (row: string[], c: Channel) => (index[c] >= 0 ? (row[index[c]] ?? "") : "");
   // Decide VO2/VCO2 units: header first, then the values (below 10 means L/min).
   const columns: Partial<Record<Channel, DetectedColumn>> = {};
   const scale: Partial<Record<Channel, number>> = {};
@@ -180,7 +287,7 @@ export function readGasExchangeCsv(text: string, mapping: ColumnMapping = {}): R
       columns[c] = { header, unit: fromHeader === "l" ? "L/min" : "mL/min", unitReason: "header" };
       scale[c] = fromHeader === "l" ? 1000 : 1;
     } else {
-      const sample = dataRows.slice(0, 300).map((r) => parseNumber(cell(r, c))).filter((v) => Number.isFinite(v) && v > 0);
+      const sample = column(c)!.slice(0, 300).filter((v) => Number.isFinite(v) && v > 0);
       const m = median(sample);
       const litres = Number.isFinite(m) && m < 10;
       columns[c] = { header, unit: litres ? "L/min" : "mL/min", unitReason: "values" };
@@ -207,21 +314,20 @@ export function readGasExchangeCsv(text: string, mapping: ColumnMapping = {}): R
   const backwards: number[] = [];
   const optionalDropped: Record<string, number> = {};
   let lastTime = -Infinity;
-  const iTime = index.time, iVo2 = index.vo2, iVco2 = index.vco2, iVe = index.ve;
+  const times = column("time")!, vo2s = column("vo2")!, vco2s = column("vco2")!, ves = column("ve")!;
   const optionalColumns = (["hr", "power", "speed", "rf"] as const).map((c) => ({
     c,
-    at: index[c],
+    values: column(c),
     scale: scale[c] ?? 1,
     limits: LIMITS[({ hr: "hrBpm", power: "powerW", speed: "speedKmh", rf: "rfPerMin" } as const)[c]],
   }));
   const optionalValues: (number | null)[] = [null, null, null, null];
-  for (let i = 0; i < dataRows.length; i++) {
-    const row = dataRows[i]!;
+  for (let i = 0; i < columns0.rows; i++) {
     const line = i + 2;
-    const timeS = parseTime(row[iTime] ?? "");
-    const vo2 = parseNumber(row[iVo2] ?? "") * scale.vo2!;
-    const vco2 = parseNumber(row[iVco2] ?? "") * scale.vco2!;
-    const ve = parseNumber(row[iVe] ?? "") * scale.ve!;
+    const timeS = times[i]!;
+    const vo2 = vo2s[i]! * scale.vo2!;
+    const vco2 = vco2s[i]! * scale.vco2!;
+    const ve = ves[i]! * scale.ve!;
     if (!(Number.isFinite(timeS) && Number.isFinite(vo2) && Number.isFinite(vco2) && Number.isFinite(ve))) {
       badRequired.push(line);
       continue;
@@ -242,10 +348,10 @@ export function readGasExchangeCsv(text: string, mapping: ColumnMapping = {}): R
     for (let k = 0; k < 4; k++) {
       const col = optionalColumns[k]!;
       optionalValues[k] = null;
-      if (col.at < 0) continue;
-      const raw = row[col.at] ?? "";
-      if (raw === "" || raw.trim() === "") continue;
-      const v = parseNumber(raw) * col.scale;
+      if (!col.values) continue;
+      const raw = col.values[i]!;
+      if (raw === EMPTY) continue;
+      const v = raw * col.scale;
       if (!Number.isFinite(v) || v < col.limits[0] || v > col.limits[1]) optionalDropped[col.c] = (optionalDropped[col.c] ?? 0) + 1;
       else optionalValues[k] = v;
     }
