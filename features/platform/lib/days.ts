@@ -28,8 +28,22 @@ export function civilFromDay(n: number): [number, number, number] {
 const DAYS_IN_MONTH = [31, 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31];
 const isLeap = (y: number) => (y % 4 === 0 && y % 100 !== 0) || y % 400 === 0;
 
+// The same few hundred dates come back again and again (every session, log and week of a roster); remember them.
+const dayNumbers = new Map<string, number>();
+const isoDays = new Map<number, string>();
+const MEMO_LIMIT = 20_000;
+
 /** The day number of a real calendar date "YYYY-MM-DD", or NaN. */
 export function dayNumber(iso: string): number {
+  let n = dayNumbers.get(iso);
+  if (n === undefined) {
+    if (dayNumbers.size >= MEMO_LIMIT) dayNumbers.clear();
+    dayNumbers.set(iso, (n = computeDayNumber(iso)));
+  }
+  return n;
+}
+
+function computeDayNumber(iso: string): number {
   if (iso.length !== 10 || iso.charCodeAt(4) !== 45 || iso.charCodeAt(7) !== 45) return NaN;
   const y = Number(iso.slice(0, 4)), m = Number(iso.slice(5, 7)), d = Number(iso.slice(8, 10));
   if (!Number.isInteger(y) || !Number.isInteger(m) || !Number.isInteger(d) || m < 1 || m > 12 || d < 1) return NaN;
@@ -40,6 +54,15 @@ export function dayNumber(iso: string): number {
 const pad2 = (v: number) => (v < 10 ? `0${v}` : `${v}`);
 
 export function isoOfDay(n: number): string {
+  let iso = isoDays.get(n);
+  if (iso === undefined) {
+    if (isoDays.size >= MEMO_LIMIT) isoDays.clear();
+    isoDays.set(n, (iso = computeIsoOfDay(n)));
+  }
+  return iso;
+}
+
+function computeIsoOfDay(n: number): string {
   const [y, m, d] = civilFromDay(n);
   return `${y}-${pad2(m)}-${pad2(d)}`;
 }
