@@ -72,6 +72,10 @@ async function main(): Promise<number> {
       TIDEMARK_LOCAL_OUTBOX: "1",
     }, extra);
     if (first !== 0) return first;
+    if (process.env.TIDEMARK_SKIP_BROWSER === "1") {
+      log("TIDEMARK_SKIP_BROWSER=1: skipping the build and the browser tests.");
+      return 0;
+    }
 
     log("Browser tests: demo database, production build, app server…");
     await createDatabase(cluster, "tidemark_browser");

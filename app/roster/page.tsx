@@ -33,6 +33,7 @@ export default async function RosterPage({ searchParams }: { searchParams: Promi
         <div>
           <p className="text-sm font-semibold uppercase tracking-widest text-tide">Roster</p>
           <h1 className="text-3xl font-bold">{squad.name}</h1>
+          <p className="mt-1 text-sm"><Link href={`/roster/week?squad=${squad.id}`} className="text-tide underline">The squad&apos;s week: every athlete&apos;s plan side by side</Link></p>
         </div>
         {squads.length > 1 ? (
           <nav aria-label="Squads" className="flex gap-2 text-sm">

@@ -1,6 +1,7 @@
 "use client";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { apiFetch } from "@/features/squads/api";
+import type { Block } from "./lib/session";
 import type { WeekSummary } from "./lib/weeks";
 
 export interface SessionDto {
@@ -13,6 +14,8 @@ export interface SessionDto {
   totalS: number;
   seriesId: string | null;
   rrule: string | null;
+  structure: Block[];
+  notes: string;
   log: { id: string; status: "done" | "partial" | "skipped"; durationMin: number | null; rpe: number | null; measuredMinByZone: [number, number, number] | null; compliance: number } | null;
 }
 

@@ -55,3 +55,15 @@ export const seasonSchema = z.object({
   loadingWeeks: z.union([z.literal(2), z.literal(3)]).default(3),
   retestEveryWeeks: z.number().int().min(12, "Retests come every 12 to 16 weeks.").max(16, "Retests come every 12 to 16 weeks.").default(12),
 });
+
+/** A coach's edit of one generated season week; the retest flag adds or removes that week's retest session. */
+export const seasonWeekPatchSchema = z
+  .object({
+    block: z.enum(["general_preparation", "specific_preparation", "pre_competition", "taper", "competition", "transition"], { error: "Choose a block." }).optional(),
+    role: z.enum(["loading", "unloading", "taper", "event", "recovery"], { error: "Choose the week's role." }).optional(),
+    volumeHours: z.number({ error: "Give the week's volume in hours." }).min(0, "Volume cannot be negative.").max(40, "At most 40 hours a week.").optional(),
+    budget: z.enum(["polarised", "pyramidal", "beginner", "recovery"], { error: "Choose an intensity budget." }).optional(),
+    retest: z.boolean().optional(),
+  })
+  .strict()
+  .refine((p) => Object.keys(p).length > 0, { message: "Nothing to change." });

@@ -6,8 +6,11 @@ import * as sessionRoute from "@/app/api/sessions/[id]/route";
 import * as weeksRoute from "@/app/api/athletes/[id]/weeks/route";
 import * as seasonsRoute from "@/app/api/athletes/[id]/seasons/route";
 import * as testsRoute from "@/app/api/athletes/[id]/tests/route";
+import * as seasonWeekRoute from "@/app/api/seasons/[id]/weeks/[weekStart]/route";
+import * as squadWeekRoute from "@/app/api/squads/[id]/week/route";
 import { makeSquad } from "../support/squad";
 import { query, resetDatabase } from "../support/db";
+import { addDays } from "@/features/planning/lib/weeks";
 
 type Squad = Awaited<ReturnType<typeof makeSquad>>;
 let s: Squad;
@@ -133,6 +136,62 @@ describe("sessions and weekly budgets", () => {
     const w = await s.coach.browser.call(weeksRoute, "GET", `/api/athletes/${s.athleteB.id}/weeks`, { params: { id: s.athleteB.id }, query: `?from=2026-05-04&to=2026-05-04` });
     expect(w.json[0].flags.map((f: { code: string }) => f.code)).toContain("retest_overdue");
     const bad = await s.coach.browser.call(seasonsRoute, "POST", `/api/athletes/${s.athleteB.id}/seasons`, { params: { id: s.athleteB.id }, body: { name: "x", sport: "running", startDate: "2026-01-05", events: [{ date: "2026-01-08", name: "too soon" }], weeklyHours: 7 } });
+    expect(bad.status).toBe(400);
+  });
+
+  it("a coach edits a generated season week: volume, budget and the retest, which adds or removes that week's retest session", async () => {
+    const r = await s.coach.browser.call(seasonsRoute, "POST", `/api/athletes/${s.athleteA.id}/seasons`, {
+      params: { id: s.athleteA.id },
+      body: { name: "Spring 10k", sport: "running", startDate: "2028-01-03", events: [{ date: "2028-06-04", name: "Spring 10k" }], weeklyHours: 6 },
+    });
+    expect(r.status).toBe(201);
+    const seasonId = r.json.id as string;
+    const plain = r.json.weeks.find((w: { retest: boolean; weekStart: string }) => !w.retest && w.weekStart > "2028-01-10")!.weekStart as string;
+    const retestsIn = async (monday: string) => (await query<{ n: number }>(`select count(*)::int as n from planned_session where athlete_id = $1 and kind = 'retest' and date between $2 and $3`, [s.athleteA.id, monday, addDays(monday, 6)]))[0]!.n;
+    expect(await retestsIn(plain)).toBe(0);
+    const edit = (body: unknown, week = plain, who = s.coach.browser) => who.call(seasonWeekRoute, "PATCH", `/api/seasons/${seasonId}/weeks/${week}`, { params: { id: seasonId, weekStart: week }, body });
+    const on = await edit({ retest: true, volumeHours: 4.5, budget: "recovery" });
+    expect(on.status).toBe(200);
+    expect(on.json.week).toMatchObject({ retest: true, volumeHours: 4.5, budget: "recovery" });
+    expect(await retestsIn(plain)).toBe(1);
+    // The saved week keeps the chosen budget preset.
+    const stored = (await query<{ weeks: { weekStart: string; budget: string }[] }>(`select weeks from season where id = $1`, [seasonId]))[0]!.weeks.find((w) => w.weekStart === plain)!;
+    expect(stored.budget).toBe("recovery");
+    expect((await edit({ retest: true })).status).toBe(200);
+    expect(await retestsIn(plain)).toBe(1); // turning it on twice places one session
+    expect((await edit({ retest: false })).status).toBe(200);
+    expect(await retestsIn(plain)).toBe(0);
+    // Bad input and strangers: 400 for a day outside the season or a bad field, 404 for another squad's coach, 403 for the athlete.
+    expect((await edit({ volumeHours: -1 })).status).toBe(400);
+    expect((await edit({})).status).toBe(400);
+    expect((await edit({ retest: true }, "2030-01-07")).status).toBe(400);
+    expect((await edit({ retest: true }, plain, other.coach.browser)).status).toBe(404);
+    expect((await edit({ retest: true }, plain, s.athleteA.browser)).status).toBe(403);
+    expect(await retestsIn(plain)).toBe(0);
+  });
+
+  it("the squad week shows every athlete's sessions and budget state; only the squad's coaches see it", async () => {
+    await plan({ date: "2028-09-05", templateId: intervalsId });
+    const get = (who = s.coach.browser, week = "2028-09-07") => who.call(squadWeekRoute, "GET", `/api/squads/${s.squadId}/week`, { params: { id: s.squadId }, query: `?week=${week}` });
+    const r = await get();
+    expect(r.status).toBe(200);
+    expect(r.json.map((x: { athlete: { id: string } }) => x.athlete.id).sort()).toEqual([s.athleteA.id, s.athleteB.id].sort());
+    const a = r.json.find((x: { athlete: { id: string } }) => x.athlete.id === s.athleteA.id);
+    expect(a.week.weekStart).toBe("2028-09-04");
+    expect(a.sessions.map((x: { date: string }) => x.date)).toEqual(["2028-09-05"]);
+    expect(a.week.plannedMinByZone).toEqual([40, 0, 20]); // the 5 × 4 min template: 40 min zone 1, 20 min zone 3 (hand sum)
+    expect((await get(s.athleteA.browser)).status).toBe(403);
+    expect((await get(other.coach.browser)).status).toBe(403);
+    expect((await get(s.coach.browser, "not-a-date")).status).toBe(400);
+  });
+
+  it("editing a session's steps recomputes its minutes per zone", async () => {
+    const r = await plan({ date: "2028-10-03", templateId: easyId });
+    const patched = await s.coach.browser.call(sessionRoute, "PATCH", `/api/sessions/${r.json.id}`, { params: { id: r.json.id }, body: { title: "Hills", notes: "Short and sharp", structure: [step("warmup", 20, 1), { type: "repeat", times: 6, steps: [step("work", 1, 3), step("recovery", 2, 1)] }] } });
+    expect(patched.status).toBe(200);
+    // 20 + 6 × 2 = 32 min zone 1, 6 × 1 = 6 min zone 3 (hand sum).
+    expect(patched.json).toMatchObject({ title: "Hills", notes: "Short and sharp", totalS: 38 * 60, minutesByZone: [32, 0, 6] });
+    const bad = await s.coach.browser.call(sessionRoute, "PATCH", `/api/sessions/${r.json.id}`, { params: { id: r.json.id }, body: { structure: [{ type: "repeat", times: 1, steps: [] }] } });
     expect(bad.status).toBe(400);
   });
 });

@@ -13,6 +13,8 @@ import { BUDGET_PRESETS, type BudgetPreset } from "../lib/budget";
 import { mondayOf } from "../lib/season";
 import { addDays, summariseWeeks, type SeasonWeekInfo, type WeekSession, type WeekSummary } from "../lib/weeks";
 import { BudgetBand } from "./BudgetBand";
+import { SessionEditor } from "./SessionEditor";
+import { WEEKDAYS, type Repeat } from "../lib/recurrence";
 
 export interface TrayTemplate {
   id: string;
@@ -39,6 +41,7 @@ export function PlanCalendar({ athleteId, templates, initialDate, canEdit }: { a
   const [preview, setPreview] = useState<WeekSummary | null>(null);
   const [selected, setSelected] = useState<SessionDto | null>(null);
   const [scope, setScope] = useState<"one" | "series">("one");
+  const [editing, setEditing] = useState(false);
   const sessions = useSessions(athleteId, range.from, range.to);
   const weeks = useWeeks(athleteId, range.from, range.to);
   const move = useMoveSession(athleteId, range.from, range.to);
@@ -184,7 +187,10 @@ export function PlanCalendar({ athleteId, templates, initialDate, canEdit }: { a
             eventDragStop={() => setPreview(null)}
             eventDrop={onDrop}
             eventReceive={onReceive}
-            eventClick={(arg: EventClickArg) => setSelected(arg.event.extendedProps.session as SessionDto)}
+            eventClick={(arg: EventClickArg) => {
+              setSelected(arg.event.extendedProps.session as SessionDto);
+              setEditing(false);
+            }}
             eventContent={(arg) => {
               const s = arg.event.extendedProps.session as SessionDto | undefined;
               return (
@@ -212,8 +218,21 @@ export function PlanCalendar({ athleteId, templates, initialDate, canEdit }: { a
                 {selected.log.measuredMinByZone ? ` · measured ${zoneText(selected.log.measuredMinByZone)}` : ""}
               </p>
             ) : <p className="text-sm text-ink-soft">Not logged yet.</p>}
-            {canEdit ? (
+            {canEdit && editing ? (
+              <SessionEditor
+                athleteId={athleteId}
+                session={selected}
+                onCancel={() => setEditing(false)}
+                onDone={(text) => {
+                  setEditing(false);
+                  setSelected(null);
+                  setMessage({ kind: "ok", text });
+                }}
+              />
+            ) : null}
+            {canEdit && !editing ? (
               <div className="flex flex-wrap gap-2 text-sm">
+                <button type="button" className="btn-quiet py-1" onClick={() => setEditing(true)}>Edit steps and notes</button>
                 <DuplicateButton sessionId={selected.id} date={addDays(selected.date, 7)} onDone={(t) => setMessage({ kind: "ok", text: t })} onError={fail} athleteId={athleteId} />
                 <button type="button" className="btn-quiet py-1" onClick={() => remove.mutate({ id: selected.id, scope: "one" }, { onSuccess: () => { setSelected(null); setMessage({ kind: "ok", text: "Session deleted." }); }, onError: fail })}>Delete</button>
                 {selected.seriesId ? <button type="button" className="btn-quiet py-1" onClick={() => remove.mutate({ id: selected.id, scope: "series" }, { onSuccess: () => { setSelected(null); setMessage({ kind: "ok", text: "Series deleted from this occurrence on." }); }, onError: fail })}>Delete the series from here</button> : null}
@@ -236,7 +255,7 @@ export function PlanCalendar({ athleteId, templates, initialDate, canEdit }: { a
               </li>
             ))}
           </ul>
-          <KeyboardPlanner templates={templates} defaultDate={range.from || initialDate} onPlan={(templateId, date) => create.mutate({ date, templateId }, { onError: fail, onSuccess: () => { setMessage({ kind: "ok", text: `Planned on ${date}.` }); calendarRef.current?.getApi().gotoDate(date); } })} />
+          <KeyboardPlanner templates={templates} defaultDate={range.from || initialDate} onPlan={(templateId, date, repeat) => create.mutate(repeat ? { date, templateId, repeat } : { date, templateId }, { onError: fail, onSuccess: (r) => { const n = (r as { ids?: string[] }).ids?.length ?? 1; setMessage({ kind: "ok", text: n > 1 ? `Planned ${n} sessions from ${date}.` : `Planned on ${date}.` }); calendarRef.current?.getApi().gotoDate(date); } })} />
         </aside>
       ) : null}
     </div>
@@ -269,17 +288,31 @@ function DuplicateButton({ sessionId, date, onDone, onError, athleteId }: { sess
   );
 }
 
-/** Planning without a pointer: choose a template and a day. */
-function KeyboardPlanner({ templates, defaultDate, onPlan }: { templates: TrayTemplate[]; defaultDate: string; onPlan: (templateId: string, date: string) => void }) {
+const WEEKDAY_LABELS: Record<(typeof WEEKDAYS)[number], string> = { MO: "Mon", TU: "Tue", WE: "Wed", TH: "Thu", FR: "Fri", SA: "Sat", SU: "Sun" };
+
+/** Planning without a pointer: choose a template and a day, and optionally repeat it weekly (an RRULE). */
+function KeyboardPlanner({ templates, defaultDate, onPlan }: { templates: TrayTemplate[]; defaultDate: string; onPlan: (templateId: string, date: string, repeat?: Repeat) => void }) {
   const [templateId, setTemplateId] = useState("");
   const [date, setDate] = useState(defaultDate);
+  const [repeats, setRepeats] = useState(false);
+  const [days, setDays] = useState<(typeof WEEKDAYS)[number][]>([]);
+  const [endBy, setEndBy] = useState<"count" | "until">("count");
+  const [count, setCount] = useState(8);
+  const [until, setUntil] = useState("");
+  const [problem, setProblem] = useState("");
   if (!templates.length) return null;
   return (
     <form
       className="space-y-2 rounded-md border border-rule p-2 text-sm"
       onSubmit={(e) => {
         e.preventDefault();
-        if (templateId && date) onPlan(templateId, date);
+        setProblem("");
+        if (!templateId || !date) return;
+        if (!repeats) return onPlan(templateId, date);
+        if (!days.length) return setProblem("Choose at least one weekday to repeat on.");
+        if (endBy === "until" && !until) return setProblem("Give the last date of the repeat, or a number of sessions.");
+        if (endBy === "count" && !(count >= 1 && count <= 104)) return setProblem("Repeat between 1 and 104 times.");
+        onPlan(templateId, date, endBy === "count" ? { byWeekday: days, count } : { byWeekday: days, until });
       }}
     >
       <p className="font-semibold">Plan without dragging</p>
@@ -294,7 +327,37 @@ function KeyboardPlanner({ templates, defaultDate, onPlan }: { templates: TrayTe
         <span className="field-label">Day</span>
         <input type="date" className="field-input num" value={date} onChange={(e) => setDate(e.target.value)} />
       </label>
-      <button type="submit" className="btn w-full" disabled={!templateId || !date}>Plan it</button>
+      <label className="flex items-center gap-2">
+        <input type="checkbox" checked={repeats} onChange={(e) => setRepeats(e.target.checked)} /> Repeat weekly
+      </label>
+      {repeats ? (
+        <div className="space-y-2 border-l-2 border-rule pl-2">
+          <fieldset>
+            <legend className="field-label">On</legend>
+            <div className="flex flex-wrap gap-x-2">
+              {WEEKDAYS.map((d) => (
+                <label key={d} className="flex items-center gap-1">
+                  <input type="checkbox" checked={days.includes(d)} onChange={(e) => setDays((x) => (e.target.checked ? [...x, d] : x.filter((y) => y !== d)))} />
+                  {WEEKDAY_LABELS[d]}
+                </label>
+              ))}
+            </div>
+          </fieldset>
+          <fieldset className="space-y-1">
+            <legend className="field-label">Ends</legend>
+            <label className="flex items-center gap-1">
+              <input type="radio" checked={endBy === "count"} onChange={() => setEndBy("count")} /> after
+              <input aria-label="Number of sessions" type="number" min={1} max={104} className="field-input mt-0 w-16 num" value={count} onChange={(e) => setCount(Number(e.target.value))} /> sessions
+            </label>
+            <label className="flex items-center gap-1">
+              <input type="radio" checked={endBy === "until"} onChange={() => setEndBy("until")} /> on
+              <input aria-label="Last date" type="date" className="field-input mt-0 num" value={until} onChange={(e) => setUntil(e.target.value)} />
+            </label>
+          </fieldset>
+        </div>
+      ) : null}
+      {problem ? <p role="alert" className="text-alert">{problem}</p> : null}
+      <button type="submit" className="btn w-full" disabled={!templateId || !date}>{repeats ? "Plan the series" : "Plan it"}</button>
     </form>
   );
 }

@@ -11,17 +11,44 @@ import { expand, STEP_KINDS, structureSchema, type Block } from "../lib/session"
 const KIND_LABELS: Record<(typeof STEP_KINDS)[number], string> = { warmup: "Warm-up", work: "Work", recovery: "Recovery", cooldown: "Cool-down" };
 const ZONE_FILL = ["var(--color-zone-1)", "var(--color-zone-2)", "var(--color-zone-3)"];
 
-const stepForm = z.object({ kind: z.enum(STEP_KINDS), minutes: z.number({ error: "Minutes?" }).positive("Above 0.").max(600), zone: z.number().int().min(1).max(3) });
+const stepForm = z.object({ kind: z.enum(STEP_KINDS), amount: z.number({ error: "How long?" }).positive("Above 0.").max(600, "At most 600."), unit: z.enum(["min", "km"]), zone: z.number().int().min(1).max(3) });
 const blockForm = z.object({ times: z.number({ error: "How often?" }).int().min(1, "At least once.").max(50, "At most 50."), steps: z.array(stepForm).min(1) });
-const formSchema = z.object({ name: z.string().trim().min(2, "Name the template."), sport: z.enum(SPORTS), description: z.string().max(500), blocks: z.array(blockForm).min(1, "Add at least one step.") });
-type Values = z.infer<typeof formSchema>;
+export const formSchema = z.object({ name: z.string().trim().min(2, "Name the template."), sport: z.enum(SPORTS), description: z.string().max(500), blocks: z.array(blockForm).min(1, "Add at least one step.") });
+export type Values = z.infer<typeof formSchema>;
+type BlockValues = Values["blocks"][number];
 
-function toStructure(v: Pick<Values, "blocks">): Block[] {
+export function toStructure(v: Pick<Values, "blocks">): Block[] {
   const out: Block[] = [];
   for (const b of v.blocks) {
-    const steps = b.steps.map((st) => ({ type: "step" as const, kind: st.kind, durationS: Math.round((Number(st.minutes) || 0) * 60), zone: Number(st.zone) || 1 }));
+    const steps = b.steps.map((st) => {
+      const amount = Number(st.amount) || 0;
+      const zone = Number(st.zone) || 1;
+      return st.unit === "km" ? { type: "step" as const, kind: st.kind, distanceM: Math.round(amount * 1000), zone } : { type: "step" as const, kind: st.kind, durationS: Math.round(amount * 60), zone };
+    });
     if (b.times > 1) out.push({ type: "repeat", times: b.times, steps });
     else out.push(...steps);
+  }
+  return out;
+}
+
+/**
+ * The form's blocks from a saved structure: plain steps in a row become one block done once, a repeat group one block.
+ * Null when the structure nests repeats inside repeats, which this form cannot show.
+ */
+export function fromStructure(structure: Block[]): BlockValues[] | null {
+  const out: BlockValues[] = [];
+  const stepOf = (b: Block) =>
+    b.type === "step" ? { kind: b.kind, amount: b.distanceM !== undefined ? b.distanceM / 1000 : (b.durationS ?? 0) / 60, unit: (b.distanceM !== undefined ? "km" : "min") as "km" | "min", zone: b.zone } : null;
+  for (const b of structure) {
+    if (b.type === "repeat") {
+      const steps = b.steps.map(stepOf);
+      if (steps.some((x) => x === null)) return null;
+      out.push({ times: b.times, steps: steps as BlockValues["steps"] });
+    } else {
+      const last = out.at(-1);
+      if (last && last.times === 1) last.steps.push(stepOf(b)!);
+      else out.push({ times: 1, steps: [stepOf(b)!] });
+    }
   }
   return out;
 }
@@ -50,16 +77,57 @@ function StepsEditor({ control, register, index }: { control: Control<Values>; r
           <select aria-label={`Block ${index + 1} step ${j + 1} kind`} className="field-input mt-0 w-32" {...register(`blocks.${index}.steps.${j}.kind`)}>
             {STEP_KINDS.map((k) => <option key={k} value={k}>{KIND_LABELS[k]}</option>)}
           </select>
-          <input aria-label={`Block ${index + 1} step ${j + 1} minutes`} type="number" step="0.5" className="field-input mt-0 w-24 num" {...register(`blocks.${index}.steps.${j}.minutes`, { valueAsNumber: true })} />
-          <span className="text-sm">min in</span>
+          <input aria-label={`Block ${index + 1} step ${j + 1} amount`} type="number" step="0.5" className="field-input mt-0 w-24 num" {...register(`blocks.${index}.steps.${j}.amount`, { valueAsNumber: true })} />
+          <select aria-label={`Block ${index + 1} step ${j + 1} unit`} className="field-input mt-0 w-20" {...register(`blocks.${index}.steps.${j}.unit`)}>
+            <option value="min">min</option>
+            <option value="km">km</option>
+          </select>
+          <span className="text-sm">in</span>
           <select aria-label={`Block ${index + 1} step ${j + 1} zone`} className="field-input mt-0 w-28" {...register(`blocks.${index}.steps.${j}.zone`, { valueAsNumber: true })}>
             {[1, 2, 3].map((z) => <option key={z} value={z}>zone {z}</option>)}
           </select>
           <button type="button" className="text-sm text-alert underline" onClick={() => remove(j)} disabled={fields.length <= 1}>Remove step</button>
         </div>
       ))}
-      <button type="button" className="text-sm text-tide underline" onClick={() => append({ kind: "recovery", minutes: 3, zone: 1 })}>Add a step to this block</button>
+      <button type="button" className="text-sm text-tide underline" onClick={() => append({ kind: "recovery", amount: 3, unit: "min", zone: 1 })}>Add a step to this block</button>
     </div>
+  );
+}
+
+/** The blocks of a session or template with their steps, and the live totals and profile while editing. */
+export function StructureFields({ control, register }: { control: Control<Values>; register: UseFormRegister<Values> }) {
+  const { fields, append, remove } = useFieldArray({ control, name: "blocks" });
+  const blocks = useWatch({ control, name: "blocks" });
+  const structure = toStructure({ blocks: blocks ?? [] });
+  const valid = structureSchema.safeParse(structure);
+  const e = valid.success ? expand(valid.data) : null;
+  return (
+    <>
+      <ol className="space-y-3">
+        {fields.map((f, i) => (
+          <li key={f.id} className="rounded-md border border-rule p-3">
+            <div className="mb-2 flex flex-wrap items-center gap-2 text-sm">
+              <span className="font-semibold">Block {i + 1}: repeat</span>
+              <input aria-label={`Block ${i + 1} repeats`} type="number" className="field-input mt-0 w-20 num" {...register(`blocks.${i}.times`, { valueAsNumber: true })} />
+              <span>× (once = plain steps)</span>
+              <button type="button" className="ml-auto text-alert underline" onClick={() => remove(i)} disabled={fields.length <= 1}>Remove block</button>
+            </div>
+            <StepsEditor control={control} register={register} index={i} />
+          </li>
+        ))}
+      </ol>
+      <button type="button" className="btn-quiet" onClick={() => append({ times: 1, steps: [{ kind: "work", amount: 10, unit: "min", zone: 1 }] })}>Add a block</button>
+      <div className="rounded-md bg-ground p-3 text-sm" aria-live="polite">
+        {e ? (
+          <>
+            <p className="num font-semibold">{Math.round(e.totalS / 60)} min in all · zone 1 {Math.round(e.minutesByZone[0])} min · zone 2 {Math.round(e.minutesByZone[1])} min · zone 3 {Math.round(e.minutesByZone[2])} min</p>
+            <SessionProfile structure={valid.success ? valid.data : []} />
+          </>
+        ) : (
+          <p className="text-alert">{valid.success ? "" : valid.error.issues[0]?.message}</p>
+        )}
+      </div>
+    </>
   );
 }
 
@@ -67,13 +135,8 @@ export function TemplateBuilder({ squadId }: { squadId: string }) {
   const router = useRouter();
   const { register, control, handleSubmit, formState, setError, reset } = useForm<Values>({
     resolver: zodResolver(formSchema),
-    defaultValues: { name: "", sport: "running", description: "", blocks: [{ times: 1, steps: [{ kind: "warmup", minutes: 15, zone: 1 }] }, { times: 5, steps: [{ kind: "work", minutes: 4, zone: 3 }, { kind: "recovery", minutes: 3, zone: 1 }] }, { times: 1, steps: [{ kind: "cooldown", minutes: 10, zone: 1 }] }] },
+    defaultValues: { name: "", sport: "running", description: "", blocks: [{ times: 1, steps: [{ kind: "warmup", amount: 15, unit: "min", zone: 1 }] }, { times: 5, steps: [{ kind: "work", amount: 4, unit: "min", zone: 3 }, { kind: "recovery", amount: 3, unit: "min", zone: 1 }] }, { times: 1, steps: [{ kind: "cooldown", amount: 10, unit: "min", zone: 1 }] }] },
   });
-  const { fields, append, remove } = useFieldArray({ control, name: "blocks" });
-  const blocks = useWatch({ control, name: "blocks" });
-  const structure = toStructure({ blocks: blocks ?? [] });
-  const valid = structureSchema.safeParse(structure);
-  const e = valid.success ? expand(valid.data) : null;
   const onSubmit = handleSubmit(async (v) => {
     const s = structureSchema.safeParse(toStructure(v));
     if (!s.success) return setError("root", { message: s.error.issues[0]!.message });
@@ -103,30 +166,7 @@ export function TemplateBuilder({ squadId }: { squadId: string }) {
           <input id="tpl-desc" className="field-input" {...register("description")} />
         </div>
       </div>
-      <ol className="space-y-3">
-        {fields.map((f, i) => (
-          <li key={f.id} className="rounded-md border border-rule p-3">
-            <div className="mb-2 flex flex-wrap items-center gap-2 text-sm">
-              <span className="font-semibold">Block {i + 1}: repeat</span>
-              <input aria-label={`Block ${i + 1} repeats`} type="number" className="field-input mt-0 w-20 num" {...register(`blocks.${i}.times`, { valueAsNumber: true })} />
-              <span>× (once = plain steps)</span>
-              <button type="button" className="ml-auto text-alert underline" onClick={() => remove(i)} disabled={fields.length <= 1}>Remove block</button>
-            </div>
-            <StepsEditor control={control} register={register} index={i} />
-          </li>
-        ))}
-      </ol>
-      <button type="button" className="btn-quiet" onClick={() => append({ times: 1, steps: [{ kind: "work", minutes: 10, zone: 1 }] })}>Add a block</button>
-      <div className="rounded-md bg-ground p-3 text-sm" aria-live="polite">
-        {e ? (
-          <>
-            <p className="num font-semibold">{Math.round(e.totalS / 60)} min in all · zone 1 {Math.round(e.minutesByZone[0])} min · zone 2 {Math.round(e.minutesByZone[1])} min · zone 3 {Math.round(e.minutesByZone[2])} min</p>
-            <SessionProfile structure={valid.success ? valid.data : []} />
-          </>
-        ) : (
-          <p className="text-alert">{valid.success ? "" : valid.error.issues[0]?.message}</p>
-        )}
-      </div>
+      <StructureFields control={control} register={register} />
       <button type="submit" className="btn" disabled={formState.isSubmitting}>{formState.isSubmitting ? "Saving…" : "Save the template"}</button>
     </form>
   );

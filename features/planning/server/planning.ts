@@ -4,16 +4,16 @@ import { and, asc, eq, gte, inArray, lte } from "drizzle-orm";
 import type { z } from "zod";
 import { getDb, schema, type Database } from "@/db/client";
 import { requireAthleteAccess } from "@/features/access/server/permissions";
-import { isCoachOf, type Actor } from "@/features/access/lib/rules";
+import { canViewRoster, isCoachOf, type Actor } from "@/features/access/lib/rules";
 import { HttpError, notFound } from "@/features/platform/server/http";
 import { zoneSetInForce } from "@/features/zones/lib/zones";
 import { zoneSetsOf } from "@/features/zones/server/zone-sets";
 import { logZoneMinutes } from "@/features/load/lib/report";
 import { expandDates, rruleText } from "../lib/recurrence";
-import { planSeason, SeasonError, mondayOf } from "../lib/season";
+import { planSeason, SeasonError, mondayOf, type SeasonWeek } from "../lib/season";
 import { expand, type Block } from "../lib/session";
-import { addDays, summariseWeeks, type SeasonWeekInfo } from "../lib/weeks";
-import type { createSessionSchema, patchSessionSchema, seasonSchema } from "../schemas";
+import { addDays, summariseWeeks, type SeasonWeekInfo, type WeekSummary } from "../lib/weeks";
+import type { createSessionSchema, patchSessionSchema, seasonSchema, seasonWeekPatchSchema } from "../schemas";
 
 type Tx = Pick<Database, "insert" | "update" | "select" | "delete">;
 
@@ -169,6 +169,43 @@ export async function createSeason(actor: Actor, athleteId: string, input: z.inf
   return { id, weeks };
 }
 
+/**
+ * Edits one week of a season (block, role, volume target, budget, retest). Turning the retest on places a retest session on
+ * the Wednesday of that week; turning it off removes the week's retest sessions that have no log. One transaction.
+ */
+export async function updateSeasonWeek(actor: Actor, seasonId: string, weekStart: string, patch: z.infer<typeof seasonWeekPatchSchema>) {
+  const db = getDb();
+  const [row] = await db.select().from(schema.season).where(eq(schema.season.id, seasonId));
+  if (!row) throw notFound("No such season.");
+  await requireAthleteAccess(actor, row.athleteId, "view").catch(() => {
+    throw notFound("No such season.");
+  });
+  await requireAthleteAccess(actor, row.athleteId, "coach");
+  const weeks = row.weeks as unknown as SeasonWeek[];
+  const index = weeks.findIndex((w) => w.weekStart === weekStart);
+  if (index < 0) throw new HttpError(400, `The season has no week starting ${weekStart}.`, { fieldErrors: { weekStart: ["Choose a Monday of this season."] } });
+  const before = weeks[index]!;
+  const after: SeasonWeek = { ...before, ...patch };
+  const next = weeks.map((w, i) => (i === index ? after : w));
+  await db.transaction(async (tx) => {
+    await tx.update(schema.season).set({ weeks: next as unknown as Record<string, unknown>[] }).where(eq(schema.season.id, seasonId));
+    const weekEnd = addDays(weekStart, 6);
+    if (after.retest && !before.retest) {
+      const existing = await tx.select({ id: schema.plannedSession.id }).from(schema.plannedSession).where(and(eq(schema.plannedSession.athleteId, row.athleteId), eq(schema.plannedSession.kind, "retest"), gte(schema.plannedSession.date, weekStart), lte(schema.plannedSession.date, weekEnd)));
+      if (!existing.length) {
+        await tx.insert(schema.plannedSession).values({ id: randomUUID(), athleteId: row.athleteId, date: addDays(weekStart, 2), kind: "retest", sport: row.sport, title: "Retest: threshold test", structure: RETEST_STRUCTURE, ...totals(RETEST_STRUCTURE), createdBy: actor.userId, notes: "Retest to keep the zones in step with fitness. Answer the readiness questions first." });
+      }
+    } else if (!after.retest && before.retest) {
+      const retests = await tx.select({ id: schema.plannedSession.id }).from(schema.plannedSession).where(and(eq(schema.plannedSession.athleteId, row.athleteId), eq(schema.plannedSession.kind, "retest"), gte(schema.plannedSession.date, weekStart), lte(schema.plannedSession.date, weekEnd)));
+      const logged = retests.length ? await tx.select({ id: schema.sessionLog.plannedSessionId }).from(schema.sessionLog).where(inArray(schema.sessionLog.plannedSessionId, retests.map((r) => r.id))) : [];
+      const keep = new Set(logged.map((l) => l.id));
+      const drop = retests.filter((r) => !keep.has(r.id)).map((r) => r.id);
+      if (drop.length) await tx.delete(schema.plannedSession).where(inArray(schema.plannedSession.id, drop));
+    }
+  });
+  return { id: seasonId, week: after };
+}
+
 export async function listSeasons(actor: Actor, athleteId: string) {
   await requireAthleteAccess(actor, athleteId, "view");
   return getDb().select().from(schema.season).where(eq(schema.season.athleteId, athleteId)).orderBy(asc(schema.season.startDate));
@@ -209,4 +246,63 @@ export async function nextRetestOf(actor: Actor, athleteId: string, from: string
     .orderBy(asc(schema.plannedSession.date))
     .limit(1);
   return row ?? null;
+}
+
+export interface SquadWeekRow {
+  athlete: { id: string; name: string };
+  sessions: { id: string; date: string; title: string; kind: string; totalS: number; minutesByZone: [number, number, number]; log: "done" | "partial" | "skipped" | null }[];
+  week: WeekSummary;
+}
+
+/** One ISO week for every athlete of a squad: their sessions day by day and the week's budget state. Coaches only. */
+export async function squadWeek(actor: Actor, squadId: string, weekStart: string): Promise<SquadWeekRow[]> {
+  if (!canViewRoster(actor, squadId)) throw new HttpError(403, "Only the squad's coaches see its week.");
+  const db = getDb();
+  const monday = mondayOf(weekStart);
+  const sunday = addDays(monday, 6);
+  const athletes = await db
+    .select({ id: schema.user.id, name: schema.user.name })
+    .from(schema.membership)
+    .innerJoin(schema.user, eq(schema.user.id, schema.membership.userId))
+    .where(and(eq(schema.membership.squadId, squadId), eq(schema.membership.role, "athlete")))
+    .orderBy(asc(schema.user.name));
+  if (!athletes.length) return [];
+  const ids = athletes.map((a) => a.id);
+  const [sessions, seasons, tests, logs] = await Promise.all([
+    db
+      .select({ id: schema.plannedSession.id, athleteId: schema.plannedSession.athleteId, date: schema.plannedSession.date, title: schema.plannedSession.title, kind: schema.plannedSession.kind, minutesByZone: schema.plannedSession.minutesByZone, totalS: schema.plannedSession.totalS })
+      .from(schema.plannedSession)
+      .where(and(inArray(schema.plannedSession.athleteId, ids), gte(schema.plannedSession.date, addDays(monday, -28)), lte(schema.plannedSession.date, sunday)))
+      .orderBy(asc(schema.plannedSession.date), asc(schema.plannedSession.createdAt)),
+    db.select({ athleteId: schema.season.athleteId, weeks: schema.season.weeks }).from(schema.season).where(inArray(schema.season.athleteId, ids)),
+    db.select({ athleteId: schema.athleteTest.athleteId, date: schema.athleteTest.testDate }).from(schema.athleteTest).where(inArray(schema.athleteTest.athleteId, ids)),
+    db
+      .select({ athleteId: schema.sessionLog.athleteId, date: schema.sessionLog.date, status: schema.sessionLog.status, durationMin: schema.sessionLog.durationMin, rpe: schema.sessionLog.rpe, measuredMinByZone: schema.sessionLog.measuredMinByZone, trimp: schema.sessionLog.trimp, plannedSessionId: schema.sessionLog.plannedSessionId })
+      .from(schema.sessionLog)
+      .where(and(inArray(schema.sessionLog.athleteId, ids), gte(schema.sessionLog.date, monday), lte(schema.sessionLog.date, sunday))),
+  ]);
+  const plannedById = new Map(sessions.map((x) => [x.id, x]));
+  const logOf = new Map(logs.filter((l) => l.plannedSessionId).map((l) => [l.plannedSessionId!, l.status]));
+  const today = new Date().toISOString().slice(0, 10);
+  return athletes.map((a) => {
+    const own = sessions.filter((x) => x.athleteId === a.id);
+    const done = logs
+      .filter((l) => l.athleteId === a.id)
+      .map((l) => ({ date: l.date, minutesByZone: logZoneMinutes(l, l.plannedSessionId ? plannedById.get(l.plannedSessionId) : undefined) ?? ([0, 0, 0] as [number, number, number]) }));
+    const [week] = summariseWeeks({
+      from: monday,
+      to: monday,
+      sessions: own,
+      seasonWeeks: seasons.filter((x) => x.athleteId === a.id).flatMap((x) => x.weeks as unknown as SeasonWeekInfo[]),
+      testDates: tests.filter((t) => t.athleteId === a.id).map((t) => t.date),
+      today,
+      done,
+      withFix: false,
+    });
+    return {
+      athlete: a,
+      sessions: own.filter((x) => x.date >= monday).map((x) => ({ id: x.id, date: x.date, title: x.title, kind: x.kind, totalS: x.totalS, minutesByZone: x.minutesByZone, log: logOf.get(x.id) ?? null })),
+      week: week!,
+    };
+  });
 }

@@ -51,6 +51,13 @@ export async function readJson<T extends z.ZodType>(req: Request, schema: T): Pr
   return parsed.data;
 }
 
+/** The search parameters of a request through a zod schema; 400 with field errors when they do not fit. */
+export function parseQuery<T extends z.ZodType>(req: Request, schema: T, message = "Some query parameters are not valid."): z.infer<T> {
+  const parsed = schema.safeParse(Object.fromEntries(new URL(req.url).searchParams));
+  if (!parsed.success) throw new HttpError(400, message, { fieldErrors: fieldErrors(parsed.error) });
+  return parsed.data;
+}
+
 export function parseParams<T extends z.ZodType>(params: unknown, schema: T): z.infer<T> {
   const parsed = schema.safeParse(params);
   if (!parsed.success) throw notFound();

@@ -8,9 +8,11 @@ import { HttpError } from "@/features/platform/server/http";
 import { PlanCalendar } from "@/features/planning/components/PlanCalendar";
 import { SeasonForm } from "@/features/planning/components/SeasonForm";
 import { SeasonRibbon } from "@/features/planning/components/SeasonRibbon";
+import { SeasonWeekEditor } from "@/features/planning/components/SeasonWeekEditor";
 import { mondayOf, type SeasonWeek } from "@/features/planning/lib/season";
 import { listSeasons, weekSummaries } from "@/features/planning/server/planning";
 import { listTemplates } from "@/features/planning/server/templates";
+import { isoDate } from "@/features/planning/schemas";
 
 export const metadata = { title: "Plan" };
 
@@ -37,7 +39,8 @@ export default async function PlanPage({ params, searchParams }: { params: Promi
     const summaries = await weekSummaries(actor, id, seasonWeeks[0]!.weekStart, seasonWeeks[seasonWeeks.length - 1]!.weekStart);
     for (const s of summaries) if (s.flags.length) overBudget[s.weekStart] = s.flags.map((f) => f.message);
   }
-  const initialDate = week && /^\d{4}-\d{2}-\d{2}$/.test(week) ? week : today;
+  const initialDate = week && isoDate.safeParse(week).success ? week : today;
+  const openWeek = week ? seasonWeeks.find((w) => w.weekStart === mondayOf(initialDate)) : undefined;
   return (
     <div className="space-y-6">
       <div className="flex flex-wrap items-end justify-between gap-3">
@@ -48,7 +51,10 @@ export default async function PlanPage({ params, searchParams }: { params: Promi
         {canEdit ? <Link href="/templates" className="btn-quiet">Session templates</Link> : null}
       </div>
       {current ? (
-        <div className="card"><SeasonRibbon athleteId={id} name={current.name} weeks={seasonWeeks} overBudget={overBudget} /></div>
+        <>
+          <div className="card"><SeasonRibbon athleteId={id} name={current.name} weeks={seasonWeeks} overBudget={overBudget} /></div>
+          {canEdit && openWeek ? <div className="card"><SeasonWeekEditor key={openWeek.weekStart} athleteId={id} seasonId={current.id} week={openWeek} /></div> : null}
+        </>
       ) : canEdit ? (
         <section className="card space-y-3" aria-labelledby="season-h">
           <h2 id="season-h" className="font-bold">No season yet</h2>

@@ -1,0 +1,65 @@
+"use client";
+import { useQueryClient } from "@tanstack/react-query";
+import { useRouter } from "next/navigation";
+import { useForm } from "react-hook-form";
+import { FieldError, FormAlert, FormNotice } from "@/features/platform/components/form-bits";
+import { apiFetch } from "@/features/squads/api";
+import { BUDGET_PRESETS, type BudgetPreset } from "../lib/budget";
+import { BLOCK_LABELS, type BlockName, type SeasonWeek } from "../lib/season";
+
+const ROLE_LABELS: Record<SeasonWeek["role"], string> = { loading: "Loading", unloading: "Unloading", taper: "Taper", event: "Event", recovery: "Recovery" };
+
+type Values = { block: BlockName; role: SeasonWeek["role"]; volumeHours: number; budget: BudgetPreset; retest: boolean };
+
+/** Edits one generated season week; what the generator proposed is only a starting point. */
+export function SeasonWeekEditor({ athleteId, seasonId, week }: { athleteId: string; seasonId: string; week: SeasonWeek }) {
+  const router = useRouter();
+  const qc = useQueryClient();
+  const { register, handleSubmit, formState, setError } = useForm<Values>({
+    defaultValues: { block: week.block, role: week.role, volumeHours: week.volumeHours, budget: week.budget, retest: week.retest },
+  });
+  const onSubmit = handleSubmit(async (v) => {
+    if (!(v.volumeHours >= 0 && v.volumeHours <= 40)) return setError("volumeHours", { message: "Give 0 to 40 hours." });
+    try {
+      await apiFetch(`/api/seasons/${seasonId}/weeks/${week.weekStart}`, { method: "PATCH", body: JSON.stringify(v) });
+      await Promise.all([qc.invalidateQueries({ queryKey: ["sessions", athleteId] }), qc.invalidateQueries({ queryKey: ["weeks", athleteId] })]);
+      router.refresh();
+    } catch (e) {
+      setError("root", { message: e instanceof Error ? e.message : "Saving failed." });
+    }
+  });
+  return (
+    <form onSubmit={onSubmit} noValidate className="space-y-3" aria-labelledby="week-edit-h">
+      <h2 id="week-edit-h" className="font-bold">Week of {week.weekStart}{week.events.length ? ` · ${week.events.join(", ")}` : ""}</h2>
+      <FormAlert>{formState.errors.root?.message}</FormAlert>
+      {formState.isSubmitSuccessful && !formState.errors.root ? <FormNotice>Week saved.</FormNotice> : null}
+      <div className="grid gap-3 sm:grid-cols-5">
+        <label className="block">
+          <span className="field-label">Block</span>
+          <select className="field-input" {...register("block")}>{Object.entries(BLOCK_LABELS).map(([k, l]) => <option key={k} value={k}>{l}</option>)}</select>
+        </label>
+        <label className="block">
+          <span className="field-label">Role</span>
+          <select className="field-input" {...register("role")}>{Object.entries(ROLE_LABELS).map(([k, l]) => <option key={k} value={k}>{l}</option>)}</select>
+        </label>
+        <label className="block">
+          <span className="field-label">Volume target (h)</span>
+          <input type="number" step="0.5" min={0} max={40} className="field-input num" {...register("volumeHours", { valueAsNumber: true })} />
+          <FieldError id="week-vol-e" message={formState.errors.volumeHours?.message} />
+        </label>
+        <label className="block">
+          <span className="field-label">Intensity budget</span>
+          <select className="field-input" {...register("budget")}>
+            {Object.entries(BUDGET_PRESETS).map(([k, b]) => (
+              <option key={k} value={k}>{b.name} ({b.shares.map((x) => Math.round(x * 100)).join(" / ")} %)</option>
+            ))}
+          </select>
+        </label>
+        <label className="flex items-center gap-2 self-end pb-2">
+          <input type="checkbox" {...register("retest")} /> Retest this week
+        </label>
+      </div>
+      <button type="submit" className="btn" disabled={formState.isSubmitting}>{formState.isSubmitting ? "Saving…" : "Save the week"}</button>
+    </form>
+  );
+}
