@@ -3,8 +3,12 @@
  * days, so rules are expanded as floating dates (no time of day, no zone): a weekly Tuesday stays a Tuesday across a
  * daylight-saving change in the athlete's time zone.
  */
-import { RRule, Weekday } from "rrule";
+import * as rruleModule from "rrule";
+import type { RRule as RRuleType, Weekday } from "rrule";
 import { z } from "zod";
+
+// Bundlers load rrule's ES build; Node's own loader (the bench, scripts) its CommonJS build, whose names sit on "default".
+const RRule: typeof RRuleType = "RRule" in rruleModule && rruleModule.RRule ? rruleModule.RRule : (rruleModule as unknown as { default: typeof rruleModule }).default.RRule;
 
 export const WEEKDAYS = ["MO", "TU", "WE", "TH", "FR", "SA", "SU"] as const;
 const RRULE_DAYS: Weekday[] = [RRule.MO, RRule.TU, RRule.WE, RRule.TH, RRule.FR, RRule.SA, RRule.SU];
@@ -27,7 +31,7 @@ function utcDate(iso: string): Date {
   return new Date(Date.UTC(y, m - 1, d));
 }
 
-export function ruleFor(startDate: string, repeat: Repeat): RRule {
+export function ruleFor(startDate: string, repeat: Repeat): RRuleType {
   return new RRule({
     freq: RRule.WEEKLY,
     dtstart: utcDate(startDate),

@@ -49,12 +49,25 @@ function minutesOf(sessions: WeekSession[]): Shares {
   return m;
 }
 
+/** The sessions of an ISO week, by its Monday. */
+type WeekOf = (weekStart: string) => WeekSession[];
+
+/** Groups sessions by ISO week once, so that each week's checks read only their own sessions. */
+function indexByWeek(sessions: WeekSession[]): WeekOf {
+  const index = new Map<string, WeekSession[]>();
+  for (const s of sessions) {
+    const w = mondayOf(s.date);
+    const list = index.get(w);
+    if (list) list.push(s);
+    else index.set(w, [s]);
+  }
+  return (w) => index.get(w) ?? [];
+}
+
 /** Total minutes of the four weeks before a week, oldest first. */
-function previousTotals(weekStart: string, sessions: WeekSession[]): number[] {
+function previousTotals(weekStart: string, weekOf: WeekOf): number[] {
   return [4, 3, 2, 1].map((k) => {
-    const ws = addDays(weekStart, -7 * k);
-    const we = addDays(ws, 7);
-    const m = minutesOf(sessions.filter((s) => s.date >= ws && s.date < we));
+    const m = minutesOf(weekOf(addDays(weekStart, -7 * k)));
     return m[0] + m[1] + m[2];
   });
 }
@@ -81,15 +94,21 @@ export interface SummariseInput {
   withFix?: boolean;
 }
 
+const seasonWeekIndex = new WeakMap<SeasonWeekInfo[], Map<string, SeasonWeekInfo>>();
+
 function weekBudget(weekStart: string, input: SummariseInput): { budget: Budget; block: string | null; retest: boolean } {
-  const sw = input.seasonWeeks?.find((w) => w.weekStart === weekStart);
+  let byStart = input.seasonWeeks ? seasonWeekIndex.get(input.seasonWeeks) : undefined;
+  if (input.seasonWeeks && !byStart) {
+    byStart = new Map(input.seasonWeeks.map((w) => [w.weekStart, w]));
+    seasonWeekIndex.set(input.seasonWeeks, byStart);
+  }
+  const sw = byStart?.get(weekStart);
   const preset = sw?.budget ?? input.defaultBudget ?? "polarised";
   return { budget: BUDGET_PRESETS[preset], block: sw?.block ?? null, retest: sw?.retest ?? false };
 }
 
-function check(weekStart: string, sessions: WeekSession[], input: SummariseInput, previousTotals: number[], retestOverdue: boolean) {
-  const weekEnd = addDays(weekStart, 7);
-  const inWeek = sessions.filter((s) => s.date >= weekStart && s.date < weekEnd);
+function check(weekStart: string, weekOf: WeekOf, input: SummariseInput, previousTotals: number[], retestOverdue: boolean) {
+  const inWeek = weekOf(weekStart);
   const planned = minutesOf(inWeek);
   const { budget, block } = weekBudget(weekStart, input);
   // The easy-day rule applies only to weeks with training on most days; a week of two sessions has easy days by itself.
@@ -110,11 +129,12 @@ export function summariseWeeks(input: SummariseInput): WeekSummary[] {
   const first = mondayOf(input.from);
   const last = mondayOf(input.to);
   const out: WeekSummary[] = [];
+  const weekOf = indexByWeek(input.sessions);
   for (let w = first; w <= last; w = addDays(w, 7)) {
     const next = addDays(w, 7);
-    const previous = previousTotals(w, input.sessions);
+    const previous = previousTotals(w, weekOf);
     const overdue = isRetestOverdue(w, input) && w <= (input.today ?? new Date().toISOString().slice(0, 10));
-    const { inWeek, planned, budget, block, result } = check(w, input.sessions, input, previous, overdue);
+    const { inWeek, planned, budget, block, result } = check(w, weekOf, input, previous, overdue);
     const budgetBreaches = result.breaches.filter((b) => b.code !== "retest_overdue");
     out.push({
       weekStart: w,
@@ -124,7 +144,7 @@ export function summariseWeeks(input: SummariseInput): WeekSummary[] {
       overBudget: budgetBreaches.length > 0,
       flags: result.breaches.map((b) => ({ code: b.code, message: b.message })),
       breaches: result.breaches,
-      fix: input.withFix !== false && budgetBreaches.some((b) => b.code !== "volume_ramp") ? proposeFix(w, inWeek, input) : null,
+      fix: input.withFix !== false && budgetBreaches.some((b) => b.code !== "volume_ramp") ? proposeFix(w, inWeek, input, weekOf) : null,
       block,
     });
   }
@@ -135,18 +155,25 @@ export function summariseWeeks(input: SummariseInput): WeekSummary[] {
  * A one-click fix: move the session with the most zone 3 (or zone 2) minutes to the same weekday of a neighbouring week
  * where it fits the budget, preferring the next week.
  */
-export function proposeFix(weekStart: string, inWeek: WeekSession[], input: SummariseInput): Fix | null {
+export function proposeFix(weekStart: string, inWeek: WeekSession[], input: SummariseInput, weekOf: WeekOf = indexByWeek(input.sessions)): Fix | null {
   const candidates = inWeek.filter((s) => s.kind !== "retest").sort((a, b) => b.minutesByZone[2] + b.minutesByZone[1] - (a.minutesByZone[2] + a.minutesByZone[1]));
   // The share and easy-day breaches are what a move can cure; a volume ramp needs shorter sessions instead.
-  const breachesOf = (week: string, sessions: WeekSession[]) =>
-    check(week, sessions, input, previousTotals(week, sessions), false).result.breaches.filter((b) => b.code !== "retest_overdue" && b.code !== "volume_ramp");
+  const breachesOf = (week: string, of: WeekOf) =>
+    check(week, of, input, previousTotals(week, of), false).result.breaches.filter((b) => b.code !== "retest_overdue" && b.code !== "volume_ramp");
   for (const s of candidates) {
     if (s.minutesByZone[2] + s.minutesByZone[1] === 0) break;
     for (const shift of [7, -7, 14]) {
       const toDate = addDays(s.date, shift);
       if (toDate < (input.today ?? "0000-00-00")) continue;
-      const moved = input.sessions.map((x) => (x.id === s.id ? { ...x, date: toDate } : x));
       const targetWeek = mondayOf(toDate);
+      const sourceWeek = mondayOf(s.date);
+      // The plan with this one session moved: only its old and new weeks differ.
+      const moved: WeekOf = (w) => {
+        let list = weekOf(w);
+        if (w === sourceWeek) list = list.filter((x) => x.id !== s.id);
+        if (w === targetWeek) list = [...list, { ...s, date: toDate }];
+        return list;
+      };
       // Both weeks, and the week after the target (its ramp), must then keep their budget.
       if (breachesOf(weekStart, moved).length === 0 && breachesOf(targetWeek, moved).length === 0) {
         return { action: "move", sessionId: s.id, title: s.title, toDate, message: `Move "${s.title}" to ${toDate}: both weeks then keep their budget.` };
