@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { SPORTS } from "@/features/athletes/schemas";
-import { repeatSchema } from "./lib/recurrence";
+import { repeatSchema } from "./lib/repeat";
 import { structureSchema } from "./lib/session";
 
 export const isoDate = z

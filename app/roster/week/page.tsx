@@ -52,10 +52,10 @@ export default async function SquadWeekPage({ searchParams }: { searchParams: Pr
         <p className="card text-ink-soft">No athletes in this squad yet. Invite them from the roster.</p>
       ) : (
         <div className="overflow-x-auto">
-          <table className="w-full min-w-[56rem] border-separate border-spacing-y-2 text-sm">
+          <table className="w-full min-w-[56rem] table-fixed border-separate border-spacing-y-2 text-sm">
             <thead>
               <tr className="text-left text-ink-soft">
-                <th scope="col" className="w-40 px-2">Athlete</th>
+                <th scope="col" className="w-32 px-2">Athlete</th>
                 {days.map((d, i) => (
                   <th key={d} scope="col" className="px-2 font-semibold"><span className="block">{DAY_NAMES[i]}</span><span className="num text-xs font-normal">{d.slice(5)}</span></th>
                 ))}

@@ -1,4 +1,5 @@
 "use client";
+import dynamic from "next/dynamic";
 import dayGridPlugin from "@fullcalendar/daygrid";
 import interactionPlugin, { Draggable } from "@fullcalendar/interaction";
 import FullCalendar from "@fullcalendar/react";
@@ -13,8 +14,11 @@ import { BUDGET_PRESETS, type BudgetPreset } from "../lib/budget";
 import { mondayOf } from "../lib/season";
 import { addDays, summariseWeeks, type SeasonWeekInfo, type WeekSession, type WeekSummary } from "../lib/weeks";
 import { BudgetBand } from "./BudgetBand";
-import { SessionEditor } from "./SessionEditor";
-import { WEEKDAYS, type Repeat } from "../lib/recurrence";
+import type { Repeat } from "../lib/repeat";
+import { WEEKDAYS } from "../lib/weekdays";
+
+// The editor brings the form and validation libraries; it loads when a coach first opens it, not with the calendar.
+const SessionEditor = dynamic(() => import("./SessionEditor").then((m) => m.SessionEditor), { ssr: false, loading: () => <p role="status" className="text-sm text-ink-soft">Opening the editor…</p> });
 
 export interface TrayTemplate {
   id: string;
@@ -47,6 +51,11 @@ export function PlanCalendar({ athleteId, templates, initialDate, canEdit }: { a
   const move = useMoveSession(athleteId, range.from, range.to);
   const create = useCreateSession(athleteId);
   const remove = useDeleteSession(athleteId);
+
+  // A week chosen on the season ribbon arrives as a new initial date while the calendar stays mounted.
+  useEffect(() => {
+    calendarRef.current?.getApi().gotoDate(initialDate);
+  }, [initialDate]);
 
   // An external drag can end anywhere; the preview ends with it.
   useEffect(() => {

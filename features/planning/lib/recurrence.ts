@@ -5,26 +5,14 @@
  */
 import * as rruleModule from "rrule";
 import type { RRule as RRuleType, Weekday } from "rrule";
-import { z } from "zod";
+import { MAX_OCCURRENCES, repeatSchema, type Repeat } from "./repeat";
+import { WEEKDAYS } from "./weekdays";
 
 // Bundlers load rrule's ES build; Node's own loader (the bench, scripts) its CommonJS build, whose names sit on "default".
 const RRule: typeof RRuleType = "RRule" in rruleModule && rruleModule.RRule ? rruleModule.RRule : (rruleModule as unknown as { default: typeof rruleModule }).default.RRule;
 
-export const WEEKDAYS = ["MO", "TU", "WE", "TH", "FR", "SA", "SU"] as const;
+export { MAX_OCCURRENCES, repeatSchema, WEEKDAYS, type Repeat };
 const RRULE_DAYS: Weekday[] = [RRule.MO, RRule.TU, RRule.WE, RRule.TH, RRule.FR, RRule.SA, RRule.SU];
-export const MAX_OCCURRENCES = 104;
-
-const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "Dates are YYYY-MM-DD.").refine((d) => !Number.isNaN(Date.parse(`${d}T00:00:00Z`)), "Enter a real calendar date.");
-
-export const repeatSchema = z
-  .object({
-    byWeekday: z.array(z.enum(WEEKDAYS, { error: "Weekdays are MO, TU, WE, TH, FR, SA, SU." })).min(1, "Choose at least one weekday.").max(7),
-    until: isoDate.optional(),
-    count: z.number().int().min(1, "Repeat at least once.").max(MAX_OCCURRENCES, `At most ${MAX_OCCURRENCES} occurrences.`).optional(),
-  })
-  .refine((r) => (r.until === undefined) !== (r.count === undefined), { message: "Give either an end date or a number of occurrences." });
-
-export type Repeat = z.infer<typeof repeatSchema>;
 
 function utcDate(iso: string): Date {
   const [y, m, d] = iso.split("-").map(Number) as [number, number, number];

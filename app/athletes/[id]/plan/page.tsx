@@ -6,7 +6,7 @@ import { requirePageActor } from "@/features/auth/server/current";
 import { getAthleteProfile } from "@/features/athletes/server/profile";
 import { HttpError } from "@/features/platform/server/http";
 import { PlanCalendar } from "@/features/planning/components/PlanCalendar";
-import { SeasonForm } from "@/features/planning/components/SeasonForm";
+import { SeasonFormLoader } from "@/features/planning/components/SeasonFormLoader";
 import { SeasonRibbon } from "@/features/planning/components/SeasonRibbon";
 import { SeasonWeekEditor } from "@/features/planning/components/SeasonWeekEditor";
 import { mondayOf, type SeasonWeek } from "@/features/planning/lib/season";
@@ -59,7 +59,7 @@ export default async function PlanPage({ params, searchParams }: { params: Promi
         <section className="card space-y-3" aria-labelledby="season-h">
           <h2 id="season-h" className="font-bold">No season yet</h2>
           <p className="text-sm text-ink-soft">Generate a season toward the athlete&apos;s event: blocks, loading and unloading weeks, volume targets, intensity budgets and retests. Everything can be edited afterwards.</p>
-          <SeasonForm athleteId={id} today={today} sport={data.profile.sports[0] ?? "running"} />
+          <SeasonFormLoader athleteId={id} today={today} sport={data.profile.sports[0] ?? "running"} />
         </section>
       ) : (
         <p className="text-ink-soft">No season planned yet.</p>
