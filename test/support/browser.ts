@@ -1,7 +1,7 @@
 /** Shared browser-test helpers: Debian's chromium through playwright-core, and a page that records every problem. */
 import fs from "node:fs";
 import path from "node:path";
-import { chromium, type Browser, type Page, type Request } from "playwright-core";
+import { chromium, type Browser, type Page } from "playwright-core";
 
 export const BASE = process.env.TIDEMARK_BASE_URL ?? "";
 export const SHOTS = path.resolve("test/.artifacts/screenshots");
@@ -26,18 +26,20 @@ export async function newPage(browser: Browser): Promise<{ page: Page; problems:
     if (r.status() >= 400) problems.push(`HTTP ${r.status()}: ${r.request().method()} ${r.url()}`);
   });
   page.on("pageerror", (e) => problems.push(`page error: ${e.message}`));
-  // A request the browser itself cancels because the page moved on (a new document, or Next.js dropping a route prefetch) is
-  // not a failure; every other failed request is. Each request remembers how many documents the page had begun to load.
-  let documents = 0;
-  const startedAt = new WeakMap<Request, number>();
+  // A request the browser itself cancels because the page is moving on (a new document is loading, or Next.js drops a
+  // route prefetch) is not a failure; every other failed request is. "Moving on" lasts from the main frame's navigation
+  // request until the new document has loaded.
+  let navigating = false;
   page.on("request", (r) => {
-    if (r.isNavigationRequest() && r.frame() === page.mainFrame()) documents += 1;
-    startedAt.set(r, documents);
+    if (r.isNavigationRequest() && r.frame() === page.mainFrame()) navigating = true;
+  });
+  page.on("load", () => {
+    navigating = false;
   });
   page.on("requestfailed", (r) => {
     if (r.failure()?.errorText === "net::ERR_ABORTED") {
       if (new URL(r.url()).searchParams.has("_rsc")) return;
-      if (!r.isNavigationRequest() && (startedAt.get(r) ?? documents) < documents) return;
+      if (navigating && !(r.isNavigationRequest() && r.frame() === page.mainFrame())) return;
     }
     problems.push(`request failed: ${r.url()} ${r.failure()?.errorText}`);
   });
