@@ -34,7 +34,7 @@ export default async function RootLayout({ children }: { children: ReactNode }) 
                 {isCoach ? <Link href="/templates" className="text-sm font-semibold hover:text-tide">Templates</Link> : null}
                 {isAthlete ? <Link href="/today" className="text-sm font-semibold hover:text-tide">Today</Link> : null}
                 {isAthlete ? <Link href="/zones" className="text-sm font-semibold hover:text-tide">My zones</Link> : null}
-                {isAthlete ? <Link href="/settings" className="text-sm font-semibold hover:text-tide">Settings</Link> : null}
+                <Link href="/settings" className="text-sm font-semibold hover:text-tide">Settings</Link>
                 <span className="ml-auto flex items-center gap-4 text-sm text-ink-soft">
                   <span>{actor.name}</span>
                   <SignOutButton />

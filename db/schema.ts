@@ -199,10 +199,35 @@ export const outbox = pgTable(
     text: text("text_body").notNull(),
     html: text("html_body").notNull(),
     meta: jsonb("meta").$type<Record<string, unknown>>().notNull().default({}),
+    /** One message per kind, recipient and date: a second attempt to queue the same key writes nothing. */
+    idempotencyKey: text("idempotency_key").unique(),
+    /** The recipient's account, when there is one (reminders, digests). */
+    userId: text("user_id").references(() => user.id, { onDelete: "set null" }),
+    /** Extra headers, e.g. List-Unsubscribe. */
+    headers: jsonb("headers").$type<Record<string, string>>().notNull().default({}),
+    status: text("status").$type<"pending" | "sent" | "failed">().notNull().default("pending"),
+    attempts: integer("attempts").notNull().default(0),
+    nextAttemptAt: timestamp("next_attempt_at", { withTimezone: true }).notNull().defaultNow(),
+    lastError: text("last_error"),
+    providerId: text("provider_id"),
+    sentAt: timestamp("sent_at", { withTimezone: true }),
     createdAt: createdAt(),
   },
-  (t) => [index("outbox_to_idx").on(t.to)],
+  (t) => [index("outbox_to_idx").on(t.to), index("outbox_pending_idx").on(t.status, t.nextAttemptAt)],
 );
+
+/** Per-account e-mail and feed settings that are not part of an athlete profile (coaches have no profile). */
+export const notificationSetting = pgTable("notification_setting", {
+  userId: text("user_id")
+    .primaryKey()
+    .references(() => user.id, { onDelete: "cascade" }),
+  /** IANA time zone for coach messages (athletes use their profile's). */
+  timeZone: text("time_zone").notNull().default("UTC"),
+  coachDigest: boolean("coach_digest").notNull().default(true),
+  /** Secret part of the private calendar-feed address; null when the feed is off. */
+  calendarToken: text("calendar_token").unique(),
+  updatedAt: updatedAt(),
+});
 
 // ---------------------------------------------------------------------------------------------------------------------
 // Screening, tests, stored files and zone sets

@@ -24,3 +24,20 @@ export function intFromEnv(name: string, fallback: number): number {
   if (!Number.isInteger(n) || n <= 0 || n > 65535) throw new Error(`${name} must be a port number, got "${raw}".`);
   return n;
 }
+
+/** The local installation's database, as `npm start` runs it (PGPORT, default 54329), unless DATABASE_URL is set. */
+export function databaseUrlFromEnvOrLocal(): string {
+  return process.env.DATABASE_URL ?? `postgres://postgres@127.0.0.1:${intFromEnv("PGPORT", 54329)}/tidemark`;
+}
+
+/** What the app, the worker and the operator commands need to send e-mail locally: the fake of the e-mail API. */
+export function localMailEnv(): Record<string, string> {
+  const fakePort = intFromEnv("FAKE_EMAIL_PORT", 4010);
+  return {
+    BETTER_AUTH_SECRET: localAuthSecret(),
+    BETTER_AUTH_URL: process.env.BETTER_AUTH_URL ?? `http://127.0.0.1:${intFromEnv("PORT", 3000)}`,
+    // Without a real API key the SDK talks to the local fake; with RESEND_API_KEY and no RESEND_BASE_URL, to the service.
+    ...(process.env.RESEND_API_KEY && !process.env.RESEND_BASE_URL ? {} : { RESEND_BASE_URL: process.env.RESEND_BASE_URL ?? `http://127.0.0.1:${fakePort}` }),
+    SMTP_PORT: process.env.SMTP_PORT ?? String(intFromEnv("FAKE_SMTP_PORT", 2525)),
+  };
+}

@@ -10,7 +10,9 @@ import { applyMigrations } from "../db/migrate";
 import { DEMO_PASSWORD, DEMO_PEOPLE, seedDemoIfEmpty } from "../db/seed";
 import { startAppServer } from "./app-server";
 import { ensureBuild } from "./build";
-import { DATA_DIR, intFromEnv, localAuthSecret } from "./env";
+import { spawn } from "node:child_process";
+import { DATA_DIR, intFromEnv, localMailEnv } from "./env";
+import { startFakeEmail, type FakeEmail } from "./fake-email";
 import { createDatabase, startCluster, type Cluster } from "./postgres";
 
 const dev = process.argv.includes("--dev");
@@ -73,15 +75,20 @@ async function main() {
 
   let cluster: Cluster | undefined;
   let app: ChildProcess | undefined;
+  let worker: ChildProcess | undefined;
+  let fake: FakeEmail | undefined;
   let stopping = false;
   const stop = async (code: number) => {
     if (stopping) return;
     stopping = true;
     log("Stopping…");
-    if (app && app.exitCode === null) {
-      app.kill("SIGTERM");
-      await new Promise((r) => app!.once("exit", r));
+    for (const child of [app, worker]) {
+      if (child && child.exitCode === null) {
+        child.kill("SIGTERM");
+        await new Promise((r) => child.once("exit", r));
+      }
     }
+    await fake?.stop();
     if (cluster) {
       await cluster.stop().catch((e) => console.error(String(e)));
       log("PostgreSQL stopped.");
@@ -104,12 +111,24 @@ async function main() {
     const origin = `http://127.0.0.1:${appPort}`;
     const env: NodeJS.ProcessEnv = {
       ...process.env,
+      ...localMailEnv(),
       DATABASE_URL: databaseUrl,
-      BETTER_AUTH_SECRET: localAuthSecret(),
       BETTER_AUTH_URL: origin,
       TIDEMARK_LOCAL_OUTBOX: "1",
       NEXT_TELEMETRY_DISABLED: "1",
     };
+    if (env.RESEND_BASE_URL?.startsWith("http://127.0.0.1:")) {
+      fake = await startFakeEmail({ port: intFromEnv("FAKE_EMAIL_PORT", 4010), smtpPort: intFromEnv("FAKE_SMTP_PORT", 2525), quiet: true });
+      log(`Local e-mail fake on ${fake.url} (SMTP on 127.0.0.1:${fake.smtpPort}); what was sent: ${fake.url}/outbox`);
+    }
+    log("Starting the background worker (reminders, digests, e-mail delivery)…");
+    worker = spawn(process.execPath, ["--import", "tsx", "--import", "./scripts/register-server.mjs", "scripts/worker.ts"], { cwd: path.resolve(import.meta.dirname, ".."), env, stdio: "inherit" });
+    worker.on("exit", (code) => {
+      if (!stopping) {
+        console.error(`The background worker exited (code ${code}).`);
+        void stop(1);
+      }
+    });
     if (!dev) ensureBuild(".next", { ...env, NODE_ENV: "production" }, log);
     log(dev ? "Starting the development server…" : "Starting the app server…");
     const server = await startAppServer({ mode: dev ? "dev" : "start", port: appPort, env });
@@ -124,7 +143,7 @@ async function main() {
     log(`Tidemark is running at ${origin}`);
     log(`Demo sign-ins (password "${DEMO_PASSWORD}"):`);
     for (const p of DEMO_PEOPLE) log(`  ${p.email.padEnd(28)} ${p.role.replace("_", " ")}`);
-    log(`Messages the app sends appear at ${origin}/outbox. Press Ctrl-C to stop.`);
+    log(`Messages the app queues appear at ${origin}/outbox${fake ? `; what the e-mail fake received at ${fake.url}/outbox` : ""}. Press Ctrl-C to stop.`);
   } catch (e) {
     console.error(e instanceof Error ? e.message : String(e));
     await stop(1);

@@ -1,31 +1,43 @@
 import { requirePageActor } from "@/features/auth/server/current";
 import { getAthleteProfile } from "@/features/athletes/server/profile";
 import { ProfileForm } from "@/features/athletes/components/ProfileForm";
+import { CalendarFeedSettings, CoachDigestSettings } from "@/features/messages/components/EmailSettings";
+import { getNotificationSettings } from "@/features/messages/server/preferences";
 import { FormNotice } from "@/features/platform/components/form-bits";
+import { publicOrigin } from "@/features/platform/server/origin";
 
 export const metadata = { title: "Settings" };
 
 export default async function SettingsPage({ searchParams }: { searchParams: Promise<{ welcome?: string }> }) {
   const actor = await requirePageActor("/settings");
   const { welcome } = await searchParams;
-  if (!actor.memberships.some((m) => m.role === "athlete")) {
-    return (
-      <div className="mx-auto max-w-lg card">
-        <h1 className="text-xl font-bold">Settings</h1>
-        <p className="mt-2">Profile and reminder settings belong to athletes. Your account is a coach account.</p>
-      </div>
-    );
-  }
-  const { profile } = await getAthleteProfile(actor, actor.userId);
+  const isAthlete = actor.memberships.some((m) => m.role === "athlete");
+  const isCoach = actor.memberships.some((m) => m.role !== "athlete");
+  const [settings, profile] = await Promise.all([getNotificationSettings(actor), isAthlete ? getAthleteProfile(actor, actor.userId).then((p) => p.profile) : Promise.resolve(null)]);
   return (
     <div className="mx-auto max-w-2xl space-y-4">
-      <h1 className="text-2xl font-bold">Your profile and reminders</h1>
-      {welcome ? (
-        <FormNotice>Welcome to your squad. Set your time zone and when you want session reminders, then save.</FormNotice>
+      <h1 className="text-2xl font-bold">Settings</h1>
+      {welcome ? <FormNotice>Welcome to your squad. Set your time zone and when you want session reminders, then save.</FormNotice> : null}
+      {profile ? (
+        <section className="card space-y-2" aria-labelledby="profile-h">
+          <h2 id="profile-h" className="text-lg font-bold">Your profile and reminders</h2>
+          <p className="text-sm text-ink-soft">Session and retest reminders come by e-mail at the time you choose here, in your time zone.</p>
+          <ProfileForm athleteId={actor.userId} initial={profile} isSelf />
+        </section>
       ) : null}
-      <div className="card">
-        <ProfileForm athleteId={actor.userId} initial={profile} isSelf />
-      </div>
+      {isCoach ? (
+        <section className="card space-y-2" aria-labelledby="digest-h">
+          <h2 id="digest-h" className="text-lg font-bold">Coach e-mail</h2>
+          <CoachDigestSettings initial={{ timeZone: settings.timeZone, coachDigest: settings.coachDigest }} />
+        </section>
+      ) : null}
+      {isAthlete ? (
+        <section className="card space-y-2" aria-labelledby="feed-h">
+          <h2 id="feed-h" className="text-lg font-bold">Calendar feed</h2>
+          <CalendarFeedSettings initialUrl={settings.calendarToken ? `${publicOrigin()}/api/calendar/${settings.calendarToken}.ics` : null} />
+        </section>
+      ) : null}
+      {!isAthlete && !isCoach ? <p className="card">Join a squad to set up reminders and e-mail.</p> : null}
     </div>
   );
 }

@@ -11,6 +11,9 @@ export const SPORT_LABELS: Record<(typeof SPORTS)[number], string> = {
   walking: "Walking",
 };
 
+/** An IANA time zone name that Node's Intl knows. */
+export const timeZoneSchema = z.string({ error: "Choose a time zone." }).max(64).refine((tz) => isTimeZone(tz), "Choose a time zone from the list (IANA name such as Europe/Oslo).");
+
 function isTimeZone(tz: string): boolean {
   try {
     new Intl.DateTimeFormat("en", { timeZone: tz });

@@ -42,6 +42,11 @@ export async function findActor(headers: Headers): Promise<SignedInActor | null>
   };
 }
 
+/** An account as an actor, for background jobs that act with that account's rights (e.g. a coach's weekly digest). */
+export async function actorForUser(userId: string): Promise<Actor> {
+  return { userId, isAdmin: false, memberships: await membershipsOf(userId) };
+}
+
 /** The signed-in user; 401 otherwise. Every route handler calls this (or findActor) first. */
 export async function requireActor(headers: Headers): Promise<SignedInActor> {
   const actor = await findActor(headers);

@@ -1,0 +1,3 @@
+import { register } from "node:module";
+
+register("./server-only-hooks.mjs", import.meta.url);
