@@ -37,7 +37,7 @@ const esc = (s: string) => s.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&
 function page(title: string, body: string): string {
   return `<!DOCTYPE html><html lang="en"><head><meta charset="utf-8"><title>${esc(title)} · local e-mail outbox</title>
 <style>body{font-family:system-ui,sans-serif;margin:0;background:#f7f4ee;color:#1f2a33;line-height:1.5}main{max-width:60rem;margin:0 auto;padding:1.5rem}
-table{width:100%;border-collapse:collapse;background:#fff}td,th{padding:.4rem .6rem;border-bottom:1px solid #ddd6c9;text-align:left;font-variant-numeric:tabular-nums}
+table{width:100%;border-collapse:collapse;background:#fff}td,th{overflow-wrap:anywhere;padding:.4rem .6rem;border-bottom:1px solid #ddd6c9;text-align:left;font-variant-numeric:tabular-nums}
 a{color:#0f5e63}pre{white-space:pre-wrap;background:#fff;padding:1rem;border:1px solid #ddd6c9}iframe{width:100%;height:32rem;border:1px solid #ddd6c9;background:#fff}
 .note{color:#5b6770;font-size:.9rem}</style></head><body><main>${body}</main></body></html>`;
 }
@@ -128,6 +128,7 @@ export async function startFakeEmail(opts: { port?: number; smtpPort?: number; q
         byKey.clear();
         return json(res, 200, { ok: true });
       }
+      if (path === "/favicon.ico") return void res.writeHead(204).end();
       if (req.method === "GET" && path === "/outbox.json") {
         return json(res, 200, [...messages].reverse().map((m) => ({ id: m.id, to: m.to, subject: m.subject, kind: m.kind, createdAt: m.createdAt })));
       }

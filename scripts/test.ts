@@ -11,6 +11,7 @@ import { startAppServer, type AppServer } from "./app-server";
 import { ensureBuild } from "./build";
 import { ROOT } from "./env";
 import { createDatabase, freePort, startThrowawayCluster, type Cluster } from "./postgres";
+import { startFakeEmail, type FakeEmail } from "./fake-email";
 
 const CHROMIUM = process.env.CHROMIUM_PATH ?? "/usr/bin/chromium";
 const TEST_SECRET = "tidemark-test-secret-not-for-production-0123456789";
@@ -44,8 +45,10 @@ async function main(): Promise<number> {
   const extra = process.argv.slice(2);
   let cluster: Cluster | undefined;
   let app: AppServer | undefined;
+  let fake: FakeEmail | undefined;
   const cleanup = async () => {
     await app?.stop().catch(() => {});
+    await fake?.stop().catch(() => {});
     await cluster?.stop().catch((e) => console.error(String(e)));
   };
   process.on("SIGINT", () => void cleanup().then(() => process.exit(130)));
@@ -57,8 +60,13 @@ async function main(): Promise<number> {
     await createDatabase(cluster, "tidemark_test");
     const integrationUrl = cluster.url("tidemark_test");
     await applyMigrations(integrationUrl);
+    // The local fake of the e-mail API, on a free port unless FAKE_EMAIL_PORT is set (a running `npm start` holds 4010).
+    fake = await startFakeEmail({ port: process.env.FAKE_EMAIL_PORT ? Number(process.env.FAKE_EMAIL_PORT) : 0, smtpPort: 0, quiet: true });
+    log(`E-mail fake on ${fake.url}`);
     const baseEnv: NodeJS.ProcessEnv = {
       ...process.env,
+      RESEND_BASE_URL: fake.url,
+      FAKE_EMAIL_URL: fake.url,
       NODE_ENV: "test",
       BETTER_AUTH_SECRET: TEST_SECRET,
       NEXT_TELEMETRY_DISABLED: "1",

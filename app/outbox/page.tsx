@@ -5,6 +5,8 @@ import { getOutboxMessage, listOutbox, localOutboxEnabled } from "@/features/mes
 export const metadata = { title: "Outbox" };
 export const dynamic = "force-dynamic";
 
+const STATUS = { pending: "waiting to be sent", sent: "sent", failed: "refused by the e-mail service" } as const;
+
 const formatter = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" });
 
 export default async function OutboxPage({ searchParams }: { searchParams: Promise<{ id?: string }> }) {
@@ -17,7 +19,8 @@ export default async function OutboxPage({ searchParams }: { searchParams: Promi
       <div>
         <h1 className="text-2xl font-bold">Outbox</h1>
         <p className="text-sm text-ink-soft">
-          Messages Tidemark sent on this local installation, newest first. Nothing here left the machine.
+          Messages Tidemark queued on this local installation, newest first, and whether the worker has sent them yet. They go
+          to the local e-mail fake (its own outbox is at port {process.env.FAKE_EMAIL_PORT ?? "4010"}); nothing leaves the machine.
         </p>
       </div>
       <div className="grid gap-6 lg:grid-cols-[2fr_3fr]">
@@ -30,7 +33,7 @@ export default async function OutboxPage({ searchParams }: { searchParams: Promi
                 <li key={m.id} className="py-2">
                   <Link href={`/outbox?id=${m.id}`} className="font-semibold text-tide hover:underline">{m.subject}</Link>
                   <p className="text-xs text-ink-soft">
-                    to {m.to} · {m.kind.replace("_", " ")} · <time dateTime={m.createdAt.toISOString()}>{formatter.format(m.createdAt)} UTC</time>
+                    to {m.to} · {m.kind.replaceAll("_", " ")} · <time dateTime={m.createdAt.toISOString()}>{formatter.format(m.createdAt)} UTC</time> · {STATUS[m.status]}
                   </p>
                 </li>
               ))}
@@ -41,7 +44,7 @@ export default async function OutboxPage({ searchParams }: { searchParams: Promi
           {message ? (
             <article className="space-y-3">
               <h2 className="text-lg font-bold">{message.subject}</h2>
-              <p className="text-sm text-ink-soft">To {message.to}</p>
+              <p className="text-sm text-ink-soft">To {message.to} · {STATUS[message.status]}{message.lastError ? ` (last attempt: ${message.lastError})` : ""}</p>
               <pre className="whitespace-pre-wrap font-sans text-sm" data-testid="outbox-text">{message.text}</pre>
               {typeof message.meta.url === "string" ? (
                 <a href={message.meta.url} className="btn-quiet">Open the link in this message</a>

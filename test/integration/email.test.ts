@@ -150,4 +150,25 @@ describe("retest reminders, the coach digest and the calendar feed", () => {
     expect((await get(file2)).status).toBe(404);
     expect(file2.replace(".ics", "")).toMatch(/^[A-Za-z0-9_-]{43}$/); // 32 random bytes
   });
+
+  it("the SMTP alternative: with TIDEMARK_EMAIL_TRANSPORT=smtp the same outbox message goes through nodemailer to the catcher", async () => {
+    process.env.TIDEMARK_EMAIL_TRANSPORT = "smtp";
+    process.env.SMTP_HOST = "127.0.0.1";
+    process.env.SMTP_PORT = String(fake.smtpPort);
+    try {
+      await query(`update athlete_profile set remind_retests = true where user_id = $1`, [s.athleteA.id]);
+      expect((await plan("2027-03-10", "Retest: threshold test", "retest")).status).toBe(201);
+      // A week before the new retest, and the February retest is now overdue (no test since): two reminders, once each.
+      expect(await queueRetestReminders(new Date("2027-03-03T06:00:00Z"))).toBe(2);
+      expect(await queueRetestReminders(new Date("2027-03-03T07:00:00Z"))).toBe(0);
+      expect(await deliverPending(new Date("2027-03-03T06:00:00Z"))).toMatchObject({ sent: 2 });
+      const viaSmtp = fake.messages.filter((m) => m.via === "smtp").sort((a, b) => a.subject.localeCompare(b.subject));
+      expect(viaSmtp.map((m) => m.subject)).toEqual(["Retest in a week: Wednesday 10 March 2027", "Your retest of Wednesday 10 February 2027 is still to do"]);
+      expect(viaSmtp[0]!.kind).toBe("retest_reminder");
+      expect(viaSmtp[0]!.text).toMatch(/readiness questions/);
+      expect(viaSmtp[0]!.headers["list-unsubscribe"] ?? viaSmtp[0]!.headers["List-Unsubscribe"]).toMatch(/\/api\/unsubscribe\//);
+    } finally {
+      delete process.env.TIDEMARK_EMAIL_TRANSPORT;
+    }
+  });
 });

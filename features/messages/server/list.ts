@@ -14,6 +14,7 @@ export async function listOutbox(limit = 100) {
       kind: schema.outbox.kind,
       to: schema.outbox.to,
       subject: schema.outbox.subject,
+      status: schema.outbox.status,
       createdAt: schema.outbox.createdAt,
     })
     .from(schema.outbox)
