@@ -485,3 +485,21 @@ export const activityFile = pgTable(
   },
   (t) => [index("activity_file_log_idx").on(t.logId), index("activity_file_athlete_idx").on(t.athleteId)],
 );
+
+/**
+ * Each athlete's computed roster row, kept between requests so that a 300-athlete roster is one read. Database triggers
+ * bump `generation` whenever a row the roster reads changes (plan, logs, tests, zone sets, seasons, profile, name); a
+ * cached row counts only while its `computedGeneration` equals `generation` and it was computed for the athlete's
+ * current local day.
+ */
+export const rosterCache = pgTable("roster_cache", {
+  athleteId: text("athlete_id")
+    .primaryKey()
+    .references(() => user.id, { onDelete: "cascade" }),
+  generation: bigint("generation", { mode: "number" }).notNull().default(0),
+  computedGeneration: bigint("computed_generation", { mode: "number" }),
+  computedFor: text("computed_for"),
+  row: jsonb("row").$type<Record<string, unknown>>(),
+  computedAt: timestamp("computed_at", { withTimezone: true }),
+});
+

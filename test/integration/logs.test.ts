@@ -184,4 +184,23 @@ describe("load and roster", () => {
     expect((await s.athleteA.browser.call(rosterRoute, "GET", "/api/roster", { query: `?squad=${s.squadId}` })).status).toBe(403);
     expect((await other.coach.browser.call(rosterRoute, "GET", "/api/roster", { query: `?squad=${s.squadId}` })).status).toBe(403);
   });
+
+  it("the roster's stored rows follow every change to what they read, also changes made outside the app's code", async () => {
+    const rowOfB = async () => (await s.coach.browser.call(rosterRoute, "GET", "/api/roster", { query: `?squad=${s.squadId}` })).json.rows.find((x: { id: string }) => x.id === s.athleteB.id);
+    const before = await rowOfB();
+    expect(before.compliance4w).toBeNull();
+    const yesterday = new Date(Date.now() - 86_400_000).toISOString().slice(0, 10);
+    const planned = await s.coach.browser.call(sessionsRoute, "POST", `/api/athletes/${s.athleteB.id}/sessions`, { params: { id: s.athleteB.id }, body: { date: yesterday, title: "Steady hour", sport: "running", structure: [step("work", 60, 1)] } });
+    expect(planned.status).toBe(201);
+    expect((await rowOfB()).compliance4w).toBe(0);
+    expect((await logAs(s.athleteB.browser, planned.json.id, { status: "done", durationMin: 60, rpe: 4 })).status).toBe(201);
+    expect((await rowOfB()).compliance4w).toBe(1); // 60 of 60 planned minutes
+    await query(`update session_log set duration_min = 30 where planned_session_id = $1`, [planned.json.id]);
+    expect((await rowOfB()).compliance4w).toBe(0.5);
+    // A stored row equals the row computed afresh.
+    const cached = (await s.coach.browser.call(rosterRoute, "GET", "/api/roster", { query: `?squad=${s.squadId}` })).json.rows;
+    await query(`delete from roster_cache`);
+    const computed = (await s.coach.browser.call(rosterRoute, "GET", "/api/roster", { query: `?squad=${s.squadId}` })).json.rows;
+    expect(cached).toEqual(computed);
+  });
 });

@@ -12,23 +12,75 @@ import { rosterRow, type RosterRow } from "../lib/roster";
 type PlannedRow = Record<string, unknown> & { id: string; athleteId: string; date: string; title: string; kind: string; totalS: number; minutesByZone: [number, number, number] };
 type LogRow = ReportLog & Record<string, unknown> & { athleteId: string; sport: string; hrAvgBpm: number | null; powerAvgW: number | null; speedAvgKmh: number | null };
 
+interface Athlete {
+  id: string;
+  name: string;
+  email: string;
+  sports: string[];
+  timeZone: string | null;
+}
+
 /**
- * The roster of a squad (the first coached squad when none is named): five queries for the whole squad, run together, then
- * the pure `rosterRow` per athlete. The windows: five weeks of plan and retests back to 180 days; 120 days of logs (drift).
+ * The roster of a squad (the first coached squad when none is named). Rows come from `roster_cache` when still valid (same
+ * generation, computed for the athlete's current local day); the others are computed together and stored, guarded by
+ * their generation so that a change during the computation is never stored as current.
  */
 export async function squadRoster(actor: Actor, squadId?: string, now = new Date()): Promise<{ squadId: string | null; rows: RosterRow[] }> {
   const id = squadId ?? coachedSquadIds(actor)[0];
   if (!id) return { squadId: null, rows: [] };
   if (!canViewRoster(actor, id)) throw forbidden("Only the squad's coaches see its roster.");
   const db = getDb();
+  // Cache rows first exist, so that the triggers count every change from here on.
+  await db.execute(sql`
+    insert into roster_cache (athlete_id)
+    select m.user_id from membership m where m.squad_id = ${id} and m.role = 'athlete'
+      and not exists (select 1 from roster_cache c where c.athlete_id = m.user_id)
+    on conflict do nothing`);
   const athletes = await db
-    .select({ id: schema.user.id, name: schema.user.name, email: schema.user.email, sports: sql<string[]>`coalesce(${schema.athleteProfile.sports}, '{}'::text[])`, timeZone: schema.athleteProfile.timeZone })
+    .select({
+      id: schema.user.id,
+      name: schema.user.name,
+      email: schema.user.email,
+      sports: sql<string[]>`coalesce(${schema.athleteProfile.sports}, '{}'::text[])`,
+      timeZone: schema.athleteProfile.timeZone,
+      generation: schema.rosterCache.generation,
+      computedGeneration: schema.rosterCache.computedGeneration,
+      computedFor: schema.rosterCache.computedFor,
+      row: schema.rosterCache.row,
+    })
     .from(schema.membership)
     .innerJoin(schema.user, eq(schema.user.id, schema.membership.userId))
     .leftJoin(schema.athleteProfile, eq(schema.athleteProfile.userId, schema.user.id))
+    .leftJoin(schema.rosterCache, eq(schema.rosterCache.athleteId, schema.user.id))
     .where(and(eq(schema.membership.squadId, id), eq(schema.membership.role, "athlete")))
     .orderBy(asc(schema.user.name));
-  if (!athletes.length) return { squadId: id, rows: [] };
+  const todayIn = new Map<string, string>();
+  const localToday = (tz: string | null) => {
+    const zone = tz ?? "UTC";
+    let d = todayIn.get(zone);
+    if (!d) todayIn.set(zone, (d = localDate(now, zone)));
+    return d;
+  };
+  const stale = athletes.filter((a) => !(a.row && a.computedGeneration === a.generation && a.computedFor === localToday(a.timeZone)));
+  const fresh = new Map<string, RosterRow>();
+  if (stale.length) {
+    const computed = await computeRows(stale, localToday, now);
+    const updates = stale.map((a, i) => ({ id: a.id, g: a.generation ?? 0, day: localToday(a.timeZone), row: computed[i]! }));
+    for (const u of updates) fresh.set(u.id, u.row);
+    await db.execute(sql`
+      update roster_cache c set row = v.row, computed_generation = v.g, computed_for = v.day, computed_at = now()
+      from json_to_recordset(${JSON.stringify(updates)}::json) as v(id text, g bigint, day text, row jsonb)
+      where c.athlete_id = v.id and c.generation = v.g`);
+  }
+  return { squadId: id, rows: athletes.map((a) => fresh.get(a.id) ?? (a.row as unknown as RosterRow)) };
+}
+
+/**
+ * Computes roster rows: five queries for the given athletes, run together, then the pure `rosterRow` per athlete. The
+ * windows: five weeks of plan and retests back to 180 days; 120 days of logs (drift).
+ */
+async function computeRows(athletes: Athlete[], localToday: (tz: string | null) => string, now: Date): Promise<RosterRow[]> {
+  const db = getDb();
   const ids = athletes.map((a) => a.id);
   const today = localDate(now, "UTC");
   const monday = mondayOf(today);
@@ -38,13 +90,14 @@ export async function squadRoster(actor: Actor, squadId?: string, now = new Date
     // The two big reads skip the ORM's row mapping: plain rows, named as the pure code wants them.
     db.execute<PlannedRow>(sql`
       select p.id, p.athlete_id as "athleteId", p.date, p.title, p.kind, p.total_s as "totalS", p.minutes_by_zone as "minutesByZone"
-      from planned_session p join membership m on m.user_id = p.athlete_id and m.squad_id = ${id} and m.role = 'athlete'
-      where (p.date between ${addDays(monday, -28)} and ${addDays(monday, 6)}) or (p.kind = 'retest' and p.date >= ${addDays(today, -180)})`),
+      from planned_session p
+      where p.athlete_id in ${ids}
+        and ((p.date between ${addDays(monday, -28)} and ${addDays(monday, 13)}) or (p.kind = 'retest' and p.date >= ${addDays(today, -181)}))`),
     db.execute<LogRow>(sql`
       select l.athlete_id as "athleteId", l.date, l.status, l.duration_min as "durationMin", l.rpe, l.measured_min_by_zone as "measuredMinByZone", l.trimp,
         l.planned_session_id as "plannedSessionId", l.sport, l.hr_avg_bpm as "hrAvgBpm", l.power_avg_w as "powerAvgW", l.speed_avg_kmh as "speedAvgKmh"
-      from session_log l join membership m on m.user_id = l.athlete_id and m.squad_id = ${id} and m.role = 'athlete'
-      where l.date between ${addDays(today, -120)} and ${addDays(monday, 6)}`),
+      from session_log l
+      where l.athlete_id in ${ids} and l.date between ${addDays(today, -121)} and ${addDays(monday, 13)}`),
     db.select({ athleteId: schema.season.athleteId, weeks: schema.season.weeks }).from(schema.season).where(inArray(schema.season.athleteId, ids)),
   ]);
   const group = <T extends { athleteId: string }>(rows: T[]) => {
@@ -57,13 +110,6 @@ export async function squadRoster(actor: Actor, squadId?: string, now = new Date
     return m;
   };
   const bySets = group(zoneSets), byTests = group(tests), bySessions = group([...sessions]), byLogs = group([...logs]), bySeasons = group(seasons);
-  const todayIn = new Map<string, string>();
-  const localToday = (tz: string | null) => {
-    if (!tz) return today;
-    let d = todayIn.get(tz);
-    if (!d) todayIn.set(tz, (d = localDate(now, tz)));
-    return d;
-  };
   const rows = athletes.map((a) => {
     const own = bySessions.get(a.id) ?? [];
     return rosterRow({
@@ -76,5 +122,5 @@ export async function squadRoster(actor: Actor, squadId?: string, now = new Date
       seasonWeeks: (bySeasons.get(a.id) ?? []).flatMap((s) => s.weeks as unknown as SeasonWeekInfo[]),
     });
   });
-  return { squadId: id, rows };
+  return rows;
 }
