@@ -2,7 +2,7 @@
  * `npm test`: a throwaway PostgreSQL, the unit and integration tests (vitest), then the browser tests (playwright-core
  * driving Debian's chromium) against the production build. Extra arguments go to vitest, e.g. `npm test -- roster`.
  */
-import { spawnSync } from "node:child_process";
+import { spawn, spawnSync } from "node:child_process";
 import fs from "node:fs";
 import path from "node:path";
 import { applyMigrations } from "../db/migrate";
@@ -35,10 +35,11 @@ function ensureChromium(): void {
   if (r.status !== 0 || !fs.existsSync(CHROMIUM)) throw new Error("Installing chromium with apt-get failed.");
 }
 
-function vitest(projects: string[], env: NodeJS.ProcessEnv, extra: string[]): number {
+/** Runs vitest without blocking this process, which serves the e-mail fake the tests talk to. */
+function vitest(projects: string[], env: NodeJS.ProcessEnv, extra: string[]): Promise<number> {
   const args = [path.join(ROOT, "node_modules/vitest/vitest.mjs"), "run", "--passWithNoTests", ...projects.flatMap((p) => ["--project", p]), ...extra];
-  const r = spawnSync(process.execPath, args, { cwd: ROOT, stdio: "inherit", env });
-  return r.status ?? 1;
+  const child = spawn(process.execPath, args, { cwd: ROOT, stdio: "inherit", env });
+  return new Promise((resolve) => child.on("exit", (code) => resolve(code ?? 1)));
 }
 
 async function main(): Promise<number> {
@@ -73,7 +74,7 @@ async function main(): Promise<number> {
     };
 
     log("Unit and integration tests…");
-    const first = vitest(["unit", "integration"], {
+    const first = await vitest(["unit", "integration"], {
       ...baseEnv,
       DATABASE_URL: integrationUrl,
       BETTER_AUTH_URL: "http://127.0.0.1:3999",
@@ -104,7 +105,8 @@ async function main(): Promise<number> {
     };
     ensureBuild(".next-test", appEnv, log);
     app = await startAppServer({ mode: "start", port, env: appEnv, quiet: true });
-    return vitest(["browser"], { ...baseEnv, TIDEMARK_BASE_URL: origin, CHROMIUM_PATH: CHROMIUM, DATABASE_URL: browserUrl }, extra);
+    // The browser tests also run jobs in-process (the worker's functions), so they share the app's origin and secret.
+    return await vitest(["browser"], { ...baseEnv, TIDEMARK_BASE_URL: origin, BETTER_AUTH_URL: origin, CHROMIUM_PATH: CHROMIUM, DATABASE_URL: browserUrl }, extra);
   } finally {
     await cleanup();
   }

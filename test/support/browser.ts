@@ -18,6 +18,8 @@ export async function launch(): Promise<Browser> {
 export async function newPage(browser: Browser): Promise<{ page: Page; problems: string[] }> {
   const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
   const page = await context.newPage();
+  // A step that cannot happen fails within this time, with the locator it waited for, instead of hanging the suite.
+  page.setDefaultTimeout(20_000);
   const problems: string[] = [];
   page.on("console", (m) => {
     if (m.type() === "error") problems.push(`console: ${m.text()}`);

@@ -325,17 +325,17 @@ function KeyboardPlanner({ templates, defaultDate, onPlan }: { templates: TrayTe
       }}
     >
       <p className="font-semibold">Plan without dragging</p>
-      <label className="block">
-        <span className="field-label">Template</span>
-        <select className="field-input" value={templateId} onChange={(e) => setTemplateId(e.target.value)}>
+      <div>
+        <label htmlFor="kp-template" className="field-label">Template</label>
+        <select id="kp-template" className="field-input" value={templateId} onChange={(e) => setTemplateId(e.target.value)}>
           <option value="">Choose…</option>
           {templates.map((t) => <option key={t.id} value={t.id}>{t.name}</option>)}
         </select>
-      </label>
-      <label className="block">
-        <span className="field-label">Day</span>
-        <input type="date" className="field-input num" value={date} onChange={(e) => setDate(e.target.value)} />
-      </label>
+      </div>
+      <div>
+        <label htmlFor="kp-day" className="field-label">Day</label>
+        <input id="kp-day" type="date" className="field-input num" value={date} onChange={(e) => setDate(e.target.value)} />
+      </div>
       <label className="flex items-center gap-2">
         <input type="checkbox" checked={repeats} onChange={(e) => setRepeats(e.target.checked)} /> Repeat weekly
       </label>

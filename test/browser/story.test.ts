@@ -1,0 +1,271 @@
+// The everyday story on a fresh account, end to end: a head coach signs up, builds a squad and invites an athlete (the
+// invitation arrives through the e-mail fake), tests the athlete, plans a season and a week that breaks its budget and is
+// fixed, the athlete logs today's session with a FIT file, and seven days before the retest the reminder job sends the
+// retest reminder, whose unsubscribe link works. Every page is screenshotted; any console error, failed request or bare
+// number without a label or unit fails the story. Check values: the budget maths in features/planning (Seiler &
+// Kjerland 2006 shares, "common practice" tolerance), the synthetic ramp model (features/gas-exchange/lib/synthetic-ramp.ts).
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { Browser, Page } from "playwright-core";
+import { encodeFit } from "@/features/activities/lib/fit-fixture";
+import { syntheticRamp } from "@/features/gas-exchange/lib/synthetic-ramp";
+import { deliverPending } from "@/features/messages/server/deliver";
+import { queueRetestReminders } from "@/features/reminders/server/jobs";
+import { query } from "../support/db";
+import { BASE, launch, newPage, shot } from "../support/browser";
+
+const FAKE = process.env.FAKE_EMAIL_URL ?? "";
+const tag = Date.now().toString(36);
+const COACH = { name: "Ada Strand", email: `ada-${tag}@story.test`, password: "tide-story-pass-1" };
+const ATHLETE = { name: "Bo Lindqvist", email: `bo-${tag}@story.test`, password: "tide-story-pass-2" };
+
+const iso = (d: Date) => d.toISOString().slice(0, 10);
+const plus = (date: string, n: number) => iso(new Date(Date.parse(`${date}T00:00:00Z`) + n * 86_400_000));
+const today = iso(new Date());
+const mondayOf = (date: string) => plus(date, -((new Date(`${date}T00:00:00Z`).getUTCDay() + 6) % 7));
+
+let browser: Browser;
+beforeAll(async () => {
+  if (!FAKE) throw new Error("FAKE_EMAIL_URL is not set: run the browser tests through `npm test`.");
+  browser = await launch();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+/** A bare number (no unit, no label) shown on its own is a defect: every number on screen says what it is. */
+async function bareNumbers(page: Page): Promise<string[]> {
+  return page.evaluate(() => {
+    const out: string[] = [];
+    for (const el of Array.from(document.querySelectorAll("body *"))) {
+      if (el.children.length || !(el instanceof HTMLElement) || !el.offsetParent) continue;
+      if (el.closest("option, select, input, textarea, script, style, svg, [aria-hidden='true'], .fc-daygrid-day-number, .fc-col-header-cell, .fc-toolbar-title")) continue;
+      const text = (el.textContent ?? "").trim();
+      if (!/^[−-]?\d+([.,]\d+)?$/.test(text)) continue;
+      if (el.getAttribute("aria-label") || el.getAttribute("title")) continue;
+      const context = (el.parentElement?.textContent ?? "").replace(text, "");
+      if (/[A-Za-z%]/.test(context)) continue;
+      const cell = el.closest("td");
+      if (cell && cell.closest("table")?.querySelector("th")) continue;
+      out.push(`${text} in <${el.tagName.toLowerCase()}> at ${location.pathname}`);
+    }
+    return out;
+  });
+}
+
+const step = (n: string) => console.log(`[story] step ${n} at ${new Date().toISOString()}`);
+
+async function visit(page: Page, name: string, problems: string[]) {
+  await page.waitForLoadState("networkidle");
+  await shot(page, `story-${name}`);
+  problems.push(...(await bareNumbers(page)));
+}
+
+async function outbox(): Promise<{ id: string; to: string[]; subject: string; kind: string }[]> {
+  return (await fetch(`${FAKE}/outbox.json`)).json();
+}
+async function messageText(id: string): Promise<string> {
+  return ((await (await fetch(`${FAKE}/emails/${id}`, { headers: { authorization: "Bearer story" } })).json()) as { text: string }).text;
+}
+
+async function dragTemplate(page: Page, name: string, date: string) {
+  const item = page.locator("[data-template-id]", { hasText: name }).first();
+  await item.scrollIntoViewIfNeeded();
+  const from = (await item.boundingBox())!;
+  const cell = page.locator(`td.fc-day[data-date="${date}"]`);
+  await page.mouse.move(from.x + from.width / 2, from.y + from.height / 2);
+  await page.mouse.down();
+  await page.mouse.move(from.x + from.width / 2 - 20, from.y + from.height / 2, { steps: 5 });
+  for (let i = 0; i < 3; i++) {
+    const to = (await cell.boundingBox())!;
+    await page.mouse.move(to.x + to.width / 2, to.y + to.height / 2, { steps: 10 });
+    await page.waitForTimeout(150);
+  }
+  await page.mouse.up();
+}
+
+describe("the everyday story", () => {
+  it("sign-up, squad, invitation, test, season, budget fix, today's log with a file, and the retest reminder", async () => {
+    step("1");
+    // 1. A head coach signs up, creates a squad and invites an athlete.
+    const coach = await newPage(browser);
+    const c = coach.page;
+    await c.goto(`${BASE}/sign-up`);
+    await visit(c, "01-sign-up", coach.problems);
+    await c.getByLabel("Your name").fill(COACH.name);
+    await c.getByLabel("E-mail").fill(COACH.email);
+    await c.getByLabel(/^Password/).fill(COACH.password);
+    await c.getByRole("button", { name: "Create account" }).click();
+    await c.waitForURL(/\/squads\/new/);
+    await visit(c, "02-new-squad", coach.problems);
+    await c.getByLabel("Squad name").fill("Harbour Runners");
+    await c.getByRole("button", { name: "Create the squad" }).click();
+    await c.waitForURL(/\/roster/);
+    await c.getByLabel("E-mail").fill(ATHLETE.email);
+    await c.getByLabel("Role").selectOption("athlete");
+    await c.getByRole("button", { name: "Send invitation" }).click();
+    await c.getByText(ATHLETE.email).first().waitFor();
+    await visit(c, "03-roster-invited", coach.problems);
+
+    // The invitation arrives in the e-mail fake's outbox (the worker's delivery, run here in-process).
+    await deliverPending(new Date());
+    const invitation = (await outbox()).find((m) => m.kind === "invitation" && m.to.includes(ATHLETE.email));
+    expect(invitation?.subject).toMatch(/Harbour Runners/);
+    const inviteUrl = /https?:\/\/\S+\/invite\/\S+/.exec(await messageText(invitation!.id))![0];
+
+    // The athlete accepts: an account with a password, then time zone and reminder time.
+    const athlete = await newPage(browser);
+    const a = athlete.page;
+    await a.goto(inviteUrl);
+    await visit(a, "04-invitation", athlete.problems);
+    await a.getByLabel("Your name").fill(ATHLETE.name);
+    await a.getByLabel(/^Password/).fill(ATHLETE.password);
+    await a.getByRole("button", { name: /Create account|Join/ }).first().click();
+    await a.waitForURL(/\/settings/);
+    await a.getByLabel("Time zone").selectOption("Europe/Oslo");
+    await a.getByLabel("Running").check();
+    await a.getByLabel("Session reminders").selectOption("morning_of");
+    await a.getByLabel(/^At/).fill("07:00");
+    await a.getByRole("button", { name: "Save my profile" }).click();
+    await a.getByText(/Saved/).first().waitFor();
+    await visit(a, "05-athlete-settings", athlete.problems);
+
+    step("2");
+    // 2. The coach records a gas-exchange test, drags VT2, saves; the zone set appears for coach and athlete.
+    await c.goto(`${BASE}/roster`);
+    await c.getByRole("link", { name: ATHLETE.name }).click();
+    await c.waitForURL(/\/athletes\/[^/?]+$/);
+    const athleteId = c.url().split("/athletes/")[1]!;
+    await visit(c, "06-athlete", coach.problems);
+    await c.getByRole("link", { name: "Upload a gas-exchange test" }).click();
+    const csv = syntheticRamp({ seed: 21, massKg: 68, peakW: 320 }).csv;
+    await c.locator("#gas-file").setInputFiles({ name: "bo-ramp.csv", mimeType: "text/csv", buffer: Buffer.from(csv) });
+    await c.getByRole("heading", { name: "2. Check the columns" }).waitFor();
+    await c.getByLabel("Sport").selectOption("running");
+    await c.getByLabel(/^Protocol/).fill("treadmill ramp, 0.5 km/h per minute");
+    await visit(c, "07-test-upload", coach.problems);
+    await c.getByRole("button", { name: "Analyse and save the test" }).click();
+    await c.waitForURL(/\/tests\/[0-9a-f-]+$/);
+    await c.getByRole("heading", { name: "Thresholds" }).waitFor();
+    const vt2Before = Number((await c.getByTestId("VT2-hr").textContent())!.match(/(\d+) bpm/)![1]);
+    const marker = c.locator('figure:has-text("Heart rate over time") [data-marker="vt2"] line');
+    await marker.scrollIntoViewIfNeeded();
+    const box = (await marker.boundingBox())!;
+    await c.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
+    await c.mouse.down();
+    await c.mouse.move(box.x - 40, box.y + box.height / 2, { steps: 8 });
+    await c.mouse.up();
+    const vt2After = Number((await c.getByTestId("VT2-hr").textContent())!.match(/(\d+) bpm/)![1]);
+    expect(vt2After).toBeLessThan(vt2Before);
+    await c.getByRole("button", { name: "Save thresholds and zones" }).click();
+    await c.getByText("Saved. The zone set now uses these thresholds").waitFor();
+    await visit(c, "08-test-result", coach.problems);
+    await a.goto(`${BASE}/zones`);
+    await a.getByText(`${vt2After} bpm`).first().waitFor();
+    await visit(a, "09-athlete-zones", athlete.problems);
+
+    step("3");
+    // 3. A season, an interval template, and a week dragged over budget, then fixed.
+    await c.goto(`${BASE}/athletes/${athleteId}/plan`);
+    await c.getByLabel("Season name").fill("Autumn half marathon");
+    await c.getByLabel("Start").fill(today);
+    await c.getByLabel("Target event").fill("Harbour half marathon");
+    await c.getByLabel("Event date").fill(plus(today, 26 * 7));
+    await c.getByLabel("Weekly hours now (h)").fill("6");
+    await c.getByRole("button", { name: "Generate the season" }).click();
+    await c.getByRole("region", { name: /Season ribbon/ }).waitFor();
+    await visit(c, "10-season", coach.problems);
+    await c.goto(`${BASE}/templates`);
+    await c.getByLabel("Name").fill("Harbour intervals 6 × 4 min");
+    await c.getByLabel("Block 2 repeats").fill("6");
+    await visit(c, "11-template-builder", coach.problems);
+    await c.getByRole("button", { name: "Save the template" }).click();
+    await c.getByText("Harbour intervals 6 × 4 min").first().waitFor();
+    // Two easy long runs in the target week and the next (through the API, as the coach).
+    const week = mondayOf(plus(today, 14));
+    for (const d of [plus(week, 5), plus(week, 6), plus(week, 12), plus(week, 13)]) {
+      const r = await c.request.post(`${BASE}/api/athletes/${athleteId}/sessions`, { data: { date: d, title: "Easy long run", sport: "running", structure: [{ type: "step", kind: "work", durationS: 90 * 60, zone: 1 }] } });
+      expect(r.status()).toBe(201);
+    }
+    await c.goto(`${BASE}/athletes/${athleteId}/plan?week=${week}`);
+    const band = c.getByTestId(`band-${week}`);
+    await band.waitFor();
+    // Each interval session: 43 min zone 1, 24 min zone 3. With 180 easy minutes, two make zone 3 48 of 314 min = 15.3 %,
+    // over the 10 % ± 5 of this block's pyramidal budget (hand computation); drag until the band says so.
+    let dragged = 0;
+    while ((await band.getAttribute("data-over")) !== "yes" && dragged < 4) {
+      dragged++;
+      await dragTemplate(c, "Harbour intervals 6 × 4 min", plus(week, dragged - 1));
+      await c.locator(`td.fc-day[data-date="${plus(week, dragged - 1)}"] .fc-event`, { hasText: "Harbour intervals" }).waitFor();
+      await c.getByText(`Planned "Harbour intervals 6 × 4 min" on ${plus(week, dragged - 1)}.`).waitFor();
+    }
+    await c.locator(`[data-testid="band-${week}"][data-over="yes"]`).waitFor();
+    expect(dragged).toBe(2);
+    await expect(band.textContent()).resolves.toMatch(/Zone 3 is 15\.3 % of the week; the pyramidal budget allows 15 %/);
+    await visit(c, "12-week-over-budget", coach.problems);
+    await band.getByRole("button", { name: "Apply the fix" }).click();
+    await c.locator(`[data-testid="band-${week}"][data-over="no"]`).waitFor();
+    await visit(c, "13-week-fixed", coach.problems);
+
+    // Today's session for the athlete, planned with the keyboard planner.
+    await c.goto(`${BASE}/athletes/${athleteId}/plan?week=${today}`);
+    await c.getByLabel("Template", { exact: true }).selectOption({ label: "Harbour intervals 6 × 4 min" });
+    await c.getByLabel("Day", { exact: true }).fill(today);
+    await c.getByRole("button", { name: "Plan it" }).click();
+    await c.getByText(`Planned on ${today}.`).waitFor();
+
+    step("4");
+    // 4. The athlete opens today, sees targets in their own heart rate, logs it with RPE 6 and a FIT file.
+    await a.setViewportSize({ width: 390, height: 844 });
+    await a.goto(`${BASE}/today`);
+    const card = a.getByTestId("session-card").filter({ hasText: "Harbour intervals" }).first();
+    await card.waitFor();
+    await expect(card.innerText()).resolves.toMatch(/bpm/);
+    await visit(a, "14-today", athlete.problems);
+    await card.getByLabel("Done", { exact: true }).check();
+    await card.getByLabel("Effort, whole session (RPE 0–10)").selectOption("6");
+    await card.getByRole("button", { name: "Save the log" }).click();
+    await card.getByTestId("log-summary").filter({ hasText: "RPE 6" }).waitFor();
+    const start = new Date(`${today}T06:30:00Z`);
+    const seconds = Array.from({ length: 67 * 60 }, (_, i) => ({ hrBpm: i < 15 * 60 || i > 57 * 60 ? 128 : (i - 15 * 60) % 420 < 240 ? vt2After + 4 : 135, speedKmh: 11 }));
+    const fit = encodeFit({ start, sport: "running", seconds });
+    await card.locator('input[type="file"]').setInputFiles({ name: "bo-intervals.fit", mimeType: "application/octet-stream", buffer: Buffer.from(fit) });
+    await card.getByText(/measured/i).first().waitFor();
+    await visit(a, "15-today-logged", athlete.problems);
+
+    // The coach sees it done with measured time in zone on the calendar and in the roster.
+    await c.goto(`${BASE}/athletes/${athleteId}/plan?week=${today}`);
+    const done = c.locator('[data-testid="calendar-event"][data-log="done"]').first();
+    await done.waitFor();
+    await done.click();
+    await expect(c.getByTestId("selected-log").innerText()).resolves.toMatch(/measured z1 \d+ · z2 \d+ · z3 \d+ min/);
+    await visit(c, "16-calendar-done", coach.problems);
+    await c.goto(`${BASE}/roster`);
+    const row = c.getByTestId("roster-row").filter({ hasText: ATHLETE.name });
+    await expect(row.getByTestId("compliance").innerText()).resolves.toMatch(/\d+ %/);
+    await visit(c, "17-roster", coach.problems);
+
+    step("5");
+    // 5. Seven days before the retest the job runs; the reminder goes to the athlete with the date and a working link.
+    const [retest] = await query<{ date: string }>(`select min(date) as date from planned_session where athlete_id = $1 and kind = 'retest' and date > $2`, [athleteId, today]);
+    expect(retest?.date).toBeTruthy();
+    const clock = new Date(`${plus(retest!.date, -7)}T12:00:00Z`); // 13:00 in Oslo, after the 07:00 reminder time
+    expect(await queueRetestReminders(clock)).toBeGreaterThanOrEqual(1);
+    await deliverPending(new Date());
+    const reminder = (await outbox()).find((m) => m.kind === "retest_reminder" && m.to.includes(ATHLETE.email));
+    expect(reminder?.subject).toMatch(/^Retest in a week: /);
+    const text = await messageText(reminder!.id);
+    const [y, mo, d] = retest!.date.split("-").map(Number) as [number, number, number];
+    expect(text).toContain(new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "long", year: "numeric", timeZone: "UTC" }).format(new Date(Date.UTC(y, mo - 1, d))));
+    const unsubscribe = /https?:\/\/\S+\/unsubscribe\/\S+/.exec(text)![0];
+    const reader = await newPage(browser);
+    await reader.page.goto(unsubscribe);
+    await reader.page.getByRole("heading", { name: "Turned off: retest reminders" }).waitFor();
+    await visit(reader.page, "18-unsubscribed", reader.problems);
+    const [profile] = await query<{ remind_retests: boolean }>(`select remind_retests from athlete_profile where user_id = $1`, [athleteId]);
+    expect(profile?.remind_retests).toBe(false);
+
+    expect(coach.problems).toEqual([]);
+    expect(athlete.problems).toEqual([]);
+    expect(reader.problems).toEqual([]);
+  }, 300_000);
+});
