@@ -33,7 +33,8 @@ try {
   const page = await fetch(`${origin}/athletes/${runner!.id}/plan`, { headers: { cookie } });
   if (!page.ok) throw new Error(`planner page: ${page.status}`);
   const html = await page.text();
-  const sources = [...new Set([...html.matchAll(/<script[^>]+src="([^"]+)"/g)].map((m) => m[1]!))];
+  // Scripts marked nomodule (legacy polyfills) are skipped by every browser that runs modules, so they do not count.
+  const sources = [...new Set([...html.matchAll(/<script([^>]*)>/g)].filter((m) => !/\bnomodule\b/i.test(m[1]!)).map((m) => /src="([^"]+)"/.exec(m[1]!)?.[1]).filter((x): x is string => !!x))];
   let gzipBytes = 0;
   for (const src of sources) {
     const body = Buffer.from(await (await fetch(new URL(src.replaceAll("&amp;", "&"), origin))).arrayBuffer());
