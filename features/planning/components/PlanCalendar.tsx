@@ -242,6 +242,24 @@ export function PlanCalendar({ athleteId, templates, initialDate, canEdit }: { a
             {canEdit && !editing ? (
               <div className="flex flex-wrap gap-2 text-sm">
                 <button type="button" className="btn-quiet py-1" onClick={() => setEditing(true)}>Edit steps and notes</button>
+                <MoveToDay
+                  key={selected.id}
+                  session={selected}
+                  busy={move.isPending}
+                  onMove={(date) =>
+                    move.mutate(
+                      { id: selected.id, date, scope: selected.seriesId ? scope : "one" },
+                      {
+                        onError: fail,
+                        onSuccess: () => {
+                          setSelected(null);
+                          setMessage({ kind: "ok", text: `Moved "${selected.title}" to ${date}.` });
+                          calendarRef.current?.getApi().gotoDate(date);
+                        },
+                      },
+                    )
+                  }
+                />
                 <DuplicateButton sessionId={selected.id} date={addDays(selected.date, 7)} onDone={(t) => setMessage({ kind: "ok", text: t })} onError={fail} athleteId={athleteId} />
                 <button type="button" className="btn-quiet py-1" onClick={() => remove.mutate({ id: selected.id, scope: "one" }, { onSuccess: () => { setSelected(null); setMessage({ kind: "ok", text: "Session deleted." }); }, onError: fail })}>Delete</button>
                 {selected.seriesId ? <button type="button" className="btn-quiet py-1" onClick={() => remove.mutate({ id: selected.id, scope: "series" }, { onSuccess: () => { setSelected(null); setMessage({ kind: "ok", text: "Series deleted from this occurrence on." }); }, onError: fail })}>Delete the series from here</button> : null}
@@ -268,6 +286,24 @@ export function PlanCalendar({ athleteId, templates, initialDate, canEdit }: { a
         </aside>
       ) : null}
     </div>
+  );
+}
+
+/** Moving a session without dragging: choose the new day. */
+function MoveToDay({ session, busy, onMove }: { session: SessionDto; busy: boolean; onMove: (date: string) => void }) {
+  const [date, setDate] = useState(session.date);
+  return (
+    <form
+      className="flex items-center gap-1"
+      onSubmit={(e) => {
+        e.preventDefault();
+        if (date && date !== session.date) onMove(date);
+      }}
+    >
+      <label htmlFor={`move-${session.id}`} className="sr-only">New day for {session.title}</label>
+      <input id={`move-${session.id}`} type="date" className="field-input mt-0 w-40 py-1 num" value={date} onChange={(e) => setDate(e.target.value)} />
+      <button type="submit" className="btn-quiet py-1" disabled={busy || !date || date === session.date}>Move to this day</button>
+    </form>
   );
 }
 
