@@ -89,7 +89,10 @@ describe("the everyday story", () => {
     // 1. A head coach signs up, creates a squad and invites an athlete.
     const coach = await newPage(browser);
     const c = coach.page;
-    await c.goto(`${BASE}/sign-up`);
+    const first = await c.goto(`${BASE}/sign-up`);
+    // The security headers are on every page (and the pages pass their content security policy: no console errors).
+    expect(first!.headers()["content-security-policy"]).toMatch(/frame-ancestors 'none'/);
+    expect(first!.headers()["x-frame-options"]).toBe("DENY");
     await visit(c, "01-sign-up", coach.problems);
     await c.getByLabel("Your name").fill(COACH.name);
     await c.getByLabel("E-mail").fill(COACH.email);
