@@ -95,7 +95,7 @@ describe("fuzzed uploads", () => {
     const answers: Record<string, number> = {};
     for (const [bytes, name, what] of activities) {
       const form = new FormData();
-      form.set("file", new File([bytes], name));
+      form.set("file", new File([new Uint8Array(bytes)], name));
       const r = await s.athleteA.browser.call(activitiesRoute, "POST", "/api/athletes/x/activities", { params: { id: s.athleteA.id }, form });
       answers[r.status] = (answers[r.status] ?? 0) + 1;
       expect(r.status, `${what} (${name}, ${bytes.length} bytes)`).toBeGreaterThanOrEqual(400);
@@ -104,7 +104,7 @@ describe("fuzzed uploads", () => {
     }
     for (const [bytes, what] of gas) {
       const form = new FormData();
-      form.set("file", new File([bytes], "ramp.csv", { type: "text/csv" }));
+      form.set("file", new File([new Uint8Array(bytes)], "ramp.csv", { type: "text/csv" }));
       for (const [k, v] of Object.entries({ sport: "cycling", protocol: "ramp 25 W/min", date: "2026-09-01", endedBy: "exhaustion" })) form.set(k, v);
       const r = await s.coach.browser.call(testsRoute, "POST", `/api/athletes/${s.athleteA.id}/tests`, { params: { id: s.athleteA.id }, form });
       answers[r.status] = (answers[r.status] ?? 0) + 1;
