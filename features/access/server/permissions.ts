@@ -42,6 +42,19 @@ export async function findActor(headers: Headers): Promise<SignedInActor | null>
   };
 }
 
+/**
+ * Like requireAthleteAccess, but any refusal reads as "not found" (for resources reached by their own id, whose existence
+ * must not leak). Other errors, such as the database being unavailable, pass through unchanged.
+ */
+export async function requireAthleteAccessOrNotFound(actor: Actor, athleteId: string, action: "view" | "edit" | "coach", message?: string): Promise<void> {
+  try {
+    await requireAthleteAccess(actor, athleteId, action);
+  } catch (e) {
+    if (e instanceof HttpError && (e.status === 403 || e.status === 404)) throw notFound(message);
+    throw e;
+  }
+}
+
 /** An account as an actor, for background jobs that act with that account's rights (e.g. a coach's weekly digest). */
 export async function actorForUser(userId: string): Promise<Actor> {
   return { userId, isAdmin: false, memberships: await membershipsOf(userId) };

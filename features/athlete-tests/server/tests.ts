@@ -3,7 +3,7 @@ import { randomUUID } from "node:crypto";
 import { desc, eq } from "drizzle-orm";
 import { getDb, schema } from "@/db/client";
 import type { ThresholdPair, ThresholdValues } from "@/db/schema";
-import { requireAthleteAccess } from "@/features/access/server/permissions";
+import { requireAthleteAccess, requireAthleteAccessOrNotFound } from "@/features/access/server/permissions";
 import type { Actor } from "@/features/access/lib/rules";
 import { estimateVo2Max } from "@/features/field-tests/lib/submax";
 import { analyzeCsv, valuesAt } from "@/features/gas-exchange/lib/analyze";
@@ -137,9 +137,7 @@ export async function createJsonTest(actor: Actor, athleteId: string, input: Jso
 async function loadTest(actor: Actor, testId: string) {
   const [row] = await getDb().select().from(schema.athleteTest).where(eq(schema.athleteTest.id, testId));
   if (!row) throw notFound("No such test.");
-  await requireAthleteAccess(actor, row.athleteId, "view").catch(() => {
-    throw notFound("No such test.");
-  });
+  await requireAthleteAccessOrNotFound(actor, row.athleteId, "view", "No such test.");
   return row;
 }
 

@@ -3,7 +3,7 @@ import { randomUUID } from "node:crypto";
 import { and, asc, eq, gte, lte } from "drizzle-orm";
 import type { z } from "zod";
 import { getDb, schema } from "@/db/client";
-import { requireAthleteAccess } from "@/features/access/server/permissions";
+import { requireAthleteAccess, requireAthleteAccessOrNotFound } from "@/features/access/server/permissions";
 import type { Actor } from "@/features/access/lib/rules";
 import { HttpError, notFound } from "@/features/platform/server/http";
 import { editableUntil, LOG_EDIT_DAYS } from "../lib/cr10";
@@ -35,9 +35,7 @@ export async function logPlannedSession(actor: Actor, sessionId: string, input: 
   const db = getDb();
   const [planned] = await db.select().from(schema.plannedSession).where(eq(schema.plannedSession.id, sessionId));
   if (!planned) throw notFound("No such session.");
-  await requireAthleteAccess(actor, planned.athleteId, "edit").catch(() => {
-    throw notFound("No such session.");
-  });
+  await requireAthleteAccessOrNotFound(actor, planned.athleteId, "edit", "No such session.");
   const id = randomUUID();
   const inserted = await db
     .insert(schema.sessionLog)
@@ -66,9 +64,7 @@ export async function logUnplannedSession(actor: Actor, athleteId: string, input
 async function loadLog(actor: Actor, id: string): Promise<LogRow> {
   const [row] = await getDb().select().from(schema.sessionLog).where(eq(schema.sessionLog.id, id));
   if (!row) throw notFound("No such log.");
-  await requireAthleteAccess(actor, row.athleteId, "edit").catch(() => {
-    throw notFound("No such log.");
-  });
+  await requireAthleteAccessOrNotFound(actor, row.athleteId, "edit", "No such log.");
   if (editableUntil(row.createdAt).getTime() < Date.now()) throw new HttpError(409, `A log can be changed for ${LOG_EDIT_DAYS} days after it was made; this one is older.`);
   return row;
 }

@@ -3,7 +3,7 @@ import { randomUUID } from "node:crypto";
 import { and, asc, eq, gte, inArray, lte } from "drizzle-orm";
 import type { z } from "zod";
 import { getDb, schema, type Database } from "@/db/client";
-import { requireAthleteAccess } from "@/features/access/server/permissions";
+import { requireAthleteAccess, requireAthleteAccessOrNotFound } from "@/features/access/server/permissions";
 import { canViewRoster, isCoachOf, type Actor } from "@/features/access/lib/rules";
 import { HttpError, notFound } from "@/features/platform/server/http";
 import { zoneSetInForce } from "@/features/zones/lib/zones";
@@ -89,9 +89,7 @@ export async function createSession(actor: Actor, athleteId: string, input: z.in
 async function loadSession(actor: Actor, id: string, action: "view" | "coach") {
   const [row] = await getDb().select().from(schema.plannedSession).where(eq(schema.plannedSession.id, id));
   if (!row) throw notFound("No such session.");
-  await requireAthleteAccess(actor, row.athleteId, "view").catch(() => {
-    throw notFound("No such session.");
-  });
+  await requireAthleteAccessOrNotFound(actor, row.athleteId, "view", "No such session.");
   if (action === "coach") await requireAthleteAccess(actor, row.athleteId, "coach");
   return row;
 }
@@ -177,9 +175,7 @@ export async function updateSeasonWeek(actor: Actor, seasonId: string, weekStart
   const db = getDb();
   const [row] = await db.select().from(schema.season).where(eq(schema.season.id, seasonId));
   if (!row) throw notFound("No such season.");
-  await requireAthleteAccess(actor, row.athleteId, "view").catch(() => {
-    throw notFound("No such season.");
-  });
+  await requireAthleteAccessOrNotFound(actor, row.athleteId, "view", "No such season.");
   await requireAthleteAccess(actor, row.athleteId, "coach");
   const weeks = row.weeks as unknown as SeasonWeek[];
   const index = weeks.findIndex((w) => w.weekStart === weekStart);

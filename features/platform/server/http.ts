@@ -64,9 +64,16 @@ export function parseParams<T extends z.ZodType>(params: unknown, schema: T): z.
   return parsed.data;
 }
 
-function isDatabaseUnavailable(e: unknown): boolean {
-  const code = (e as { code?: string } | null)?.code;
-  return code === "ECONNREFUSED" || code === "CONNECTION_CLOSED" || code === "57P01" || code === "57P03";
+// Connection failures (Node and postgres.js codes) and PostgreSQL's shutdown and connection classes (57P0x, 08xxx).
+const UNAVAILABLE = new Set(["ECONNREFUSED", "ECONNRESET", "EPIPE", "ETIMEDOUT", "CONNECTION_CLOSED", "CONNECTION_ENDED", "CONNECTION_DESTROYED", "CONNECT_TIMEOUT", "57P01", "57P02", "57P03", "08000", "08001", "08003", "08004", "08006"]);
+
+/** Whether an error, or any error it wraps (query builders and the auth library wrap the driver's), means the database is unreachable. */
+export function isDatabaseUnavailable(e: unknown): boolean {
+  for (let err = e, depth = 0; err && depth < 6; err = (err as { cause?: unknown }).cause, depth++) {
+    const code = (err as { code?: unknown }).code;
+    if (typeof code === "string" && UNAVAILABLE.has(code)) return true;
+  }
+  return false;
 }
 
 /** Wraps a route handler: known errors become their status, the database being down becomes 503, the rest 500. */
