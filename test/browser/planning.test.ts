@@ -1,8 +1,8 @@
 // The coach drags interval templates onto a week until it breaks its budget, sees the reason, applies the fix, and the
 // mark clears. The week is far beyond the demo season, so its budget is the default polarised one (80/5/15 ± 5 %).
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { Browser, Page } from "playwright-core";
-import { BASE, launch, newPage, shot, signIn } from "../support/browser";
+import type { Browser } from "playwright-core";
+import { BASE, dragTemplate, launch, newPage, shot, signIn } from "../support/browser";
 
 let browser: Browser;
 beforeAll(async () => {
@@ -18,24 +18,6 @@ function mondayInWeeks(weeks: number): string {
   return new Date(Date.UTC(now.getUTCFullYear(), now.getUTCMonth(), now.getUTCDate() - dow + weeks * 7)).toISOString().slice(0, 10);
 }
 const plus = (iso: string, n: number) => new Date(Date.parse(`${iso}T00:00:00Z`) + n * 86_400_000).toISOString().slice(0, 10);
-
-async function dragTemplate(page: Page, name: string, date: string) {
-  const item = page.locator("[data-template-id]", { hasText: name }).first();
-  await item.scrollIntoViewIfNeeded();
-  const from = (await item.boundingBox())!;
-  const cell = page.locator(`td.fc-day[data-date="${date}"]`);
-  await page.mouse.move(from.x + from.width / 2, from.y + from.height / 2);
-  await page.mouse.down();
-  await page.mouse.move(from.x + from.width / 2 - 20, from.y + from.height / 2, { steps: 5 });
-  // The budget band above the calendar previews the drop and may grow; aim again once it has.
-  for (let i = 0; i < 3; i++) {
-    const to = (await cell.boundingBox())!;
-    await page.mouse.move(to.x + to.width / 2, to.y + to.height / 2, { steps: 10 });
-    await page.waitForTimeout(150);
-  }
-  if (process.env.DEBUG_DRAG) await page.screenshot({ path: `/tmp/shots/drag-${date}.png` });
-  await page.mouse.up();
-}
 
 describe("planning in the browser", () => {
   it("drag intervals until the week is over budget, then apply the fix and see the mark clear", async () => {

@@ -11,7 +11,7 @@ import { syntheticRamp } from "@/features/gas-exchange/lib/synthetic-ramp";
 import { deliverPending } from "@/features/messages/server/deliver";
 import { queueRetestReminders } from "@/features/reminders/server/jobs";
 import { query } from "../support/db";
-import { BASE, launch, newPage, shot } from "../support/browser";
+import { BASE, dragTemplate, launch, newPage, shot } from "../support/browser";
 
 const FAKE = process.env.FAKE_EMAIL_URL ?? "";
 const tag = Date.now().toString(36);
@@ -65,22 +65,6 @@ async function outbox(): Promise<{ id: string; to: string[]; subject: string; ki
 }
 async function messageText(id: string): Promise<string> {
   return ((await (await fetch(`${FAKE}/emails/${id}`, { headers: { authorization: "Bearer story" } })).json()) as { text: string }).text;
-}
-
-async function dragTemplate(page: Page, name: string, date: string) {
-  const item = page.locator("[data-template-id]", { hasText: name }).first();
-  await item.scrollIntoViewIfNeeded();
-  const from = (await item.boundingBox())!;
-  const cell = page.locator(`td.fc-day[data-date="${date}"]`);
-  await page.mouse.move(from.x + from.width / 2, from.y + from.height / 2);
-  await page.mouse.down();
-  await page.mouse.move(from.x + from.width / 2 - 20, from.y + from.height / 2, { steps: 5 });
-  for (let i = 0; i < 3; i++) {
-    const to = (await cell.boundingBox())!;
-    await page.mouse.move(to.x + to.width / 2, to.y + to.height / 2, { steps: 10 });
-    await page.waitForTimeout(150);
-  }
-  await page.mouse.up();
 }
 
 describe("the everyday story", () => {

@@ -60,3 +60,23 @@ export async function signIn(page: Page, email: string, password = "northfold-de
 export async function shot(page: Page, name: string) {
   await page.screenshot({ path: path.join(SHOTS, `${name}.png`), fullPage: true });
 }
+
+/**
+ * Drags a template from the tray onto a day of the calendar with the mouse, as a coach does. The budget band above the
+ * calendar previews the drop and may grow meanwhile, so the pointer aims at the day again before letting go.
+ */
+export async function dragTemplate(page: Page, name: string, date: string) {
+  const item = page.locator("[data-template-id]", { hasText: name }).first();
+  await item.scrollIntoViewIfNeeded();
+  const from = (await item.boundingBox())!;
+  const cell = page.locator(`td.fc-day[data-date="${date}"]`);
+  await page.mouse.move(from.x + from.width / 2, from.y + from.height / 2);
+  await page.mouse.down();
+  await page.mouse.move(from.x + from.width / 2 - 20, from.y + from.height / 2, { steps: 5 });
+  for (let i = 0; i < 3; i++) {
+    const to = (await cell.boundingBox())!;
+    await page.mouse.move(to.x + to.width / 2, to.y + to.height / 2, { steps: 10 });
+    await page.waitForTimeout(150);
+  }
+  await page.mouse.up();
+}
