@@ -22,7 +22,8 @@ for (const [name, job] of Object.entries(JOBS)) {
   await boss.schedule(name, job.cron);
   await boss.work(name, async () => {
     const result = await job.run(new Date());
-    if (name !== "deliver-outbox") log(`${name}: ${JSON.stringify(result)}`);
+    // Reminder jobs answer how many messages they queued; say so only when there were some.
+    if (name !== "deliver-outbox" && typeof result === "number" && result > 0) log(`${name}: ${result} message(s) queued`);
   });
 }
 

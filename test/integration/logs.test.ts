@@ -194,9 +194,9 @@ describe("load and roster", () => {
     expect(planned.status).toBe(201);
     expect((await rowOfB()).compliance4w).toBe(0);
     expect((await logAs(s.athleteB.browser, planned.json.id, { status: "done", durationMin: 60, rpe: 4 })).status).toBe(201);
-    expect((await rowOfB()).compliance4w).toBe(1); // 60 of 60 planned minutes
+    expect((await rowOfB()).compliance4w).toBe(1); // 60 of 60 planned minutes (hand computation)
     await query(`update session_log set duration_min = 30 where planned_session_id = $1`, [planned.json.id]);
-    expect((await rowOfB()).compliance4w).toBe(0.5);
+    expect((await rowOfB()).compliance4w).toBe(0.5); // 30 of 60 (hand computation)
     // A stored row equals the row computed afresh.
     const cached = (await s.coach.browser.call(rosterRoute, "GET", "/api/roster", { query: `?squad=${s.squadId}` })).json.rows;
     await query(`delete from roster_cache`);

@@ -12,13 +12,13 @@ export interface FeedSession {
   notes: string;
 }
 
-export function calendarIcs(input: { name: string; sessions: FeedSession[]; stampedAt: Date; host?: string }): string {
+export function calendarIcs(input: { name: string; sessions: FeedSession[]; stampedAt: Date }): string {
   const cal = ical({ name: input.name, prodId: { company: "Tidemark", product: "plan-feed", language: "EN" }, ttl: 3600 });
   for (const s of input.sessions) {
     const [y, m, d] = s.date.split("-").map(Number) as [number, number, number];
     const minutes = Math.round(s.totalS / 60);
     cal.createEvent({
-      id: `${s.id}@${input.host ?? "tidemark"}`,
+      id: `${s.id}@tidemark`,
       start: new Date(Date.UTC(y, m - 1, d)),
       allDay: true,
       stamp: input.stampedAt,

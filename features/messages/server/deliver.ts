@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, eq, inArray, lte, sql } from "drizzle-orm";
+import { and, asc, eq, lte } from "drizzle-orm";
 import { getDb, schema } from "@/db/client";
 import { sendEmail } from "./transport";
 
@@ -51,10 +51,4 @@ export async function deliverPending(now = new Date(), limit = 50): Promise<Deli
     }
   });
   return report;
-}
-
-/** Makes every waiting message due now (an operator's "retry now"). */
-export async function retryWaitingNow(ids?: string[]): Promise<void> {
-  const where = ids?.length ? and(eq(schema.outbox.status, "pending"), inArray(schema.outbox.id, ids)) : eq(schema.outbox.status, "pending");
-  await getDb().update(schema.outbox).set({ nextAttemptAt: sql`now()` }).where(where);
 }
