@@ -180,7 +180,11 @@ describe("accounts, squads and invitations", () => {
     expect((await b.auth("POST", "/sign-up/email", { name: "Dup", email: "hana@example.test", password: "long-enough-password" })).status).toBeGreaterThanOrEqual(400);
   });
 
-  it("password reset: the request writes a message with a link, and the link sets a new password", async () => {
+  it("password reset: the request writes a message with a link, the link sets a new password and ends the other sessions at once", async () => {
+    // Another device, signed in before the reset and seen (so its session is remembered by the server) just before it.
+    const other = new Browser("198.51.100.33");
+    expect((await other.signIn("ada@example.test")).status).toBe(200);
+    expect((await other.call(meRoute, "GET", "/api/me")).status).toBe(200);
     const b = new Browser("198.51.100.30");
     const r = await b.auth("POST", "/request-password-reset", { email: "ada@example.test", redirectTo: "/reset-password" });
     expect(r.status).toBe(200);
@@ -191,6 +195,18 @@ describe("accounts, squads and invitations", () => {
     expect(reset.status).toBe(200);
     expect((await new Browser("198.51.100.31").signIn("ada@example.test", "a-brand-new-password")).status).toBe(200);
     expect((await new Browser("198.51.100.32").signIn("ada@example.test")).status).toBe(401);
+    expect((await other.call(meRoute, "GET", "/api/me")).status).toBe(401);
+  });
+
+  it("a signed-out session cookie, replayed, no longer signs anyone in", async () => {
+    const b = new Browser("198.51.100.34");
+    await b.signUp("Replay", "replay@example.test");
+    expect((await b.call(meRoute, "GET", "/api/me")).status).toBe(200);
+    const stolen = b.cookie;
+    expect((await b.auth("POST", "/sign-out", {})).status).toBe(200);
+    const thief = new Browser("198.51.100.35");
+    thief.cookie = stolen;
+    expect((await thief.call(meRoute, "GET", "/api/me")).status).toBe(401);
   });
 
   it("rate-limits repeated sign-in attempts from one address with 429", async () => {

@@ -194,4 +194,51 @@ describe("sessions and weekly budgets", () => {
     const bad = await s.coach.browser.call(sessionRoute, "PATCH", `/api/sessions/${r.json.id}`, { params: { id: r.json.id }, body: { structure: [{ type: "repeat", times: 1, steps: [] }] } });
     expect(bad.status).toBe(400);
   });
+
+  it("a stored weeks answer is never served after the athlete's plan, tests or squads changed, by any path, nor to someone without access", async () => {
+    // A fresh athlete in the squad of `other`, so that nothing else in this file touches their plan.
+    const athlete = other.athleteA;
+    const get = (who = other.coach.browser, range = "?from=2029-01-01&to=2029-01-08") =>
+      who.call(weeksRoute, "GET", `/api/athletes/${athlete.id}/weeks`, { params: { id: athlete.id }, query: range });
+    const planFor = (date: string) => other.coach.browser.call(sessionsRoute, "POST", `/api/athletes/${athlete.id}/sessions`, { params: { id: athlete.id }, body: { date, structure: [step("work", 50, 1)], title: "Easy", sport: "running" } });
+    expect((await get()).json[0].plannedMinByZone).toEqual([0, 0, 0]);
+    // Through the API.
+    const easy = await planFor("2029-01-02");
+    expect(easy.status).toBe(201);
+    expect((await get()).json[0].plannedMinByZone).toEqual([50, 0, 0]);
+    // The same question twice in a row: the same answer.
+    expect((await get()).json).toEqual((await get()).json);
+    // Behind the API's back, as another server process or an operator would: moved to the next week in SQL.
+    await query(`update planned_session set date = '2029-01-09' where id = $1`, [easy.json.id]);
+    let w = (await get()).json;
+    expect(w[0].plannedMinByZone).toEqual([0, 0, 0]);
+    expect(w[1].plannedMinByZone).toEqual([50, 0, 0]);
+    // Deleted in SQL.
+    await query(`delete from planned_session where id = $1`, [easy.json.id]);
+    w = (await get()).json;
+    expect(w[1].plannedMinByZone).toEqual([0, 0, 0]);
+    // An overdue retest clears once a test is recorded (the season's first retest week lies in the past).
+    const season = await other.coach.browser.call(seasonsRoute, "POST", `/api/athletes/${athlete.id}/seasons`, {
+      params: { id: athlete.id },
+      body: { name: "Spring", sport: "running", startDate: "2026-01-05", events: [{ date: "2026-10-04", name: "Race" }], weeklyHours: 6 },
+    });
+    expect(season.status).toBe(201);
+    const retestWeek = (season.json.weeks as { weekStart: string; retest: boolean }[]).find((x) => x.retest)!.weekStart;
+    const range = `?from=${retestWeek}&to=${retestWeek}`;
+    expect((await get(other.coach.browser, range)).json[0].flags.map((f: { code: string }) => f.code)).toContain("retest_overdue");
+    const test = await other.coach.browser.call(testsRoute, "POST", `/api/athletes/${athlete.id}/tests`, {
+      params: { id: athlete.id },
+      body: { kind: "manual", meta: { sport: "running", protocol: "lab report", date: addDays(retestWeek, 2), endedBy: "plan" }, vt1: { hrBpm: 142 }, vt2: { hrBpm: 165 } },
+    });
+    expect(test.status).toBe(201);
+    expect((await get(other.coach.browser, range)).json[0].flags.map((f: { code: string }) => f.code)).not.toContain("retest_overdue");
+    // Access is checked on every request, the stored answer notwithstanding: a coach of another squad, a squad mate,
+    // and the coach once removed from the squad.
+    expect((await get()).status).toBe(200);
+    expect((await get(s.coach.browser)).status).toBe(404);
+    expect((await get(other.athleteB.browser)).status).toBe(404);
+    expect((await get(athlete.browser)).status).toBe(200);
+    await query(`delete from membership where squad_id = $1 and user_id = $2`, [other.squadId, other.coach.id]);
+    expect((await get()).status).toBe(404);
+  });
 });

@@ -2,6 +2,7 @@ import "server-only";
 import { eq } from "drizzle-orm";
 import { getDb, schema } from "@/db/client";
 import { getAuth } from "@/features/auth/server/auth";
+import { recallSession, rememberSession, sessionCookieKey } from "@/features/auth/server/session-memo";
 import { HttpError, notFound, unauthenticated, forbidden } from "@/features/platform/server/http";
 import {
   canCoachAthlete,
@@ -30,8 +31,14 @@ async function membershipsOf(userId: string): Promise<Membership[]> {
 
 /** The signed-in user with their memberships, or null. */
 export async function findActor(headers: Headers): Promise<SignedInActor | null> {
-  const result = await getAuth().api.getSession({ headers });
-  if (!result) return null;
+  type Session = Awaited<ReturnType<ReturnType<typeof getAuth>["api"]["getSession"]>>;
+  const key = sessionCookieKey(headers);
+  let result = key ? recallSession<Session>(key) : undefined;
+  if (!result) {
+    result = await getAuth().api.getSession({ headers });
+    if (!result) return null;
+    if (key) rememberSession(key, result, { userId: result.user.id, token: result.session.token, expiresAt: result.session.expiresAt });
+  }
   const u = result.user as typeof result.user & { isAdmin?: boolean };
   return {
     userId: u.id,
@@ -81,7 +88,11 @@ async function loadTarget(athleteId: string): Promise<AthleteTarget> {
  * the actor's squads is not revealed.
  */
 export async function requireAthleteAccess(actor: Actor, athleteId: string, action: "view" | "edit" | "coach"): Promise<void> {
-  const target = await loadTarget(athleteId);
+  checkAthleteAccess(actor, await loadTarget(athleteId), action);
+}
+
+/** requireAthleteAccess for a caller that has already read the athlete's memberships (with other data, in one query). */
+export function checkAthleteAccess(actor: Actor, target: AthleteTarget, action: "view" | "edit" | "coach"): void {
   if (!canViewAthlete(actor, target)) throw notFound("No such athlete.");
   if (action === "edit" && !canEditAthlete(actor, target)) throw forbidden();
   if (action === "coach" && !canCoachAthlete(actor, target)) throw forbidden("Only the athlete's coaches may do this.");

@@ -2,6 +2,7 @@ import "server-only";
 import { betterAuth } from "better-auth";
 import { drizzleAdapter } from "better-auth/adapters/drizzle";
 import { getDb, schema } from "@/db/client";
+import { forgetSessionToken, forgetUserSessions } from "./session-memo";
 import { sendPasswordReset } from "@/features/messages/server/account-messages";
 
 function signInLimit(): number {
@@ -42,6 +43,20 @@ function createAuth() {
     session: {
       expiresIn: 60 * 60 * 24 * 14,
       updateAge: 60 * 60 * 24,
+    },
+    // The in-process memory of verified sessions (session-memo.ts) forgets what these change, at once.
+    databaseHooks: {
+      user: {
+        update: { after: async (user) => forgetUserSessions(user.id) },
+        delete: { after: async (user) => forgetUserSessions(user.id) },
+      },
+      account: {
+        update: { after: async (account) => forgetUserSessions(account.userId) },
+        delete: { after: async (account) => forgetUserSessions(account.userId) },
+      },
+      session: {
+        delete: { after: async (session) => forgetSessionToken(session.token) },
+      },
     },
     rateLimit: {
       enabled: process.env.TIDEMARK_DISABLE_RATE_LIMIT !== "1",

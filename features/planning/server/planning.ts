@@ -3,7 +3,7 @@ import { randomUUID } from "node:crypto";
 import { and, asc, eq, gte, inArray, lte } from "drizzle-orm";
 import type { z } from "zod";
 import { getDb, schema, type Database } from "@/db/client";
-import { requireAthleteAccess, requireAthleteAccessOrNotFound } from "@/features/access/server/permissions";
+import { checkAthleteAccess, requireAthleteAccess, requireAthleteAccessOrNotFound } from "@/features/access/server/permissions";
 import { canViewRoster, isCoachOf, type Actor } from "@/features/access/lib/rules";
 import { HttpError, notFound } from "@/features/platform/server/http";
 import { zoneSetInForce } from "@/features/zones/lib/zones";
@@ -12,6 +12,7 @@ import { logZoneMinutes } from "@/features/load/lib/report";
 import { expandDates, rruleText } from "../lib/recurrence";
 import { planSeason, SeasonError, mondayOf, type SeasonWeek } from "../lib/season";
 import { expand, type Block } from "../lib/session";
+import { athleteMembershipsAndGeneration, cachedAnswer, storeAnswer } from "./week-cache";
 import { addDays, summariseWeeks, type SeasonWeekInfo, type WeekSummary } from "../lib/weeks";
 import type { createSessionSchema, patchSessionSchema, seasonSchema, seasonWeekPatchSchema } from "../schemas";
 
@@ -208,8 +209,29 @@ export async function listSeasons(actor: Actor, athleteId: string) {
 }
 
 /** Per ISO week: planned minutes per zone against the budget of the season week, with flags and a fix. */
-export async function weekSummaries(actor: Actor, athleteId: string, from: string, to: string) {
+export async function weekSummaries(actor: Actor, athleteId: string, from: string, to: string, today = utcToday()) {
   await requireAthleteAccess(actor, athleteId, "view");
+  return computeWeekSummaries(athleteId, from, to, today);
+}
+
+const utcToday = () => new Date().toISOString().slice(0, 10);
+
+/**
+ * `weekSummaries` as the JSON the weeks API answers with, from the per-process store of answers when nothing about the
+ * athlete changed since it was computed (week-cache.ts).
+ */
+export async function weekSummariesJson(actor: Actor, athleteId: string, from: string, to: string, today = utcToday()): Promise<string> {
+  const { memberships, generation } = await athleteMembershipsAndGeneration(athleteId);
+  checkAthleteAccess(actor, { userId: athleteId, memberships }, "view");
+  const key = `${athleteId}|${from}|${to}|${today}`;
+  const hit = cachedAnswer(key, generation);
+  if (hit !== undefined) return hit;
+  const body = JSON.stringify(await computeWeekSummaries(athleteId, from, to, today));
+  storeAnswer(key, generation, body);
+  return body;
+}
+
+async function computeWeekSummaries(athleteId: string, from: string, to: string, today: string) {
   const db = getDb();
   const start = addDays(mondayOf(from), -28);
   // Two weeks beyond the range too: a proposed fix may move a session into them.
@@ -229,7 +251,7 @@ export async function weekSummaries(actor: Actor, athleteId: string, from: strin
   const seasonWeeks = seasons.flatMap((s) => s.weeks as unknown as SeasonWeekInfo[]);
   const plannedById = new Map(sessions.map((s) => [s.id, s]));
   const done = logs.map((l) => ({ date: l.date, minutesByZone: logZoneMinutes(l, l.plannedSessionId ? plannedById.get(l.plannedSessionId) : undefined) ?? ([0, 0, 0] as [number, number, number]) }));
-  return summariseWeeks({ from, to, sessions, seasonWeeks, testDates: tests.map((t) => t.date), done });
+  return summariseWeeks({ from, to, sessions, seasonWeeks, testDates: tests.map((t) => t.date), done, today });
 }
 
 /** The next retest session on or after a date, or null. */

@@ -1,7 +1,7 @@
 import { requireActor } from "@/features/access/server/permissions";
-import { fieldErrors, HttpError, json, parseParams, route } from "@/features/platform/server/http";
+import { fieldErrors, HttpError, parseParams, route } from "@/features/platform/server/http";
 import { rangeQuery } from "@/features/planning/schemas";
-import { weekSummaries } from "@/features/planning/server/planning";
+import { weekSummariesJson } from "@/features/planning/server/planning";
 import { idParam } from "@/features/squads/schemas";
 
 export const dynamic = "force-dynamic";
@@ -12,5 +12,6 @@ export const GET = route<Ctx>(async (req, ctx) => {
   const { id } = parseParams(await ctx.params, idParam);
   const q = rangeQuery.safeParse(Object.fromEntries(new URL(req.url).searchParams));
   if (!q.success) throw new HttpError(400, "Give ?from=YYYY-MM-DD&to=YYYY-MM-DD.", { fieldErrors: fieldErrors(q.error) });
-  return json(await weekSummaries(actor, id, q.data.from, q.data.to));
+  const body = await weekSummariesJson(actor, id, q.data.from, q.data.to);
+  return new Response(body, { headers: { "content-type": "application/json", "cache-control": "no-store" } });
 });
