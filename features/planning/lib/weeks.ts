@@ -4,6 +4,7 @@
  */
 import { BUDGET_PRESETS, checkWeek, type Breach, type Budget, type BudgetPreset, type Shares } from "./budget";
 import { formatDate, mondayOf, parseDate } from "./season";
+import { dayNumber, isoOfDay } from "@/features/platform/lib/days";
 
 export interface WeekSession {
   id: string;
@@ -41,7 +42,11 @@ export interface WeekSummary {
 }
 
 const DAY = 86_400_000;
-export const addDays = (iso: string, n: number) => formatDate(parseDate(iso) + n * DAY);
+export function addDays(iso: string, n: number): string {
+  const day = dayNumber(iso);
+  // An invalid date takes the long way, which says what is wrong with it.
+  return Number.isNaN(day) ? formatDate(parseDate(iso) + n * DAY) : isoOfDay(day + n);
+}
 
 function minutesOf(sessions: WeekSession[]): Shares {
   const m: Shares = [0, 0, 0];
@@ -72,11 +77,15 @@ function previousTotals(weekStart: string, weekOf: WeekOf): number[] {
   });
 }
 
+/** Minutes per zone of each day of the week, Monday first. */
 function daysOf(weekStart: string, sessions: WeekSession[]): Shares[] {
-  return Array.from({ length: 7 }, (_, i) => {
-    const day = addDays(weekStart, i);
-    return minutesOf(sessions.filter((s) => s.date === day));
-  });
+  const monday = dayNumber(weekStart);
+  const days: Shares[] = [[0, 0, 0], [0, 0, 0], [0, 0, 0], [0, 0, 0], [0, 0, 0], [0, 0, 0], [0, 0, 0]];
+  for (const s of sessions) {
+    const day = days[dayNumber(s.date) - monday];
+    if (day) for (let z = 0; z < 3; z++) day[z]! += s.minutesByZone[z]!;
+  }
+  return days;
 }
 
 export interface SummariseInput {
@@ -162,20 +171,18 @@ export function proposeFix(weekStart: string, inWeek: WeekSession[], input: Summ
     check(week, of, input, previousTotals(week, of), false).result.breaches.filter((b) => b.code !== "retest_overdue" && b.code !== "volume_ramp");
   for (const s of candidates) {
     if (s.minutesByZone[2] + s.minutesByZone[1] === 0) break;
+    // The week without this session: the checks that count here (shares, easy day) do not look at other weeks, so
+    // whether it then keeps its budget does not depend on where the session goes.
+    const without: WeekOf = (w) => (w === weekStart ? weekOf(w).filter((x) => x.id !== s.id) : weekOf(w));
+    if (breachesOf(weekStart, without).length > 0) continue;
     for (const shift of [7, -7, 14]) {
       const toDate = addDays(s.date, shift);
       if (toDate < (input.today ?? "0000-00-00")) continue;
       const targetWeek = mondayOf(toDate);
-      const sourceWeek = mondayOf(s.date);
       // The plan with this one session moved: only its old and new weeks differ.
-      const moved: WeekOf = (w) => {
-        let list = weekOf(w);
-        if (w === sourceWeek) list = list.filter((x) => x.id !== s.id);
-        if (w === targetWeek) list = [...list, { ...s, date: toDate }];
-        return list;
-      };
-      // Both weeks, and the week after the target (its ramp), must then keep their budget.
-      if (breachesOf(weekStart, moved).length === 0 && breachesOf(targetWeek, moved).length === 0) {
+      const moved: WeekOf = (w) => (w === targetWeek ? [...without(w), { ...s, date: toDate }] : without(w));
+      // The week it lands in must then keep its budget too.
+      if (breachesOf(targetWeek, moved).length === 0) {
         return { action: "move", sessionId: s.id, title: s.title, toDate, message: `Move "${s.title}" to ${toDate}: both weeks then keep their budget.` };
       }
     }
