@@ -76,4 +76,16 @@ describe("weekly budget summaries", () => {
     const done = summariseWeeks({ from: "2027-03-15", to: "2027-03-15", today: "2027-03-17", sessions: [], seasonWeeks: [{ weekStart: "2027-03-01", budget: "polarised", block: "x", retest: true }], testDates: ["2027-03-03"] });
     expect(done[0]!.flags).toEqual([]);
   });
+
+  it("a week holding only its retest is not judged yet; once training is planned around it, the test's minutes count", () => {
+    // The generated retest: 10 min zone 1, 15 min zone 2, 10 min zone 1 (43 % zone 2 on its own, hand computation).
+    const retest: WeekSession = { id: "rt", date: "2027-03-17", title: "Retest", kind: "retest", minutesByZone: [20, 15, 0] };
+    const alone = summariseWeeks({ from: "2027-03-15", to: "2027-03-15", today: "2027-03-01", sessions: [retest] });
+    expect(alone[0]!.plannedMinByZone).toEqual([20, 15, 0]);
+    expect(alone[0]!.flags).toEqual([]);
+    expect(alone[0]!.overBudget).toBe(false);
+    // With one easy hour: 80 z1 + 15 z2 of 95 min → zone 2 is 15.8 %, over the polarised 5 % + 5 %; zone 1 84.2 % is fine.
+    const planned = summariseWeeks({ from: "2027-03-15", to: "2027-03-15", today: "2027-03-01", sessions: [retest, s("e", "2027-03-15", [60, 0, 0])] });
+    expect(planned[0]!.flags.map((f) => f.code)).toEqual(["too_much_moderate"]);
+  });
 });

@@ -120,8 +120,11 @@ function check(weekStart: string, weekOf: WeekOf, input: SummariseInput, previou
   const inWeek = weekOf(weekStart);
   const planned = minutesOf(inWeek);
   const { budget, block } = weekBudget(weekStart, input);
+  // A week that holds nothing but its retest is not planned yet: the test alone is no mix of training to judge (common
+  // practice: the budget governs training; the test's minutes count once training is planned around it).
+  const judged: Shares = inWeek.some((s) => s.kind !== "retest") ? planned : [0, 0, 0];
   // The easy-day rule applies only to weeks with training on most days; a week of two sessions has easy days by itself.
-  const result = checkWeek({ minutesByZone: planned, days: daysOf(weekStart, inWeek), previousWeeksMinutes: previousTotals, budget, retestOverdue });
+  const result = checkWeek({ minutesByZone: judged, days: daysOf(weekStart, inWeek), previousWeeksMinutes: previousTotals, budget, retestOverdue });
   return { inWeek, planned, budget, block, result };
 }
 
