@@ -246,6 +246,12 @@ describe("the everyday story", () => {
     const unsubscribe = /https?:\/\/\S+\/unsubscribe\/\S+/.exec(text)![0];
     const reader = await newPage(browser);
     await reader.page.goto(unsubscribe);
+    // Opening the link only asks: a mail scanner following it changes nothing.
+    await reader.page.getByRole("heading", { name: "Stop retest reminders?" }).waitFor();
+    await visit(reader.page, "18a-unsubscribe-asks", reader.problems);
+    const [before] = await query<{ remind_retests: boolean }>(`select remind_retests from athlete_profile where user_id = $1`, [athleteId]);
+    expect(before?.remind_retests).toBe(true);
+    await reader.page.getByRole("button", { name: "Turn off retest reminders" }).click();
     await reader.page.getByRole("heading", { name: "Turned off: retest reminders" }).waitFor();
     await visit(reader.page, "18-unsubscribed", reader.problems);
     const [profile] = await query<{ remind_retests: boolean }>(`select remind_retests from athlete_profile where user_id = $1`, [athleteId]);

@@ -43,7 +43,7 @@ export async function newPage(browser: Browser): Promise<{ page: Page; problems:
       if (new URL(r.url()).searchParams.has("_rsc")) return;
       if (navigating && !(r.isNavigationRequest() && r.frame() === page.mainFrame())) return;
     }
-    problems.push(`request failed: ${r.url()} ${r.failure()?.errorText}`);
+    problems.push(`request failed: ${r.method()} ${r.resourceType()} nav=${r.isNavigationRequest()} ${r.url()} ${r.failure()?.errorText}`);
   });
   return { page, problems };
 }

@@ -46,6 +46,24 @@ export async function revokeCalendarToken(actor: Actor): Promise<void> {
 }
 
 /**
+ * What an unsubscribe link is for and whether that kind of message is already off, or null for a token that is not ours.
+ * Only reads: a mail scanner or link preview opening the link changes nothing.
+ */
+export async function readUnsubscribeLink(token: string): Promise<{ kind: UnsubscribableKind; label: string; email: string; alreadyOff: boolean } | null> {
+  const parsed = readUnsubscribeToken(process.env.BETTER_AUTH_SECRET ?? "", token);
+  if (!parsed) return null;
+  const [u] = await getDb()
+    .select({ email: schema.user.email, remindSessions: schema.athleteProfile.remindSessions, remindRetests: schema.athleteProfile.remindRetests, coachDigest: schema.notificationSetting.coachDigest })
+    .from(schema.user)
+    .leftJoin(schema.athleteProfile, eq(schema.athleteProfile.userId, schema.user.id))
+    .leftJoin(schema.notificationSetting, eq(schema.notificationSetting.userId, schema.user.id))
+    .where(eq(schema.user.id, parsed.userId));
+  if (!u) return null;
+  const on = parsed.kind === "session_reminder" ? u.remindSessions : parsed.kind === "retest_reminder" ? u.remindRetests : u.coachDigest;
+  return { kind: parsed.kind, label: KIND_LABELS[parsed.kind], email: u.email, alreadyOff: on === false };
+}
+
+/**
  * Turns off one kind of message for the account named in a signed token, without signing in. Returns what was turned
  * off, or null for a token that is not ours.
  */
