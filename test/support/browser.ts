@@ -20,6 +20,14 @@ export async function newPage(browser: Browser): Promise<{ page: Page; problems:
   const page = await context.newPage();
   // A step that cannot happen fails within this time, with the locator it waited for, instead of hanging the suite.
   page.setDefaultTimeout(20_000);
+  // Every page load waits until the app has hydrated (app/providers.tsx marks <html>), as a person would wait for a page
+  // to respond: a choice made in a form before then can be lost.
+  const goto = page.goto.bind(page);
+  page.goto = async (url, options) => {
+    const response = await goto(url, options);
+    if (response?.headers()["content-type"]?.includes("text/html")) await page.locator("html[data-hydrated]").waitFor({ state: "attached" });
+    return response;
+  };
   const problems: string[] = [];
   page.on("console", (m) => {
     if (m.type() === "error") problems.push(`console: ${m.text()}`);
