@@ -1,17 +1,15 @@
 "use client";
 import { useRouter } from "next/navigation";
-import { useState, useSyncExternalStore } from "react";
+import { useState } from "react";
+import { useHydrated } from "@/features/platform/components/use-hydrated";
 import { FormAlert } from "@/features/platform/components/form-bits";
 import { apiFetch } from "@/features/squads/api";
-
-const noSubscription = () => () => {};
 
 /** The one button of the unsubscribe page: turns that kind of message off, then shows the page's new state. */
 export function TurnOffButton({ token, label }: { token: string; label: string }) {
   const router = useRouter();
   const [busy, setBusy] = useState(false);
-  // Until the page's script runs the button could not do anything, so it shows as disabled until then.
-  const ready = useSyncExternalStore(noSubscription, () => true, () => false);
+  const ready = useHydrated();
   const [error, setError] = useState<string>();
   const turnOff = async () => {
     setBusy(true);

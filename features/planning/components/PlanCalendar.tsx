@@ -7,6 +7,7 @@ import type { DatesSetArg, EventClickArg, EventDropArg, EventInput } from "@full
 import type { EventReceiveArg } from "@fullcalendar/interaction";
 import { useEffect, useMemo, useRef, useState } from "react";
 import { FormAlert, FormNotice } from "@/features/platform/components/form-bits";
+import { useHydrated } from "@/features/platform/components/use-hydrated";
 import { useQueryClient } from "@tanstack/react-query";
 import { ApiError, apiFetch } from "@/features/squads/api";
 import { useCreateSession, useDeleteSession, useMoveSession, useSessions, useWeeks, type SessionDto } from "../api";
@@ -345,6 +346,7 @@ function KeyboardPlanner({ templates, defaultDate, onPlan }: { templates: TrayTe
   const [count, setCount] = useState(8);
   const [until, setUntil] = useState("");
   const [problem, setProblem] = useState("");
+  const hydrated = useHydrated();
   if (!templates.length) return null;
   return (
     <form
@@ -361,48 +363,50 @@ function KeyboardPlanner({ templates, defaultDate, onPlan }: { templates: TrayTe
       }}
     >
       <p className="font-semibold">Plan without dragging</p>
-      <div>
-        <label htmlFor="kp-template" className="field-label">Template</label>
-        <select id="kp-template" className="field-input" value={templateId} onChange={(e) => setTemplateId(e.target.value)}>
-          <option value="">Choose…</option>
-          {templates.map((t) => <option key={t.id} value={t.id}>{t.name}</option>)}
-        </select>
-      </div>
-      <div>
-        <label htmlFor="kp-day" className="field-label">Day</label>
-        <input id="kp-day" type="date" className="field-input num" value={date} onChange={(e) => setDate(e.target.value)} />
-      </div>
-      <label className="flex items-center gap-2">
-        <input type="checkbox" checked={repeats} onChange={(e) => setRepeats(e.target.checked)} /> Repeat weekly
-      </label>
-      {repeats ? (
-        <div className="space-y-2 border-l-2 border-rule pl-2">
-          <fieldset>
-            <legend className="field-label">On</legend>
-            <div className="flex flex-wrap gap-x-2">
-              {WEEKDAYS.map((d) => (
-                <label key={d} className="flex items-center gap-1">
-                  <input type="checkbox" checked={days.includes(d)} onChange={(e) => setDays((x) => (e.target.checked ? [...x, d] : x.filter((y) => y !== d)))} />
-                  {WEEKDAY_LABELS[d]}
-                </label>
-              ))}
-            </div>
-          </fieldset>
-          <fieldset className="space-y-1">
-            <legend className="field-label">Ends</legend>
-            <label className="flex items-center gap-1">
-              <input type="radio" checked={endBy === "count"} onChange={() => setEndBy("count")} /> after
-              <input aria-label="Number of sessions" type="number" min={1} max={104} className="field-input mt-0 w-16 num" value={count} onChange={(e) => setCount(Number(e.target.value))} /> sessions
-            </label>
-            <label className="flex items-center gap-1">
-              <input type="radio" checked={endBy === "until"} onChange={() => setEndBy("until")} /> on
-              <input aria-label="Last date" type="date" className="field-input mt-0 num" value={until} onChange={(e) => setUntil(e.target.value)} />
-            </label>
-          </fieldset>
+      <fieldset disabled={!hydrated} className="space-y-2">
+        <div>
+          <label htmlFor="kp-template" className="field-label">Template</label>
+          <select id="kp-template" className="field-input" value={templateId} onChange={(e) => setTemplateId(e.target.value)}>
+            <option value="">Choose…</option>
+            {templates.map((t) => <option key={t.id} value={t.id}>{t.name}</option>)}
+          </select>
         </div>
-      ) : null}
-      {problem ? <p role="alert" className="text-alert">{problem}</p> : null}
-      <button type="submit" className="btn w-full" disabled={!templateId || !date}>{repeats ? "Plan the series" : "Plan it"}</button>
+        <div>
+          <label htmlFor="kp-day" className="field-label">Day</label>
+          <input id="kp-day" type="date" className="field-input num" value={date} onChange={(e) => setDate(e.target.value)} />
+        </div>
+        <label className="flex items-center gap-2">
+          <input type="checkbox" checked={repeats} onChange={(e) => setRepeats(e.target.checked)} /> Repeat weekly
+        </label>
+        {repeats ? (
+          <div className="space-y-2 border-l-2 border-rule pl-2">
+            <fieldset>
+              <legend className="field-label">On</legend>
+              <div className="flex flex-wrap gap-x-2">
+                {WEEKDAYS.map((d) => (
+                  <label key={d} className="flex items-center gap-1">
+                    <input type="checkbox" checked={days.includes(d)} onChange={(e) => setDays((x) => (e.target.checked ? [...x, d] : x.filter((y) => y !== d)))} />
+                    {WEEKDAY_LABELS[d]}
+                  </label>
+                ))}
+              </div>
+            </fieldset>
+            <fieldset className="space-y-1">
+              <legend className="field-label">Ends</legend>
+              <label className="flex items-center gap-1">
+                <input type="radio" checked={endBy === "count"} onChange={() => setEndBy("count")} /> after
+                <input aria-label="Number of sessions" type="number" min={1} max={104} className="field-input mt-0 w-16 num" value={count} onChange={(e) => setCount(Number(e.target.value))} /> sessions
+              </label>
+              <label className="flex items-center gap-1">
+                <input type="radio" checked={endBy === "until"} onChange={() => setEndBy("until")} /> on
+                <input aria-label="Last date" type="date" className="field-input mt-0 num" value={until} onChange={(e) => setUntil(e.target.value)} />
+              </label>
+            </fieldset>
+          </div>
+        ) : null}
+        {problem ? <p role="alert" className="text-alert">{problem}</p> : null}
+        <button type="submit" className="btn w-full" disabled={!templateId || !date}>{repeats ? "Plan the series" : "Plan it"}</button>
+      </fieldset>
     </form>
   );
 }
