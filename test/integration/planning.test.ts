@@ -201,6 +201,8 @@ describe("sessions and weekly budgets", () => {
     const get = (who = other.coach.browser, range = "?from=2029-01-01&to=2029-01-08") =>
       who.call(weeksRoute, "GET", `/api/athletes/${athlete.id}/weeks`, { params: { id: athlete.id }, query: range });
     const planFor = (date: string) => other.coach.browser.call(sessionsRoute, "POST", `/api/athletes/${athlete.id}/sessions`, { params: { id: athlete.id }, body: { date, structure: [step("work", 50, 1)], title: "Easy", sport: "running" } });
+    // The athlete's change counter exists from sign-up on, so that no change goes uncounted before anyone asked.
+    expect(await query(`select 1 from roster_cache where athlete_id = $1`, [athlete.id])).toHaveLength(1);
     expect((await get()).json[0].plannedMinByZone).toEqual([0, 0, 0]);
     // Through the API.
     const easy = await planFor("2029-01-02");

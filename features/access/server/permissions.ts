@@ -35,9 +35,10 @@ export async function findActor(headers: Headers): Promise<SignedInActor | null>
   const key = sessionCookieKey(headers);
   let result = key ? recallSession<Session>(key) : undefined;
   if (!result) {
+    const startedAt = Date.now();
     result = await getAuth().api.getSession({ headers });
     if (!result) return null;
-    if (key) rememberSession(key, result, { userId: result.user.id, token: result.session.token, expiresAt: result.session.expiresAt });
+    if (key) rememberSession(key, result, { userId: result.user.id, token: result.session.token, expiresAt: result.session.expiresAt }, startedAt);
   }
   const u = result.user as typeof result.user & { isAdmin?: boolean };
   return {

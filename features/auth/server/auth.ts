@@ -51,8 +51,9 @@ function createAuth() {
         delete: { after: async (user) => forgetUserSessions(user.id) },
       },
       account: {
-        update: { after: async (account) => forgetUserSessions(account.userId) },
-        delete: { after: async (account) => forgetUserSessions(account.userId) },
+        // (A password reset updates accounts in bulk and passes no row here; its session deletions are what count.)
+        update: { after: async (account) => void (typeof account?.userId === "string" && forgetUserSessions(account.userId)) },
+        delete: { after: async (account) => void (typeof account?.userId === "string" && forgetUserSessions(account.userId)) },
       },
       session: {
         delete: { after: async (session) => forgetSessionToken(session.token) },

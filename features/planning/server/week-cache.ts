@@ -15,27 +15,19 @@ const MAX_ENTRIES = 300;
 const answers = new Map<string, { generation: number; body: string }>();
 
 /**
- * The athlete's squad memberships (for the access check) and change counter, in one query; the counter's row is created
- * first when missing (the triggers only bump existing rows). Read before the data it guards: a change made meanwhile
- * then makes the stored answer look older than it is, never newer.
+ * The athlete's squad memberships (for the access check) and change counter, in one query. Every account has its counter
+ * row from creation (migration 0007); for one that somehow lacks it, the counter is null and nothing is stored. Read
+ * before the data it guards: a change made meanwhile then makes the stored answer look older than it is, never newer.
  */
-export async function athleteMembershipsAndGeneration(athleteId: string): Promise<{ memberships: Membership[]; generation: number }> {
-  const db = getDb();
-  const read = () =>
-    db.execute<{ generation: string | null; squad_id: string | null; role: Membership["role"] | null }>(sql`
-      select c.generation, m.squad_id, m.role
-      from (select ${athleteId}::text as id) a
-      left join roster_cache c on c.athlete_id = a.id
-      left join membership m on m.user_id = a.id`);
-  let rows = await read();
-  if (rows[0]?.generation == null) {
-    const [exists] = await db.execute(sql`select 1 from "user" where id = ${athleteId}`);
-    if (exists) await db.execute(sql`insert into roster_cache (athlete_id) values (${athleteId}) on conflict do nothing`);
-    rows = await read();
-  }
+export async function athleteMembershipsAndGeneration(athleteId: string): Promise<{ memberships: Membership[]; generation: number | null }> {
+  const rows = await getDb().execute<{ generation: string | null; squad_id: string | null; role: Membership["role"] | null }>(sql`
+    select c.generation, m.squad_id, m.role
+    from (select ${athleteId}::text as id) a
+    left join roster_cache c on c.athlete_id = a.id
+    left join membership m on m.user_id = a.id`);
   return {
     memberships: rows.filter((r) => r.squad_id !== null).map((r) => ({ squadId: r.squad_id!, role: r.role! })),
-    generation: Number(rows[0]?.generation ?? 0),
+    generation: rows[0]?.generation == null ? null : Number(rows[0].generation),
   };
 }
 
