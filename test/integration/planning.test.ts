@@ -10,7 +10,10 @@ import * as seasonWeekRoute from "@/app/api/seasons/[id]/weeks/[weekStart]/route
 import * as squadWeekRoute from "@/app/api/squads/[id]/week/route";
 import { makeSquad } from "../support/squad";
 import { query, resetDatabase } from "../support/db";
+import * as profileRoute from "@/app/api/athletes/[id]/profile/route";
 import { addDays } from "@/features/planning/lib/weeks";
+import { weekSummariesJson } from "@/features/planning/server/planning";
+import { actorForUser } from "@/features/access/server/permissions";
 
 type Squad = Awaited<ReturnType<typeof makeSquad>>;
 let s: Squad;
@@ -242,5 +245,25 @@ describe("sessions and weekly budgets", () => {
     expect((await get(athlete.browser)).status).toBe(200);
     await query(`delete from membership where squad_id = $1 and user_id = $2`, [other.squadId, other.coach.id]);
     expect((await get()).status).toBe(404);
+  });
+
+  it("\"today\" is the athlete's own day: a retest week counts as overdue from the athlete's Monday, whatever the day in UTC", async () => {
+    const z = { athleteA: other.athleteB, head: other.head };
+    const id = z.athleteA.id;
+    expect((await z.athleteA.browser.call(profileRoute, "PATCH", `/api/athletes/${id}/profile`, { params: { id }, body: { timeZone: "Pacific/Auckland" } })).status).toBe(200);
+    const season = await z.head.browser.call(seasonsRoute, "POST", `/api/athletes/${id}/seasons`, {
+      params: { id },
+      body: { name: "Tz", sport: "running", startDate: "2026-03-02", events: [{ date: "2026-09-06", name: "Race" }], weeklyHours: 6 },
+    });
+    expect(season.status).toBe(201);
+    const retestWeek = (season.json.weeks as { weekStart: string; retest: boolean }[]).find((x) => x.retest)!.weekStart;
+    const next = addDays(retestWeek, 7);
+    // Sunday 13:00 UTC of the retest week is already Monday in Auckland (UTC+12 or +13), the first day it can be overdue.
+    const now = new Date(`${addDays(retestWeek, 6)}T13:00:00Z`);
+    const coach = await actorForUser(z.head.id);
+    const codes = async (at: Date) => (JSON.parse(await weekSummariesJson(coach, id, next, next, at))[0].flags as { code: string }[]).map((f) => f.code);
+    expect(await codes(now)).toContain("retest_overdue");
+    // Twelve hours earlier it is Sunday in Auckland as well: not overdue yet.
+    expect(await codes(new Date(now.getTime() - 12 * 3_600_000))).not.toContain("retest_overdue");
   });
 });

@@ -6,6 +6,7 @@ import { getDb, schema, type Database } from "@/db/client";
 import { checkAthleteAccess, requireAthleteAccess, requireAthleteAccessOrNotFound } from "@/features/access/server/permissions";
 import { canViewRoster, isCoachOf, type Actor } from "@/features/access/lib/rules";
 import { HttpError, notFound } from "@/features/platform/server/http";
+import { localDate } from "@/features/platform/lib/dates";
 import { zoneSetInForce } from "@/features/zones/lib/zones";
 import { zoneSetsOf } from "@/features/zones/server/zone-sets";
 import { logZoneMinutes } from "@/features/load/lib/report";
@@ -209,20 +210,21 @@ export async function listSeasons(actor: Actor, athleteId: string) {
 }
 
 /** Per ISO week: planned minutes per zone against the budget of the season week, with flags and a fix. */
-export async function weekSummaries(actor: Actor, athleteId: string, from: string, to: string, today = utcToday()) {
+/** Week summaries of an athlete; "today" (overdue retests, the dates a fix may use) is the athlete's own day. */
+export async function weekSummaries(actor: Actor, athleteId: string, from: string, to: string, now = new Date()) {
   await requireAthleteAccess(actor, athleteId, "view");
-  return computeWeekSummaries(athleteId, from, to, today);
+  const [profile] = await getDb().select({ timeZone: schema.athleteProfile.timeZone }).from(schema.athleteProfile).where(eq(schema.athleteProfile.userId, athleteId));
+  return computeWeekSummaries(athleteId, from, to, localDate(now, profile?.timeZone ?? "UTC"));
 }
-
-const utcToday = () => new Date().toISOString().slice(0, 10);
 
 /**
  * `weekSummaries` as the JSON the weeks API answers with, from the per-process store of answers when nothing about the
- * athlete changed since it was computed (week-cache.ts).
+ * athlete changed since it was computed and it is still the same day for the athlete (week-cache.ts).
  */
-export async function weekSummariesJson(actor: Actor, athleteId: string, from: string, to: string, today = utcToday()): Promise<string> {
-  const { memberships, generation } = await athleteMembershipsAndGeneration(athleteId);
+export async function weekSummariesJson(actor: Actor, athleteId: string, from: string, to: string, now = new Date()): Promise<string> {
+  const { memberships, generation, timeZone } = await athleteMembershipsAndGeneration(athleteId);
   checkAthleteAccess(actor, { userId: athleteId, memberships }, "view");
+  const today = localDate(now, timeZone ?? "UTC");
   if (generation === null) return JSON.stringify(await computeWeekSummaries(athleteId, from, to, today));
   const key = `${athleteId}|${from}|${to}|${today}`;
   const hit = cachedAnswer(key, generation);
@@ -279,12 +281,15 @@ export async function squadWeek(actor: Actor, squadId: string, weekStart: string
   const db = getDb();
   const monday = mondayOf(weekStart);
   const sunday = addDays(monday, 6);
-  const athletes = await db
-    .select({ id: schema.user.id, name: schema.user.name })
+  const rows = await db
+    .select({ id: schema.user.id, name: schema.user.name, timeZone: schema.athleteProfile.timeZone })
     .from(schema.membership)
     .innerJoin(schema.user, eq(schema.user.id, schema.membership.userId))
+    .leftJoin(schema.athleteProfile, eq(schema.athleteProfile.userId, schema.user.id))
     .where(and(eq(schema.membership.squadId, squadId), eq(schema.membership.role, "athlete")))
     .orderBy(asc(schema.user.name));
+  const athletes = rows.map(({ id, name }) => ({ id, name }));
+  const timeZoneOf = new Map(rows.map((r) => [r.id, r.timeZone ?? "UTC"]));
   if (!athletes.length) return [];
   const ids = athletes.map((a) => a.id);
   const [sessions, seasons, tests, logs] = await Promise.all([
@@ -302,7 +307,7 @@ export async function squadWeek(actor: Actor, squadId: string, weekStart: string
   ]);
   const plannedById = new Map(sessions.map((x) => [x.id, x]));
   const logOf = new Map(logs.filter((l) => l.plannedSessionId).map((l) => [l.plannedSessionId!, l.status]));
-  const today = new Date().toISOString().slice(0, 10);
+  const now = new Date();
   return athletes.map((a) => {
     const own = sessions.filter((x) => x.athleteId === a.id);
     const done = logs
@@ -314,7 +319,8 @@ export async function squadWeek(actor: Actor, squadId: string, weekStart: string
       sessions: own,
       seasonWeeks: seasons.filter((x) => x.athleteId === a.id).flatMap((x) => x.weeks as unknown as SeasonWeekInfo[]),
       testDates: tests.filter((t) => t.athleteId === a.id).map((t) => t.date),
-      today,
+      // The athlete's own day, as on the roster.
+      today: localDate(now, timeZoneOf.get(a.id)!),
       done,
       withFix: false,
     });

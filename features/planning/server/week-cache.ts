@@ -15,19 +15,21 @@ const MAX_ENTRIES = 300;
 const answers = new Map<string, { generation: number; body: string }>();
 
 /**
- * The athlete's squad memberships (for the access check) and change counter, in one query. Every account has its counter
+ * The athlete's squad memberships (for the access check), change counter and time zone, in one query. Every account has its counter
  * row from creation (migration 0007); for one that somehow lacks it, the counter is null and nothing is stored. Read
  * before the data it guards: a change made meanwhile then makes the stored answer look older than it is, never newer.
  */
-export async function athleteMembershipsAndGeneration(athleteId: string): Promise<{ memberships: Membership[]; generation: number | null }> {
-  const rows = await getDb().execute<{ generation: string | null; squad_id: string | null; role: Membership["role"] | null }>(sql`
-    select c.generation, m.squad_id, m.role
+export async function athleteMembershipsAndGeneration(athleteId: string): Promise<{ memberships: Membership[]; generation: number | null; timeZone: string | null }> {
+  const rows = await getDb().execute<{ generation: string | null; time_zone: string | null; squad_id: string | null; role: Membership["role"] | null }>(sql`
+    select c.generation, p.time_zone, m.squad_id, m.role
     from (select ${athleteId}::text as id) a
     left join roster_cache c on c.athlete_id = a.id
+    left join athlete_profile p on p.user_id = a.id
     left join membership m on m.user_id = a.id`);
   return {
     memberships: rows.filter((r) => r.squad_id !== null).map((r) => ({ squadId: r.squad_id!, role: r.role! })),
     generation: rows[0]?.generation == null ? null : Number(rows[0].generation),
+    timeZone: rows[0]?.time_zone ?? null,
   };
 }
 
