@@ -34,4 +34,16 @@ describe("sessions", () => {
     expect(replayedPage).toMatch(/NEXT_REDIRECT;replace;\/sign-in/);
     expect(problems).toEqual([]);
   });
+
+  it("before the page's script runs, forms cannot be sent (a plain browser submission would put the password in the address)", async () => {
+    const { page } = await newPage(browser);
+    // The script never arrives, as on a very slow connection.
+    await page.route("**/_next/static/chunks/**", (route) => route.abort());
+    await page.goto(`${BASE}/sign-in`, { waitUntil: "domcontentloaded" });
+    await page.getByLabel("E-mail").fill("walker@northfold.test");
+    await page.getByLabel("Password").fill("northfold-demo");
+    // The only submit button is disabled, which also stops Enter from sending the form (HTML's implicit submission).
+    await expect(page.getByRole("button", { name: "Sign in" }).isDisabled()).resolves.toBe(true);
+    await expect(page.locator('form [type="submit"]:not([disabled])').count()).resolves.toBe(0);
+  });
 });

@@ -21,11 +21,13 @@ export async function newPage(browser: Browser): Promise<{ page: Page; problems:
   // A step that cannot happen fails within this time, with the locator it waited for, instead of hanging the suite.
   page.setDefaultTimeout(20_000);
   // Every page load waits until the app has hydrated (app/providers.tsx marks <html>), as a person would wait for a page
-  // to respond: a choice made in a form before then can be lost.
+  // to respond: a choice made in a form before then can be lost. A test that asks for an earlier point ("commit",
+  // "domcontentloaded") gets the page as it is then.
   const goto = page.goto.bind(page);
   page.goto = async (url, options) => {
     const response = await goto(url, options);
-    if (response?.headers()["content-type"]?.includes("text/html")) await page.locator("html[data-hydrated]").waitFor({ state: "attached" });
+    const early = options?.waitUntil === "commit" || options?.waitUntil === "domcontentloaded";
+    if (!early && response?.headers()["content-type"]?.includes("text/html")) await page.locator("html[data-hydrated]").waitFor({ state: "attached" });
     return response;
   };
   const problems: string[] = [];

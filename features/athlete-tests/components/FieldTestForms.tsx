@@ -9,6 +9,7 @@ import { ApiError } from "@/features/squads/api";
 import { createJsonTest } from "../api";
 import { testMetaSchema } from "../schemas";
 import { MetaFields } from "./MetaFields";
+import { SubmitButton } from "@/features/platform/components/SubmitButton";
 
 const num = (v: unknown) => (v === "" || v == null ? null : Number(v));
 const SPEECH_LABELS: Record<(typeof SPEECH)[number], string> = {
@@ -133,7 +134,7 @@ export function TalkTestForm({ athleteId, today }: { athleteId: string; today: s
         <FieldError id="stages-error" message={se?.message ?? se?.root?.message} />
         <button type="button" className="btn-quiet mt-2" onClick={() => append({ workload: NaN as unknown as number, durationMin: 3, hrBpm: NaN as unknown as number, speech: "cannot_speak" })}>Add a stage</button>
       </fieldset>
-      <button type="submit" className="btn" disabled={formState.isSubmitting}>{formState.isSubmitting ? "Saving…" : "Save the talk test"}</button>
+      <SubmitButton className="btn" disabled={formState.isSubmitting}>{formState.isSubmitting ? "Saving…" : "Save the talk test"}</SubmitButton>
     </form>
   );
 }
@@ -253,7 +254,7 @@ export function SubmaxForm({ athleteId, today, massKg, age }: { athleteId: strin
         </table>
         <button type="button" className="btn-quiet mt-2" onClick={() => append({ load: NaN as unknown as number, gradePct: 0, hrBpm: NaN as unknown as number })}>Add a stage</button>
       </fieldset>
-      <button type="submit" className="btn" disabled={formState.isSubmitting}>{formState.isSubmitting ? "Estimating…" : "Estimate VO2max"}</button>
+      <SubmitButton className="btn" disabled={formState.isSubmitting}>{formState.isSubmitting ? "Estimating…" : "Estimate VO2max"}</SubmitButton>
     </form>
   );
 }
@@ -294,7 +295,7 @@ export function ManualThresholdsForm({ athleteId, today }: { athleteId: string; 
       {box("vt1")}
       {box("vt2")}
       <label className="flex items-center gap-2 text-sm"><input type="checkbox" {...register("fiveZones")} /> Also show five zones</label>
-      <button type="submit" className="btn" disabled={formState.isSubmitting}>{formState.isSubmitting ? "Saving…" : "Save the thresholds"}</button>
+      <SubmitButton className="btn" disabled={formState.isSubmitting}>{formState.isSubmitting ? "Saving…" : "Save the thresholds"}</SubmitButton>
     </form>
   );
 }

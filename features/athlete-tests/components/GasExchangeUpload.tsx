@@ -10,6 +10,7 @@ import { ApiError } from "@/features/squads/api";
 import { uploadGasExchange } from "../api";
 import { MAX_UPLOAD_BYTES, testMetaSchema } from "../schemas";
 import { MetaFields } from "./MetaFields";
+import { SubmitButton } from "@/features/platform/components/SubmitButton";
 
 const formSchema = z.object({
   meta: testMetaSchema,
@@ -199,9 +200,9 @@ export function GasExchangeUpload({ athleteId, defaultMassKg, today }: { athlete
           <progress id="upload-progress" className="block w-full" max={1} value={progress} />
         </div>
       ) : null}
-      <button type="submit" className="btn" disabled={!picked || !!picked.problem || formState.isSubmitting}>
+      <SubmitButton className="btn" disabled={!picked || !!picked.problem || formState.isSubmitting}>
         {formState.isSubmitting ? "Analysing…" : "Analyse and save the test"}
-      </button>
+      </SubmitButton>
     </form>
   );
 }

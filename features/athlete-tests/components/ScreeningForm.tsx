@@ -4,6 +4,7 @@ import { useState } from "react";
 import { FormAlert, FormNotice } from "@/features/platform/components/form-bits";
 import { saveScreening } from "../api";
 import { SCREENING_QUESTIONS } from "../schemas";
+import { SubmitButton } from "@/features/platform/components/SubmitButton";
 
 type Answers = Partial<Record<string, boolean>>;
 
@@ -56,7 +57,7 @@ export function ScreeningForm({ athleteId, initial, advice }: { athleteId: strin
           </li>
         ))}
       </ol>
-      <button type="submit" className="btn" disabled={busy}>{busy ? "Saving…" : "Save the answers"}</button>
+      <SubmitButton className="btn" disabled={busy}>{busy ? "Saving…" : "Save the answers"}</SubmitButton>
     </form>
   );
 }

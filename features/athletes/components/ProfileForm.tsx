@@ -7,6 +7,7 @@ import { FieldError, FormAlert, FormNotice } from "@/features/platform/component
 import { ApiError } from "@/features/squads/api";
 import { useSaveProfile } from "../api";
 import { profileSchema, SPORT_LABELS, SPORTS, type ProfileInput } from "../schemas";
+import { SubmitButton } from "@/features/platform/components/SubmitButton";
 
 const toNumberOrNull = (v: unknown) => (v === "" || v == null ? null : Number(v));
 
@@ -123,9 +124,9 @@ export function ProfileForm({ athleteId, initial, isSelf }: { athleteId: string;
           <input type="checkbox" {...register("remindRetests")} /> E-mail me before a retest
         </label>
       </fieldset>
-      <button type="submit" className="btn" disabled={isSubmitting}>
+      <SubmitButton className="btn" disabled={isSubmitting}>
         {isSubmitting ? "Saving…" : isSelf ? "Save my profile" : "Save the athlete's profile"}
-      </button>
+      </SubmitButton>
     </form>
   );
 }

@@ -7,6 +7,7 @@ import type { z } from "zod";
 import { authErrorMessage, FieldError, FormAlert, FormNotice } from "@/features/platform/components/form-bits";
 import { authClient } from "../client";
 import { forgotPasswordSchema, resetPasswordSchema } from "../schemas";
+import { SubmitButton } from "@/features/platform/components/SubmitButton";
 
 export function ForgotPasswordForm() {
   const [sent, setSent] = useState(false);
@@ -31,9 +32,9 @@ export function ForgotPasswordForm() {
         <input id="email" type="email" autoComplete="email" className="field-input" aria-describedby="email-error" {...register("email")} />
         <FieldError id="email-error" message={formState.errors.email?.message} />
       </div>
-      <button type="submit" className="btn w-full" disabled={formState.isSubmitting}>
+      <SubmitButton className="btn w-full" disabled={formState.isSubmitting}>
         {formState.isSubmitting ? "Sending…" : "Send me a reset link"}
-      </button>
+      </SubmitButton>
     </form>
   );
 }
@@ -74,9 +75,9 @@ export function ResetPasswordForm({ token }: { token: string }) {
         <input id="confirm" type="password" autoComplete="new-password" className="field-input" aria-describedby="confirm-error" {...register("confirm")} />
         <FieldError id="confirm-error" message={formState.errors.confirm?.message} />
       </div>
-      <button type="submit" className="btn w-full" disabled={formState.isSubmitting}>
+      <SubmitButton className="btn w-full" disabled={formState.isSubmitting}>
         {formState.isSubmitting ? "Saving…" : "Save the new password"}
-      </button>
+      </SubmitButton>
     </form>
   );
 }

@@ -8,6 +8,7 @@ import type { z } from "zod";
 import { authErrorMessage, FieldError, FormAlert } from "@/features/platform/components/form-bits";
 import { authClient } from "../client";
 import { signInSchema } from "../schemas";
+import { SubmitButton } from "@/features/platform/components/SubmitButton";
 
 type Values = z.infer<typeof signInSchema>;
 
@@ -42,9 +43,9 @@ export function SignInForm({ next }: { next?: string }) {
         <input id="password" type="password" autoComplete="current-password" className="field-input" aria-invalid={!!errors.password} aria-describedby="password-error" {...register("password")} />
         <FieldError id="password-error" message={errors.password?.message} />
       </div>
-      <button type="submit" className="btn w-full" disabled={isSubmitting}>
+      <SubmitButton className="btn w-full" disabled={isSubmitting}>
         {isSubmitting ? "Signing in…" : "Sign in"}
-      </button>
+      </SubmitButton>
       <p className="text-sm text-ink-soft">
         <Link href="/forgot-password" className="font-semibold text-tide hover:underline">Forgot your password?</Link>
       </p>

@@ -7,6 +7,7 @@ import type { z } from "zod";
 import { authErrorMessage, FieldError, FormAlert } from "@/features/platform/components/form-bits";
 import { authClient } from "../client";
 import { signUpSchema } from "../schemas";
+import { SubmitButton } from "@/features/platform/components/SubmitButton";
 
 type Values = z.infer<typeof signUpSchema>;
 
@@ -47,9 +48,9 @@ export function SignUpForm({ fixedEmail, after }: { fixedEmail?: string; after?:
         <input id="password" type="password" autoComplete="new-password" className="field-input" aria-invalid={!!errors.password} aria-describedby="password-error" {...register("password")} />
         <FieldError id="password-error" message={errors.password?.message} />
       </div>
-      <button type="submit" className="btn w-full" disabled={isSubmitting}>
+      <SubmitButton className="btn w-full" disabled={isSubmitting}>
         {isSubmitting ? "Creating your account…" : "Create account"}
-      </button>
+      </SubmitButton>
     </form>
   );
 }

@@ -6,6 +6,8 @@ import { uploadWithProgress } from "@/features/platform/lib/upload";
 import { ApiError, apiFetch } from "@/features/squads/api";
 import { anchorOf, CR10_ANCHORS } from "../lib/cr10";
 import { LOG_STATUS_LABELS } from "../schemas";
+import { SubmitButton } from "@/features/platform/components/SubmitButton";
+import { useHydrated } from "@/features/platform/components/use-hydrated";
 
 export interface LogView {
   id: string;
@@ -41,6 +43,8 @@ export function LogPanel({ sessionId, athleteId, plannedMin, log }: { sessionId:
   const [notice, setNotice] = useState<string>();
   const [busy, setBusy] = useState(false);
   const [progress, setProgress] = useState<number | null>(null);
+  // The choice of done, partial or skipped is the page's state: it can only be made once the page's script runs.
+  const hydrated = useHydrated();
   const editable = log ? log.editable : true;
 
   async function submit(e: FormEvent<HTMLFormElement>) {
@@ -127,7 +131,7 @@ export function LogPanel({ sessionId, athleteId, plannedMin, log }: { sessionId:
       ) : null}
       {editing && editable ? (
         <form onSubmit={submit} className="space-y-3 rounded-md border border-rule p-3" aria-label="Log this session">
-          <fieldset className="flex flex-wrap gap-3 text-sm">
+          <fieldset className="flex flex-wrap gap-3 text-sm" disabled={!hydrated}>
             <legend className="field-label">How did it go?</legend>
             {(["done", "partial", "skipped"] as const).map((s) => (
               <label key={s} className="flex items-center gap-1">
@@ -164,7 +168,7 @@ export function LogPanel({ sessionId, athleteId, plannedMin, log }: { sessionId:
             <textarea name="notes" className="field-input" rows={2} maxLength={2000} defaultValue={log?.notes ?? ""} />
           </label>
           <p className="flex gap-2">
-            <button type="submit" className="btn" disabled={busy}>{busy ? "Saving…" : log ? "Save the changes" : "Save the log"}</button>
+            <SubmitButton className="btn" disabled={busy}>{busy ? "Saving…" : log ? "Save the changes" : "Save the log"}</SubmitButton>
             {log ? <button type="button" className="btn-quiet" onClick={() => setEditing(false)}>Cancel</button> : null}
           </p>
           <p className="text-xs text-ink-soft">Rate the session as a whole about half an hour after it ended.</p>

@@ -5,6 +5,7 @@ import { SPORT_LABELS, SPORTS } from "@/features/athletes/schemas";
 import { FormAlert, FormNotice } from "@/features/platform/components/form-bits";
 import { ApiError, apiFetch } from "@/features/squads/api";
 import { CR10_ANCHORS } from "../lib/cr10";
+import { SubmitButton } from "@/features/platform/components/SubmitButton";
 
 /** Log a session that was not planned. One key per form: sending it twice still gives one log. */
 export function UnplannedLogForm({ athleteId, today, defaultSport }: { athleteId: string; today: string; defaultSport: string }) {
@@ -57,7 +58,7 @@ export function UnplannedLogForm({ athleteId, today, defaultSport }: { athleteId
         </label>
       </div>
       <label className="block"><span className="field-label">Notes (optional)</span><textarea name="notes" rows={2} maxLength={2000} className="field-input" /></label>
-      <button type="submit" className="btn" disabled={busy}>{busy ? "Saving…" : "Log the session"}</button>
+      <SubmitButton className="btn" disabled={busy}>{busy ? "Saving…" : "Log the session"}</SubmitButton>
     </form>
   );
 }

@@ -2,6 +2,7 @@
 import { useMemo, useState } from "react";
 import { FormAlert, FormNotice } from "@/features/platform/components/form-bits";
 import { apiFetch } from "@/features/squads/api";
+import { SubmitButton } from "@/features/platform/components/SubmitButton";
 
 /** The coach's digest setting and time zone. */
 export function CoachDigestSettings({ initial }: { initial: { timeZone: string; coachDigest: boolean } }) {
@@ -39,7 +40,7 @@ export function CoachDigestSettings({ initial }: { initial: { timeZone: string; 
           {timeZones.map((tz) => <option key={tz} value={tz}>{tz}</option>)}
         </select>
       </label>
-      <button type="submit" className="btn" disabled={busy}>{busy ? "Saving…" : "Save e-mail settings"}</button>
+      <SubmitButton className="btn" disabled={busy}>{busy ? "Saving…" : "Save e-mail settings"}</SubmitButton>
     </form>
   );
 }

@@ -17,6 +17,7 @@ import { addDays, summariseWeeks, type SeasonWeekInfo, type WeekSession, type We
 import { BudgetBand } from "./BudgetBand";
 import type { Repeat } from "../lib/repeat";
 import { WEEKDAYS } from "../lib/weekdays";
+import { SubmitButton } from "@/features/platform/components/SubmitButton";
 
 // The editor brings the form and validation libraries; it loads when a coach first opens it, not with the calendar.
 const SessionEditor = dynamic(() => import("./SessionEditor").then((m) => m.SessionEditor), { ssr: false, loading: () => <p role="status" className="text-sm text-ink-soft">Opening the editor…</p> });
@@ -303,7 +304,7 @@ function MoveToDay({ session, busy, onMove }: { session: SessionDto; busy: boole
     >
       <label htmlFor={`move-${session.id}`} className="sr-only">New day for {session.title}</label>
       <input id={`move-${session.id}`} type="date" className="field-input mt-0 w-40 py-1 num" value={date} onChange={(e) => setDate(e.target.value)} />
-      <button type="submit" className="btn-quiet py-1" disabled={busy || !date || date === session.date}>Move to this day</button>
+      <SubmitButton className="btn-quiet py-1" disabled={busy || !date || date === session.date}>Move to this day</SubmitButton>
     </form>
   );
 }
@@ -405,7 +406,7 @@ function KeyboardPlanner({ templates, defaultDate, onPlan }: { templates: TrayTe
           </div>
         ) : null}
         {problem ? <p role="alert" className="text-alert">{problem}</p> : null}
-        <button type="submit" className="btn w-full" disabled={!templateId || !date}>{repeats ? "Plan the series" : "Plan it"}</button>
+        <SubmitButton className="btn w-full" disabled={!templateId || !date}>{repeats ? "Plan the series" : "Plan it"}</SubmitButton>
       </fieldset>
     </form>
   );

@@ -7,6 +7,7 @@ import { SPORT_LABELS, SPORTS } from "@/features/athletes/schemas";
 import { FieldError, FormAlert } from "@/features/platform/components/form-bits";
 import { apiFetch } from "@/features/squads/api";
 import { isoDate } from "../schemas";
+import { SubmitButton } from "@/features/platform/components/SubmitButton";
 
 const form = z.object({
   name: z.string().trim().min(2, "Name the season."),
@@ -59,7 +60,7 @@ export function SeasonForm({ athleteId, today, sport }: { athleteId: string; tod
         <select id="season-level" className="field-input" {...register("level")}><option value="trained">Trained (polarised budget)</option><option value="beginner">Beginner (pyramidal budget)</option></select>
       </div>
       {field("retestEveryWeeks", "Retest every (weeks, 12–16)", "number")}
-      <div className="flex items-end"><button type="submit" className="btn w-full" disabled={formState.isSubmitting}>{formState.isSubmitting ? "Planning…" : "Generate the season"}</button></div>
+      <div className="flex items-end"><SubmitButton className="btn w-full" disabled={formState.isSubmitting}>{formState.isSubmitting ? "Planning…" : "Generate the season"}</SubmitButton></div>
       <p className="text-xs text-ink-soft sm:col-span-3">Weekly volume rises at most 10 % over recent weeks (a common caution with weak evidence, not a law), with 3 loading weeks then 1 unloading week, a taper before the event and retests in unloading weeks.</p>
     </form>
   );

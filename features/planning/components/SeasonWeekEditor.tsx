@@ -6,6 +6,7 @@ import { FieldError, FormAlert, FormNotice } from "@/features/platform/component
 import { apiFetch } from "@/features/squads/api";
 import { BUDGET_PRESETS, type BudgetPreset } from "../lib/budget";
 import { BLOCK_LABELS, type BlockName, type SeasonWeek } from "../lib/season";
+import { SubmitButton } from "@/features/platform/components/SubmitButton";
 
 const ROLE_LABELS: Record<SeasonWeek["role"], string> = { loading: "Loading", unloading: "Unloading", taper: "Taper", event: "Event", recovery: "Recovery" };
 
@@ -59,7 +60,7 @@ export function SeasonWeekEditor({ athleteId, seasonId, week }: { athleteId: str
           <input type="checkbox" {...register("retest")} /> Retest this week
         </label>
       </div>
-      <button type="submit" className="btn" disabled={formState.isSubmitting}>{formState.isSubmitting ? "Saving…" : "Save the week"}</button>
+      <SubmitButton className="btn" disabled={formState.isSubmitting}>{formState.isSubmitting ? "Saving…" : "Save the week"}</SubmitButton>
     </form>
   );
 }

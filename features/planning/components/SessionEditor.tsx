@@ -8,6 +8,7 @@ import { apiFetch } from "@/features/squads/api";
 import type { SessionDto } from "../api";
 import { structureSchema, type Block } from "../lib/session";
 import { formSchema, fromStructure, StructureFields, toStructure, type Values } from "./TemplateBuilder";
+import { SubmitButton } from "@/features/platform/components/SubmitButton";
 
 /**
  * Edits a planned session's title, notes and steps. For a session of a repeating series the coach chooses whether the change
@@ -63,7 +64,7 @@ export function SessionEditor({ athleteId, session, onDone, onCancel }: { athlet
         </fieldset>
       ) : null}
       <div className="flex gap-2">
-        <button type="submit" className="btn" disabled={formState.isSubmitting}>{formState.isSubmitting ? "Saving…" : "Save the session"}</button>
+        <SubmitButton className="btn" disabled={formState.isSubmitting}>{formState.isSubmitting ? "Saving…" : "Save the session"}</SubmitButton>
         <button type="button" className="btn-quiet" onClick={onCancel}>Cancel</button>
       </div>
     </form>

@@ -7,6 +7,7 @@ import { SPORT_LABELS, SPORTS } from "@/features/athletes/schemas";
 import { FieldError, FormAlert } from "@/features/platform/components/form-bits";
 import { apiFetch } from "@/features/squads/api";
 import { expand, STEP_KINDS, structureSchema, type Block } from "../lib/session";
+import { SubmitButton } from "@/features/platform/components/SubmitButton";
 
 const KIND_LABELS: Record<(typeof STEP_KINDS)[number], string> = { warmup: "Warm-up", work: "Work", recovery: "Recovery", cooldown: "Cool-down" };
 const ZONE_FILL = ["var(--color-zone-1)", "var(--color-zone-2)", "var(--color-zone-3)"];
@@ -167,7 +168,7 @@ export function TemplateBuilder({ squadId }: { squadId: string }) {
         </div>
       </div>
       <StructureFields control={control} register={register} />
-      <button type="submit" className="btn" disabled={formState.isSubmitting}>{formState.isSubmitting ? "Saving…" : "Save the template"}</button>
+      <SubmitButton className="btn" disabled={formState.isSubmitting}>{formState.isSubmitting ? "Saving…" : "Save the template"}</SubmitButton>
     </form>
   );
 }

@@ -6,6 +6,7 @@ import type { z } from "zod";
 import { FieldError, FormAlert } from "@/features/platform/components/form-bits";
 import { apiFetch, ApiError } from "../api";
 import { createSquadSchema } from "../schemas";
+import { SubmitButton } from "@/features/platform/components/SubmitButton";
 
 export function CreateSquadForm() {
   const router = useRouter();
@@ -30,9 +31,9 @@ export function CreateSquadForm() {
         <input id="squad-name" className="field-input" aria-describedby="squad-name-error" {...register("name")} />
         <FieldError id="squad-name-error" message={formState.errors.name?.message} />
       </div>
-      <button type="submit" className="btn" disabled={formState.isSubmitting}>
+      <SubmitButton className="btn" disabled={formState.isSubmitting}>
         {formState.isSubmitting ? "Creating…" : "Create the squad"}
-      </button>
+      </SubmitButton>
     </form>
   );
 }

@@ -5,6 +5,7 @@ import { useForm } from "react-hook-form";
 import { FieldError, FormAlert, FormNotice } from "@/features/platform/components/form-bits";
 import { ApiError, useInvitations, useInvite } from "../api";
 import { inviteSchema, ROLE_LABELS, type InviteInput } from "../schemas";
+import { SubmitButton } from "@/features/platform/components/SubmitButton";
 
 export function InvitePanel({ squadId, localOutbox }: { squadId: string; localOutbox: boolean }) {
   const invite = useInvite(squadId);
@@ -47,9 +48,9 @@ export function InvitePanel({ squadId, localOutbox }: { squadId: string; localOu
             <option value="coach">Coach</option>
           </select>
         </div>
-        <button type="submit" className="btn" disabled={formState.isSubmitting}>
+        <SubmitButton className="btn" disabled={formState.isSubmitting}>
           {formState.isSubmitting ? "Sending…" : "Send invitation"}
-        </button>
+        </SubmitButton>
       </form>
       <div>
         <h3 className="text-sm font-semibold">Open invitations</h3>
