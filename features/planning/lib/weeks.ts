@@ -35,8 +35,8 @@ export interface WeekSummary {
   doneMinByZone: Shares;
   budget: { name: string; shares: Shares; tolerance: number };
   overBudget: boolean;
-  flags: Pick<Breach, "code" | "message">[];
-  breaches: Breach[];
+  /** The engine's reasons, each with its numbers (e.g. the minutes of zone 3 to remove). */
+  flags: Pick<Breach, "code" | "message" | "numbers">[];
   fix: Fix | null;
   block: string | null;
 }
@@ -154,8 +154,7 @@ export function summariseWeeks(input: SummariseInput): WeekSummary[] {
       doneMinByZone: minutesOf((input.done ?? []).filter((d) => d.date >= w && d.date < next).map((d) => ({ id: "", date: d.date, title: "", kind: "", minutesByZone: d.minutesByZone }))).map((v) => Math.round(v * 10) / 10) as Shares,
       budget: { name: budget.name, shares: [...budget.shares] as Shares, tolerance: budget.tolerance },
       overBudget: budgetBreaches.length > 0,
-      flags: result.breaches.map((b) => ({ code: b.code, message: b.message })),
-      breaches: result.breaches,
+      flags: result.breaches.map((b) => ({ code: b.code, message: b.message, numbers: b.numbers })),
       fix: input.withFix !== false && budgetBreaches.some((b) => b.code !== "volume_ramp") ? proposeFix(w, inWeek, input, weekOf) : null,
       block,
     });
