@@ -496,7 +496,11 @@ export const rosterCache = pgTable("roster_cache", {
   athleteId: text("athlete_id")
     .primaryKey()
     .references(() => user.id, { onDelete: "cascade" }),
-  generation: bigint("generation", { mode: "number" }).notNull().default(0),
+  // A new row starts at its creation time in microseconds, so that a row deleted and created again never counts through
+  // values its predecessor already had (an answer stored under one of them stays invalid).
+  generation: bigint("generation", { mode: "number" })
+    .notNull()
+    .default(sql`(extract(epoch from clock_timestamp()) * 1000000)::bigint`),
   computedGeneration: bigint("computed_generation", { mode: "number" }),
   computedFor: text("computed_for"),
   row: jsonb("row").$type<Record<string, unknown>>(),

@@ -237,6 +237,12 @@ describe("sessions and weekly budgets", () => {
     });
     expect(test.status).toBe(201);
     expect((await get(other.coach.browser, range)).json[0].flags.map((f: { code: string }) => f.code)).not.toContain("retest_overdue");
+    // A counter row deleted and made again starts beyond every value the old one had, so no stored answer comes back to life.
+    const [before] = await query<{ generation: string }>(`select generation from roster_cache where athlete_id = $1`, [athlete.id]);
+    await query(`delete from roster_cache where athlete_id = $1`, [athlete.id]);
+    await query(`insert into roster_cache (athlete_id) values ($1)`, [athlete.id]);
+    const [after] = await query<{ generation: string }>(`select generation from roster_cache where athlete_id = $1`, [athlete.id]);
+    expect(BigInt(after!.generation) > BigInt(before!.generation)).toBe(true);
     // Access is checked on every request, the stored answer notwithstanding: a coach of another squad, a squad mate,
     // and the coach once removed from the squad.
     expect((await get()).status).toBe(200);

@@ -1,0 +1,1 @@
+ALTER TABLE "roster_cache" ALTER COLUMN "generation" SET DEFAULT (extract(epoch from clock_timestamp()) * 1000000)::bigint;
