@@ -212,9 +212,8 @@ export async function listSeasons(actor: Actor, athleteId: string) {
 /** Per ISO week: planned minutes per zone against the budget of the season week, with flags and a fix. */
 /** Week summaries of an athlete; "today" (overdue retests, the dates a fix may use) is the athlete's own day. */
 export async function weekSummaries(actor: Actor, athleteId: string, from: string, to: string, now = new Date()) {
-  await requireAthleteAccess(actor, athleteId, "view");
-  const [profile] = await getDb().select({ timeZone: schema.athleteProfile.timeZone }).from(schema.athleteProfile).where(eq(schema.athleteProfile.userId, athleteId));
-  return computeWeekSummaries(athleteId, from, to, localDate(now, profile?.timeZone ?? "UTC"));
+  const { today } = await viewableAthleteDay(actor, athleteId, now);
+  return computeWeekSummaries(athleteId, from, to, today);
 }
 
 /**
@@ -222,9 +221,7 @@ export async function weekSummaries(actor: Actor, athleteId: string, from: strin
  * athlete changed since it was computed and it is still the same day for the athlete (week-cache.ts).
  */
 export async function weekSummariesJson(actor: Actor, athleteId: string, from: string, to: string, now = new Date()): Promise<string> {
-  const { memberships, generation, timeZone } = await athleteMembershipsAndGeneration(athleteId);
-  checkAthleteAccess(actor, { userId: athleteId, memberships }, "view");
-  const today = localDate(now, timeZone ?? "UTC");
+  const { generation, today } = await viewableAthleteDay(actor, athleteId, now);
   if (generation === null) return JSON.stringify(await computeWeekSummaries(athleteId, from, to, today));
   const key = `${athleteId}|${from}|${to}|${today}`;
   const hit = cachedAnswer(key, generation);
@@ -232,6 +229,13 @@ export async function weekSummariesJson(actor: Actor, athleteId: string, from: s
   const body = JSON.stringify(await computeWeekSummaries(athleteId, from, to, today));
   storeAnswer(key, generation, body);
   return body;
+}
+
+/** The access check for viewing an athlete, with the athlete's change counter and local day, in one query. */
+async function viewableAthleteDay(actor: Actor, athleteId: string, now: Date) {
+  const { memberships, generation, timeZone } = await athleteMembershipsAndGeneration(athleteId);
+  checkAthleteAccess(actor, { userId: athleteId, memberships }, "view");
+  return { generation, today: localDate(now, timeZone ?? "UTC") };
 }
 
 async function computeWeekSummaries(athleteId: string, from: string, to: string, today: string) {
