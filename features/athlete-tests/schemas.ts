@@ -2,7 +2,7 @@ import { z } from "zod";
 import { SPORTS } from "@/features/athletes/schemas";
 import { submaxSchema } from "@/features/field-tests/lib/submax";
 import { talkTestSchema } from "@/features/field-tests/lib/talk-test";
-import { CHANNELS } from "@/features/gas-exchange/lib/csv";
+import { CHANNELS, UNIT_CHOICES } from "@/features/gas-exchange/lib/csv";
 
 /** Readiness questions before a test (our wording, in the spirit of common pre-participation screens). */
 export const SCREENING_QUESTIONS = [
@@ -74,11 +74,27 @@ export const mappingSchema = z
   .partialRecord(z.enum(CHANNELS), z.string().min(1).max(200))
   .refine((m) => Object.keys(m).length <= CHANNELS.length, "Too many mapped columns.");
 
+export const unitsSchema = z.object({
+  time: z.enum(UNIT_CHOICES.time, { error: "Time is in s or min." }).optional(),
+  vo2: z.enum(UNIT_CHOICES.vo2, { error: "VO2 is in mL/min, L/min or mL/kg/min." }).optional(),
+  speed: z.enum(UNIT_CHOICES.speed, { error: "Speed is in km/h, mph or m/s." }).optional(),
+}, { error: "Units must be an object such as {\"speed\": \"mph\"}." });
+
+export const segmentSchema = z
+  .object({
+    fromS: z.number().min(0, "The segment starts at 0 s or later.").max(6 * 3600).nullable().optional(),
+    toS: z.number().min(0).max(6 * 3600, "The segment ends within six hours.").nullable().optional(),
+  }, { error: "The test segment must be {fromS, toS} in seconds." })
+  .refine((s) => s.fromS == null || s.toS == null || s.toS > s.fromS + 60, { message: "The test segment must end at least a minute after it starts.", path: ["toS"] });
+
 export const uploadFieldsSchema = testMetaSchema.and(
   z.object({
     mapping: mappingSchema.optional(),
     bodyMassKg: z.number().gt(20, "Body mass must be above 20 kg.").lt(300, "Body mass must be below 300 kg.").nullable().optional(),
     fiveZones: z.boolean().optional(),
+    units: unitsSchema.optional(),
+    segment: segmentSchema.optional(),
+    sheet: z.string().trim().min(1).max(100, "A sheet name has at most 100 characters.").nullable().optional(),
   }),
 );
 

@@ -27,8 +27,12 @@ describe("npm run analyze", () => {
     const lines = r.stdout.trim().split("\n").map((l) => JSON.parse(l));
     expect(lines).toHaveLength(200);
     const first = lines[0];
-    expect(Object.keys(first).sort()).toEqual(["file", "peak", "vt1", "vt2", "warnings"]);
-    expect(Object.keys(first.vt1).sort()).toEqual(expect.arrayContaining(["vo2MlMin", "hrBpm", "timeS", "powerW", "speedKmh", "confidence", "methods"]));
+    expect(Object.keys(first).sort()).toEqual(["breathsRead", "columns", "file", "peak", "segment", "vt1", "vt2", "warnings"]);
+    expect(Object.keys(first.vt1).sort()).toEqual(expect.arrayContaining(["vo2MlMin", "vco2MlMin", "rer", "hrBpm", "timeS", "powerW", "steadyPowerW", "speedKmh", "gradePct", "confidence", "methods", "warnings"]));
+    expect(first.vt1.found).toBe(true);
+    // The steady-state power lies one mean response time (40 s) back on the 25 W/min ramp: about 17 W lower.
+    expect(first.vt1.powerW - first.vt1.steadyPowerW).toBeGreaterThan(10);
+    expect(first.vt1.powerW - first.vt1.steadyPowerW).toBeLessThan(25);
     expect(first.peak.vo2MlMin).toBeGreaterThan(3000);
     expect(first.vt1.vo2MlKgMin).toBeCloseTo(first.vt1.vo2MlMin / 72, 0);
   });
@@ -49,6 +53,6 @@ describe("npm run analyze", () => {
     expect(r.stdout).toMatch(/Peak: VO2 \d+ mL\/min/);
     const bad = run(["--map", "oxygen", path.join(dir, "renamed.csv")]);
     expect(bad.status).toBe(2);
-    expect(bad.stderr).toMatch(/CHANNEL=COLUMN/);
+    expect(bad.stderr).toMatch(/NAME=VALUE/);
   });
 });

@@ -21,7 +21,17 @@ export function fromRows(rows: PointRow[]): Breath[] {
 
 function thresholdValues(t: Threshold | null): ThresholdValues | null {
   if (!t) return null;
-  return { timeS: t.timeS, vo2MlMin: t.vo2MlMin, hrBpm: t.hrBpm, powerW: t.powerW, speedKmh: t.speedKmh };
+  // Zones take the steady-state workload; the ramp's own values are kept beside it for the report.
+  return {
+    timeS: t.timeS,
+    vo2MlMin: t.vo2MlMin,
+    hrBpm: t.hrBpm,
+    powerW: t.steadyPowerW ?? t.powerW,
+    speedKmh: t.steadySpeedKmh ?? t.speedKmh,
+    gradePct: t.steadyGradePct ?? t.gradePct,
+    rampPowerW: t.powerW,
+    rampSpeedKmh: t.speedKmh,
+  };
 }
 
 function detail(t: Threshold | null) {
@@ -38,6 +48,8 @@ export function gasExchangeRecord(a: Analysis, bodyMassKg: number | null): { det
       warnings: a.warnings,
       onsetS: a.onsetS,
       endS: a.endS,
+      segmentSource: a.segmentSource,
+      meanResponseTimeS: a.meanResponseTimeS,
       columns: a.columns,
       breathsRead: a.breathsRead,
       breathsRemoved: a.breathsRemoved,

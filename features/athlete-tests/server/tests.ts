@@ -6,8 +6,9 @@ import type { ThresholdPair, ThresholdValues } from "@/db/schema";
 import { requireAthleteAccess, requireAthleteAccessOrNotFound } from "@/features/access/server/permissions";
 import type { Actor } from "@/features/access/lib/rules";
 import { estimateVo2Max } from "@/features/field-tests/lib/submax";
-import { analyzeCsv, valuesAt } from "@/features/gas-exchange/lib/analyze";
-import type { ColumnMapping } from "@/features/gas-exchange/lib/csv";
+import { analyzeRead, DEFAULT_MRT_S, valuesAt } from "@/features/gas-exchange/lib/analyze";
+import type { ColumnMapping, UnitChoices } from "@/features/gas-exchange/lib/csv";
+import { readGasExchangeFile } from "@/features/gas-exchange/lib/workbook";
 import { fromRows, gasExchangeRecord, talkTestRecord, type PointRow } from "../lib/records";
 import { fuelProfile } from "@/features/physiology/lib/fuel";
 import { HttpError, notFound } from "@/features/platform/server/http";
@@ -22,31 +23,28 @@ async function profileMass(athleteId: string): Promise<number | null> {
   return p?.m ?? null;
 }
 
-function decodeText(bytes: Uint8Array): string {
-  if (bytes.includes(0)) throw new HttpError(415, "This file is not a text CSV (it contains binary data). Export the test as CSV and try again.");
-  try {
-    return new TextDecoder("utf-8", { fatal: true }).decode(bytes);
-  } catch {
-    // Many lab exports are Latin-1; every byte sequence is valid there.
-    return new TextDecoder("latin1").decode(bytes);
-  }
-}
-
 const hasBoth = (p: ThresholdPair) => p.vt1 !== null && p.vt2 !== null;
 
 /** A gas-exchange upload: analysed, stored with its file and, when both thresholds were found, a zone set. One transaction. */
 export async function createGasExchangeTest(
   actor: Actor,
   athleteId: string,
-  meta: Meta & { mapping?: ColumnMapping; bodyMassKg?: number | null; fiveZones?: boolean },
+  meta: Meta & {
+    mapping?: ColumnMapping;
+    bodyMassKg?: number | null;
+    fiveZones?: boolean;
+    units?: UnitChoices;
+    segment?: { fromS?: number | null; toS?: number | null };
+    sheet?: string | null;
+  },
   file: { name: string; type: string; bytes: Uint8Array },
 ) {
   await requireAthleteAccess(actor, athleteId, "coach");
   if (file.bytes.length === 0) throw new HttpError(400, "The file is empty.");
-  const text = decodeText(file.bytes);
   const mass = meta.bodyMassKg ?? (await profileMass(athleteId));
-  const a = analyzeCsv(text, { mapping: meta.mapping, bodyMassKg: mass });
-  if (!a.ok) throw new HttpError(422, a.error, { headers: a.headers });
+  const read = await readGasExchangeFile(file.bytes, meta.mapping, { bodyMassKg: mass, units: meta.units, sheet: meta.sheet });
+  const a = analyzeRead(read, { bodyMassKg: mass, segment: meta.segment });
+  if (!a.ok) throw new HttpError(/binary|\.xls\)/.test(a.error) ? 415 : 422, a.error, { headers: a.headers });
   const { detected, result } = gasExchangeRecord(a, mass);
   const id = randomUUID();
   await getDb().transaction(async (tx) => {
@@ -60,7 +58,7 @@ export async function createGasExchangeTest(
       endedBy: meta.endedBy,
       stopSign: meta.stopSign ?? null,
       bodyMassKg: mass,
-      input: { mapping: meta.mapping ?? {}, filename: file.name, fiveZones: meta.fiveZones ?? false },
+      input: { mapping: meta.mapping ?? {}, units: meta.units ?? {}, segment: meta.segment ?? null, sheet: meta.sheet ?? null, filename: file.name, fiveZones: meta.fiveZones ?? false },
       result,
       detected,
       createdBy: actor.userId,
@@ -204,8 +202,8 @@ export async function adjustThresholds(actor: Actor, testId: string, patch: Thre
     if (p === null) return null;
     if ("timeS" in p) {
       if (!points.length) throw new HttpError(400, "Only gas-exchange tests take a threshold time; give heart rate, power or speed instead.");
-      const v = valuesAt(points, p.timeS, row.bodyMassKg);
-      return { timeS: v.timeS, vo2MlMin: v.vo2MlMin, hrBpm: v.hrBpm, powerW: v.powerW, speedKmh: v.speedKmh };
+      const v = valuesAt(points, p.timeS, row.bodyMassKg, Number(row.result.meanResponseTimeS ?? DEFAULT_MRT_S));
+      return { timeS: v.timeS, vo2MlMin: v.vo2MlMin, hrBpm: v.hrBpm, powerW: v.steadyPowerW ?? v.powerW, speedKmh: v.steadySpeedKmh ?? v.speedKmh, rampPowerW: v.powerW, rampSpeedKmh: v.speedKmh };
     }
     return { hrBpm: p.hrBpm ?? null, powerW: p.powerW ?? null, speedKmh: p.speedKmh ?? null };
   };

@@ -10,7 +10,7 @@
  */
 import { fitHinge, type HingeFit } from "./breakpoint";
 import { average, DEFAULT_AVERAGING, highestWindowMean, removeAberrantBreaths, type Averaging, type CleanOptions } from "./clean";
-import { readGasExchangeCsv, type Breath, type ColumnMapping, type DetectedColumn, type Channel } from "./csv";
+import { readGasExchangeCsv, treadmillDemand, type Breath, type ColumnMapping, type DetectedColumn, type Channel, type UnitChoices } from "./csv";
 
 export type MethodName = "v-slope" | "ventilatory-equivalents" | "ve-vco2-slope" | "ve-vco2-ratio";
 
@@ -26,9 +26,16 @@ export interface Threshold {
   vo2MlMin: number;
   vo2MlKgMin: number | null;
   vco2MlMin: number;
+  rer: number;
   hrBpm: number | null;
+  /** Power and speed where VO2 showed the threshold on the ramp (VO2 lags the workload, so these sit above steady state). */
   powerW: number | null;
   speedKmh: number | null;
+  gradePct: number | null;
+  /** The workload one mean response time earlier: the steady-state equivalent (see `rampCorrection`). */
+  steadyPowerW: number | null;
+  steadySpeedKmh: number | null;
+  steadyGradePct: number | null;
   timeS: number;
   /** Methods that found this threshold (the first is the one whose value is reported). */
   methods: MethodName[];
@@ -46,6 +53,7 @@ export interface Peak {
   rer: number | null;
   powerW: number | null;
   speedKmh: number | null;
+  gradePct: number | null;
   plateau: boolean;
 }
 
@@ -60,6 +68,10 @@ export interface Analysis {
   points: Breath[];
   onsetS: number;
   endS: number;
+  /** How the test segment was set: found from the workload, from VO2 (no workload column) or by the person. */
+  segmentSource: "workload" | "vo2" | "chosen";
+  /** The mean response time used to correct ramp workloads, in seconds. */
+  meanResponseTimeS: number;
   breathsRead: number;
   breathsRemoved: number;
   columns: Partial<Record<Channel, DetectedColumn>>;
@@ -67,6 +79,11 @@ export interface Analysis {
 
 export interface AnalysisOptions {
   mapping?: ColumnMapping;
+  units?: UnitChoices;
+  /** The test segment set by a person (seconds from the file's time origin); either end may be left to the finder. */
+  segment?: { fromS?: number | null; toS?: number | null };
+  /** Mean response time of VO2 on a ramp, for the workload correction (default 40 s). */
+  meanResponseTimeS?: number;
   bodyMassKg?: number | null;
   averaging?: Averaging;
   cleaning?: CleanOptions;
@@ -75,7 +92,15 @@ export interface AnalysisOptions {
 export type CsvAnalysis = ({ ok: true } & Analysis) | { ok: false; error: string; headers: string[] };
 
 const MIN_POINTS = 20;
-const KINETICS_LAG_S = 60;
+/** Points this soon after the segment starts are left out of the threshold search while VO2 catches up. */
+const KINETICS_LAG_S = 30;
+/**
+ * Ramp correction: VO2 follows a ramp with a delay, the mean response time (MRT), so the workload at which VO2 shows a
+ * threshold is higher than the steady-state workload of that VO2; the steady-state equivalent is the workload one MRT
+ * earlier (workload − ramp rate × MRT; Whipp, Davis, Torres & Wasserman 1981, J Appl Physiol 50:217–221). 40 s is a typical
+ * MRT of healthy adults on moderate ramps (Boone & Bourgois 2012, Sports Med 42:511–526; value from memory).
+ */
+export const DEFAULT_MRT_S = 40;
 
 const round = (v: number, digits = 0) => {
   const f = 10 ** digits;
@@ -83,8 +108,19 @@ const round = (v: number, digits = 0) => {
 };
 const clamp01 = (v: number) => Math.max(0, Math.min(1, v));
 
+/** Power in W, or for a treadmill the ACSM VO2 demand of its speed and grade (mL/kg/min), so that a grade ramp after a
+ * speed ramp still rises. Only the order of these values matters to the segment finder. */
 function workload(b: Breath): number | null {
-  return b.powerW ?? b.speedKmh;
+  if (b.powerW !== null) return b.powerW;
+  if (b.speedKmh !== null) return treadmillDemand(b.speedKmh, b.gradePct);
+  return null;
+}
+
+function runningMedianOf(values: number[], half: number): number[] {
+  return values.map((_, i) => {
+    const w = values.slice(Math.max(0, i - half), i + half + 1).filter(Number.isFinite).sort((a, b) => a - b);
+    return w.length ? w[w.length >> 1]! : NaN;
+  });
 }
 
 /** Mean of a field over points within ±halfS of t, or null. */
@@ -117,26 +153,56 @@ function timeAtValue(points: Breath[], value: number, f: (b: Breath) => number):
   return near[near.length >> 1]!;
 }
 
-function findSegment(points: Breath[], peakEndS: number): { onsetS: number; endS: number } {
+/**
+ * The test segment: the last rising run of the workload up to where it ends. Walking back from the end (the last point at
+ * 97 % of the highest smoothed workload), each fall in workload larger than 3 % of its range is a step of the ramp; the run
+ * stops where the workload was higher before (a warm-up at a higher speed), or where it stayed level for longer than a
+ * stage of this test could (2.5 times the test's usual step interval, at least 150 s: rest, a warm-up, a constant stage).
+ * Without a workload the same is done on VO2 itself.
+ */
+function findSegment(points: Breath[], peakEndS: number): { onsetS: number; endS: number; source: "workload" | "vo2" } {
   const hasLoad = points.filter((p) => workload(p) !== null).length > points.length * 0.5;
-  let endS = peakEndS;
-  let onsetS = points[0]!.timeS;
-  if (hasLoad) {
-    const loads = points.map((p) => workload(p) ?? -Infinity);
-    const maxLoad = Math.max(...loads);
-    // The end of exercise: the last point still at (nearly) the highest workload.
-    let lastAtMax = 0;
-    loads.forEach((l, i) => {
-      if (l >= 0.97 * maxLoad) lastAtMax = i;
-    });
-    endS = Math.max(points[lastAtMax]!.timeS, Math.min(peakEndS, points[lastAtMax]!.timeS + 30));
-    const early = loads.slice(0, Math.max(3, Math.floor(points.length * 0.1))).filter(Number.isFinite).sort((a, b) => a - b);
-    const baseline = early[early.length >> 1] ?? 0;
-    const rise = baseline + Math.max(5, 0.05 * (maxLoad - baseline));
-    const first = loads.findIndex((l) => l > rise);
-    if (first > 0) onsetS = points[first - 1]!.timeS;
+  const raw = points.map((p) => (hasLoad ? workload(p) ?? NaN : p.vo2MlMin));
+  const load = runningMedianOf(raw, hasLoad ? 2 : 3);
+  const finite = load.filter(Number.isFinite);
+  if (finite.length < 3) return { onsetS: points[0]!.timeS, endS: peakEndS, source: hasLoad ? "workload" : "vo2" };
+  const maxLoad = Math.max(...finite), minLoad = Math.min(...finite);
+  const tol = Math.max(1e-9, (hasLoad ? 0.03 : 0.06) * (maxLoad - minLoad));
+  let endIdx = 0;
+  load.forEach((l, i) => {
+    if (l >= maxLoad - 0.03 * (maxLoad - minLoad)) endIdx = i;
+  });
+  if (!hasLoad) {
+    // VO2 peaks at the end of exercise; the first point at the peak level ends the rise.
+    endIdx = load.findIndex((l) => l >= maxLoad - 0.03 * (maxLoad - minLoad));
   }
-  return { onsetS, endS };
+  const endS = hasLoad ? Math.max(points[endIdx]!.timeS, Math.min(peakEndS, points[endIdx]!.timeS + 30)) : Math.max(points[endIdx]!.timeS, peakEndS);
+  // Steps going back in time.
+  const steps: number[] = [];
+  let level = load[endIdx]!;
+  let lastStep = endIdx;
+  let onsetIdx = 0;
+  for (let i = endIdx - 1; i >= 0; i--) {
+    const l = load[i]!;
+    if (!Number.isFinite(l)) continue;
+    if (l > level + tol) {
+      onsetIdx = lastStep;
+      break;
+    }
+    if (l < level - tol) {
+      steps.push(points[lastStep]!.timeS - points[i]!.timeS);
+      level = l;
+      lastStep = i;
+      continue;
+    }
+    const usual = steps.length >= 2 ? [...steps].sort((x, y) => x - y)[steps.length >> 1]! : 180;
+    if (points[lastStep]!.timeS - points[i]!.timeS > Math.max(150, 2.5 * usual)) {
+      onsetIdx = lastStep;
+      break;
+    }
+    onsetIdx = i;
+  }
+  return { onsetS: points[Math.max(0, onsetIdx)]!.timeS, endS, source: hasLoad ? "workload" : "vo2" };
 }
 
 function confidenceOf(fit: HingeFit, slopeRatio: number, agreementPct: number | null): number {
@@ -146,26 +212,38 @@ function confidenceOf(fit: HingeFit, slopeRatio: number, agreementPct: number | 
   return round(0.35 * fitScore + 0.25 * slopeScore + 0.4 * agreementScore, 2);
 }
 
-/** The numbers at a moment of the test (means over ±15 s): used for detected thresholds and while a coach drags a marker. */
-export function valuesAt(points: Breath[], t: number, bodyMassKg?: number | null) {
-  return describeAt(points, t, bodyMassKg);
+/** The numbers at a moment of the test (means over ±15 s): used for detected thresholds and while a coach drags a marker.
+ * The steady-state workload is the one a mean response time earlier (see DEFAULT_MRT_S). */
+export function valuesAt(points: Breath[], t: number, bodyMassKg?: number | null, mrtS: number = DEFAULT_MRT_S) {
+  return describeAt(points, t, bodyMassKg, mrtS);
 }
 
-function describeAt(points: Breath[], t: number, bodyMassKg: number | null | undefined) {
+function describeAt(points: Breath[], t: number, bodyMassKg: number | null | undefined, mrtS: number = DEFAULT_MRT_S) {
   const vo2 = localMean(points, t, 15, (p) => p.vo2MlMin) ?? nearest(points, t).vo2MlMin;
+  const vco2 = localMean(points, t, 15, (p) => p.vco2MlMin) ?? nearest(points, t).vco2MlMin;
+  const r = (v: number | null, d = 0) => (v === null ? null : round(v, d));
+  const power = (at: number) => r(localMean(points, at, 15, (p) => p.powerW));
+  const speed = (at: number) => r(localMean(points, at, 15, (p) => p.speedKmh), 1);
+  const grade = (at: number) => r(localMean(points, at, 15, (p) => p.gradePct ?? null), 1);
+  const earlier = Math.max(points[0]?.timeS ?? 0, t - mrtS);
   return {
     vo2MlMin: round(vo2),
     vo2MlKgMin: bodyMassKg ? round(vo2 / bodyMassKg, 1) : null,
-    vco2MlMin: round(localMean(points, t, 15, (p) => p.vco2MlMin) ?? nearest(points, t).vco2MlMin),
-    hrBpm: ((v) => (v === null ? null : round(v)))(localMean(points, t, 15, (p) => p.hrBpm)),
-    powerW: ((v) => (v === null ? null : round(v)))(localMean(points, t, 15, (p) => p.powerW)),
-    speedKmh: ((v) => (v === null ? null : round(v, 1)))(localMean(points, t, 15, (p) => p.speedKmh)),
+    vco2MlMin: round(vco2),
+    rer: round(vco2 / vo2, 2),
+    hrBpm: r(localMean(points, t, 15, (p) => p.hrBpm)),
+    powerW: power(t),
+    speedKmh: speed(t),
+    gradePct: grade(t),
+    steadyPowerW: power(earlier),
+    steadySpeedKmh: speed(earlier),
+    steadyGradePct: grade(earlier),
     timeS: round(t),
   };
 }
 
 /** VT2: breakpoint of VE against VCO2 (slope must rise), cross-checked with the rise of VE/VCO2 over time. */
-function detectVt2(points: Breath[], bodyMassKg?: number | null): { vt2: Threshold | null; reason: string | null } {
+function detectVt2(points: Breath[], bodyMassKg: number | null | undefined, mrtS: number): { vt2: Threshold | null; reason: string | null } {
   const xs = points.map((p) => p.vco2MlMin);
   const ys = points.map((p) => p.veLMin);
   const lo = Math.min(...xs), hi = Math.max(...xs);
@@ -176,7 +254,7 @@ function detectVt2(points: Breath[], bodyMassKg?: number | null): { vt2: Thresho
     return { vt2: null, reason: "VT2 not found: VE rises in proportion to VCO2 to the end (no respiratory compensation point; the test may have stopped before it)." };
   }
   const t = timeAtValue(points, fit.x0, (p) => p.vco2MlMin);
-  const at = describeAt(points, t, bodyMassKg);
+  const at = describeAt(points, t, bodyMassKg, mrtS);
   // Cross-check: VE/VCO2 over time, breakpoint where it starts to rise.
   const upper = points.filter((p) => p.timeS >= points[0]!.timeS + 0.3 * (points[points.length - 1]!.timeS - points[0]!.timeS));
   const eq = fitHinge(upper.map((p) => p.timeS), upper.map((p) => p.veLMin / p.vco2MlMin * 1000), { minSegment: 4 });
@@ -210,20 +288,43 @@ function detectVt2(points: Breath[], bodyMassKg?: number | null): { vt2: Thresho
 }
 
 /** VT1: V-slope below VT2, cross-checked with the ventilatory equivalents. */
-function detectVt1(points: Breath[], vt2: Threshold | null, bodyMassKg?: number | null): { vt1: Threshold | null; reason: string | null } {
-  const below = vt2 ? points.filter((p) => p.timeS < vt2.timeS) : points;
-  if (below.length < MIN_POINTS / 2) return { vt1: null, reason: "VT1 not found: too few points below the respiratory compensation point." };
-  const xs = below.map((p) => p.vo2MlMin);
-  const ys = below.map((p) => p.vco2MlMin);
-  const lo = Math.min(...xs), hi = Math.max(...xs);
-  const fit = fitHinge(xs, ys, { minSegment: 4, range: [lo + 0.1 * (hi - lo), lo + 0.9 * (hi - lo)] });
-  if (!fit) return { vt1: null, reason: "VT1 not found: too few points for the V-slope method." };
-  const ratio = fit.slopeBefore > 0 ? fit.slopeAfter / fit.slopeBefore : 0;
-  if (fit.slopeAfter <= 1 || fit.slopeAfter - fit.slopeBefore < 0.1 || fit.gain < 0.1) {
-    return { vt1: null, reason: "VT1 not found: VCO2 rises in proportion to VO2 throughout (no clear V-slope breakpoint)." };
+/**
+ * Plausible V-slope lower slopes: Beaver, Wasserman & Whipp 1986 describe a lower segment with a slope near 1 (slightly
+ * below it) and an upper one clearly above 1. A lower slope far from 1 means the fit bent around something else (the
+ * slow rise of VCO2 at exercise onset, or hyperventilation); such a fit is retried without the earliest points, then refused.
+ */
+const VSLOPE_LOWER = [0.75, 1.1] as const;
+
+function detectVt1(points: Breath[], vt2: Threshold | null, bodyMassKg: number | null | undefined, mrtS: number): { vt1: Threshold | null; reason: string | null } {
+  const all = vt2 ? points.filter((p) => p.timeS < vt2.timeS) : points;
+  if (all.length < MIN_POINTS / 2) return { vt1: null, reason: "VT1 not found: too few points below the respiratory compensation point." };
+  let fit: HingeFit | null = null;
+  let below = all;
+  let rejected: string | null = null;
+  // Try the whole stretch below VT2, then without its first 15 % and 30 % (exercise-onset kinetics).
+  for (const skip of [0, 0.15, 0.3]) {
+    below = all.slice(Math.floor(all.length * skip));
+    if (below.length < 10) break;
+    const xs = below.map((p) => p.vo2MlMin);
+    const ys = below.map((p) => p.vco2MlMin);
+    const lo = Math.min(...xs), hi = Math.max(...xs);
+    const f = fitHinge(xs, ys, { minSegment: 4, range: [lo + 0.1 * (hi - lo), lo + 0.9 * (hi - lo)] });
+    if (!f) break;
+    if (f.slopeAfter <= 1 || f.slopeAfter - f.slopeBefore < 0.1 || f.gain < 0.1) {
+      rejected ??= "VT1 not found: VCO2 rises in proportion to VO2 throughout (no clear V-slope breakpoint).";
+      continue;
+    }
+    if (f.slopeBefore < VSLOPE_LOWER[0] || f.slopeBefore > VSLOPE_LOWER[1]) {
+      rejected = `VT1 not found: the V-slope fit's lower slope is ${round(f.slopeBefore, 2)}, far from the slope near 1 expected below VT1 (Beaver, Wasserman & Whipp 1986); the early part of the test may be distorted. Set the test segment or place VT1 by hand.`;
+      continue;
+    }
+    fit = f;
+    break;
   }
+  if (!fit) return { vt1: null, reason: rejected ?? "VT1 not found: too few points for the V-slope method." };
+  const ratio = fit.slopeBefore > 0 ? fit.slopeAfter / fit.slopeBefore : 0;
   const t = timeAtValue(below, fit.x0, (p) => p.vo2MlMin);
-  const at = describeAt(points, t, bodyMassKg);
+  const at = describeAt(points, t, bodyMassKg, mrtS);
   at.vo2MlMin = round(fit.x0);
   at.vo2MlKgMin = bodyMassKg ? round(fit.x0 / bodyMassKg, 1) : null;
   const results: MethodResult[] = [
@@ -267,17 +368,25 @@ function detectVt1(points: Breath[], vt2: Threshold | null, bodyMassKg?: number 
 
 export function analyzeBreaths(breaths: Breath[], opts: AnalysisOptions = {}): Analysis {
   const warnings: string[] = [];
-  const { kept, removed } = removeAberrantBreaths(breaths, opts.cleaning);
+  // A file whose rows are already averaged (10, 15, 30 s …) is used as it is: no breath cleaning, no second binning.
+  const steps: number[] = [];
+  for (let i = 1; i < Math.min(breaths.length, 500); i++) steps.push(breaths[i]!.timeS - breaths[i - 1]!.timeS);
+  steps.sort((a, b) => a - b);
+  const preAveraged = !opts.averaging && steps.length > 10 && steps[steps.length >> 1]! >= 8;
+  const { kept, removed } = preAveraged ? { kept: breaths, removed: 0 } : removeAberrantBreaths(breaths, opts.cleaning);
   if (removed > 0) warnings.push(`${removed} aberrant breath(s) removed (coughs, swallows or sighs).`);
-  const averaged = average(kept, opts.averaging ?? DEFAULT_AVERAGING);
+  if (preAveraged) warnings.push(`The rows are already averaged (every ${round(steps[steps.length >> 1]!)} s): used as they are.`);
+  const averaged = preAveraged ? kept : average(kept, opts.averaging ?? DEFAULT_AVERAGING);
   const peakWindow = highestWindowMean(kept, "vo2MlMin", 30);
   const mass = opts.bodyMassKg ?? null;
-  const emptyPeak: Peak = { vo2MlMin: 0, vo2MlKgMin: null, hrBpm: null, rer: null, powerW: null, speedKmh: null, plateau: false };
+  const emptyPeak: Peak = { vo2MlMin: 0, vo2MlKgMin: null, hrBpm: null, rer: null, powerW: null, speedKmh: null, gradePct: null, plateau: false };
   const base: Omit<Analysis, "vt1" | "vt2" | "vt1Reason" | "vt2Reason" | "peak"> = {
     warnings,
     points: averaged,
     onsetS: averaged[0]?.timeS ?? 0,
     endS: averaged[averaged.length - 1]?.timeS ?? 0,
+    segmentSource: "workload",
+    meanResponseTimeS: opts.meanResponseTimeS ?? DEFAULT_MRT_S,
     breathsRead: breaths.length,
     breathsRemoved: removed,
     columns: {},
@@ -290,21 +399,29 @@ export function analyzeBreaths(breaths: Breath[], opts: AnalysisOptions = {}): A
       : emptyPeak;
     return { ...base, vt1: null, vt1Reason: reason, vt2: null, vt2Reason: reason, peak };
   }
-  const { onsetS, endS } = findSegment(averaged, peakWindow.endTimeS);
+  const found = findSegment(averaged, peakWindow.endTimeS);
+  const chosenFrom = opts.segment?.fromS ?? null, chosenTo = opts.segment?.toS ?? null;
+  const onsetS = chosenFrom ?? found.onsetS;
+  const endS = chosenTo ?? found.endS;
+  const segmentSource = chosenFrom !== null || chosenTo !== null ? "chosen" : found.source;
+  if (segmentSource === "vo2") warnings.push("The file has no workload column: the test segment was found from VO2 alone; check its start and end.");
   const exercise = averaged.filter((p) => p.timeS >= onsetS && p.timeS <= endS);
   const detection = exercise.filter((p) => p.timeS >= onsetS + KINETICS_LAG_S);
 
   const hrs = exercise.map((p) => p.hrBpm).filter((v): v is number => v !== null);
-  const rers = exercise.filter((p) => p.timeS >= onsetS + KINETICS_LAG_S).map((p) => p.vco2MlMin / p.vo2MlMin);
-  const peakRer = rers.length ? Math.max(...rers) : null;
+  // Peak RER: over the same 30 s as peak VO2, not the highest value of the test (an early hyperventilation would win).
+  const inPeak = kept.filter((b) => b.timeS > peakWindow.endTimeS - 30 && b.timeS <= peakWindow.endTimeS);
+  const peakRer = inPeak.length ? inPeak.reduce((s, b) => s + b.vco2MlMin, 0) / inPeak.reduce((s, b) => s + b.vo2MlMin, 0) : null;
   const earlier = highestWindowMean(kept.filter((b) => b.timeS <= peakWindow.endTimeS - 60), "vo2MlMin", 30);
+  const maxOf = (v: (number | null | undefined)[], d = 0) => ((f) => (f.length ? round(Math.max(...f), d) : null))(v.filter((x): x is number => x !== null && x !== undefined));
   const peak: Peak = {
     vo2MlMin: round(peakWindow.value),
     vo2MlKgMin: mass ? round(peakWindow.value / mass, 1) : null,
     hrBpm: hrs.length ? round(Math.max(...hrs)) : null,
     rer: peakRer === null ? null : round(peakRer, 2),
-    powerW: ((v) => (v.length ? round(Math.max(...v)) : null))(exercise.map((p) => p.powerW).filter((v): v is number => v !== null)),
-    speedKmh: ((v) => (v.length ? round(Math.max(...v), 1) : null))(exercise.map((p) => p.speedKmh).filter((v): v is number => v !== null)),
+    powerW: maxOf(exercise.map((p) => p.powerW)),
+    speedKmh: maxOf(exercise.map((p) => p.speedKmh), 1),
+    gradePct: maxOf(exercise.map((p) => p.gradePct), 1),
     // Plateau: less than 150 mL/min rise over the last minute (Taylor, Buskirk & Henschel 1955 criterion).
     plateau: earlier ? peakWindow.value - earlier.value < 150 : false,
   };
@@ -314,10 +431,11 @@ export function analyzeBreaths(breaths: Breath[], opts: AnalysisOptions = {}): A
   if (detection.length < MIN_POINTS) {
     const reason = "Too few points during exercise to find thresholds.";
     warnings.push(reason);
-    return { ...base, onsetS, endS, vt1: null, vt1Reason: reason, vt2: null, vt2Reason: reason, peak };
+    return { ...base, onsetS, endS, segmentSource, vt1: null, vt1Reason: reason, vt2: null, vt2Reason: reason, peak };
   }
-  const { vt2, reason: vt2Reason } = detectVt2(detection, mass);
-  const { vt1, reason: vt1Reason } = detectVt1(detection, vt2, mass);
+  const mrtS = opts.meanResponseTimeS ?? DEFAULT_MRT_S;
+  const { vt2, reason: vt2Reason } = detectVt2(detection, mass, mrtS);
+  const { vt1, reason: vt1Reason } = detectVt1(detection, vt2, mass, mrtS);
   if (!vt2 && vt2Reason) warnings.push(vt2Reason);
   if (!vt1 && vt1Reason) warnings.push(vt1Reason);
   if (vt1 && peak.vo2MlMin) {
@@ -328,12 +446,16 @@ export function analyzeBreaths(breaths: Breath[], opts: AnalysisOptions = {}): A
     const pct = (100 * vt2.vo2MlMin) / peak.vo2MlMin;
     if (pct < 55 || pct > 98) vt2.warnings.push(`VT2 at ${round(pct)} % of peak VO2 is unusual (typically 70–90 %); check the curves.`);
   }
-  return { ...base, onsetS, endS, vt1, vt1Reason, vt2, vt2Reason, peak };
+  return { ...base, onsetS, endS, segmentSource, vt1, vt1Reason, vt2, vt2Reason, peak };
 }
 
 export function analyzeCsv(text: string, opts: AnalysisOptions = {}): CsvAnalysis {
-  const read = readGasExchangeCsv(text, opts.mapping);
+  return analyzeRead(readGasExchangeCsv(text, opts.mapping, { bodyMassKg: opts.bodyMassKg, units: opts.units }), opts);
+}
+
+/** The analysis of a table already read (CSV or spreadsheet): one engine for every input. */
+export function analyzeRead(read: ReturnType<typeof readGasExchangeCsv>, opts: AnalysisOptions = {}): CsvAnalysis {
   if (!read.ok) return read;
-  const analysis = analyzeBreaths(read.breaths, opts);
+  const analysis = analyzeBreaths(read.breaths, { ...opts, bodyMassKg: opts.bodyMassKg ?? read.bodyMassFromFileKg });
   return { ok: true, ...analysis, columns: read.columns, warnings: [...read.warnings, ...analysis.warnings] };
 }

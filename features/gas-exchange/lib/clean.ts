@@ -104,7 +104,7 @@ export const DEFAULT_AVERAGING: Averaging = { mode: "time", binS: 15 };
 
 function averageGroup(breaths: Breath[], from: number, to: number): Breath {
   let t = 0, vo2 = 0, vco2 = 0, ve = 0;
-  let hr = 0, hrN = 0, p = 0, pN = 0, sp = 0, spN = 0, rf = 0, rfN = 0;
+  let hr = 0, hrN = 0, p = 0, pN = 0, sp = 0, spN = 0, rf = 0, rfN = 0, g = 0, gN = 0;
   for (let i = from; i < to; i++) {
     const b = breaths[i]!;
     t += b.timeS;
@@ -127,6 +127,10 @@ function averageGroup(breaths: Breath[], from: number, to: number): Breath {
       rf += b.rfPerMin;
       rfN++;
     }
+    if (b.gradePct !== null && b.gradePct !== undefined) {
+      g += b.gradePct;
+      gN++;
+    }
   }
   const n = to - from;
   return {
@@ -138,6 +142,7 @@ function averageGroup(breaths: Breath[], from: number, to: number): Breath {
     powerW: pN ? p / pN : null,
     speedKmh: spN ? sp / spN : null,
     rfPerMin: rfN ? rf / rfN : null,
+    gradePct: gN ? g / gN : null,
   };
 }
 

@@ -52,6 +52,9 @@ export const POST = route<Ctx>(async (req, ctx) => {
       mapping: jsonField(form, "mapping"),
       bodyMassKg: mass === null || mass === "" ? null : Number(mass),
       fiveZones: form.get("fiveZones") === "true",
+      units: jsonField(form, "units"),
+      segment: jsonField(form, "segment"),
+      sheet: form.get("sheet") || null,
     });
     if (!fields.success) throw new HttpError(400, "Some fields are not valid.", { fieldErrors: fieldErrors(fields.error) });
     const bytes = new Uint8Array(await file.arrayBuffer());
