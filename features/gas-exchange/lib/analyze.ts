@@ -163,11 +163,21 @@ function timeAtValue(points: Breath[], value: number, f: (b: Breath) => number):
 function findSegment(points: Breath[], peakEndS: number): { onsetS: number; endS: number; source: "workload" | "vo2" } {
   const hasLoad = points.filter((p) => workload(p) !== null).length > points.length * 0.5;
   const raw = points.map((p) => (hasLoad ? workload(p) ?? NaN : p.vo2MlMin));
-  const load = runningMedianOf(raw, hasLoad ? 2 : 3);
+  const load = runningMedianOf(raw, 3);
   const finite = load.filter(Number.isFinite);
   if (finite.length < 3) return { onsetS: points[0]!.timeS, endS: peakEndS, source: hasLoad ? "workload" : "vo2" };
   const maxLoad = Math.max(...finite), minLoad = Math.min(...finite);
-  const tol = Math.max(1e-9, (hasLoad ? 0.03 : 0.06) * (maxLoad - minLoad));
+  // A measured workload (a rowing ergometer's stroke power) is noisy: the tolerance is also three times its typical
+  // point-to-point change after smoothing.
+  const diffs: number[] = [];
+  for (let i = 1; i < load.length; i++) if (Number.isFinite(load[i]!) && Number.isFinite(load[i - 1]!)) diffs.push(Math.abs(load[i]! - load[i - 1]!));
+  diffs.sort((x, y) => x - y);
+  const jitter = diffs.length ? diffs[diffs.length >> 1]! : 0;
+  const rawDiffs: number[] = [];
+  for (let i = 1; i < raw.length; i++) if (Number.isFinite(raw[i]!) && Number.isFinite(raw[i - 1]!)) rawDiffs.push(Math.abs(raw[i]! - raw[i - 1]!));
+  rawDiffs.sort((x, y) => x - y);
+  const rawJitter = rawDiffs.length ? rawDiffs[rawDiffs.length >> 1]! : 0;
+  const tol = Math.max(1e-9, (hasLoad ? 0.03 : 0.06) * (maxLoad - minLoad), 3 * jitter, rawJitter);
   let endIdx = 0;
   load.forEach((l, i) => {
     if (l >= maxLoad - 0.03 * (maxLoad - minLoad)) endIdx = i;
@@ -202,6 +212,9 @@ function findSegment(points: Breath[], peakEndS: number): { onsetS: number; endS
     }
     onsetIdx = i;
   }
+  // A level start longer than one of the test's own steps is a warm-up, not a stage: the test starts where it ends.
+  const usualStep = steps.length >= 2 ? [...steps].sort((x, y) => x - y)[steps.length >> 1]! : 180;
+  if (lastStep > onsetIdx && points[lastStep]!.timeS - points[onsetIdx]!.timeS > 1.5 * usualStep) onsetIdx = lastStep;
   return { onsetS: points[Math.max(0, onsetIdx)]!.timeS, endS, source: hasLoad ? "workload" : "vo2" };
 }
 
@@ -293,7 +306,7 @@ function detectVt2(points: Breath[], bodyMassKg: number | null | undefined, mrtS
  * below it) and an upper one clearly above 1. A lower slope far from 1 means the fit bent around something else (the
  * slow rise of VCO2 at exercise onset, or hyperventilation); such a fit is retried without the earliest points, then refused.
  */
-const VSLOPE_LOWER = [0.75, 1.1] as const;
+const VSLOPE_LOWER = [0.6, 1.15] as const;
 
 function detectVt1(points: Breath[], vt2: Threshold | null, bodyMassKg: number | null | undefined, mrtS: number): { vt1: Threshold | null; reason: string | null } {
   const all = vt2 ? points.filter((p) => p.timeS < vt2.timeS) : points;
@@ -311,8 +324,9 @@ function detectVt1(points: Breath[], vt2: Threshold | null, bodyMassKg: number |
     const f = fitHinge(xs, ys, { minSegment: 4, range: [lo + 0.1 * (hi - lo), lo + 0.9 * (hi - lo)] });
     if (!f) break;
     if (f.slopeAfter <= 1 || f.slopeAfter - f.slopeBefore < 0.1 || f.gain < 0.1) {
+      // No breakpoint at all: dropping early points would only find one in the noise.
       rejected ??= "VT1 not found: VCO2 rises in proportion to VO2 throughout (no clear V-slope breakpoint).";
-      continue;
+      break;
     }
     if (f.slopeBefore < VSLOPE_LOWER[0] || f.slopeBefore > VSLOPE_LOWER[1]) {
       rejected = `VT1 not found: the V-slope fit's lower slope is ${round(f.slopeBefore, 2)}, far from the slope near 1 expected below VT1 (Beaver, Wasserman & Whipp 1986); the early part of the test may be distorted. Set the test segment or place VT1 by hand.`;

@@ -1,0 +1,58 @@
+/**
+ * `npm run validate [-- --per-cell N] [-- --failures]`: detection rates of the threshold engine on generated lab tests
+ * (every protocol × phase pattern × export style, N seeds each; deterministic) and on the three real files.
+ * Targets: VT1 ≥ 95 %, VT2 ≥ 97 %, peak ≥ 98 % overall and ≥ 90 % in every row. Exit 1 when a target is missed.
+ */
+import fs from "node:fs";
+import path from "node:path";
+import { analyzeCsv } from "../features/gas-exchange/lib/analyze";
+import { labCases } from "../features/gas-exchange/lib/lab-generator";
+import { groupRates, rates, runCase, type Rates } from "../features/gas-exchange/lib/validation";
+
+const args = process.argv.slice(2);
+const perCell = Number(args[args.indexOf("--per-cell") + 1] ?? 2) || 2;
+const showFailures = args.includes("--failures");
+const results = labCases(args.includes("--per-cell") ? perCell : 2).map(runCase);
+const pct = (v: number) => `${v.toFixed(1).padStart(5)} %`;
+let missed = false;
+const line = (label: string, r: Rates, overall = false) => {
+  const [t1, t2, tp] = overall ? [95, 97, 98] : [90, 90, 90];
+  const miss = r.vt1 < t1 || r.vt2 < t2 || r.peak < tp;
+  if (miss) missed = true;
+  console.log(`${label.padEnd(26)} ${String(r.n).padStart(4)}  ${pct(r.vt1)}  ${pct(r.vt2)}  ${pct(r.peak)}  ${String(r.beforeRamp).padStart(6)}${miss ? "  ← below target" : ""}`);
+};
+const head = `${"".padEnd(26)} ${"n".padStart(4)}  ${"VT1".padStart(7)}  ${"VT2".padStart(7)}  ${"peak".padStart(7)}  ${"early".padStart(6)}`;
+console.log(`Generated lab tests (VT1/VT2 within 6 %, peak within 5 %; "early" = a threshold placed before the ramp)\n`);
+console.log(head);
+line("all", rates(results), true);
+for (const [title, key] of [["by protocol", (c: { protocol: string }) => c.protocol], ["by phase pattern", (c: { phase: string }) => c.phase], ["by export style", (c: { style: string }) => c.style]] as const) {
+  console.log(`\n${title}`);
+  for (const [k, r] of groupRates(results, key as (c: (typeof results)[number]["c"]) => string)) line(`  ${k}`, r);
+}
+if (showFailures) {
+  console.log("\nMisses:");
+  for (const r of results.filter((x) => !x.vt1 || !x.vt2 || !x.peak)) console.log(`  ${r.c.protocol} / ${r.c.phase} / ${r.c.style} / seed ${r.c.seed}: ${r.detail}`);
+}
+
+// The real files against the independent reading in their README (ranges ± 6 %, peak ± 5 %).
+const dir = path.resolve("test/fixtures/real-cpet");
+const real: [string, [number, number] | null, [number, number] | null, number][] = [
+  ["treadmill-ramp-mss-relative-first.csv", [3050, 3250], [3680, 3750], 3850],
+  ["treadmill-warmup-ramp-minutes-mph.csv", [2090, 2190], [2620, 2710], 2740],
+  ["treadmill-stage-then-ramp-hms.csv", null, [3450, 3500], 3560],
+];
+console.log(`\nReal files (gasExchangeR, MIT licence; reading in test/fixtures/real-cpet/README.md)\n`);
+const inRange = (v: number | undefined, r: [number, number]) => v !== undefined && v >= r[0] * 0.94 && v <= r[1] * 1.06;
+for (const [name, vt1, vt2, peak] of real) {
+  const a = analyzeCsv(fs.readFileSync(path.join(dir, name), "utf8"));
+  if (!a.ok) {
+    console.log(`${name}: error ${a.error}`);
+    missed = true;
+    continue;
+  }
+  const v1 = vt1 ? (inRange(a.vt1?.vo2MlMin, vt1) ? "hit" : "miss") : a.vt1 ? (a.vt1.vo2MlMin <= 2600 * 1.06 ? "hit (≤ 2600)" : "miss") : "not found (reading unclear)";
+  const v2 = inRange(a.vt2?.vo2MlMin, vt2!) ? "hit" : "miss";
+  const p = Math.abs(a.peak.vo2MlMin - peak) <= 0.05 * peak ? "hit" : "miss";
+  console.log(`${name.padEnd(40)} VT1 ${String(a.vt1?.vo2MlMin ?? "—").padStart(5)} ${v1.padEnd(28)} VT2 ${String(a.vt2?.vo2MlMin ?? "—").padStart(5)} ${v2.padEnd(5)} peak ${a.peak.vo2MlMin} ${p}`);
+}
+process.exit(missed ? 1 : 0);
