@@ -7,7 +7,8 @@
  *   planner page's first-load JavaScript in kB gzip (bench-planner-js.ts; builds the app when its sources changed).
  */
 import Papa from "papaparse";
-import { analyzeCsv } from "../features/gas-exchange/lib/analyze";
+import { analyzeCsv, analyzeRead } from "../features/gas-exchange/lib/analyze";
+import { readGasExchangeFile } from "../features/gas-exchange/lib/workbook";
 import { checkWeek, BUDGET_PRESETS } from "../features/planning/lib/budget";
 import { planSeason } from "../features/planning/lib/season";
 import { addDays, summariseWeeks } from "../features/planning/lib/weeks";
@@ -103,4 +104,40 @@ const { spawnSync } = await import("node:child_process");
 for (const script of ["./bench-roster.ts", "./bench-weeks.ts", "./bench-planner-js.ts"]) {
   const child = spawnSync(process.execPath, ["--conditions=react-server", "--import", "tsx", new URL(script, import.meta.url).pathname], { stdio: "inherit" });
   if (child.status !== 0) process.exitCode = child.status ?? 1;
+}
+
+// The .xlsx path: reading and analysing a workbook against exceljs opening the same workbook (target ≤ 1.5).
+{
+  const ExcelJS = (await import("exceljs")).default;
+  const lines = csv.trim().split("\n");
+  const wb = new ExcelJS.Workbook();
+  const ws = wb.addWorksheet("Test");
+  ws.addRow(lines[0]!.split(","));
+  for (const l of lines.slice(1)) ws.addRow(l.split(",").map(Number));
+  const book = new Uint8Array(await wb.xlsx.writeBuffer());
+  const timeAsync = async (fn: () => Promise<void>, minMs = 1500) => {
+    for (let i = 0; i < 2; i++) await fn();
+    let runs = 0;
+    const start = performance.now();
+    while (performance.now() - start < minMs || runs < 3) {
+      await fn();
+      runs++;
+    }
+    return (performance.now() - start) / runs;
+  };
+  // Interleaved rounds, median of three, so a slow moment of the machine does not fall on one side only.
+  const floors: number[] = [], paths: number[] = [];
+  for (let round = 0; round < 3; round++) {
+    floors.push(await timeAsync(async () => {
+      await new ExcelJS.Workbook().xlsx.load(book.buffer.slice(book.byteOffset, book.byteOffset + book.byteLength) as ArrayBuffer);
+    }));
+    paths.push(await timeAsync(async () => {
+      const a = analyzeRead(await readGasExchangeFile(book));
+      if (!a.ok) throw new Error(a.error);
+    }));
+  }
+  const med = (v: number[]) => [...v].sort((x, y) => x - y)[1]!;
+  const r = med(paths) / med(floors);
+  console.log(`floor: exceljs opening the same test as a ${(book.length / 1024).toFixed(0)} KB .xlsx workbook, measured in this run = 1`);
+  console.log(`reading and analysing the workbook: ${r.toFixed(2)} × floor (target ≤ 1.5) ${r <= 1.5 ? "OK" : "ABOVE TARGET"}`);
 }

@@ -66,8 +66,20 @@ function ThresholdCard({ label, color, v, mass, detail, reason, isAdjusted }: { 
           <dd className="num" data-testid={`${label}-vo2`}>{v.vo2MlMin} mL/min{mass ? ` · ${(v.vo2MlMin / mass).toFixed(1)} mL/kg/min` : ""}</dd>
           <dt className="text-ink-soft">Heart rate</dt>
           <dd className="num" data-testid={`${label}-hr`}>{v.hrBpm !== null ? `${v.hrBpm} bpm` : "not recorded"}</dd>
-          {v.powerW !== null ? (<><dt className="text-ink-soft">Power</dt><dd className="num">{v.powerW} W</dd></>) : null}
-          {v.speedKmh !== null ? (<><dt className="text-ink-soft">Speed</dt><dd className="num">{v.speedKmh} km/h</dd></>) : null}
+          <dt className="text-ink-soft">VCO2 · RER</dt>
+          <dd className="num">{v.vco2MlMin} mL/min · {v.rer}</dd>
+          {v.powerW !== null ? (
+            <>
+              <dt className="text-ink-soft">Power <span className="font-normal">(steady state, used for zones)</span></dt>
+              <dd className="num" data-testid={`${label}-power`}>{v.steadyPowerW ?? v.powerW} W · {v.powerW} W on the ramp</dd>
+            </>
+          ) : null}
+          {v.speedKmh !== null ? (
+            <>
+              <dt className="text-ink-soft">Speed <span className="font-normal">(steady state, used for zones)</span></dt>
+              <dd className="num">{v.steadySpeedKmh ?? v.speedKmh} km/h · {v.speedKmh} km/h on the ramp</dd>
+            </>
+          ) : null}
         </dl>
       ) : (
         <p className="text-sm">{reason ?? "Not found."} Drag the marker onto the curves to set it by hand.</p>

@@ -4,7 +4,9 @@ import { useRouter } from "next/navigation";
 import { useState, type DragEvent } from "react";
 import { useForm, useWatch } from "react-hook-form";
 import { z } from "zod";
-import { CHANNEL_LABELS, CHANNELS, guessColumns, readGasExchangeCsv, REQUIRED_CHANNELS, type Channel, type ColumnMapping } from "@/features/gas-exchange/lib/csv";
+import { CHANNEL_LABELS, CHANNELS, guessColumns, REQUIRED_CHANNELS, UNIT_CHOICES, type Channel, type ColumnMapping, type UnitChoices } from "@/features/gas-exchange/lib/csv";
+import { fileKind, readGasExchangeFile, REFUSED_KINDS } from "@/features/gas-exchange/lib/workbook";
+import { parseTime } from "@/features/gas-exchange/lib/csv";
 import { FieldError, FormAlert } from "@/features/platform/components/form-bits";
 import { ApiError } from "@/features/squads/api";
 import { uploadGasExchange } from "../api";
@@ -23,18 +25,23 @@ interface Picked {
   file: File;
   headers: string[];
   mapping: ColumnMapping;
+  chosenUnits: UnitChoices;
+  sheets: string[];
+  sheet: string | null;
   rows: number;
   units: Partial<Record<Channel, string>>;
   problem: string | null;
   warnings: string[];
 }
 
-function inspect(file: File, text: string, mapping?: ColumnMapping): Picked {
-  const firstLine = text.replace(/^\uFEFF/, "").split(/\r?\n/, 1)[0] ?? "";
-  const result = readGasExchangeCsv(text, mapping);
+async function inspect(file: File, bytes: Uint8Array, mapping: ColumnMapping | undefined, chosenUnits: UnitChoices, sheet: string | null, massKg: number | null): Promise<Picked> {
+  const result = await readGasExchangeFile(bytes, mapping, { units: chosenUnits, sheet, bodyMassKg: massKg });
+  const sheets = result.sheets ?? [];
+  const base = { file, chosenUnits, sheets, sheet: result.sheet ?? sheet };
   if (!result.ok) {
-    const headers = result.headers.length ? result.headers : firstLine.split(/[;,\t]/).map((h) => h.trim());
-    return { file, headers, mapping: mapping ?? guessColumns(headers), rows: 0, units: {}, problem: result.error, warnings: [] };
+    const firstLine = fileKind(bytes) === "csv" ? (new TextDecoder().decode(bytes.subarray(0, 4096)).replace(/^\uFEFF/, "").split(/\r?\n/, 1)[0] ?? "") : "";
+    const headers = result.headers.length ? result.headers : firstLine.split(/[;,\t]/).map((h) => h.trim()).filter(Boolean);
+    return { ...base, headers, mapping: mapping ?? guessColumns(headers), rows: 0, units: {}, problem: result.error, warnings: [] };
   }
   const picked: ColumnMapping = {};
   const units: Partial<Record<Channel, string>> = {};
@@ -42,23 +49,44 @@ function inspect(file: File, text: string, mapping?: ColumnMapping): Picked {
     const col = result.columns[c];
     if (col) {
       picked[c] = col.header;
-      units[c] = `${col.unit}${col.unitReason === "values" ? " (from the values)" : col.unitReason === "header" ? " (from the header)" : ""}`;
+      units[c] = `${col.unit}${col.unitReason === "values" ? " (from the values)" : col.unitReason === "header" ? " (from the header)" : col.unitReason === "chosen" ? " (as chosen)" : ""}`;
     }
   }
-  return { file, headers: result.headers, mapping: picked, rows: result.breaths.length, units, problem: null, warnings: result.warnings };
+  return { ...base, headers: result.headers, mapping: picked, rows: result.breaths.length, units, problem: null, warnings: result.warnings };
+}
+
+const UNIT_CHANNELS = Object.keys(UNIT_CHOICES) as (keyof typeof UNIT_CHOICES)[];
+
+/** Seconds from "90", "1:30" or "01:01:30"; null when empty; NaN when unreadable. */
+function segmentTime(v: string): number | null {
+  return v.trim() === "" ? null : parseTime(v);
 }
 
 export function GasExchangeUpload({ athleteId, defaultMassKg, today }: { athleteId: string; defaultMassKg: number | null; today: string }) {
   const router = useRouter();
   const [picked, setPicked] = useState<Picked | null>(null);
-  const [text, setText] = useState("");
+  const [bytes, setBytes] = useState<Uint8Array>(new Uint8Array());
+  const [segmentFrom, setSegmentFrom] = useState("");
+  const [segmentTo, setSegmentTo] = useState("");
   const [fileError, setFileError] = useState<string>();
   const [progress, setProgress] = useState<number | null>(null);
   const [dragging, setDragging] = useState(false);
-  const { register, control, handleSubmit, formState, setError } = useForm<FormValues>({
+  const { register, control, handleSubmit, formState, setError, getValues } = useForm<FormValues>({
     resolver: zodResolver(formSchema),
     defaultValues: { meta: { sport: "cycling", protocol: "", date: today, endedBy: "exhaustion", stopSign: null }, bodyMassKg: defaultMassKg, fiveZones: false },
   });
+
+  const massNow = () => {
+    const m = getValues("bodyMassKg");
+    return typeof m === "number" && Number.isFinite(m) ? m : null;
+  };
+  const fromS = segmentTime(segmentFrom), toS = segmentTime(segmentTo);
+  const segmentProblem =
+    (fromS !== null && !Number.isFinite(fromS)) || (toS !== null && !Number.isFinite(toS))
+      ? "Give the segment's start and end as seconds or mm:ss."
+      : fromS !== null && toS !== null && toS <= fromS + 60
+        ? "The test segment must end at least a minute after it starts."
+        : null;
 
   async function choose(file: File | undefined) {
     setFileError(undefined);
@@ -66,19 +94,32 @@ export function GasExchangeUpload({ athleteId, defaultMassKg, today }: { athlete
     if (!file) return;
     if (file.size > MAX_UPLOAD_BYTES) return setFileError("The file is larger than 10 MB. Export a shorter file or averaged data.");
     if (file.size === 0) return setFileError("The file is empty.");
-    const t = await file.text();
-    if (t.includes("\u0000")) return setFileError("This file is not a text CSV (it contains binary data). Export the test as CSV.");
-    setText(t);
-    setPicked(inspect(file, t));
+    const b = new Uint8Array(await file.arrayBuffer());
+    const kind = fileKind(b);
+    if (kind === "xls" || kind === "binary") return setFileError(REFUSED_KINDS[kind]);
+    setBytes(b);
+    setPicked(await inspect(file, b, undefined, {}, null, massNow()));
   }
 
-  function remap(channel: Channel, header: string) {
+  async function remap(channel: Channel, header: string) {
     if (!picked) return;
     const mapping: ColumnMapping = { ...picked.mapping };
     if (header) mapping[channel] = header;
     else delete mapping[channel];
-    const next = inspect(picked.file, text, mapping);
+    const next = await inspect(picked.file, bytes, mapping, picked.chosenUnits, picked.sheet, massNow());
     setPicked({ ...next, mapping });
+  }
+
+  async function setUnit(channel: keyof typeof UNIT_CHOICES, unit: string) {
+    if (!picked) return;
+    const chosenUnits = { ...picked.chosenUnits, [channel]: unit || undefined } as UnitChoices;
+    if (!unit) delete (chosenUnits as Record<string, unknown>)[channel];
+    setPicked(await inspect(picked.file, bytes, picked.mapping, chosenUnits, picked.sheet, massNow()));
+  }
+
+  async function setSheet(sheet: string) {
+    if (!picked) return;
+    setPicked(await inspect(picked.file, bytes, undefined, picked.chosenUnits, sheet, massNow()));
   }
 
   const onDrop = (e: DragEvent) => {
@@ -88,7 +129,7 @@ export function GasExchangeUpload({ athleteId, defaultMassKg, today }: { athlete
   };
 
   const onSubmit = handleSubmit(async (values) => {
-    if (!picked || picked.problem) return;
+    if (!picked || picked.problem || segmentProblem) return;
     const form = new FormData();
     form.set("file", picked.file);
     form.set("sport", values.meta.sport);
@@ -97,6 +138,9 @@ export function GasExchangeUpload({ athleteId, defaultMassKg, today }: { athlete
     form.set("endedBy", values.meta.endedBy);
     if (values.meta.stopSign) form.set("stopSign", values.meta.stopSign);
     form.set("mapping", JSON.stringify(picked.mapping));
+    if (Object.keys(picked.chosenUnits).length) form.set("units", JSON.stringify(picked.chosenUnits));
+    if (picked.sheet) form.set("sheet", picked.sheet);
+    if (fromS !== null || toS !== null) form.set("segment", JSON.stringify({ fromS, toS }));
     if (values.bodyMassKg !== null) form.set("bodyMassKg", String(values.bodyMassKg));
     form.set("fiveZones", String(values.fiveZones));
     setProgress(0);
@@ -126,11 +170,11 @@ export function GasExchangeUpload({ athleteId, defaultMassKg, today }: { athlete
           onDrop={onDrop}
           className={`flex cursor-pointer flex-col items-center justify-center rounded-lg border-2 border-dashed p-8 text-center ${dragging ? "border-tide bg-tide-wash" : "border-rule bg-paper"}`}
         >
-          <span className="font-semibold">Drop a breath-by-breath or averaged CSV here, or choose a file</span>
-          <span className="mt-1 text-sm text-ink-soft">Time, VO2, VCO2 and VE are needed; heart rate, power, speed and breathing frequency are used when present. Up to 10 MB.</span>
-          <span className="btn-quiet mt-3">Choose a CSV file</span>
+          <span className="font-semibold">Drop a breath-by-breath or averaged export here (CSV or .xlsx), or choose a file</span>
+          <span className="mt-1 text-sm text-ink-soft">Time, VO2, VCO2 and VE are needed; heart rate, power, speed, grade and breathing frequency are used when present. Up to 10 MB.</span>
+          <span className="btn-quiet mt-3">Choose a file</span>
         </label>
-        <input id="gas-file" type="file" accept=".csv,.txt,text/csv,text/plain" className="sr-only" onChange={(e) => void choose(e.target.files?.[0])} />
+        <input id="gas-file" type="file" accept=".csv,.txt,.xlsx,text/csv,text/plain,application/vnd.openxmlformats-officedocument.spreadsheetml.sheet" className="sr-only" onChange={(e) => void choose(e.target.files?.[0])} />
         <FieldError id="gas-file-error" message={fileError} />
       </section>
 
@@ -156,18 +200,55 @@ export function GasExchangeUpload({ athleteId, defaultMassKg, today }: { athlete
                     {REQUIRED_CHANNELS.includes(c) ? <span className="text-alert"> (required)</span> : null}
                   </th>
                   <td className="py-1 pr-3">
-                    <select aria-label={`Column for ${CHANNEL_LABELS[c]}`} className="field-input mt-0" value={picked.mapping[c] ?? ""} onChange={(e) => remap(c, e.target.value)}>
+                    <select aria-label={`Column for ${CHANNEL_LABELS[c]}`} className="field-input mt-0" value={picked.mapping[c] ?? ""} onChange={(e) => void remap(c, e.target.value)}>
                       <option value="">— not in the file —</option>
                       {picked.headers.map((h) => (
                         <option key={h} value={h}>{h}</option>
                       ))}
                     </select>
                   </td>
-                  <td className="py-1 pr-3 text-ink-soft">{picked.units[c] ?? "—"}</td>
+                  <td className="py-1 pr-3 text-ink-soft">
+                    {picked.units[c] ?? "—"}
+                    {(UNIT_CHANNELS as string[]).includes(c) && picked.mapping[c] ? (
+                      <select
+                        aria-label={`Unit of ${CHANNEL_LABELS[c]}`}
+                        className="field-input mt-1"
+                        value={picked.chosenUnits[c as keyof UnitChoices] ?? ""}
+                        onChange={(e) => void setUnit(c as keyof typeof UNIT_CHOICES, e.target.value)}
+                      >
+                        <option value="">as read</option>
+                        {UNIT_CHOICES[c as keyof typeof UNIT_CHOICES].map((u) => (
+                          <option key={u} value={u}>{u}</option>
+                        ))}
+                      </select>
+                    ) : null}
+                  </td>
                 </tr>
               ))}
             </tbody>
           </table>
+          {picked.sheets.length > 1 ? (
+            <div>
+              <label htmlFor="gas-sheet" className="field-label">Sheet of the workbook</label>
+              <select id="gas-sheet" className="field-input" value={picked.sheet ?? ""} onChange={(e) => void setSheet(e.target.value)}>
+                {picked.sheets.map((n) => (
+                  <option key={n} value={n}>{n}</option>
+                ))}
+              </select>
+            </div>
+          ) : null}
+          <fieldset className="grid gap-4 sm:grid-cols-2">
+            <legend className="field-label">Test segment <span className="font-normal text-ink-soft">(optional: Tidemark finds the ramp itself; set a start or end only to correct it)</span></legend>
+            <div>
+              <label htmlFor="segment-from" className="field-label">Starts at <span className="font-normal text-ink-soft">(s or mm:ss)</span></label>
+              <input id="segment-from" className="field-input num" value={segmentFrom} onChange={(e) => setSegmentFrom(e.target.value)} placeholder="found from the workload" />
+            </div>
+            <div>
+              <label htmlFor="segment-to" className="field-label">Ends at <span className="font-normal text-ink-soft">(s or mm:ss)</span></label>
+              <input id="segment-to" className="field-input num" value={segmentTo} onChange={(e) => setSegmentTo(e.target.value)} placeholder="found from the workload" />
+            </div>
+          </fieldset>
+          {segmentProblem ? <FormAlert>{segmentProblem}</FormAlert> : null}
           {picked.problem ? <FormAlert>{picked.problem}</FormAlert> : null}
           {picked.warnings.length ? (
             <ul className="list-disc pl-5 text-sm text-ink-soft">
@@ -200,7 +281,7 @@ export function GasExchangeUpload({ athleteId, defaultMassKg, today }: { athlete
           <progress id="upload-progress" className="block w-full" max={1} value={progress} />
         </div>
       ) : null}
-      <SubmitButton className="btn" disabled={!picked || !!picked.problem || formState.isSubmitting}>
+      <SubmitButton className="btn" disabled={!picked || !!picked.problem || !!segmentProblem || formState.isSubmitting}>
         {formState.isSubmitting ? "Analysing…" : "Analyse and save the test"}
       </SubmitButton>
     </form>
