@@ -280,7 +280,7 @@ function vo2UnitFromHeader(header: string): Vo2Unit | null {
 
 /** From typical values: litres below 8, per kilogram below 120 (rest 3–5, peaks 20–90), else mL/min. */
 function vo2UnitFromValues(values: number[]): Vo2Unit {
-  const m = median(values.slice(0, 2000).filter((v) => Number.isFinite(v) && v > 0));
+  const m = median(values.slice(0, 300).filter((v) => Number.isFinite(v) && v > 0));
   if (!Number.isFinite(m) || m >= 120) return "mL/min";
   return m < 8 ? "L/min" : "mL/kg/min";
 }
