@@ -30,7 +30,8 @@ describe("npm run analyze", () => {
     expect(Object.keys(first).sort()).toEqual(["breathsRead", "columns", "file", "peak", "segment", "vt1", "vt2", "warnings"]);
     expect(Object.keys(first.vt1).sort()).toEqual(expect.arrayContaining(["vo2MlMin", "vco2MlMin", "rer", "hrBpm", "timeS", "powerW", "steadyPowerW", "speedKmh", "gradePct", "confidence", "methods", "warnings"]));
     expect(first.vt1.found).toBe(true);
-    // The steady-state power lies one mean response time (40 s) back on the 25 W/min ramp: about 17 W lower.
+    // The steady-state power lies one mean response time (40 s) back on the 25 W/min ramp: 25 × 40/60 ≈ 17 W lower
+    // (the correction of Whipp et al. 1981, workload − ramp rate × MRT; bounds allow for the ±15 s means).
     expect(first.vt1.powerW - first.vt1.steadyPowerW).toBeGreaterThan(10);
     expect(first.vt1.powerW - first.vt1.steadyPowerW).toBeLessThan(25);
     expect(first.peak.vo2MlMin).toBeGreaterThan(3000);

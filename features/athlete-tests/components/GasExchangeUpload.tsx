@@ -1,7 +1,7 @@
 "use client";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
-import { useState, type DragEvent } from "react";
+import { useEffect, useRef, useState, type DragEvent } from "react";
 import { useForm, useWatch } from "react-hook-form";
 import { z } from "zod";
 import { CHANNEL_LABELS, CHANNELS, guessColumns, REQUIRED_CHANNELS, UNIT_CHOICES, type Channel, type ColumnMapping, type UnitChoices } from "@/features/gas-exchange/lib/csv";
@@ -75,6 +75,22 @@ export function GasExchangeUpload({ athleteId, defaultMassKg, today }: { athlete
     resolver: zodResolver(formSchema),
     defaultValues: { meta: { sport: "cycling", protocol: "", date: today, endedBy: "exhaustion", stopSign: null }, bodyMassKg: defaultMassKg, fiveZones: false },
   });
+
+  // A relative-only VO2 column needs the body mass: read the file again when the mass changes, so that entering it
+  // clears the problem instead of leaving the button disabled.
+  const watchedMass = useWatch({ control, name: "bodyMassKg" });
+  const triedMass = useRef<number | null>(null);
+  useEffect(() => {
+    if (!picked?.problem || !/body mass/.test(picked.problem)) return;
+    const m = typeof watchedMass === "number" && Number.isFinite(watchedMass) && watchedMass > 20 && watchedMass < 300 ? watchedMass : null;
+    if (m === null || m === triedMass.current) return;
+    triedMass.current = m;
+    let live = true;
+    void inspect(picked.file, bytes, picked.mapping, picked.chosenUnits, picked.sheet, m).then((next) => live && setPicked(next));
+    return () => {
+      live = false;
+    };
+  }, [watchedMass, picked, bytes]);
 
   const massNow = () => {
     const m = getValues("bodyMassKg");

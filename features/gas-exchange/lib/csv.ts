@@ -4,6 +4,7 @@
  * header variants; an explicit mapping overrides the guess. Bad cells become warnings and dropped rows, never a crash.
  */
 import Papa from "papaparse";
+import { acsmRunningVo2, acsmWalkingVo2, kmhToMMin } from "@/features/physiology/lib/equations";
 
 export const CHANNELS = ["time", "vo2", "vco2", "ve", "hr", "power", "speed", "grade", "rf"] as const;
 export type Channel = (typeof CHANNELS)[number];
@@ -303,12 +304,10 @@ function timeUnitFromHeader(header: string): "s" | "min" | null {
 /** ACSM walking or running VO2 demand (mL/kg/min) for a speed in km/h and a grade in %: the walking equation up to
  * 6.5 km/h, the running one from 8 km/h, a linear blend between (ACSM's Guidelines for Exercise Testing and Prescription). */
 export function treadmillDemand(speedKmh: number, gradePct: number | null | undefined): number {
-  const s = (speedKmh * 1000) / 60;
+  const s = kmhToMMin(speedKmh);
   const g = Math.max(0, (gradePct ?? 0) / 100);
-  const walk = 0.1 * s + 1.8 * s * g + 3.5;
-  const run = 0.2 * s + 0.9 * s * g + 3.5;
   const w = Math.max(0, Math.min(1, (speedKmh - 6.5) / 1.5));
-  return (1 - w) * walk + w * run;
+  return (1 - w) * acsmWalkingVo2(s, g) + w * acsmRunningVo2(s, g);
 }
 
 /**
