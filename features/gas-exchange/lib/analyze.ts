@@ -8,7 +8,7 @@
  * VT2: the respiratory compensation point — breakpoint of VE against VCO2, cross-checked with the rise of VE/VCO2.
  * A threshold that cannot be found is null with a reason, never a made-up number.
  */
-import { fitHinge, type HingeFit } from "./breakpoint";
+import { fitHinge, fitLine, type HingeFit } from "./breakpoint";
 import { average, DEFAULT_AVERAGING, highestWindowMean, removeAberrantBreaths, type Averaging, type CleanOptions } from "./clean";
 import { readGasExchangeCsv, treadmillDemand, type Breath, type ColumnMapping, type DetectedColumn, type Channel, type UnitChoices } from "./csv";
 
@@ -91,7 +91,11 @@ export interface AnalysisOptions {
 
 export type CsvAnalysis = ({ ok: true } & Analysis) | { ok: false; error: string; headers: string[] };
 
+/** Fewest averaged points (of 15 s) for a threshold search: five minutes of exercise. Coarser rows need fewer (see
+ * `minPointsFor`). */
 const MIN_POINTS = 20;
+/** The same five minutes in rows `spacingS` apart (a file already averaged every 30 s has half as many rows). */
+const minPointsFor = (spacingS: number) => Math.max(10, Math.ceil((MIN_POINTS * 15) / Math.max(15, spacingS)));
 /** Points this soon after the segment starts are left out of the threshold search while VO2 catches up. */
 const KINETICS_LAG_S = 30;
 /**
@@ -136,6 +140,29 @@ function localMean(points: Breath[], t: number, halfS: number, f: (b: Breath) =>
     }
   }
   return c ? s / c : null;
+}
+
+/**
+ * A signal smoothed over time by a local straight line through the points within ±halfS: on a ramp the line keeps the
+ * signal's slope, so the smoothed value carries no lag.
+ */
+function localLinear(points: Breath[], halfS: number, f: (b: Breath) => number): number[] {
+  return points.map((p) => {
+    let n = 0, st = 0, sv = 0, stt = 0, stv = 0;
+    for (const q of points) {
+      const d = q.timeS - p.timeS;
+      if (d < -halfS) continue;
+      if (d > halfS) break;
+      const v = f(q);
+      n++;
+      st += d;
+      sv += v;
+      stt += d * d;
+      stv += d * v;
+    }
+    const den = n * stt - st * st;
+    return den > 1e-9 ? (sv * stt - st * stv) / den : sv / n;
+  });
 }
 
 function nearest(points: Breath[], t: number): Breath {
@@ -308,18 +335,30 @@ function detectVt2(points: Breath[], bodyMassKg: number | null | undefined, mrtS
  */
 const VSLOPE_LOWER = [0.6, 1.15] as const;
 
-function detectVt1(points: Breath[], vt2: Threshold | null, bodyMassKg: number | null | undefined, mrtS: number): { vt1: Threshold | null; reason: string | null } {
-  const all = vt2 ? points.filter((p) => p.timeS < vt2.timeS) : points;
-  if (all.length < MIN_POINTS / 2) return { vt1: null, reason: "VT1 not found: too few points below the respiratory compensation point." };
+/** Points this soon after the segment starts are left out of the VT1 search: VCO2 catches up more slowly than VO2 after a
+ * change of workload (its stores), which bends the V-slope's lower segment (Beaver, Wasserman & Whipp 1986 leave out the
+ * first minute of the ramp for the same reason). */
+const VT1_ONSET_S = 60;
+/** Half-width of the time window over which VO2 is smoothed for the V-slope axis. */
+const SMOOTH_HALF_S = 45;
+
+function detectVt1(points: Breath[], vt2: Threshold | null, bodyMassKg: number | null | undefined, mrtS: number, minPoints = MIN_POINTS): { vt1: Threshold | null; reason: string | null } {
+  const all = (vt2 ? points.filter((p) => p.timeS < vt2.timeS) : points).filter((p) => p.timeS >= points[0]!.timeS + VT1_ONSET_S);
+  if (all.length < minPoints / 2) return { vt1: null, reason: "VT1 not found: too few points below the respiratory compensation point." };
   let fit: HingeFit | null = null;
   let below = all;
+  let axis: number[] = [];
   let rejected: string | null = null;
   // Try the whole stretch below VT2, then without its first 15 % and 30 % (exercise-onset kinetics).
   for (const skip of [0, 0.15, 0.3]) {
     below = all.slice(Math.floor(all.length * skip));
     if (below.length < 10) break;
-    const xs = below.map((p) => p.vo2MlMin);
-    const ys = below.map((p) => p.vco2MlMin);
+    // Breath-to-breath changes of tidal volume move VO2 and VCO2 together, so their ratio is far steadier than either:
+    // the V-slope is fitted to VCO2 = RER × VO2 against VO2, with VO2 smoothed over time (the same line when there is no
+    // noise; most of the breath noise cancels).
+    axis = localLinear(below, SMOOTH_HALF_S, (p) => p.vo2MlMin);
+    const xs = axis;
+    const ys = below.map((p, i) => (p.vco2MlMin / p.vo2MlMin) * xs[i]!);
     const lo = Math.min(...xs), hi = Math.max(...xs);
     const f = fitHinge(xs, ys, { minSegment: 4, range: [lo + 0.1 * (hi - lo), lo + 0.9 * (hi - lo)] });
     if (!f) break;
@@ -336,44 +375,56 @@ function detectVt1(points: Breath[], vt2: Threshold | null, bodyMassKg: number |
     break;
   }
   if (!fit) return { vt1: null, reason: rejected ?? "VT1 not found: too few points for the V-slope method." };
-  const ratio = fit.slopeBefore > 0 ? fit.slopeAfter / fit.slopeBefore : 0;
-  const t = timeAtValue(below, fit.x0, (p) => p.vo2MlMin);
-  const at = describeAt(points, t, bodyMassKg, mrtS);
-  at.vo2MlMin = round(fit.x0);
-  at.vo2MlKgMin = bodyMassKg ? round(fit.x0 / bodyMassKg, 1) : null;
+  const slopeRatio = fit.slopeBefore > 0 ? fit.slopeAfter / fit.slopeBefore : 0;
+  const vslopeVo2 = fit.x0;
+  const vslopeT = timeAtValue(below, vslopeVo2, (p) => p.vo2MlMin);
   const results: MethodResult[] = [
-    { method: "v-slope", found: true, vo2MlMin: at.vo2MlMin, timeS: at.timeS, note: `VCO2/VO2 slope ${round(fit.slopeBefore, 2)} → ${round(fit.slopeAfter, 2)}` },
+    { method: "v-slope", found: true, vo2MlMin: round(vslopeVo2), timeS: round(vslopeT), note: `VCO2/VO2 slope ${round(fit.slopeBefore, 2)} → ${round(fit.slopeAfter, 2)}` },
   ];
   const warnings: string[] = [];
   let agreement: Threshold["agreement"] = null;
-  // Ventilatory equivalents: VE/VO2 breakpoint over time, with VE/VCO2 not rising after it.
-  const eqO2 = fitHinge(below.map((p) => p.timeS), below.map((p) => (p.veLMin / p.vo2MlMin) * 1000), { minSegment: 4 });
+  // Ventilatory equivalents: VE/VO2 starts to rise (VE against VO2 on the same axis, with its own breakpoint) while
+  // VE/VCO2 stays flat. VE is measured apart from VCO2, so its noise is its own: when the two agree, their mean is reported
+  // (combining methods is more accurate than either alone: Gaskill et al. 2001, Med Sci Sports Exerc 33:1841–1848).
+  const lo = Math.min(...axis), hi = Math.max(...axis);
+  const eqO2 = fitHinge(axis, below.map((p, i) => (p.veLMin / p.vo2MlMin) * axis[i]!), { minSegment: 4, range: [lo + 0.1 * (hi - lo), lo + 0.9 * (hi - lo)] });
   let eqFound = false;
-  if (eqO2 && eqO2.slopeAfter > 0 && eqO2.slopeAfter > eqO2.slopeBefore) {
-    const after = below.filter((p) => p.timeS >= eqO2.x0);
-    const co2 = after.length >= 4 ? fitHinge(after.map((p) => p.timeS), after.map((p) => (p.veLMin / p.vco2MlMin) * 1000), { minSegment: 2 }) : null;
-    const co2Slope = co2 ? co2.slopeBefore : 0;
-    // VE/VCO2 should stay flat: its rise must be well below that of VE/VO2.
-    if (co2Slope < 0.5 * eqO2.slopeAfter) {
+  let reported = vslopeVo2;
+  if (eqO2 && eqO2.slopeAfter > 1.1 * eqO2.slopeBefore && eqO2.gain >= 0.1) {
+    const after = below.filter((_, i) => axis[i]! >= eqO2.x0);
+    const afterAxis = axis.filter((x) => x >= eqO2.x0);
+    // VE/VCO2 should stay flat above it: its relative rise must be well below that of VE/VO2.
+    const co2 = after.length >= 4 ? fitLine(afterAxis, after.map((p) => (p.veLMin / p.vco2MlMin) * 1000)) : null;
+    const o2 = after.length >= 4 ? fitLine(afterAxis, after.map((p) => (p.veLMin / p.vo2MlMin) * 1000)) : null;
+    const meanOf = (v: number[]) => v.reduce((a, b) => a + b, 0) / v.length;
+    const rel = (l: { slope: number } | null, v: number[]) => (l ? l.slope / meanOf(v) : 0);
+    const co2Rise = co2 ? rel(co2, after.map((p) => (p.veLMin / p.vco2MlMin) * 1000)) : 0;
+    const o2Rise = o2 ? rel(o2, after.map((p) => (p.veLMin / p.vo2MlMin) * 1000)) : 0;
+    if (o2Rise > 0 && co2Rise < 0.5 * o2Rise) {
       eqFound = true;
-      const eqVo2 = round(localMean(points, eqO2.x0, 15, (p) => p.vo2MlMin)!);
-      results.push({ method: "ventilatory-equivalents", found: true, vo2MlMin: eqVo2, timeS: round(eqO2.x0), note: "VE/VO2 rises while VE/VCO2 stays flat" });
-      const diff = Math.abs(eqVo2 - at.vo2MlMin);
-      agreement = { differenceMlMin: round(diff), differencePct: round((100 * diff) / at.vo2MlMin, 1) };
-      if (agreement.differencePct > 10) warnings.push(`V-slope and the ventilatory equivalents differ by ${agreement.differenceMlMin} mL/min (${agreement.differencePct} %); check the curves.`);
+      const eqT = timeAtValue(below, eqO2.x0, (p) => p.vo2MlMin);
+      results.push({ method: "ventilatory-equivalents", found: true, vo2MlMin: round(eqO2.x0), timeS: round(eqT), note: "VE/VO2 rises while VE/VCO2 stays flat" });
+      const diff = Math.abs(eqO2.x0 - vslopeVo2);
+      agreement = { differenceMlMin: round(diff), differencePct: round((100 * diff) / vslopeVo2, 1) };
+      if (agreement.differencePct > 10) warnings.push(`V-slope and the ventilatory equivalents differ by ${agreement.differenceMlMin} mL/min (${agreement.differencePct} %); VT1 is the V-slope value. Check the curves.`);
+      else reported = (vslopeVo2 + eqO2.x0) / 2;
     }
   }
   if (!eqFound) {
     results.push({ method: "ventilatory-equivalents", found: false, vo2MlMin: null, timeS: null, note: "no rise of VE/VO2 with a flat VE/VCO2" });
     warnings.push("The ventilatory equivalents do not confirm VT1; it rests on the V-slope alone.");
   }
+  const t = timeAtValue(below, reported, (p) => p.vo2MlMin);
+  const at = describeAt(points, t, bodyMassKg, mrtS);
+  at.vo2MlMin = round(reported);
+  at.vo2MlKgMin = bodyMassKg ? round(reported / bodyMassKg, 1) : null;
   return {
     vt1: {
       ...at,
       methods: results.filter((r) => r.found).map((r) => r.method),
       methodResults: results,
       agreement,
-      confidence: confidenceOf(fit, ratio, agreement?.differencePct ?? null),
+      confidence: confidenceOf(fit, slopeRatio, agreement?.differencePct ?? null),
       warnings,
     },
     reason: null,
@@ -405,7 +456,9 @@ export function analyzeBreaths(breaths: Breath[], opts: AnalysisOptions = {}): A
     breathsRemoved: removed,
     columns: {},
   };
-  if (!peakWindow || averaged.length < MIN_POINTS) {
+  const spacingS = preAveraged ? steps[steps.length >> 1]! : opts.averaging?.mode === "time" ? opts.averaging.binS : 15;
+  const minPoints = minPointsFor(spacingS);
+  if (!peakWindow || averaged.length < minPoints) {
     const reason = "Too few points to find thresholds: the test needs several minutes of data.";
     warnings.push(reason);
     const peak = peakWindow
@@ -442,14 +495,14 @@ export function analyzeBreaths(breaths: Breath[], opts: AnalysisOptions = {}): A
   if (peak.rer !== null && peak.rer < 1.05) {
     warnings.push(`Peak RER ${peak.rer} is below about 1.05: the test was probably not maximal, so VT2 and peak VO2 may be underestimated.`);
   }
-  if (detection.length < MIN_POINTS) {
+  if (detection.length < minPoints) {
     const reason = "Too few points during exercise to find thresholds.";
     warnings.push(reason);
     return { ...base, onsetS, endS, segmentSource, vt1: null, vt1Reason: reason, vt2: null, vt2Reason: reason, peak };
   }
   const mrtS = opts.meanResponseTimeS ?? DEFAULT_MRT_S;
   const { vt2, reason: vt2Reason } = detectVt2(detection, mass, mrtS);
-  const { vt1, reason: vt1Reason } = detectVt1(detection, vt2, mass, mrtS);
+  const { vt1, reason: vt1Reason } = detectVt1(detection, vt2, mass, mrtS, minPoints);
   if (!vt2 && vt2Reason) warnings.push(vt2Reason);
   if (!vt1 && vt1Reason) warnings.push(vt1Reason);
   if (vt1 && peak.vo2MlMin) {

@@ -8,8 +8,9 @@
  *   Prescription).
  * - VO2 follows the steady state with first-order kinetics (time constant 25–45 s; common practice, from memory).
  * - The metabolic CO2 output is two straight lines of VO2 meeting at VT1 (slopes about 0.9 below and 1.3–1.5 above, the
- *   picture of Beaver, Wasserman & Whipp 1986); the measured VCO2 follows it with a slower time constant (+15 s, the body's
- *   CO2 stores; from memory), so the onset of exercise bends the lower slope as real tests do.
+ *   picture of Beaver, Wasserman & Whipp 1986); the measured VCO2 follows the workload's steady-state CO2 output with a
+ *   time constant 15 s longer than VO2's (the body's CO2 stores; from memory), so the onset of exercise bends the lower
+ *   slope as real tests do. The true VT1 is that steady-state breakpoint.
  * - VE is two straight lines of VCO2 meeting at VT2 (VE/VCO2 slope 22–30 below, ×1.7–2.2 above; from memory).
  * - Breath noise: a shared tidal-volume factor (SD 6–9 %) and 3 % independent noise; 2 % aberrant breaths; some tests
  *   hyperventilate for the first 40 s of exercise (RER above 1).
@@ -181,10 +182,12 @@ export function labTest(c: LabCase): { rows: Record<string, number | null>[]; tr
   const tauCo2 = tau + 15;
   const hyper = r() < 0.3;
   const exerciseStart = starts[segs.findIndex((s) => (s.at(0).w ?? s.at(0).kmh ?? 0) > 0)] ?? 0;
+  // VCO2 follows the workload's steady-state CO2 output with its own (slower) time constant, as VO2 follows its steady
+  // state: relative to VO2 it lags by tauCo2 − tau = 15 s.
   const vco2 = new Float64Array(n);
-  let co2 = co2Target(vo2[0]!);
+  let co2 = co2Target(vo2ss(loadAt(0)));
   for (let t = 0; t < n; t++) {
-    co2 += (co2Target(vo2[t]!) - co2) * (1 - Math.exp(-1 / tauCo2));
+    co2 += (co2Target(vo2ss(loadAt(t))) - co2) * (1 - Math.exp(-1 / tauCo2));
     vco2[t] = co2;
   }
   // VE answers the measured (lagged) VCO2, so on a ramp VT2 shows in VO2 terms where that VCO2 reaches its breakpoint:

@@ -1,8 +1,8 @@
 // A fixed subset of the validation suite (generated lab tests, model in lab-generator.ts; every protocol, phase pattern
 // and export style appears). The full table comes from `npm run validate`.
-// The floors below guard against regressions: they are the rates measured on this subset on 2026-12-02 minus about five
-// points (command: npx vitest run --project unit validation).
-// They are BELOW the product targets (VT1 95 %, VT2 97 %, peak 98 %), which the engine does not yet meet for VT1 and VT2.
+// The floors below guard against regressions: they are the rates measured on this subset on 2026-12-03 minus about five
+// points (VT2 and peak at the product targets minus five, as asked) (command: npx vitest run --project unit validation).
+// VT1's floor is BELOW the product target minus five (VT1 95 %, VT2 97 %, peak 98 %): the engine does not yet meet it.
 import { describe, expect, it } from "vitest";
 import { labCases } from "./lab-generator";
 import { rates, runCase } from "./validation";
@@ -27,5 +27,5 @@ describe("threshold detection on generated lab tests", () => {
   });
 });
 
-// Measured on this subset: VT1 55.2 %, VT2 81.3 %, peak 99.0 %, one test (of 96) with a threshold before its ramp.
-const FLOORS = { vt1: 50, vt2: 76, peak: 93, early: 1 };
+// Measured on this subset: VT1 69.8 %, VT2 95.8 %, peak 99.0 %, one test (of 96) with a threshold before its ramp.
+const FLOORS = { vt1: 64, vt2: 92, peak: 93, early: 1 };
