@@ -50,6 +50,9 @@ const talkStages = (start: number, step: number, hr0: number, hrStep: number, fi
   })),
 });
 
+/** The demo's site operator: an administrator with no squad, who can read the local outbox page. */
+export const DEMO_ADMIN = { email: "operator@northfold.test", name: "Site operator" } as const;
+
 export const DEMO_PEOPLE: DemoPerson[] = [
   { email: "coach@northfold.test", name: "Maren Holt", role: "head_coach" },
   { email: "assistant@northfold.test", name: "Tobias Lind", role: "coach" },
@@ -131,6 +134,9 @@ export async function seedDemoIfEmpty(databaseUrl: string): Promise<boolean> {
         if (person.profile) await tx.insert(schema.athleteProfile).values({ userId, ...person.profile });
         people.set(person.email, userId);
       }
+      const adminId = randomUUID();
+      await tx.insert(schema.user).values({ id: adminId, name: DEMO_ADMIN.name, email: DEMO_ADMIN.email, emailVerified: true, isAdmin: true });
+      await tx.insert(schema.account).values({ id: randomUUID(), accountId: adminId, providerId: "credential", userId: adminId, password: passwordHash });
       const coachId = people.get("coach@northfold.test")!;
       for (const person of DEMO_PEOPLE) {
         for (const t of person.tests ?? []) await insertDemoTest(tx, people.get(person.email)!, coachId, person.profile?.bodyMassKg ?? null, t);

@@ -7,7 +7,7 @@ import fs from "node:fs";
 import net from "node:net";
 import path from "node:path";
 import { applyMigrations } from "../db/migrate";
-import { DEMO_PASSWORD, DEMO_PEOPLE, seedDemoIfEmpty } from "../db/seed";
+import { DEMO_ADMIN, DEMO_PASSWORD, DEMO_PEOPLE, seedDemoIfEmpty } from "../db/seed";
 import { startAppServer } from "./app-server";
 import { ensureBuild } from "./build";
 import { spawn } from "node:child_process";
@@ -114,11 +114,13 @@ async function main() {
       ...localMailEnv(),
       DATABASE_URL: databaseUrl,
       BETTER_AUTH_URL: origin,
-      TIDEMARK_LOCAL_OUTBOX: "1",
       NEXT_TELEMETRY_DISABLED: "1",
     };
     if (env.RESEND_BASE_URL?.startsWith("http://127.0.0.1:")) {
       fake = await startFakeEmail({ port: intFromEnv("FAKE_EMAIL_PORT", 4010), smtpPort: intFromEnv("FAKE_SMTP_PORT", 2525), quiet: true });
+      // The outbox page (site operators only) exists only while the local fake is the transport, never with real e-mail.
+      env.TIDEMARK_LOCAL_OUTBOX = "1";
+      env.FAKE_EMAIL_URL = fake.url;
       log(`Local e-mail fake on ${fake.url} (SMTP on 127.0.0.1:${fake.smtpPort}); what was sent: ${fake.url}/outbox`);
     }
     log("Starting the background worker (reminders, digests, e-mail delivery)…");
@@ -143,7 +145,8 @@ async function main() {
     log(`Tidemark is running at ${origin}`);
     log(`Demo sign-ins (password "${DEMO_PASSWORD}"):`);
     for (const p of DEMO_PEOPLE) log(`  ${p.email.padEnd(28)} ${p.role.replace("_", " ")}`);
-    log(`Messages the app queues appear at ${origin}/outbox${fake ? `; what the e-mail fake received at ${fake.url}/outbox` : ""}. Press Ctrl-C to stop.`);
+    log(`  ${DEMO_ADMIN.email.padEnd(28)} site operator (the outbox page; no squad)`);
+    log(fake ? `Messages the app queues appear at ${origin}/outbox (sign in as ${DEMO_ADMIN.email}); what the e-mail fake received, links included, at ${fake.url}/outbox. Press Ctrl-C to stop.` : "Press Ctrl-C to stop.");
   } catch (e) {
     console.error(e instanceof Error ? e.message : String(e));
     await stop(1);

@@ -1,6 +1,7 @@
 import Link from "next/link";
 import { notFound } from "next/navigation";
-import { getOutboxMessage, listOutbox, localOutboxEnabled } from "@/features/messages/server/list";
+import { currentActor } from "@/features/auth/server/current";
+import { ACCOUNT_MESSAGE_KINDS, getOutboxMessage, listOutbox, localOutboxEnabled, maskLinks } from "@/features/messages/server/list";
 
 export const metadata = { title: "Outbox" };
 export const dynamic = "force-dynamic";
@@ -10,7 +11,10 @@ const STATUS = { pending: "waiting to be sent", sent: "sent", failed: "refused b
 const formatter = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" });
 
 export default async function OutboxPage({ searchParams }: { searchParams: Promise<{ id?: string }> }) {
+  // For site operators only, and only while the local e-mail fake is the transport: anyone else gets "not found".
   if (!localOutboxEnabled()) notFound();
+  const actor = await currentActor();
+  if (!actor?.isAdmin) notFound();
   const { id } = await searchParams;
   const message = typeof id === "string" && /^[0-9a-f-]{36}$/.test(id) ? await getOutboxMessage(id) : null;
   const messages = await listOutbox();
@@ -21,6 +25,8 @@ export default async function OutboxPage({ searchParams }: { searchParams: Promi
         <p className="text-sm text-ink-soft">
           Messages Tidemark queued on this local installation, newest first, and whether the worker has sent them yet. They go
           to the local e-mail fake (its own outbox is at port {process.env.FAKE_EMAIL_PORT ?? "4010"}); nothing leaves the machine.
+          Links that open an account (password resets, invitations, address confirmations) are hidden here; the recipient
+          reads them in the e-mail fake&apos;s inbox.
         </p>
       </div>
       <div className="grid gap-6 lg:grid-cols-[2fr_3fr]">
@@ -45,8 +51,10 @@ export default async function OutboxPage({ searchParams }: { searchParams: Promi
             <article className="space-y-3">
               <h2 className="text-lg font-bold">{message.subject}</h2>
               <p className="text-sm text-ink-soft">To {message.to} · {STATUS[message.status]}{message.lastError ? ` (last attempt: ${message.lastError})` : ""}</p>
-              <pre className="whitespace-pre-wrap font-sans text-sm" data-testid="outbox-text">{message.text}</pre>
-              {typeof message.meta.url === "string" ? (
+              <pre className="whitespace-pre-wrap font-sans text-sm" data-testid="outbox-text">
+                {ACCOUNT_MESSAGE_KINDS.has(message.kind) ? maskLinks(message.text) : message.text}
+              </pre>
+              {typeof message.meta.url === "string" && !ACCOUNT_MESSAGE_KINDS.has(message.kind) ? (
                 <a href={message.meta.url} className="btn-quiet">Open the link in this message</a>
               ) : null}
             </article>

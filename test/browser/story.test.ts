@@ -67,6 +67,14 @@ async function messageText(id: string): Promise<string> {
   return ((await (await fetch(`${FAKE}/emails/${id}`, { headers: { authorization: "Bearer story" } })).json()) as { text: string }).text;
 }
 
+/** Delivers what is queued, then reads the newest address-confirmation link sent to `email` from the e-mail fake. */
+async function verificationLink(email: string): Promise<string> {
+  await deliverPending(new Date());
+  const message = (await outbox()).find((m) => m.kind === "email_verification" && m.to.includes(email));
+  expect(message, `a confirmation message to ${email}`).toBeTruthy();
+  return /https?:\/\/\S+\/api\/auth\/verify-email\S+/.exec(await messageText(message!.id))![0];
+}
+
 describe("the everyday story", () => {
   it("sign-up, squad, invitation, test, season, budget fix, today's log with a file, and the retest reminder", async () => {
     step("1");
@@ -82,6 +90,10 @@ describe("the everyday story", () => {
     await c.getByLabel("E-mail").fill(COACH.email);
     await c.getByLabel(/^Password/).fill(COACH.password);
     await c.getByRole("button", { name: "Create account" }).click();
+    // The account works once the address is confirmed: the link arrives by e-mail and signs in.
+    await c.getByRole("heading", { name: "Check your inbox" }).waitFor();
+    await visit(c, "01b-check-inbox", coach.problems);
+    await c.goto(await verificationLink(COACH.email));
     await c.waitForURL(/\/squads\/new/);
     await visit(c, "02-new-squad", coach.problems);
     await c.getByLabel("Squad name").fill("Harbour Runners");
@@ -107,6 +119,11 @@ describe("the everyday story", () => {
     await a.getByLabel("Your name").fill(ATHLETE.name);
     await a.getByLabel(/^Password/).fill(ATHLETE.password);
     await a.getByRole("button", { name: /Create account|Join/ }).first().click();
+    await a.getByRole("heading", { name: "Check your inbox" }).waitFor();
+    // The confirmation link signs the athlete in and brings them back to the invitation.
+    await a.goto(await verificationLink(ATHLETE.email));
+    await a.waitForURL(/\/invite\//);
+    await a.getByRole("button", { name: "Join the squad" }).click();
     await a.waitForURL(/\/settings/);
     await a.getByLabel("Time zone").selectOption("Europe/Oslo");
     await a.getByLabel("Running").check();

@@ -6,8 +6,11 @@ import { Browser } from "../support/api";
 describe("session cookies", () => {
   it("are HttpOnly and SameSite=Lax", async () => {
     const b = new Browser("198.51.100.61");
-    const r = await b.auth("POST", "/sign-up/email", { name: "Cookie check", email: `cookie-${Date.now()}@example.test`, password: "correct-horse-battery" });
-    expect(r.status).toBe(200);
+    const email = `cookie-${Date.now()}@example.test`;
+    await b.signUp("Cookie check", email, "correct-horse-battery", { verify: false });
+    // The session starts when the address is confirmed (the link in the verification message signs in).
+    const r = await b.verifyEmail(email);
+    expect(r.status).toBeLessThan(400);
     const session = r.headers.getSetCookie().find((c) => /session_token=/.test(c));
     expect(session).toBeTruthy();
     expect(session).toMatch(/;\s*HttpOnly/i);

@@ -2,6 +2,7 @@
  * Calls the app's route handlers in-process, as a browser would: same URLs, JSON bodies and the session cookie.
  */
 import * as authRoute from "@/app/api/auth/[...all]/route";
+import { query } from "./db";
 
 export const ORIGIN = process.env.BETTER_AUTH_URL ?? "http://127.0.0.1:3999";
 
@@ -67,10 +68,26 @@ export class Browser {
     return this.call(authRoute, method, `/api/auth${path}`, { body });
   }
 
-  async signUp(name: string, email: string, password = "correct-horse-battery") {
+  /** Signs up and, unless told not to, confirms the address with the link from the outbox (which signs in). */
+  async signUp(name: string, email: string, password = "correct-horse-battery", opts: { verify?: boolean } = {}) {
     const r = await this.auth("POST", "/sign-up/email", { name, email, password });
     if (r.status !== 200) throw new Error(`sign-up failed: ${r.status} ${JSON.stringify(r.json)}`);
+    if (opts.verify !== false) {
+      const v = await this.verifyEmail(email);
+      if (v.status >= 400) throw new Error(`verification failed: ${v.status} ${JSON.stringify(v.json)}`);
+    }
     return r.json.user as { id: string; email: string; name: string };
+  }
+
+  /** Opens the newest verification link queued for this address. */
+  async verifyEmail(email: string) {
+    const rows = await query<{ meta: { url: string } }>(
+      `select meta from outbox where kind = 'email_verification' and lower(to_address) = lower($1) order by created_at desc limit 1`,
+      [email],
+    );
+    if (!rows[0]) throw new Error(`no verification message for ${email}`);
+    const url = new URL(rows[0].meta.url);
+    return this.call(authRoute, "GET", url.pathname, { query: url.search });
   }
 
   async signIn(email: string, password = "correct-horse-battery") {

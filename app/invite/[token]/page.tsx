@@ -79,8 +79,11 @@ export default async function InvitePage({ params }: { params: Promise<{ token: 
   return (
     <Frame title="Join a squad">
       {intro}
-      <p className="text-sm text-ink-soft">Create your account: choose a password and you join the squad at once.</p>
-      <SignUpAndAccept token={token} email={invitation.email} role={invitation.role} />
+      <p className="text-sm text-ink-soft">
+        Create your account: choose a password, then open the link we send to {invitation.email} to confirm it is yours. It
+        brings you back here to join.
+      </p>
+      <SignUpAndAccept token={token} email={invitation.email} />
     </Frame>
   );
 }

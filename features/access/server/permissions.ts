@@ -41,6 +41,8 @@ export async function findActor(headers: Headers): Promise<SignedInActor | null>
     if (key) rememberSession(key, result, { userId: result.user.id, token: result.session.token, expiresAt: result.session.expiresAt }, startedAt);
   }
   const u = result.user as typeof result.user & { isAdmin?: boolean };
+  // An account works only once its address is confirmed (a session from before confirmation was required counts as none).
+  if (!u.emailVerified) return null;
   return {
     userId: u.id,
     name: u.name,

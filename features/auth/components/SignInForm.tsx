@@ -12,8 +12,19 @@ import { SubmitButton } from "@/features/platform/components/SubmitButton";
 
 type Values = z.infer<typeof signInSchema>;
 
-function safeNext(next: string | undefined): string {
-  return next && next.startsWith("/") && !next.startsWith("//") ? next : "/home";
+/**
+ * Where to go after signing in: `next` resolved against this site, and only when it stays on it. Browsers read `/\\host`
+ * and `/<tab>/host` as another site, so a prefix check on the text is not enough.
+ */
+export function safeNext(next: string | undefined, origin: string): string {
+  if (!next) return "/home";
+  try {
+    const url = new URL(next, origin);
+    if (url.origin !== origin || url.pathname.startsWith("//")) return "/home";
+    return `${url.pathname}${url.search}${url.hash}`;
+  } catch {
+    return "/home";
+  }
 }
 
 export function SignInForm({ next }: { next?: string }) {
@@ -24,9 +35,15 @@ export function SignInForm({ next }: { next?: string }) {
 
   const onSubmit = handleSubmit(async (values) => {
     setServerError(undefined);
-    const { error } = await authClient.signIn.email({ email: values.email, password: values.password });
-    if (error) return setServerError(authErrorMessage(error));
-    router.push(safeNext(next));
+    const target = safeNext(next, window.location.origin);
+    const { error } = await authClient.signIn.email({ email: values.email, password: values.password, callbackURL: target });
+    if (error) {
+      if (error.code === "EMAIL_NOT_VERIFIED") {
+        return setServerError(`Confirm your address first: we have sent a new link to ${values.email}. Open it and you are signed in.`);
+      }
+      return setServerError(authErrorMessage(error));
+    }
+    router.push(target);
     router.refresh();
   });
 

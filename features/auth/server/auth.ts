@@ -3,7 +3,7 @@ import { betterAuth } from "better-auth";
 import { drizzleAdapter } from "better-auth/adapters/drizzle";
 import { getDb, schema } from "@/db/client";
 import { forgetSessionToken, forgetUserSessions } from "./session-memo";
-import { sendPasswordReset } from "@/features/messages/server/account-messages";
+import { sendEmailVerification, sendExistingAccountNotice, sendPasswordReset } from "@/features/messages/server/account-messages";
 
 function signInLimit(): number {
   const n = Number(process.env.TIDEMARK_SIGN_IN_LIMIT_PER_MIN ?? 8);
@@ -31,8 +31,25 @@ function createAuth() {
       maxPasswordLength: 128,
       resetPasswordTokenExpiresIn: 60 * 60,
       revokeSessionsOnPasswordReset: true,
+      // An account works only once its address is confirmed: nobody can open an account in another person's name, and
+      // sign-up answers the same whether or not the address already has an account.
+      requireEmailVerification: true,
+      // The owner of an address that already has an account is told, instead of the person signing up.
+      onExistingUserSignUp: async ({ user }) => {
+        await sendExistingAccountNotice({ to: user.email, name: user.name });
+      },
       sendResetPassword: async ({ user, url }) => {
         await sendPasswordReset({ to: user.email, name: user.name, url });
+      },
+    },
+    emailVerification: {
+      sendOnSignUp: true,
+      // Signing in to an unconfirmed account sends a fresh link (the first may have expired or been lost).
+      sendOnSignIn: true,
+      autoSignInAfterVerification: true,
+      expiresIn: 24 * 60 * 60,
+      sendVerificationEmail: async ({ user, url }) => {
+        await sendEmailVerification({ to: user.email, name: user.name, url });
       },
     },
     user: {

@@ -38,21 +38,7 @@ export function AcceptButton({ token, role }: { token: string; role: string }) {
   );
 }
 
-export function SignUpAndAccept({ token, email, role }: { token: string; email: string; role: string }) {
-  const router = useRouter();
-  const [error, setError] = useState<string>();
-  return (
-    <div className="space-y-3">
-      <FormAlert>{error}</FormAlert>
-      <SignUpForm
-        fixedEmail={email}
-        after={async () => {
-          const result = await acceptInvitationRequest(token);
-          if (!result.ok) return setError(result.error);
-          router.push(destination(role));
-          router.refresh();
-        }}
-      />
-    </div>
-  );
+/** Sign-up from an invitation: the confirmation link signs in and brings the person back here to join. */
+export function SignUpAndAccept({ token, email }: { token: string; email: string }) {
+  return <SignUpForm fixedEmail={email} callbackURL={`/invite/${token}`} />;
 }

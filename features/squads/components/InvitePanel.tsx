@@ -7,7 +7,8 @@ import { ApiError, useInvitations, useInvite } from "../api";
 import { inviteSchema, ROLE_LABELS, type InviteInput } from "../schemas";
 import { SubmitButton } from "@/features/platform/components/SubmitButton";
 
-export function InvitePanel({ squadId, localOutbox }: { squadId: string; localOutbox: boolean }) {
+/** `fakeInbox`: on a local installation, the e-mail fake's own inbox, where the invitation can be read. */
+export function InvitePanel({ squadId, fakeInbox }: { squadId: string; fakeInbox: string | null }) {
   const invite = useInvite(squadId);
   const invitations = useInvitations(squadId, true);
   const [sentTo, setSentTo] = useState<string>();
@@ -33,7 +34,7 @@ export function InvitePanel({ squadId, localOutbox }: { squadId: string; localOu
         <FormAlert>{formState.errors.root?.message}</FormAlert>
         {sentTo ? (
           <FormNotice>
-            Invitation sent to {sentTo}.{localOutbox ? <> It is in the <a className="underline" href="/outbox">outbox</a>.</> : null}
+            Invitation sent to {sentTo}.{fakeInbox ? <> On this local installation it arrives in the <a className="underline" href={fakeInbox}>e-mail fake&apos;s inbox</a>.</> : null}
           </FormNotice>
         ) : null}
         <div>
