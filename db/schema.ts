@@ -99,6 +99,17 @@ export const rateLimit = pgTable("rate_limit", {
   lastRequest: bigint("last_request", { mode: "number" }).notNull(),
 });
 
+/**
+ * Failed sign-ins per account (lower-cased address, known or not, so the answer never tells which exist): after
+ * SIGN_IN_FAILURES_BEFORE_PAUSE failures within the window, sign-in to that address pauses until `lockedUntil`.
+ */
+export const signInGuard = pgTable("sign_in_guard", {
+  email: text("email").primaryKey(),
+  failures: integer("failures").notNull().default(0),
+  windowStartedAt: timestamp("window_started_at", { withTimezone: true }).notNull().defaultNow(),
+  lockedUntil: timestamp("locked_until", { withTimezone: true }),
+});
+
 // ---------------------------------------------------------------------------------------------------------------------
 // Squads, memberships, invitations
 // ---------------------------------------------------------------------------------------------------------------------

@@ -57,3 +57,19 @@ export function existingAccountText(p: { name: string }): string {
     "Someone tried to open a new Tidemark account with this address. You already have one, so nothing was created. If it was you, sign in, or choose a new password from the sign-in page. If it was not you, you need do nothing.",
   ].join("\n");
 }
+
+export function SignInPausedEmail(p: { name: string; failures: number; minutes: number }) {
+  return (
+    <EmailLayout title="Sign-in to your Tidemark account is paused">
+      <p>Hello {p.name},</p>
+      <p>
+        Someone typed a wrong password for your Tidemark account {p.failures} times in a row, so sign-in to it is paused for{" "}
+        {p.minutes} minutes.
+      </p>
+      <p>If it was you, wait and try again, or choose a new password with &ldquo;Forgot your password?&rdquo; on the sign-in page.</p>
+      <p style={{ fontSize: 13, color: "#5b6770" }}>
+        If it was not you, your account is safe as long as nobody knows the password; choosing a new one is a good idea.
+      </p>
+    </EmailLayout>
+  );
+}

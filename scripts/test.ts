@@ -78,6 +78,8 @@ async function main(): Promise<number> {
       ...baseEnv,
       DATABASE_URL: integrationUrl,
       BETTER_AUTH_URL: "http://127.0.0.1:3999",
+      // The in-process requests carry X-Forwarded-For as a trusted proxy would set it (one address per test browser).
+      TIDEMARK_CLIENT_IP_HEADER: "x-forwarded-for",
       TIDEMARK_LOCAL_OUTBOX: "1",
     }, extra);
     if (first !== 0) return first;

@@ -28,6 +28,8 @@ export class Browser {
     if (!handler) throw new Error(`${method} is not exported for ${path}`);
     const headers: Record<string, string> = { origin: ORIGIN, "x-forwarded-for": this.ip, ...opts.headers };
     if (this.cookie) headers.cookie = this.cookie;
+    // A header given as "" is left out (e.g. a request without Origin).
+    for (const [k, v] of Object.entries(headers)) if (v === "") delete headers[k];
     let body: BodyInit | undefined;
     if (opts.form) {
       // Serialise the form once, so that the multipart boundary and length are set as a browser would.

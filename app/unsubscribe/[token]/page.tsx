@@ -12,8 +12,13 @@ export const dynamic = "force-dynamic";
  */
 export default async function UnsubscribePage({ params }: { params: Promise<{ token: string }> }) {
   const { token: raw } = await params;
-  const token = decodeURIComponent(raw);
-  const link = await readUnsubscribeLink(token);
+  let token: string | null = null;
+  try {
+    token = decodeURIComponent(raw);
+  } catch {
+    token = null; // damaged percent-encoding: the same answer as any damaged link
+  }
+  const link = token === null ? null : await readUnsubscribeLink(token);
   if (!link) {
     return (
       <div className="mx-auto max-w-lg card space-y-3" role="alert">
@@ -38,7 +43,7 @@ export default async function UnsubscribePage({ params }: { params: Promise<{ to
       <h1 className="text-xl font-bold">Stop {link.label}?</h1>
       <p>Tidemark will send no more {link.label} to <strong>{link.email}</strong>. Other messages stay as they were, and you can turn these on again in your settings.</p>
       <div className="flex flex-wrap items-start gap-2">
-        <TurnOffButton token={token} label={link.label} />
+        <TurnOffButton token={token!} label={link.label} />
         <Link href="/settings" className="btn-quiet">E-mail settings</Link>
       </div>
     </div>

@@ -8,24 +8,10 @@ import type { z } from "zod";
 import { authErrorMessage, FieldError, FormAlert } from "@/features/platform/components/form-bits";
 import { authClient } from "../client";
 import { signInSchema } from "../schemas";
+import { safeNext } from "../lib/safe-next";
 import { SubmitButton } from "@/features/platform/components/SubmitButton";
 
 type Values = z.infer<typeof signInSchema>;
-
-/**
- * Where to go after signing in: `next` resolved against this site, and only when it stays on it. Browsers read `/\\host`
- * and `/<tab>/host` as another site, so a prefix check on the text is not enough.
- */
-export function safeNext(next: string | undefined, origin: string): string {
-  if (!next) return "/home";
-  try {
-    const url = new URL(next, origin);
-    if (url.origin !== origin || url.pathname.startsWith("//")) return "/home";
-    return `${url.pathname}${url.search}${url.hash}`;
-  } catch {
-    return "/home";
-  }
-}
 
 export function SignInForm({ next }: { next?: string }) {
   const router = useRouter();

@@ -1,14 +1,36 @@
 import "server-only";
 import { betterAuth } from "better-auth";
+import { APIError, createAuthMiddleware } from "better-auth/api";
+import { clearFailedSignIns, recordFailedSignIn, signInPausedFor } from "./sign-in-guard";
 import { drizzleAdapter } from "better-auth/adapters/drizzle";
 import { getDb, schema } from "@/db/client";
 import { forgetSessionToken, forgetUserSessions } from "./session-memo";
 import { sendEmailVerification, sendExistingAccountNotice, sendPasswordReset } from "@/features/messages/server/account-messages";
 
+/** Sign-ins per minute per client address: 8, or 60 when no trusted proxy names the address (then every client shares one
+ * bucket, and the per-account limit does the fine work). TIDEMARK_SIGN_IN_LIMIT_PER_MIN overrides both. */
 function signInLimit(): number {
-  const n = Number(process.env.TIDEMARK_SIGN_IN_LIMIT_PER_MIN ?? 8);
-  return Number.isInteger(n) && n > 0 ? n : 8;
+  const fallback = process.env.TIDEMARK_CLIENT_IP_HEADER?.trim() ? 8 : 60;
+  const n = Number(process.env.TIDEMARK_SIGN_IN_LIMIT_PER_MIN ?? fallback);
+  return Number.isInteger(n) && n > 0 ? n : fallback;
 }
+
+/**
+ * The client address for rate limits comes only from a header that a trusted reverse proxy sets
+ * (TIDEMARK_CLIENT_IP_HEADER, e.g. x-forwarded-for, with TIDEMARK_TRUSTED_PROXIES listing the proxies' addresses when it
+ * carries a chain). Unset (as on loopback), no header is believed: a made-up X-Forwarded-For per request cannot buy fresh
+ * attempts, and every request shares one per-path bucket, beside the per-account limit (sign-in-guard.ts).
+ */
+function ipAddressOptions() {
+  const header = process.env.TIDEMARK_CLIENT_IP_HEADER?.trim().toLowerCase();
+  const proxies = (process.env.TIDEMARK_TRUSTED_PROXIES ?? "").split(",").map((p) => p.trim()).filter(Boolean);
+  return { ipAddressHeaders: header ? [header] : [], ...(proxies.length ? { trustedProxies: proxies } : {}) };
+}
+
+const emailOf = (body: unknown): string | null => {
+  const email = (body as { email?: unknown } | undefined)?.email;
+  return typeof email === "string" && email.length <= 320 ? email : null;
+};
 
 function createAuth() {
   const baseURL = process.env.BETTER_AUTH_URL ?? "http://127.0.0.1:3000";
@@ -87,7 +109,32 @@ function createAuth() {
         "/request-password-reset": { window: 300, max: 5 },
       },
     },
+    hooks: {
+      // The per-account limit on wrong passwords: a paused address is refused before the password is checked.
+      before: createAuthMiddleware(async (ctx) => {
+        if (ctx.path !== "/sign-in/email") return;
+        const email = emailOf(ctx.body);
+        if (!email) return;
+        const minutes = await signInPausedFor(email);
+        if (minutes > 0) {
+          throw new APIError("TOO_MANY_REQUESTS", {
+            code: "SIGN_IN_PAUSED",
+            message: `Too many wrong passwords for this account: sign-in is paused for ${minutes} more minute${minutes === 1 ? "" : "s"}. If you have forgotten the password, choose a new one with "Forgot your password?".`,
+          });
+        }
+      }),
+      after: createAuthMiddleware(async (ctx) => {
+        if (ctx.path !== "/sign-in/email") return;
+        const email = emailOf(ctx.body);
+        if (!email) return;
+        const returned = ctx.context.returned as unknown;
+        const status = returned instanceof Response ? returned.status : typeof (returned as { statusCode?: unknown })?.statusCode === "number" ? (returned as { statusCode: number }).statusCode : 200;
+        if (status === 401) await recordFailedSignIn(email);
+        else if (status < 400) await clearFailedSignIns(email);
+      }),
+    },
     advanced: {
+      ipAddress: ipAddressOptions(),
       // Secure cookies whenever the site is served over https (production); plain http only on loopback for local use.
       useSecureCookies: baseURL.startsWith("https://"),
       defaultCookieAttributes: { httpOnly: true, sameSite: "lax" },
@@ -96,6 +143,7 @@ function createAuth() {
   });
 }
 
+export { createAuth };
 type Auth = ReturnType<typeof createAuth>;
 const globalForAuth = globalThis as unknown as { tidemarkAuth?: Auth };
 

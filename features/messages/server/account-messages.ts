@@ -2,7 +2,7 @@ import "server-only";
 import { createElement } from "react";
 import { getDb, type Database } from "@/db/client";
 import { InvitationEmail, invitationSubject, invitationText, type InvitationEmailProps } from "@/emails/invitation";
-import { EmailVerificationEmail, emailVerificationSubject, emailVerificationText, ExistingAccountEmail, existingAccountSubject, existingAccountText } from "@/emails/email-verification";
+import { EmailVerificationEmail, emailVerificationSubject, emailVerificationText, ExistingAccountEmail, existingAccountSubject, existingAccountText, SignInPausedEmail } from "@/emails/email-verification";
 import { PasswordResetEmail, passwordResetSubject, passwordResetText } from "@/emails/password-reset";
 import { renderEmailHtml } from "@/emails/render";
 import { queueMessage } from "./outbox";
@@ -37,6 +37,24 @@ export async function sendExistingAccountNotice(p: { to: string; name: string })
     subject: existingAccountSubject,
     text: existingAccountText(p),
     html: await renderEmailHtml(createElement(ExistingAccountEmail, p)),
+  });
+}
+
+/** Sign-in to this account was paused after several wrong passwords: its owner hears of it at once. */
+export async function sendSignInPausedNotice(p: { to: string; name: string; failures: number; minutes: number }): Promise<void> {
+  const text = [
+    `Hello ${p.name},`,
+    "",
+    `Someone typed a wrong password for your Tidemark account ${p.failures} times in a row, so sign-in to it is paused for ${p.minutes} minutes.`,
+    "If it was you, wait and try again, or choose a new password with \"Forgot your password?\" on the sign-in page.",
+    "If it was not you, your account is safe as long as nobody knows the password; choosing a new one is a good idea.",
+  ].join("\n");
+  await queueMessage(getDb(), {
+    kind: "sign_in_paused",
+    to: p.to,
+    subject: "Sign-in to your Tidemark account is paused",
+    text,
+    html: await renderEmailHtml(createElement(SignInPausedEmail, p)),
   });
 }
 

@@ -2,39 +2,7 @@ import "server-only";
 import { desc, eq } from "drizzle-orm";
 import { getDb, schema } from "@/db/client";
 
-const LOOPBACK = /^https?:\/\/(127\.0\.0\.1|localhost|\[::1\])(:\d+)?(\/|$)/;
-
-/** Whether messages go to the local e-mail fake (on this machine) rather than to a real e-mail service. */
-export function localFakeTransport(): boolean {
-  if (process.env.TIDEMARK_EMAIL_TRANSPORT === "smtp") {
-    const host = process.env.SMTP_HOST ?? "127.0.0.1";
-    return host === "127.0.0.1" || host === "localhost" || host === "::1";
-  }
-  return LOOPBACK.test(process.env.RESEND_BASE_URL ?? "https://api.resend.com");
-}
-
-/**
- * The local outbox page is an aid for site operators on a local installation: it exists only when the start or test
- * harness turned it on and the messages go to the local e-mail fake, never when real e-mail is configured.
- */
-export function localOutboxEnabled(): boolean {
-  return process.env.TIDEMARK_LOCAL_OUTBOX === "1" && localFakeTransport();
-}
-
-/** Messages whose links open an account (reset, invitation, address confirmation): shown masked on the outbox page. */
-export const ACCOUNT_MESSAGE_KINDS = new Set(["password_reset", "invitation", "email_verification"]);
-
-/** Replaces the secret part of every link in a message's text: what is left says where the link goes, not how to use it. */
-export function maskLinks(text: string): string {
-  return text.replace(/\bhttps?:\/\/[^\s<>"]+/g, (url) => {
-    try {
-      const u = new URL(url);
-      return `${u.origin}/… (link hidden; it is in the recipient's inbox)`;
-    } catch {
-      return "(link hidden)";
-    }
-  });
-}
+export { ACCOUNT_MESSAGE_KINDS, localFakeTransport, localOutboxEnabled, maskLinks } from "../lib/outbox-view";
 
 export async function listOutbox(limit = 100) {
   return getDb()

@@ -1,5 +1,6 @@
 import "server-only";
 import { z, ZodError } from "zod";
+import { publicOrigin } from "./origin";
 
 /** An error that answers the request with this status and message. */
 export class HttpError extends Error {
@@ -76,10 +77,43 @@ export function isDatabaseUnavailable(e: unknown): boolean {
   return false;
 }
 
+const WRITES = new Set(["POST", "PUT", "PATCH", "DELETE"]);
+
+/**
+ * Cross-site request forgery: a state-changing request must come from this site's own pages. A browser names the page's
+ * origin in `Origin` (or, in older cases, says `Sec-Fetch-Site`); a foreign one is refused with 403. A request that sends
+ * neither is not a browser's cross-site request (a script or a mail program) and passes. The body must be JSON or multipart:
+ * the forms another site can post without asking (text/plain, url-encoded) answer 415.
+ */
+export function checkSameOrigin(req: Request): void {
+  if (!WRITES.has(req.method)) return;
+  const origin = req.headers.get("origin");
+  if (origin !== null) {
+    const own = new Set([publicOrigin(), new URL(req.url).origin]);
+    if (!own.has(origin)) throw new HttpError(403, "This request came from another site and was refused.");
+  } else {
+    const site = req.headers.get("sec-fetch-site");
+    if (site !== null && site !== "same-origin") throw new HttpError(403, "This request came from another site and was refused.");
+  }
+  // A body is typed by its sender: a browser always sends a Content-Type with one (text/plain for a bare string, a form's
+  // own type for a form). Without a body there is nothing to type.
+  const type = (req.headers.get("content-type") ?? "").split(";")[0]!.trim().toLowerCase();
+  const hasBody = type !== "" || Number(req.headers.get("content-length") ?? 0) > 0 || req.headers.has("transfer-encoding");
+  if (hasBody && type !== "application/json" && type !== "multipart/form-data") {
+    throw new HttpError(415, "Send the request body as JSON (Content-Type: application/json) or as multipart/form-data.");
+  }
+}
+
+export interface RouteOptions {
+  /** The route is meant to be called from elsewhere (RFC 8058 one-click unsubscribe) and acts on a signed token only. */
+  crossSite?: boolean;
+}
+
 /** Wraps a route handler: known errors become their status, the database being down becomes 503, the rest 500. */
-export function route<C>(handler: (req: Request, ctx: C) => Promise<Response>) {
+export function route<C>(handler: (req: Request, ctx: C) => Promise<Response>, options: RouteOptions = {}) {
   return async (req: Request, ctx: C): Promise<Response> => {
     try {
+      if (!options.crossSite) checkSameOrigin(req);
       return await handler(req, ctx);
     } catch (e) {
       if (e instanceof HttpError) return json({ error: e.message, ...e.details }, { status: e.status });

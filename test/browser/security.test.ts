@@ -1,0 +1,83 @@
+// The outbox page as anonymous, athlete, coach and site operator, and the redirect after sign-in, in a real browser.
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { Browser, Page } from "playwright-core";
+import { BASE, launch, newPage, shot, signIn } from "../support/browser";
+import { query } from "../support/db";
+
+let browser: Browser;
+beforeAll(async () => {
+  browser = await launch();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+/** Opens the outbox page; whether it showed the "Nothing here" page (the app streams pages, so that page may come with 200). */
+async function outboxRefused(page: Page, query = ""): Promise<boolean> {
+  await page.goto(`${BASE}/outbox${query}`);
+  await page.getByRole("heading", { name: /Nothing here|Outbox/ }).first().waitFor();
+  return (await page.getByRole("heading", { name: "Nothing here" }).count()) === 1;
+}
+
+describe("the local outbox page", () => {
+  it("is not found for anyone but the site operator, who sees account links hidden", async () => {
+    // A password reset for a demo athlete: its link would open the account.
+    const reset = await fetch(`${BASE}/api/auth/request-password-reset`, {
+      method: "POST",
+      headers: { "content-type": "application/json", origin: BASE },
+      body: JSON.stringify({ email: "walker@northfold.test", redirectTo: "/reset-password" }),
+    });
+    expect(reset.status).toBe(200);
+    const [row] = await query<{ id: string; meta: { url: string } }>(`select id, meta from outbox where kind = 'password_reset' and to_address = 'walker@northfold.test' order by created_at desc limit 1`);
+    const secret = row!.meta.url.split("/reset-password/")[1]!.split("?")[0]!;
+    expect(secret.length).toBeGreaterThan(10);
+
+    const anonymous = await newPage(browser);
+    expect(await outboxRefused(anonymous.page)).toBe(true);
+    expect(anonymous.page.url()).not.toMatch(/sign-in/);
+    expect(await outboxRefused(anonymous.page, `?id=${row!.id}`)).toBe(true);
+    expect(await anonymous.page.content()).not.toContain(secret);
+
+    for (const email of ["runner@northfold.test", "coach@northfold.test"]) {
+      const p = await newPage(browser);
+      await signIn(p.page, email);
+      expect(await outboxRefused(p.page, `?id=${row!.id}`), email).toBe(true);
+      expect(await p.page.content()).not.toContain(secret);
+    }
+
+    const operator = await newPage(browser);
+    await signIn(operator.page, "operator@northfold.test");
+    expect(await outboxRefused(operator.page)).toBe(false);
+    await operator.page.getByRole("link", { name: "Reset your Tidemark password" }).first().click();
+    await operator.page.getByTestId("outbox-text").waitFor();
+    await operator.page.waitForURL(/\/outbox\?id=/);
+    const text = await operator.page.getByTestId("outbox-text").innerText();
+    expect(text).toMatch(/link hidden/);
+    expect(await operator.page.content()).not.toContain(secret);
+    await expect(operator.page.getByRole("link", { name: "Open the link in this message" }).count()).resolves.toBe(0);
+    await shot(operator.page, "outbox-operator");
+  });
+});
+
+describe("the redirect after sign-in", () => {
+  for (const next of ["/%5Cevil.test%2Fx", "/%09/evil.test/x", "//evil.test/x"]) {
+    it(`stays on the site for next=${next}`, async () => {
+      const { page } = await newPage(browser);
+      await page.goto(`${BASE}/sign-in?next=${next}`);
+      await page.getByLabel("E-mail").fill("coach@northfold.test");
+      await page.getByLabel("Password").fill("northfold-demo");
+      await page.getByRole("button", { name: "Sign in" }).click();
+      await page.waitForURL((u) => !u.pathname.startsWith("/sign-in"));
+      expect(new URL(page.url()).origin).toBe(new URL(BASE).origin);
+    });
+  }
+
+  it("follows a next on the site", async () => {
+    const { page } = await newPage(browser);
+    await page.goto(`${BASE}/sign-in?next=${encodeURIComponent("/templates")}`);
+    await page.getByLabel("E-mail").fill("coach@northfold.test");
+    await page.getByLabel("Password").fill("northfold-demo");
+    await page.getByRole("button", { name: "Sign in" }).click();
+    await page.waitForURL(/\/templates/);
+  });
+});

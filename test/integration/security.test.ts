@@ -1,0 +1,168 @@
+// Attacks that must fail, through the real route handlers on real PostgreSQL: each checks the answer and that nothing was
+// written. (The outbox page and the sign-in redirect are in test/browser/security.test.ts.)
+import { describe, expect, it } from "vitest";
+import * as logRoute from "@/app/api/logs/[id]/route";
+import * as meRoute from "@/app/api/me/route";
+import * as squadsRoute from "@/app/api/squads/route";
+import * as templatesRoute from "@/app/api/templates/route";
+import * as unsubscribeRoute from "@/app/api/unsubscribe/[token]/route";
+import { createAuth } from "@/features/auth/server/auth";
+import { forgetUserSessions } from "@/features/auth/server/session-memo";
+import { SIGN_IN_FAILURES_BEFORE_PAUSE } from "@/features/auth/server/sign-in-guard";
+import { Browser, ORIGIN } from "../support/api";
+import { query } from "../support/db";
+
+const unique = (label: string) => `${label}-${Date.now().toString(36)}${Math.random().toString(36).slice(2, 6)}@security.test`;
+const count = async (sql: string, params: (string | number)[] = []) => Number((await query<{ n: string }>(sql, params))[0]!.n);
+
+describe("e-mail verification", () => {
+  it("an account whose address is not confirmed cannot sign in, and a fresh link is sent", async () => {
+    const email = unique("unconfirmed");
+    const b = new Browser("198.51.100.201");
+    await b.signUp("Not Yet", email, "correct-horse-battery", { verify: false });
+    expect((await b.call(meRoute, "GET", "/api/me")).status).toBe(401);
+    const before = await count(`select count(*) as n from outbox where kind = 'email_verification' and to_address = $1`, [email]);
+    const r = await b.signIn(email);
+    expect(r.status).toBe(403);
+    expect(r.json.code).toBe("EMAIL_NOT_VERIFIED");
+    expect(b.cookie).not.toMatch(/session_token=/);
+    expect(await count(`select count(*) as n from outbox where kind = 'email_verification' and to_address = $1`, [email])).toBe(before + 1);
+    // Nor can it act: creating a squad needs a session.
+    expect((await b.call(squadsRoute, "POST", "/api/squads", { body: { name: "Squat squad" } })).status).toBe(401);
+    expect(await count(`select count(*) as n from squad where name = 'Squat squad'`)).toBe(0);
+    // The link confirms the address and signs in.
+    await b.verifyEmail(email);
+    expect((await b.call(meRoute, "GET", "/api/me")).status).toBe(200);
+  });
+
+  it("a session of an account that is not (or no longer) confirmed counts as none", async () => {
+    const email = unique("demoted");
+    const b = new Browser("198.51.100.202");
+    await b.signUp("Was Confirmed", email);
+    expect((await b.call(meRoute, "GET", "/api/me")).status).toBe(200);
+    const [row] = await query<{ id: string }>(`update "user" set email_verified = false where email = $1 returning id`, [email]);
+    // As after a restart: the process's memory of verified sessions starts empty.
+    forgetUserSessions(row!.id);
+    expect((await b.call(meRoute, "GET", "/api/me")).status).toBe(401);
+  });
+
+  it("sign-up with an address that has an account answers as for a new one, creates nothing and tells the owner", async () => {
+    const email = unique("owner");
+    await new Browser("198.51.100.204").signUp("Real Owner", email);
+    const users = await count(`select count(*) as n from "user" where lower(email) = lower($1)`, [email]);
+    const fresh = await new Browser("198.51.100.205").auth("POST", "/sign-up/email", { name: "Imposter", email: unique("fresh"), password: "long-enough-password" });
+    const taken = await new Browser("198.51.100.205").auth("POST", "/sign-up/email", { name: "Imposter", email, password: "long-enough-password" });
+    expect(taken.status).toBe(fresh.status);
+    expect(Object.keys(taken.json).sort()).toEqual(Object.keys(fresh.json).sort());
+    expect(await count(`select count(*) as n from "user" where lower(email) = lower($1)`, [email])).toBe(users);
+    expect(await count(`select count(*) as n from outbox where kind = 'existing_account' and to_address = $1`, [email])).toBe(1);
+    // The imposter's password does not open the account.
+    expect((await new Browser("198.51.100.206").signIn(email, "long-enough-password")).status).toBe(401);
+  });
+});
+
+describe("rate limits and the per-account pause", () => {
+  it("a made-up X-Forwarded-For per request buys no fresh attempts when no trusted proxy is configured", async () => {
+    // The app's defaults (no TIDEMARK_CLIENT_IP_HEADER), as on a loopback installation.
+    const saved = { header: process.env.TIDEMARK_CLIENT_IP_HEADER, limit: process.env.TIDEMARK_SIGN_IN_LIMIT_PER_MIN };
+    delete process.env.TIDEMARK_CLIENT_IP_HEADER;
+    process.env.TIDEMARK_SIGN_IN_LIMIT_PER_MIN = "8";
+    const auth = createAuth();
+    process.env.TIDEMARK_CLIENT_IP_HEADER = saved.header;
+    if (saved.limit === undefined) delete process.env.TIDEMARK_SIGN_IN_LIMIT_PER_MIN;
+    else process.env.TIDEMARK_SIGN_IN_LIMIT_PER_MIN = saved.limit;
+    await query(`delete from rate_limit`);
+    const statuses: number[] = [];
+    for (let i = 0; i < 10; i++) {
+      const res = await auth.handler(
+        new Request(`${ORIGIN}/api/auth/sign-in/email`, {
+          method: "POST",
+          headers: { "content-type": "application/json", origin: ORIGIN, "x-forwarded-for": `203.0.113.${100 + i}` },
+          body: JSON.stringify({ email: unique(`nobody${i}`), password: "wrong-password-123" }),
+        }),
+      );
+      statuses.push(res.status);
+    }
+    expect(statuses.slice(0, 8).every((s) => s === 401)).toBe(true);
+    expect(statuses.slice(8)).toEqual([429, 429]);
+    await query(`delete from rate_limit`);
+  });
+
+  it("wrong passwords from many addresses pause sign-in to that account, tell its owner, and the pause ends", async () => {
+    const email = unique("guessed");
+    await new Browser("198.51.100.210").signUp("Guessed At", email);
+    for (let i = 0; i < SIGN_IN_FAILURES_BEFORE_PAUSE; i++) {
+      expect((await new Browser(`192.0.2.${10 + i}`).signIn(email, `wrong-password-${i}`)).status).toBe(401);
+    }
+    // Now even the right password waits, from a fresh address, with a clear reason; no session is made.
+    const b = new Browser("192.0.2.99");
+    const paused = await b.signIn(email);
+    expect(paused.status).toBe(429);
+    expect(paused.json.code).toBe("SIGN_IN_PAUSED");
+    expect(paused.json.message).toMatch(/paused for 15 more minutes/);
+    expect(b.cookie).not.toMatch(/session_token=/);
+    expect(await count(`select count(*) as n from outbox where kind = 'sign_in_paused' and to_address = $1`, [email])).toBe(1);
+    // Other accounts on the same addresses are not affected.
+    const other = unique("neighbour");
+    await new Browser("198.51.100.211").signUp("Neighbour", other);
+    expect((await new Browser("192.0.2.10").signIn(other)).status).toBe(200);
+    // When the pause is over, the right password works and the count starts again.
+    await query(`update sign_in_guard set locked_until = now() - interval '1 second' where email = lower($1)`, [email]);
+    expect((await new Browser("192.0.2.100").signIn(email)).status).toBe(200);
+    expect(await count(`select count(*) as n from sign_in_guard where email = lower($1)`, [email])).toBe(0);
+  });
+});
+
+describe("cross-site requests to the app's own API", () => {
+  const signedIn = async () => {
+    const b = new Browser("198.51.100.220");
+    await b.signUp("Csrf Target", unique("csrf"));
+    return b;
+  };
+
+  it("a text/plain POST from a foreign origin is refused and writes nothing", async () => {
+    const b = await signedIn();
+    const name = `Forged ${Date.now()}`;
+    const r = await b.call(squadsRoute, "POST", "/api/squads", { rawBody: JSON.stringify({ name }), headers: { origin: "https://evil.test", "content-type": "text/plain" } });
+    expect([403, 415]).toContain(r.status);
+    expect(await count(`select count(*) as n from squad where name = $1`, [name])).toBe(0);
+  });
+
+  it("a text/plain POST from the app's own origin answers 415 (only JSON or multipart bodies)", async () => {
+    const b = await signedIn();
+    const name = `Plain ${Date.now()}`;
+    const r = await b.call(squadsRoute, "POST", "/api/squads", { rawBody: JSON.stringify({ name }), headers: { "content-type": "text/plain" } });
+    expect(r.status).toBe(415);
+    expect(r.json.error).toMatch(/JSON/);
+    expect(await count(`select count(*) as n from squad where name = $1`, [name])).toBe(0);
+  });
+
+  it("a JSON POST with a foreign Origin, or a cross-site Sec-Fetch-Site without one, answers 403", async () => {
+    const b = await signedIn();
+    const name = `Foreign ${Date.now()}`;
+    const foreign = await b.call(squadsRoute, "POST", "/api/squads", { body: { name }, headers: { origin: "https://evil.test" } });
+    expect(foreign.status).toBe(403);
+    const fetchSite = await b.call(squadsRoute, "POST", "/api/squads", { body: { name }, headers: { origin: "", "sec-fetch-site": "cross-site" } });
+    expect(fetchSite.status).toBe(403);
+    expect(await count(`select count(*) as n from squad where name = $1`, [name])).toBe(0);
+    // The same request from the app's own pages works.
+    const own = await b.call(squadsRoute, "POST", "/api/squads", { body: { name }, headers: { "sec-fetch-site": "same-origin" } });
+    expect(own.status).toBe(201);
+  });
+
+  it("a cross-site DELETE and a cross-site POST elsewhere are refused before anything is looked up", async () => {
+    const b = await signedIn();
+    const id = "00000000-0000-4000-8000-000000000000";
+    const del = await b.call(logRoute, "DELETE", `/api/logs/${id}`, { params: { id }, headers: { origin: "https://evil.test" } });
+    expect(del.status).toBe(403);
+    const post = await b.call(templatesRoute, "POST", "/api/templates", { body: {}, headers: { origin: "https://evil.test" } });
+    expect(post.status).toBe(403);
+  });
+});
+
+describe("edge inputs", () => {
+  it("an unsubscribe token with broken percent-encoding answers 404, not 500", async () => {
+    const r = await new Browser().call(unsubscribeRoute, "POST", "/api/unsubscribe/%E0%A4%A", { params: { token: "%E0%A4%A" } });
+    expect(r.status).toBe(404);
+  });
+});
