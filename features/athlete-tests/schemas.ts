@@ -1,8 +1,10 @@
+import { isoDate } from "@/features/platform/lib/date-schema";
 import { z } from "zod";
 import { SPORTS } from "@/features/athletes/schemas";
 import { submaxSchema } from "@/features/field-tests/lib/submax";
 import { talkTestSchema } from "@/features/field-tests/lib/talk-test";
 import { CHANNELS, UNIT_CHOICES } from "@/features/gas-exchange/lib/csv";
+import { isPlainText, isSingleLine, PLAIN_TEXT_MESSAGE, SINGLE_LINE_MESSAGE } from "@/features/platform/lib/text";
 
 /** Readiness questions before a test (our wording, in the spirit of common pre-participation screens). */
 export const SCREENING_QUESTIONS = [
@@ -22,7 +24,7 @@ export const screeningSchema = z.object({
     Object.fromEntries(SCREENING_QUESTIONS.map((q) => [q.id, z.boolean({ error: "Answer yes or no." })])) as Record<ScreeningQuestionId, z.ZodBoolean>,
     { error: "Answer every question." },
   ),
-  notes: z.string().trim().max(1000, "Keep the notes under 1000 characters.").optional(),
+  notes: z.string().trim().max(1000, "Keep the notes under 1000 characters.").refine(isPlainText, PLAIN_TEXT_MESSAGE).optional(),
 });
 
 /** Signs for stopping a test (our wording of the usual indications, after the ACSM Guidelines' list; from memory). */
@@ -39,15 +41,11 @@ export const STOP_SIGNS = [
 
 export const STOP_SIGN_IDS = STOP_SIGNS.map((s) => s.id) as [string, ...string[]];
 
-const isoDate = z
-  .string()
-  .regex(/^\d{4}-\d{2}-\d{2}$/, "Enter the date as YYYY-MM-DD.")
-  .refine((d) => !Number.isNaN(Date.parse(`${d}T00:00:00Z`)), "Enter a real calendar date.");
 
 export const testMetaSchema = z
   .object({
     sport: z.enum(SPORTS, { error: "Choose the sport of the test." }),
-    protocol: z.string().trim().min(2, "Describe the protocol (for example: ramp 25 W/min).").max(200, "Keep the protocol under 200 characters."),
+    protocol: z.string().trim().min(2, "Describe the protocol (for example: ramp 25 W/min).").max(200, "Keep the protocol under 200 characters.").refine(isSingleLine, SINGLE_LINE_MESSAGE),
     date: isoDate,
     endedBy: z.enum(["exhaustion", "plan", "stop_sign"], { error: "Say how the test ended." }),
     stopSign: z.enum(STOP_SIGN_IDS, { error: "Choose which stop sign ended the test." }).nullable().optional(),

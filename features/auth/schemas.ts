@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { isSingleLine, SINGLE_LINE_MESSAGE } from "@/features/platform/lib/text";
 
 const email = z.string().trim().toLowerCase().pipe(z.email("Enter a valid e-mail address."));
 
@@ -12,8 +13,11 @@ export const passwordSchema = z
   .min(10, "Use at least 10 characters.")
   .max(128, "Use at most 128 characters.");
 
+/** A person's name: also checked on the server for sign-up and profile changes (auth.ts). */
+export const personNameSchema = z.string().trim().min(2, "Enter your name (at least 2 characters).").max(80, "Keep your name under 80 characters.").refine(isSingleLine, SINGLE_LINE_MESSAGE);
+
 export const signUpSchema = z.object({
-  name: z.string().trim().min(2, "Enter your name (at least 2 characters).").max(80, "Keep your name under 80 characters."),
+  name: personNameSchema,
   email,
   password: passwordSchema,
 });

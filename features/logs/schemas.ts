@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { SPORTS } from "@/features/athletes/schemas";
 import { isoDate } from "@/features/planning/schemas";
+import { isPlainText, isSingleLine, PLAIN_TEXT_MESSAGE, SINGLE_LINE_MESSAGE } from "@/features/platform/lib/text";
 
 export const LOG_STATUSES = ["done", "partial", "skipped"] as const;
 export const LOG_STATUS_LABELS: Record<(typeof LOG_STATUSES)[number], string> = { done: "Done", partial: "Partly done", skipped: "Skipped" };
@@ -10,8 +11,8 @@ const fields = {
   durationMin: z.number({ error: "Give the duration in minutes." }).positive("The duration must be above 0 minutes.").max(1440, "A session lasts at most 24 hours (1440 min).").nullable().optional(),
   distanceKm: z.number({ error: "Give the distance in km." }).min(0, "The distance cannot be negative.").max(1000, "A session covers at most 1000 km.").nullable().optional(),
   rpe: z.number({ error: "Rate the effort from 0 to 10." }).min(0, "RPE runs from 0 to 10.").max(10, "RPE runs from 0 to 10.").multipleOf(0.5, "Rate the effort in whole or half points.").nullable().optional(),
-  notes: z.string().trim().max(2000, "Keep the notes under 2000 characters.").optional(),
-  skipReason: z.string().trim().max(500, "Keep the reason under 500 characters.").nullable().optional(),
+  notes: z.string().trim().max(2000, "Keep the notes under 2000 characters.").refine(isPlainText, PLAIN_TEXT_MESSAGE).optional(),
+  skipReason: z.string().trim().max(500, "Keep the reason under 500 characters.").refine(isPlainText, PLAIN_TEXT_MESSAGE).nullable().optional(),
 };
 
 type LogFields = { status: string; durationMin?: number | null; rpe?: number | null; skipReason?: string | null };
@@ -33,7 +34,7 @@ export const unplannedLogSchema = z
     status: z.enum(["done", "partial"], { error: "An unplanned session is done or partly done." }),
     date: isoDate,
     sport: z.enum(SPORTS, { error: "Choose a sport." }),
-    title: z.string().trim().min(1, "Give the session a title.").max(80, "Keep the title under 80 characters."),
+    title: z.string().trim().min(1, "Give the session a title.").max(80, "Keep the title under 80 characters.").refine(isSingleLine, SINGLE_LINE_MESSAGE),
     clientKey: z.string().uuid("clientKey must be a UUID chosen by the client.").optional(),
   })
   .strict()

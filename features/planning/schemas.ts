@@ -1,18 +1,17 @@
+import { isoDate } from "@/features/platform/lib/date-schema";
 import { z } from "zod";
 import { SPORTS } from "@/features/athletes/schemas";
 import { repeatSchema } from "./lib/repeat";
 import { structureSchema } from "./lib/session";
+import { isPlainText, isSingleLine, PLAIN_TEXT_MESSAGE, SINGLE_LINE_MESSAGE } from "@/features/platform/lib/text";
 
-export const isoDate = z
-  .string({ error: "Give a date as YYYY-MM-DD." })
-  .regex(/^\d{4}-\d{2}-\d{2}$/, "Give a date as YYYY-MM-DD.")
-  .refine((d) => !Number.isNaN(Date.parse(`${d}T00:00:00Z`)) && new Date(`${d}T00:00:00Z`).toISOString().startsWith(d), "Give a real calendar date.");
+export { isoDate };
 
 export const templateSchema = z.object({
   squadId: z.string().min(1, "Choose the squad."),
-  name: z.string().trim().min(2, "Name the template (at least 2 characters).").max(80, "Keep the name under 80 characters."),
+  name: z.string().trim().min(2, "Name the template (at least 2 characters).").max(80, "Keep the name under 80 characters.").refine(isSingleLine, SINGLE_LINE_MESSAGE),
   sport: z.enum(SPORTS, { error: "Choose a sport." }),
-  description: z.string().trim().max(500, "Keep the description under 500 characters.").default(""),
+  description: z.string().trim().max(500, "Keep the description under 500 characters.").refine(isPlainText, PLAIN_TEXT_MESSAGE).default(""),
   structure: structureSchema,
 });
 
@@ -23,11 +22,11 @@ export const createSessionSchema = z.union([
   z
     .object({
       date: isoDate,
-      title: z.string().trim().min(1, "Give the session a title.").max(80),
+      title: z.string().trim().min(1, "Give the session a title.").max(80).refine(isSingleLine, SINGLE_LINE_MESSAGE),
       sport: z.enum(SPORTS, { error: "Choose a sport." }),
       kind: z.enum(["training", "retest"]).default("training"),
       structure: structureSchema,
-      notes: z.string().max(1000).optional(),
+      notes: z.string().max(1000).refine(isPlainText, PLAIN_TEXT_MESSAGE).optional(),
       repeat: repeatSchema.optional(),
     })
     .strict(),
@@ -36,9 +35,9 @@ export const createSessionSchema = z.union([
 export const patchSessionSchema = z
   .object({
     date: isoDate.optional(),
-    title: z.string().trim().min(1).max(80).optional(),
+    title: z.string().trim().min(1).max(80).refine(isSingleLine, SINGLE_LINE_MESSAGE).optional(),
     structure: structureSchema.optional(),
-    notes: z.string().max(1000).optional(),
+    notes: z.string().max(1000).refine(isPlainText, PLAIN_TEXT_MESSAGE).optional(),
     scope: z.enum(["one", "series"]).default("one"),
   })
   .refine((p) => p.date !== undefined || p.title !== undefined || p.structure !== undefined || p.notes !== undefined, { message: "Nothing to change." });
@@ -46,10 +45,10 @@ export const patchSessionSchema = z
 export const rangeQuery = z.object({ from: isoDate, to: isoDate }).refine((q) => q.from <= q.to, { message: "from must not be after to." }).refine((q) => Date.parse(q.to) - Date.parse(q.from) <= 400 * 86_400_000, { message: "Ask for at most 400 days at a time." });
 
 export const seasonSchema = z.object({
-  name: z.string().trim().min(2, "Name the season.").max(80),
+  name: z.string().trim().min(2, "Name the season.").max(80).refine(isSingleLine, SINGLE_LINE_MESSAGE),
   sport: z.enum(SPORTS, { error: "Choose a sport." }),
   startDate: isoDate,
-  events: z.array(z.object({ date: isoDate, name: z.string().trim().min(1, "Name the event.").max(80) })).min(1, "Give at least one event.").max(8),
+  events: z.array(z.object({ date: isoDate, name: z.string().trim().min(1, "Name the event.").max(80).refine(isSingleLine, SINGLE_LINE_MESSAGE) })).min(1, "Give at least one event.").max(8),
   weeklyHours: z.number({ error: "Give weekly hours." }).positive("Weekly hours must be above 0.").max(40, "At most 40 hours a week."),
   level: z.enum(["trained", "beginner"]).default("trained"),
   loadingWeeks: z.union([z.literal(2), z.literal(3)]).default(3),

@@ -9,7 +9,12 @@ import * as unsubscribeRoute from "@/app/api/unsubscribe/[token]/route";
 import { createAuth } from "@/features/auth/server/auth";
 import { forgetUserSessions } from "@/features/auth/server/session-memo";
 import { SIGN_IN_FAILURES_BEFORE_PAUSE } from "@/features/auth/server/sign-in-guard";
+import * as sessionsRoute from "@/app/api/athletes/[id]/sessions/route";
+import * as testsRoute from "@/app/api/athletes/[id]/tests/route";
+import * as weeksRoute from "@/app/api/athletes/[id]/weeks/route";
+import * as squadWeekRoute from "@/app/api/squads/[id]/week/route";
 import { Browser, ORIGIN } from "../support/api";
+import { makeSquad } from "../support/squad";
 import { query } from "../support/db";
 
 const unique = (label: string) => `${label}-${Date.now().toString(36)}${Math.random().toString(36).slice(2, 6)}@security.test`;
@@ -161,6 +166,51 @@ describe("cross-site requests to the app's own API", () => {
 });
 
 describe("edge inputs", () => {
+  it("years 0000 and 9999, impossible dates and absurd sessions answer 400 with a reason and write nothing", async () => {
+    const { squadId, head, athleteA } = await makeSquad("edge");
+    const weeks = await head.browser.call(weeksRoute, "GET", `/api/athletes/${athleteA.id}/weeks`, { params: { id: athleteA.id }, query: "?from=0000-01-01&to=0000-02-01" });
+    expect(weeks.status).toBe(400);
+    const far = await head.browser.call(weeksRoute, "GET", `/api/athletes/${athleteA.id}/weeks`, { params: { id: athleteA.id }, query: "?from=9999-12-01&to=9999-12-31" });
+    expect(far.status).toBe(400);
+    const squadWeek = await head.browser.call(squadWeekRoute, "GET", `/api/squads/${squadId}/week`, { params: { id: squadId }, query: "?week=9999-12-27" });
+    expect(squadWeek.status).toBe(400);
+    expect(squadWeek.json.fieldErrors.week[0]).toMatch(/between 1900 and 2200/);
+
+    const session = (date: string, durationS = 3600, times = 2) => ({
+      date,
+      title: "Long one",
+      sport: "running",
+      structure: [{ type: "repeat", times, steps: [{ type: "step", kind: "work", durationS, zone: 1 }] }],
+    });
+    const sessionsCall = (body: unknown) => head.browser.call(sessionsRoute, "POST", `/api/athletes/${athleteA.id}/sessions`, { params: { id: athleteA.id }, body });
+    expect((await sessionsCall(session("9999-01-04"))).status).toBe(400);
+    const huge = await sessionsCall(session("2027-01-04", 12 * 3600, 50));
+    expect(huge.status).toBe(400);
+    expect(JSON.stringify(huge.json)).toMatch(/at most 12 hours/);
+    expect(await count(`select count(*) as n from planned_session where athlete_id = $1`, [athleteA.id])).toBe(0);
+
+    const test = await head.browser.call(testsRoute, "POST", `/api/athletes/${athleteA.id}/tests`, {
+      params: { id: athleteA.id },
+      body: { kind: "manual", meta: { sport: "running", protocol: "field estimate", date: "2026-02-30", endedBy: "plan" }, vt1: { hrBpm: 140 }, vt2: { hrBpm: 165 } },
+    });
+    expect(test.status).toBe(400);
+    expect(JSON.stringify(test.json)).toMatch(/real calendar date/);
+    expect(await count(`select count(*) as n from athlete_test where athlete_id = $1`, [athleteA.id])).toBe(0);
+  });
+
+  it("names and titles with line breaks or control characters are refused, sign-up included", async () => {
+    const b = new Browser("198.51.100.230");
+    const r = await b.auth("POST", "/sign-up/email", { name: "Eve\r\nBcc: all@example.test", email: unique("crlf"), password: "long-enough-password" });
+    expect(r.status).toBe(400);
+    expect(r.json.message).toMatch(/one line/);
+    await b.signUp("Plain Name", unique("plain"));
+    const squad = await b.call(squadsRoute, "POST", "/api/squads", { body: { name: "Harbour\nSubject: hi" } });
+    expect(squad.status).toBe(400);
+    expect(squad.json.fieldErrors.name[0]).toMatch(/one line/);
+    const rename = await b.auth("POST", "/update-user", { name: "Tab\tName" });
+    expect(rename.status).toBe(400);
+  });
+
   it("an unsubscribe token with broken percent-encoding answers 404, not 500", async () => {
     const r = await new Browser().call(unsubscribeRoute, "POST", "/api/unsubscribe/%E0%A4%A", { params: { token: "%E0%A4%A" } });
     expect(r.status).toBe(404);

@@ -1,6 +1,7 @@
 import "server-only";
 import { betterAuth } from "better-auth";
 import { APIError, createAuthMiddleware } from "better-auth/api";
+import { personNameSchema } from "../schemas";
 import { clearFailedSignIns, recordFailedSignIn, signInPausedFor } from "./sign-in-guard";
 import { drizzleAdapter } from "better-auth/adapters/drizzle";
 import { getDb, schema } from "@/db/client";
@@ -112,6 +113,12 @@ function createAuth() {
     hooks: {
       // The per-account limit on wrong passwords: a paused address is refused before the password is checked.
       before: createAuthMiddleware(async (ctx) => {
+        // Names reach e-mail subjects and calendar feeds: the same rules as every other name (one line, no control
+        // characters, 2–80 characters), on the server.
+        if ((ctx.path === "/sign-up/email" || ctx.path === "/update-user") && (ctx.body as { name?: unknown } | undefined)?.name !== undefined) {
+          const parsed = personNameSchema.safeParse((ctx.body as { name?: unknown }).name);
+          if (!parsed.success) throw new APIError("BAD_REQUEST", { code: "INVALID_NAME", message: parsed.error.issues[0]!.message });
+        }
         if (ctx.path !== "/sign-in/email") return;
         const email = emailOf(ctx.body);
         if (!email) return;

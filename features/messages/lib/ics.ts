@@ -12,8 +12,21 @@ export interface FeedSession {
   notes: string;
 }
 
+/**
+ * A TEXT value as RFC 5545 §3.3.11 writes it (backslash, semicolon, comma and line breaks escaped). ical-generator
+ * escapes event fields but writes the calendar's name as it is, so a name with a line break could add lines to the feed.
+ */
+export function icsText(value: string): string {
+  return value
+    .replace(/[\u0000-\u0008\u000B-\u001F\u007F]/g, "")
+    .replace(/\\/g, "\\\\")
+    .replace(/;/g, "\\;")
+    .replace(/,/g, "\\,")
+    .replace(/\r\n|\r|\n/g, "\\n");
+}
+
 export function calendarIcs(input: { name: string; sessions: FeedSession[]; stampedAt: Date }): string {
-  const cal = ical({ name: input.name, prodId: { company: "Tidemark", product: "plan-feed", language: "EN" }, ttl: 3600 });
+  const cal = ical({ name: icsText(input.name), prodId: { company: "Tidemark", product: "plan-feed", language: "EN" }, ttl: 3600 });
   for (const s of input.sessions) {
     const [y, m, d] = s.date.split("-").map(Number) as [number, number, number];
     const minutes = Math.round(s.totalS / 60);

@@ -1,10 +1,10 @@
 /** A weekly repeat as the API takes it (weekdays and an end), apart from the rrule package that only the server needs. */
+import { isoDate } from "@/features/platform/lib/date-schema";
 import { z } from "zod";
 import { WEEKDAYS } from "./weekdays";
 
 export const MAX_OCCURRENCES = 104;
 
-const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, "Dates are YYYY-MM-DD.").refine((d) => !Number.isNaN(Date.parse(`${d}T00:00:00Z`)), "Enter a real calendar date.");
 
 export const repeatSchema = z
   .object({

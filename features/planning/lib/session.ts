@@ -3,10 +3,13 @@
  * nested repeat groups such as 5 × (4 min zone 3, 3 min zone 1). Expansion gives the total duration and minutes per zone.
  */
 import { z } from "zod";
+import { isSingleLine, SINGLE_LINE_MESSAGE } from "@/features/platform/lib/text";
 
 export const STEP_KINDS = ["warmup", "work", "recovery", "cooldown"] as const;
 export const MAX_REPEAT_DEPTH = 3;
 export const MAX_SESSION_S = 12 * 3600;
+/** The longest distance a session may cover (an ultra-distance day; common practice). */
+export const MAX_SESSION_M = 300_000;
 
 export const stepSchema = z
   .object({
@@ -15,7 +18,7 @@ export const stepSchema = z
     durationS: z.number().int("Give the duration in whole seconds.").positive("A duration must be above 0.").max(MAX_SESSION_S, "A step lasts at most 12 hours.").optional(),
     distanceM: z.number().positive("A distance must be above 0.").max(300_000, "A step covers at most 300 km.").optional(),
     zone: z.number().int().min(1, "Target zone 1, 2 or 3.").max(3, "Target zone 1, 2 or 3."),
-    note: z.string().max(200, "Keep the note under 200 characters.").optional(),
+    note: z.string().max(200, "Keep the note under 200 characters.").refine(isSingleLine, SINGLE_LINE_MESSAGE).optional(),
   })
   .refine((s) => (s.durationS === undefined) !== (s.distanceM === undefined), {
     message: "Give a step either a duration or a distance, not both or neither.",
@@ -42,7 +45,22 @@ function depth(blocks: Block[]): number {
   return blocks.reduce((d, b) => Math.max(d, b.type === "repeat" ? 1 + depth(b.steps) : 0), 0);
 }
 
-export const structureSchema = z
+/**
+ * How deep repeat groups nest in a body not yet parsed, looked at before the recursive schema runs (a body nested 800
+ * deep must cost nothing). Stops counting past `limit`.
+ */
+function rawRepeatDepth(value: unknown, limit: number, level = 0): number {
+  if (level > limit || !Array.isArray(value)) return level;
+  let deepest = level;
+  for (const b of value) {
+    const steps = b !== null && typeof b === "object" ? (b as { steps?: unknown }).steps : undefined;
+    if (Array.isArray(steps)) deepest = Math.max(deepest, rawRepeatDepth(steps, limit, level + 1));
+    if (deepest > limit) break;
+  }
+  return deepest;
+}
+
+const parsedStructureSchema = z
   .array(blockSchema)
   .min(1, "A session needs at least one step.")
   .max(40, "A session has at most 40 blocks.")
@@ -50,7 +68,31 @@ export const structureSchema = z
     if (depth(blocks) > MAX_REPEAT_DEPTH) ctx.addIssue({ code: "custom", message: `Repeat groups nest at most ${MAX_REPEAT_DEPTH} deep.` });
     const flat = countSteps(blocks);
     if (flat > 2000) ctx.addIssue({ code: "custom", message: "The session expands to more than 2000 steps." });
+    const { seconds, metres } = totals(blocks);
+    if (seconds > MAX_SESSION_S) ctx.addIssue({ code: "custom", message: `A session lasts at most ${MAX_SESSION_S / 3600} hours; this one adds up to ${Math.round(seconds / 3600)} hours.` });
+    if (metres > MAX_SESSION_M) ctx.addIssue({ code: "custom", message: `A session covers at most ${MAX_SESSION_M / 1000} km; this one adds up to ${Math.round(metres / 1000)} km.` });
   });
+
+export const structureSchema = z
+  .unknown()
+  .refine((v) => rawRepeatDepth(v, MAX_REPEAT_DEPTH) <= MAX_REPEAT_DEPTH, `Repeat groups nest at most ${MAX_REPEAT_DEPTH} deep.`)
+  .pipe(parsedStructureSchema);
+
+/** Seconds of the timed steps and metres of the distance steps, repeats counted. */
+function totals(blocks: Block[]): { seconds: number; metres: number } {
+  let seconds = 0, metres = 0;
+  for (const b of blocks) {
+    if (b.type === "repeat") {
+      const inner = totals(b.steps);
+      seconds += b.times * inner.seconds;
+      metres += b.times * inner.metres;
+    } else {
+      seconds += b.durationS ?? 0;
+      metres += b.distanceM ?? 0;
+    }
+  }
+  return { seconds, metres };
+}
 
 function countSteps(blocks: Block[]): number {
   return blocks.reduce((n, b) => n + (b.type === "repeat" ? b.times * countSteps(b.steps) : 1), 0);

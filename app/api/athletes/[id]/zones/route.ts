@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { isoDate } from "@/features/platform/lib/date-schema";
 import { requireActor } from "@/features/access/server/permissions";
 import { HttpError, json, parseParams, route } from "@/features/platform/server/http";
 import { idParam } from "@/features/squads/schemas";
@@ -7,7 +8,7 @@ import { getZones } from "@/features/zones/server/zone-sets";
 export const dynamic = "force-dynamic";
 
 type Ctx = { params: Promise<{ id: string }> };
-const query = z.object({ date: z.string().regex(/^\d{4}-\d{2}-\d{2}$/).optional() });
+const query = z.object({ date: isoDate.optional() });
 
 export const GET = route<Ctx>(async (req, ctx) => {
   const actor = await requireActor(req.headers);
