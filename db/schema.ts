@@ -496,10 +496,16 @@ export const activityFile = pgTable(
     startTime: timestamp("start_time", { withTimezone: true }),
     summary: jsonb("summary").$type<Record<string, unknown>>().notNull(),
     data: bytea("data").notNull(),
+    /** SHA-256 of the file's bytes (hex): the same file is imported once per athlete. */
+    contentHash: text("content_hash"),
     uploadedBy: text("uploaded_by").references(() => user.id, { onDelete: "set null" }),
     createdAt: createdAt(),
   },
-  (t) => [index("activity_file_log_idx").on(t.logId), index("activity_file_athlete_idx").on(t.athleteId)],
+  (t) => [
+    index("activity_file_log_idx").on(t.logId),
+    index("activity_file_athlete_idx").on(t.athleteId),
+    uniqueIndex("activity_file_athlete_hash_idx").on(t.athleteId, t.contentHash),
+  ],
 );
 
 /**

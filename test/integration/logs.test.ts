@@ -146,6 +146,23 @@ describe("activity files", () => {
     expect(row!.measured_min_by_zone).toEqual([20, 30, 10]);
   });
 
+  it("the same file again answers 409 with the log that holds it, one after the other and two at once; never a 500", async () => {
+    const before = await counts();
+    const again = await s.athleteA.browser.call(activitiesRoute, "POST", "/api/athletes/x/activities", { params: { id: s.athleteA.id }, form: upload(fit, "ride-copy.fit") });
+    expect(again.status).toBe(409);
+    expect(again.json.error).toMatch(/already imported/);
+    expect(again.json.existingLog).toMatchObject({ date: "2026-11-23", title: "Tempo ride" });
+    expect(await counts()).toEqual(before);
+    // Two uploads of a new file at the same moment: one log, one file.
+    const f = encodeFit({ start: new Date("2026-11-25T17:00:00Z"), sport: "cycling", seconds });
+    const both = await Promise.all([0, 1].map(() => s.athleteA.browser.call(activitiesRoute, "POST", "/api/athletes/x/activities", { params: { id: s.athleteA.id }, form: upload(f, "twice.fit") })));
+    expect(both.map((r) => r.status).sort()).toEqual([201, 409]);
+    expect((await query(`select id from session_log where athlete_id = $1 and date = '2026-11-25'`, [s.athleteA.id])).length).toBe(1);
+    // Another athlete may hold the same bytes (a shared group ride file).
+    const b = await s.athleteB.browser.call(activitiesRoute, "POST", "/api/athletes/x/activities", { params: { id: s.athleteB.id }, form: upload(f, "twice.fit") });
+    expect(b.status).toBe(201);
+  });
+
   it("corrupt, empty, truncated, unsupported and other people's files write nothing", async () => {
     const before = await counts();
     const bad: [Uint8Array, string][] = [

@@ -1,5 +1,5 @@
 import "server-only";
-import { randomUUID } from "node:crypto";
+import { createHash, randomUUID } from "node:crypto";
 import { and, eq } from "drizzle-orm";
 import { getDb, schema } from "@/db/client";
 import { requireAthleteAccess } from "@/features/access/server/permissions";
@@ -25,13 +25,35 @@ export interface ImportResult {
   warnings: string[];
 }
 
+/** 409 with the log that already holds this file. */
+async function duplicateError(athleteId: string, contentHash: string): Promise<HttpError> {
+  const [row] = await getDb()
+    .select({ logId: schema.sessionLog.id, date: schema.sessionLog.date, title: schema.sessionLog.title, filename: schema.activityFile.filename })
+    .from(schema.activityFile)
+    .innerJoin(schema.sessionLog, eq(schema.sessionLog.id, schema.activityFile.logId))
+    .where(and(eq(schema.activityFile.athleteId, athleteId), eq(schema.activityFile.contentHash, contentHash)));
+  return new HttpError(409, row ? `This file was already imported: it is the log "${row.title}" of ${row.date}. Nothing was added.` : "This file is being imported already. Nothing was added.", {
+    existingLog: row ? { id: row.logId, date: row.date, title: row.title, filename: row.filename } : null,
+  });
+}
+
+async function refuseDuplicate(athleteId: string, contentHash: string): Promise<void> {
+  const [row] = await getDb()
+    .select({ id: schema.activityFile.id })
+    .from(schema.activityFile)
+    .where(and(eq(schema.activityFile.athleteId, athleteId), eq(schema.activityFile.contentHash, contentHash)));
+  if (row) throw await duplicateError(athleteId, contentHash);
+}
+
 /**
- * Imports an activity file: reads it, builds 1 Hz streams, computes time in zone with the zone set in force on its day,
+ * Imports an activity file (once per athlete: the same bytes again answer 409 with the log that holds them): reads it, builds 1 Hz streams, computes time in zone with the zone set in force on its day,
  * attaches it to the planned session of that day (the one given, or same sport and nearest duration) or logs it as
  * unplanned, and keeps the file. Nothing is written unless everything worked (one transaction).
  */
 export async function importActivity(actor: Actor, athleteId: string, file: { name: string; bytes: Uint8Array }, sessionId?: string): Promise<ImportResult> {
   await requireAthleteAccess(actor, athleteId, "edit");
+  const contentHash = createHash("sha256").update(file.bytes).digest("hex");
+  await refuseDuplicate(athleteId, contentHash);
   let activity;
   try {
     activity = readActivity(file.name, file.bytes);
@@ -114,7 +136,13 @@ export async function importActivity(actor: Actor, athleteId: string, file: { na
       logId = randomUUID();
       await tx.insert(schema.sessionLog).values({ id: logId, athleteId, plannedSessionId: matched?.id ?? null, date, sport, title: matched?.title ?? `${sport[0]!.toUpperCase()}${sport.slice(1).replaceAll("_", " ")} (from file)`, status: "done", durationMin, distanceKm, loggedBy: actor.userId, ...measured });
     }
-    await tx.insert(schema.activityFile).values({ id: fileId, athleteId, logId, filename: file.name.slice(0, 200), format: activity.format, sizeBytes: file.bytes.length, startTime: activity.startTime, summary: { ...summary, warnings, trimpMethod: trimp?.method ?? null }, data: Buffer.from(file.bytes), uploadedBy: actor.userId });
+    const inserted = await tx
+      .insert(schema.activityFile)
+      .values({ id: fileId, athleteId, logId, filename: file.name.slice(0, 200), format: activity.format, sizeBytes: file.bytes.length, startTime: activity.startTime, summary: { ...summary, warnings, trimpMethod: trimp?.method ?? null }, data: Buffer.from(file.bytes), contentHash, uploadedBy: actor.userId })
+      .onConflictDoNothing()
+      .returning({ id: schema.activityFile.id });
+    // The same file arrived twice at once: the other upload won; this one writes nothing (the log above rolls back).
+    if (!inserted.length) throw await duplicateError(athleteId, contentHash);
   });
   return { logId, fileId, matchedSessionId: matched?.id ?? null, date, sport, format: activity.format, summary, timeInZone, trimp, warnings };
 }
