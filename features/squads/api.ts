@@ -57,6 +57,15 @@ export function useInvitations(squadId: string, enabled: boolean) {
   });
 }
 
+export function useWithdrawInvitation(squadId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (invitationId: string) =>
+      apiFetch<void>(`/api/squads/${encodeURIComponent(squadId)}/invitations/${encodeURIComponent(invitationId)}`, { method: "DELETE" }),
+    onSuccess: () => qc.invalidateQueries({ queryKey: ["invitations", squadId] }),
+  });
+}
+
 export function useInvite(squadId: string) {
   const qc = useQueryClient();
   return useMutation({

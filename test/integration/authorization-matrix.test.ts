@@ -63,6 +63,7 @@ async function newTemplate(): Promise<string> {
   return r.json.id;
 }
 
+let uploads = 0;
 const MATRIX: Record<string, Cell> = {
   "GET /api/athletes": { ok: SIGNED_IN, path: () => "/api/athletes", params: () => ({}) },
   "POST /api/athletes/[id]/activities": {
@@ -71,7 +72,8 @@ const MATRIX: Record<string, Cell> = {
     params: (i) => ({ id: i.athleteA! }),
     form: () => {
       const f = new FormData();
-      const fit = encodeFit({ start: new Date("2027-03-03T07:00:00Z"), sport: "running", seconds: Array.from({ length: 600 }, (_, k) => ({ hrBpm: 130 + (k % 10), speedKmh: 10 })) });
+      // A different file each call (the same file twice is refused as a duplicate).
+      const fit = encodeFit({ start: new Date(Date.UTC(2027, 2, 3, 7, uploads++)), sport: "running", seconds: Array.from({ length: 600 }, (_, k) => ({ hrBpm: 130 + (k % 10), speedKmh: 10 })) });
       f.set("file", new File([new Uint8Array(fit)], "run.fit"));
       return f;
     },
@@ -108,6 +110,15 @@ const MATRIX: Record<string, Cell> = {
   "DELETE /api/sessions/[id]": { ok: ["coach"], path: () => "/api/sessions/x", params: (i) => ({ id: i.session! }), fresh: async () => ({ session: await newSession() }) },
   "GET /api/squads/[id]/invitations": { ok: ["coach"], path: () => "/api/squads/x/invitations", params: (i) => ({ id: i.squad! }) },
   "POST /api/squads/[id]/invitations": { ok: ["coach"], path: () => "/api/squads/x/invitations", params: (i) => ({ id: i.squad! }), body: () => ({ email: `new-${Math.random().toString(36).slice(2)}@matrix.test`, role: "athlete" }) },
+  "DELETE /api/squads/[id]/invitations/[invitationId]": {
+    ok: ["coach"],
+    path: () => "/api/squads/x/invitations/x",
+    params: (i) => ({ id: i.squad!, invitationId: i.openInvitation! }),
+    fresh: async (i) => {
+      const r = await as("coach").call(modules["/app/api/squads/[id]/invitations/route.ts"]!, "POST", "/api/squads/x/invitations", { params: { id: i.squad! }, body: { email: `withdrawn-${Math.random().toString(36).slice(2)}@matrix.test`, role: "athlete" } });
+      return { openInvitation: r.json.id as string };
+    },
+  },
   "DELETE /api/squads/[id]/members/[userId]": {
     ok: ["coach"],
     path: () => "/api/squads/x/members/x",

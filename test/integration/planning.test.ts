@@ -184,7 +184,8 @@ describe("sessions and weekly budgets", () => {
     expect(a.sessions.map((x: { date: string }) => x.date)).toEqual(["2028-09-05"]);
     expect(a.week.plannedMinByZone).toEqual([40, 0, 20]); // the 5 × 4 min template: 40 min zone 1, 20 min zone 3 (hand sum)
     expect((await get(s.athleteA.browser)).status).toBe(403);
-    expect((await get(other.coach.browser)).status).toBe(403);
+    // Outside the squad, its existence is not told.
+    expect((await get(other.coach.browser)).status).toBe(404);
     expect((await get(s.coach.browser, "not-a-date")).status).toBe(400);
   });
 

@@ -3,6 +3,9 @@
 import { describe, expect, it } from "vitest";
 import * as logRoute from "@/app/api/logs/[id]/route";
 import * as meRoute from "@/app/api/me/route";
+import * as acceptRoute from "@/app/api/invitations/[token]/accept/route";
+import * as invitationsRoute from "@/app/api/squads/[id]/invitations/route";
+import * as invitationRoute from "@/app/api/squads/[id]/invitations/[invitationId]/route";
 import * as squadsRoute from "@/app/api/squads/route";
 import * as templatesRoute from "@/app/api/templates/route";
 import * as unsubscribeRoute from "@/app/api/unsubscribe/[token]/route";
@@ -162,6 +165,28 @@ describe("cross-site requests to the app's own API", () => {
     expect(del.status).toBe(403);
     const post = await b.call(templatesRoute, "POST", "/api/templates", { body: {}, headers: { origin: "https://evil.test" } });
     expect(post.status).toBe(403);
+  });
+});
+
+describe("invitations", () => {
+  it("a withdrawn invitation cannot be accepted, and only the head coach can withdraw one", async () => {
+    const { squadId, head, coach } = await makeSquad("withdraw");
+    const email = unique("invitee");
+    const sent = await head.browser.call(invitationsRoute, "POST", `/api/squads/${squadId}/invitations`, { params: { id: squadId }, body: { email, role: "athlete" } });
+    expect(sent.status).toBe(201);
+    const path = `/api/squads/${squadId}/invitations/${sent.json.id}`;
+    const params = { id: squadId, invitationId: sent.json.id };
+    expect((await coach.browser.call(invitationRoute, "DELETE", path, { params })).status).toBe(403);
+    expect((await head.browser.call(invitationRoute, "DELETE", path, { params })).status).toBe(204);
+    expect((await head.browser.call(invitationRoute, "DELETE", path, { params })).status).toBe(404);
+    const [row] = await query<{ meta: { url: string } }>(`select meta from outbox where kind = 'invitation' and to_address = $1`, [email]);
+    const token = row!.meta.url.split("/invite/")[1]!;
+    const invitee = new Browser("198.51.100.240");
+    await invitee.signUp("Late Invitee", email);
+    const accept = await invitee.call(acceptRoute, "POST", `/api/invitations/${token}/accept`, { params: { token } });
+    expect(accept.status).toBe(410);
+    expect(accept.json.error).toMatch(/withdrawn/);
+    expect(await count(`select count(*) as n from membership m join "user" u on u.id = m.user_id where u.email = $1`, [email])).toBe(0);
   });
 });
 

@@ -281,7 +281,10 @@ export interface SquadWeekRow {
 
 /** One ISO week for every athlete of a squad: their sessions day by day and the week's budget state. Coaches only. */
 export async function squadWeek(actor: Actor, squadId: string, weekStart: string): Promise<SquadWeekRow[]> {
-  if (!canViewRoster(actor, squadId)) throw new HttpError(403, "Only the squad's coaches see its week.");
+  if (!canViewRoster(actor, squadId)) {
+    if (!actor.memberships.some((m) => m.squadId === squadId)) throw new HttpError(404, "No such squad.");
+    throw new HttpError(403, "Only the squad's coaches see its week.");
+  }
   const db = getDb();
   const monday = mondayOf(weekStart);
   const sunday = addDays(monday, 6);

@@ -2,7 +2,7 @@ import "server-only";
 import { and, asc, eq, inArray, sql } from "drizzle-orm";
 import { getDb, schema } from "@/db/client";
 import { canViewRoster, coachedSquadIds, type Actor } from "@/features/access/lib/rules";
-import { forbidden } from "@/features/platform/server/http";
+import { forbidden, notFound } from "@/features/platform/server/http";
 import { localDate } from "@/features/platform/lib/dates";
 import type { ReportLog } from "@/features/load/lib/report";
 import { mondayOf } from "@/features/planning/lib/season";
@@ -28,7 +28,11 @@ interface Athlete {
 export async function squadRoster(actor: Actor, squadId?: string, now = new Date()): Promise<{ squadId: string | null; rows: RosterRow[] }> {
   const id = squadId ?? coachedSquadIds(actor)[0];
   if (!id) return { squadId: null, rows: [] };
-  if (!canViewRoster(actor, id)) throw forbidden("Only the squad's coaches see its roster.");
+  if (!canViewRoster(actor, id)) {
+    // Outside the squad its existence is not told (404, as every other route); members learn why (403).
+    if (!actor.memberships.some((m) => m.squadId === id)) throw notFound("No such squad.");
+    throw forbidden("Only the squad's coaches see its roster.");
+  }
   const db = getDb();
   // Cache rows first exist, so that the triggers count every change from here on.
   await db.execute(sql`

@@ -3,7 +3,7 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { FieldError, FormAlert, FormNotice } from "@/features/platform/components/form-bits";
-import { ApiError, useInvitations, useInvite } from "../api";
+import { ApiError, useInvitations, useInvite, useWithdrawInvitation } from "../api";
 import { inviteSchema, ROLE_LABELS, type InviteInput } from "../schemas";
 import { SubmitButton } from "@/features/platform/components/SubmitButton";
 
@@ -11,6 +11,7 @@ import { SubmitButton } from "@/features/platform/components/SubmitButton";
 export function InvitePanel({ squadId, fakeInbox }: { squadId: string; fakeInbox: string | null }) {
   const invite = useInvite(squadId);
   const invitations = useInvitations(squadId, true);
+  const withdraw = useWithdrawInvitation(squadId);
   const [sentTo, setSentTo] = useState<string>();
   const { register, handleSubmit, formState, reset, setError } = useForm<InviteInput>({
     resolver: zodResolver(inviteSchema),
@@ -55,6 +56,7 @@ export function InvitePanel({ squadId, fakeInbox }: { squadId: string; fakeInbox
       </form>
       <div>
         <h3 className="text-sm font-semibold">Open invitations</h3>
+        {withdraw.isError ? <p role="alert" className="text-sm text-alert">The invitation could not be withdrawn: {withdraw.error.message}</p> : null}
         {invitations.isPending ? (
           <p role="status" className="text-sm text-ink-soft">Loading…</p>
         ) : invitations.isError ? (
@@ -64,8 +66,19 @@ export function InvitePanel({ squadId, fakeInbox }: { squadId: string; fakeInbox
         ) : (
           <ul className="mt-1 space-y-1 text-sm">
             {invitations.data.map((i) => (
-              <li key={i.id}>
-                {i.email} · {ROLE_LABELS[i.role]} · expires <time dateTime={i.expiresAt}>{i.expiresAt.slice(0, 10)}</time>
+              <li key={i.id} className="flex flex-wrap items-center gap-x-2">
+                <span>
+                  {i.email} · {ROLE_LABELS[i.role]} · expires <time dateTime={i.expiresAt}>{i.expiresAt.slice(0, 10)}</time>
+                </span>
+                <button
+                  type="button"
+                  className="font-semibold text-tide underline disabled:opacity-60"
+                  disabled={withdraw.isPending && withdraw.variables === i.id}
+                  aria-label={`Withdraw the invitation to ${i.email}`}
+                  onClick={() => withdraw.mutate(i.id)}
+                >
+                  Withdraw
+                </button>
               </li>
             ))}
           </ul>

@@ -141,6 +141,25 @@ export async function inviteToSquad(actor: SignedInActor, squadId: string, input
   return { id, email: input.email, role: input.role, expiresAt };
 }
 
+/** The head coach withdraws an invitation that is still open (not used, not withdrawn, not expired). */
+export async function withdrawInvitation(actor: Actor, squadId: string, invitationId: string): Promise<void> {
+  requireSquadManager(actor, squadId);
+  const rows = await getDb()
+    .update(schema.invitation)
+    .set({ revokedAt: new Date() })
+    .where(
+      and(
+        eq(schema.invitation.id, invitationId),
+        eq(schema.invitation.squadId, squadId),
+        isNull(schema.invitation.acceptedAt),
+        isNull(schema.invitation.revokedAt),
+        sql`${schema.invitation.expiresAt} > now()`,
+      ),
+    )
+    .returning({ id: schema.invitation.id });
+  if (!rows.length) throw notFound("No open invitation with that id: it may have been used, withdrawn or expired.");
+}
+
 export type InvitationState = "open" | "expired" | "accepted" | "revoked";
 
 /** What an invitation link shows, without needing to be signed in. Unknown tokens are null. */
