@@ -6,7 +6,7 @@ import path from "node:path";
 
 const ROOT = path.resolve(import.meta.dirname, "..");
 const SOURCES = ["app", "features", "db", "emails", "public"];
-const FILES = ["package-lock.json", "next.config.ts", "postcss.config.mjs", "tsconfig.json"];
+const FILES = ["package-lock.json", "next.config.ts", "proxy.ts", "postcss.config.mjs", "tsconfig.json"];
 
 function walk(dir: string, out: string[]): void {
   if (!fs.existsSync(dir)) return;

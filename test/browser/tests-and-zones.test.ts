@@ -56,7 +56,7 @@ describe("gas-exchange test in the browser", () => {
 
     const athlete = await newPage(browser);
     await signIn(athlete.page, "runner@northfold.test");
-    await athlete.page.getByRole("link", { name: "My zones" }).click();
+    await athlete.page.getByRole("link", { name: "My zones", exact: true }).click();
     await athlete.page.getByRole("heading", { name: "My zones" }).waitFor();
     await athlete.page.getByText(`below ${newHr} bpm`).first().waitFor();
     await expect(athlete.page.getByText(/Cycling · effective from/).count()).resolves.toBe(1);
