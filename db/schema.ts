@@ -175,6 +175,8 @@ export const athleteProfile = pgTable(
     userId: text("user_id")
       .primaryKey()
       .references(() => user.id, { onDelete: "cascade" }),
+    /** Edit counter: a change that names an older version is refused (409) instead of overwriting someone else's. */
+    version: integer("version").notNull().default(1),
     birthYear: integer("birth_year"),
     /** Sex as used by published sex-specific formulas (e.g. Banister's TRIMP). */
     sex: sex("sex"),
@@ -357,6 +359,8 @@ export const sessionTemplate = pgTable(
   "session_template",
   {
     id: text("id").primaryKey(),
+    /** Edit counter: a change that names an older version is refused (409) instead of overwriting someone else's. */
+    version: integer("version").notNull().default(1),
     squadId: text("squad_id")
       .notNull()
       .references(() => squad.id, { onDelete: "cascade" }),
@@ -377,6 +381,8 @@ export const season = pgTable(
   "season",
   {
     id: text("id").primaryKey(),
+    /** Edit counter: a change that names an older version is refused (409) instead of overwriting someone else's. */
+    version: integer("version").notNull().default(1),
     athleteId: text("athlete_id")
       .notNull()
       .references(() => user.id, { onDelete: "cascade" }),
@@ -408,6 +414,8 @@ export const plannedSession = pgTable(
   "planned_session",
   {
     id: text("id").primaryKey(),
+    /** Edit counter: a change that names an older version is refused (409) instead of overwriting someone else's. */
+    version: integer("version").notNull().default(1),
     athleteId: text("athlete_id")
       .notNull()
       .references(() => user.id, { onDelete: "cascade" }),

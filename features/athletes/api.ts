@@ -6,8 +6,8 @@ import type { ProfileInput } from "./schemas";
 export function useSaveProfile(athleteId: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (profile: ProfileInput) =>
-      apiFetch<{ profile: ProfileInput }>(`/api/athletes/${encodeURIComponent(athleteId)}/profile`, {
+    mutationFn: (profile: ProfileInput & { version?: number }) =>
+      apiFetch<{ profile: ProfileInput & { version: number } }>(`/api/athletes/${encodeURIComponent(athleteId)}/profile`, {
         method: "PATCH",
         body: JSON.stringify(profile),
       }),

@@ -1,3 +1,4 @@
+import { versionField } from "@/features/platform/lib/version";
 import { z } from "zod";
 
 export const SPORTS = ["running", "cycling", "triathlon", "rowing", "swimming", "cross_country_skiing", "walking"] as const;
@@ -78,6 +79,8 @@ export const profilePatchSchema = z
     reminderTiming: z.unknown(),
     reminderTime: z.unknown(),
     remindSessions: z.unknown(),
+    /** The profile's version as the client read it; an older one answers 409. */
+    version: versionField,
     remindRetests: z.unknown(),
   })
   .partial()

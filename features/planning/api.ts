@@ -14,6 +14,8 @@ export interface SessionDto {
   totalS: number;
   seriesId: string | null;
   rrule: string | null;
+  /** Edit counter: sent back with a change, so that a change on an older version answers 409. */
+  version: number;
   structure: Block[];
   notes: string;
   log: { id: string; status: "done" | "partial" | "skipped"; durationMin: number | null; rpe: number | null; measuredMinByZone: [number, number, number] | null; compliance: number } | null;
@@ -35,7 +37,8 @@ export function useMoveSession(athleteId: string, from: string, to: string) {
   const qc = useQueryClient();
   const key = sessionsKey(athleteId, from, to);
   return useMutation({
-    mutationFn: (v: { id: string; date: string; scope?: "one" | "series" }) => apiFetch(`/api/sessions/${v.id}`, { method: "PATCH", body: JSON.stringify({ date: v.date, scope: v.scope ?? "one" }) }),
+    mutationFn: (v: { id: string; date: string; scope?: "one" | "series"; version?: number }) =>
+      apiFetch(`/api/sessions/${v.id}`, { method: "PATCH", body: JSON.stringify({ date: v.date, scope: v.scope ?? "one", version: v.version ?? qc.getQueryData<SessionDto[]>(key)?.find((s) => s.id === v.id)?.version }) }),
     onMutate: async (v) => {
       await qc.cancelQueries({ queryKey: key });
       const previous = qc.getQueryData<SessionDto[]>(key);

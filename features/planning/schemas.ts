@@ -1,4 +1,5 @@
 import { isoDate } from "@/features/platform/lib/date-schema";
+import { versionField } from "@/features/platform/lib/version";
 import { z } from "zod";
 import { SPORTS } from "@/features/athletes/schemas";
 import { repeatSchema } from "./lib/repeat";
@@ -15,7 +16,7 @@ export const templateSchema = z.object({
   structure: structureSchema,
 });
 
-export const templatePatchSchema = templateSchema.omit({ squadId: true }).partial();
+export const templatePatchSchema = templateSchema.omit({ squadId: true }).partial().extend({ version: versionField });
 
 export const createSessionSchema = z.union([
   z.object({ date: isoDate, templateId: z.string().min(1), repeat: repeatSchema.optional() }).strict(),
@@ -39,6 +40,8 @@ export const patchSessionSchema = z
     structure: structureSchema.optional(),
     notes: z.string().max(1000).refine(isPlainText, PLAIN_TEXT_MESSAGE).optional(),
     scope: z.enum(["one", "series"]).default("one"),
+    /** The session's version as the client read it; an older one answers 409. */
+    version: versionField,
   })
   .refine((p) => p.date !== undefined || p.title !== undefined || p.structure !== undefined || p.notes !== undefined, { message: "Nothing to change." });
 
@@ -63,6 +66,8 @@ export const seasonWeekPatchSchema = z
     volumeHours: z.number({ error: "Give the week's volume in hours." }).min(0, "Volume cannot be negative.").max(40, "At most 40 hours a week.").optional(),
     budget: z.enum(["polarised", "pyramidal", "beginner", "recovery"], { error: "Choose an intensity budget." }).optional(),
     retest: z.boolean().optional(),
+    /** The season's version as the client read it; an older one answers 409. */
+    version: versionField,
   })
   .strict()
-  .refine((p) => Object.keys(p).length > 0, { message: "Nothing to change." });
+  .refine((p) => Object.keys(p).filter((k) => k !== "version").length > 0, { message: "Nothing to change." });

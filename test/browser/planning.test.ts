@@ -55,4 +55,34 @@ describe("planning in the browser", () => {
     expect(problems).toEqual([]);
     await page.context().close();
   });
+
+  it("a move made on a session someone else has just changed shows the conflict and the calendar reloads", async () => {
+    const { page, problems } = await newPage(browser);
+    await signIn(page, "coach@northfold.test");
+    await page.getByRole("link", { name: "Jonas Okafor" }).click();
+    await page.waitForURL(/\/athletes\/[0-9a-f-]+$/);
+    const athleteId = page.url().split("/athletes/")[1]!;
+    const week = mondayInWeeks(110 + (Math.floor(Date.now() / 1000) % 400));
+    const made = await page.request.post(`${BASE}/api/athletes/${athleteId}/sessions`, { data: { date: plus(week, 1), title: "Tempo ride", sport: "cycling", structure: [{ type: "step", kind: "work", durationS: 3600, zone: 2 }] } });
+    expect(made.status()).toBe(201);
+    const { id } = (await made.json()) as { id: string };
+    await page.goto(`${BASE}/athletes/${athleteId}/plan?week=${week}`);
+    await page.locator(".fc-event", { hasText: "Tempo ride" }).first().click();
+    // Meanwhile the assistant coach renames it (version 1 → 2).
+    const assistant = await newPage(browser);
+    await signIn(assistant.page, "assistant@northfold.test");
+    const renamed = await assistant.page.request.patch(`${BASE}/api/sessions/${id}`, { data: { title: "Tempo ride (shorter)", version: 1 } });
+    expect(renamed.status()).toBe(200);
+    // The head coach, still looking at version 1, moves it.
+    await page.getByLabel("New day for Tempo ride").fill(plus(week, 3));
+    await page.getByRole("button", { name: "Move to this day" }).click();
+    await page.getByText(/Someone else changed this session since you opened it/).waitFor();
+    await page.locator(".fc-event", { hasText: "Tempo ride (shorter)" }).first().waitFor();
+    await expect(page.locator(`td.fc-day[data-date="${plus(week, 1)}"] .fc-event`, { hasText: "Tempo ride (shorter)" }).count()).resolves.toBe(1);
+    await shot(page, "plan-edit-conflict");
+    // The refused move is the only failed request.
+    expect(problems.filter((p) => !/HTTP 409: PATCH .*\/api\/sessions\//.test(p) && !/status of 409 \(Conflict\)/.test(p))).toEqual([]);
+    await page.context().close();
+    await assistant.page.context().close();
+  });
 });

@@ -13,6 +13,11 @@ import { createAuth } from "@/features/auth/server/auth";
 import { forgetUserSessions } from "@/features/auth/server/session-memo";
 import { SIGN_IN_FAILURES_BEFORE_PAUSE } from "@/features/auth/server/sign-in-guard";
 import * as sessionsRoute from "@/app/api/athletes/[id]/sessions/route";
+import * as sessionRoute from "@/app/api/sessions/[id]/route";
+import * as templateRoute from "@/app/api/templates/[id]/route";
+import * as seasonsRoute from "@/app/api/athletes/[id]/seasons/route";
+import * as seasonWeekRoute from "@/app/api/seasons/[id]/weeks/[weekStart]/route";
+import * as profileRoute from "@/app/api/athletes/[id]/profile/route";
 import * as testsRoute from "@/app/api/athletes/[id]/tests/route";
 import * as weeksRoute from "@/app/api/athletes/[id]/weeks/route";
 import * as squadWeekRoute from "@/app/api/squads/[id]/week/route";
@@ -187,6 +192,54 @@ describe("invitations", () => {
     expect(accept.status).toBe(410);
     expect(accept.json.error).toMatch(/withdrawn/);
     expect(await count(`select count(*) as n from membership m join "user" u on u.id = m.user_id where u.email = $1`, [email])).toBe(0);
+  });
+});
+
+describe("two coaches editing the same thing", () => {
+  it("a change that names an older version answers 409 with the current state and writes nothing", async () => {
+    const { squadId, head, coach, athleteA } = await makeSquad("versions");
+    // A session: the head coach moves it; the coach, still looking at version 1, tries to rename it.
+    const created = await head.browser.call(sessionsRoute, "POST", `/api/athletes/${athleteA.id}/sessions`, { params: { id: athleteA.id }, body: { date: "2027-05-03", title: "Steady", sport: "running", structure: [{ type: "step", kind: "work", durationS: 3600, zone: 1 }] } });
+    const id = created.json.id as string;
+    const moved = await head.browser.call(sessionRoute, "PATCH", `/api/sessions/${id}`, { params: { id }, body: { date: "2027-05-04", version: 1 } });
+    expect(moved.status).toBe(200);
+    expect(moved.json.version).toBe(2);
+    const stale = await coach.browser.call(sessionRoute, "PATCH", `/api/sessions/${id}`, { params: { id }, body: { title: "Renamed", version: 1 } });
+    expect(stale.status).toBe(409);
+    expect(stale.json.current).toMatchObject({ id, date: "2027-05-04", title: "Steady", version: 2 });
+    expect((await query<{ title: string }>(`select title from planned_session where id = $1`, [id]))[0]!.title).toBe("Steady");
+    expect((await coach.browser.call(sessionRoute, "PATCH", `/api/sessions/${id}`, { params: { id }, body: { title: "Renamed", version: 2 } })).status).toBe(200);
+
+    // A template.
+    const t = await head.browser.call(templatesRoute, "POST", "/api/templates", { body: { squadId, name: "Easy hour", sport: "running", structure: [{ type: "step", kind: "work", durationS: 3600, zone: 1 }] } });
+    const tid = t.json.id as string;
+    expect((await head.browser.call(templateRoute, "PATCH", `/api/templates/${tid}`, { params: { id: tid }, body: { name: "Easy hour (long)", version: 1 } })).status).toBe(200);
+    const staleTemplate = await coach.browser.call(templateRoute, "PATCH", `/api/templates/${tid}`, { params: { id: tid }, body: { name: "Recovery hour", version: 1 } });
+    expect(staleTemplate.status).toBe(409);
+    expect(staleTemplate.json.current).toMatchObject({ name: "Easy hour (long)", version: 2 });
+
+    // A season week.
+    const season = await head.browser.call(seasonsRoute, "POST", `/api/athletes/${athleteA.id}/seasons`, { params: { id: athleteA.id }, body: { name: "Summer", sport: "running", startDate: "2027-01-04", events: [{ date: "2027-06-06", name: "Summer 10k" }], weeklyHours: 6 } });
+    const seasonId = season.json.id as string;
+    const weekStart = season.json.weeks[2].weekStart as string;
+    const weekCall = (who: Browser, body: unknown) => who.call(seasonWeekRoute, "PATCH", `/api/seasons/${seasonId}/weeks/${weekStart}`, { params: { id: seasonId, weekStart }, body });
+    expect((await weekCall(head.browser, { volumeHours: 5, version: 1 })).status).toBe(200);
+    const staleWeek = await weekCall(coach.browser, { volumeHours: 9, version: 1 });
+    expect(staleWeek.status).toBe(409);
+    expect(staleWeek.json.current.version).toBe(2);
+    const [stored] = await query<{ weeks: { weekStart: string; volumeHours: number }[] }>(`select weeks from season where id = $1`, [seasonId]);
+    expect(stored!.weeks.find((w) => w.weekStart === weekStart)!.volumeHours).toBe(5);
+
+    // A profile: the athlete and the coach at once.
+    const profile = (who: Browser, body: unknown) => who.call(profileRoute, "PATCH", `/api/athletes/${athleteA.id}/profile`, { params: { id: athleteA.id }, body });
+    const read = await head.browser.call(profileRoute, "GET", `/api/athletes/${athleteA.id}/profile`, { params: { id: athleteA.id } });
+    const v = read.json.profile.version as number;
+    expect((await profile(athleteA.browser, { bodyMassKg: 61, version: v })).status).toBe(200);
+    const staleProfile = await profile(head.browser, { bodyMassKg: 70, version: v });
+    expect(staleProfile.status).toBe(409);
+    expect(staleProfile.json.current).toMatchObject({ bodyMassKg: 61, version: v + 1 });
+    // Without a version the change is taken as it comes (older clients).
+    expect((await profile(head.browser, { restingHrBpm: 50 })).status).toBe(200);
   });
 });
 

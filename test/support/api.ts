@@ -18,10 +18,13 @@ export interface CallOptions {
   query?: string;
 }
 
+let clients = 0;
+
 export class Browser {
   cookie = "";
 
-  constructor(readonly ip = "198.51.100.1") {}
+  /** Each test browser is its own client address (TEST-NET-2/3 ranges) unless one is given. */
+  constructor(readonly ip = `198.18.${Math.floor(++clients / 250) % 250}.${(clients % 250) + 1}`) {}
 
   async call(mod: RouteModule, method: keyof RouteModule, path: string, opts: CallOptions = {}) {
     const handler = mod[method] as Handler | undefined;

@@ -11,10 +11,12 @@ import { SubmitButton } from "@/features/platform/components/SubmitButton";
 
 const toNumberOrNull = (v: unknown) => (v === "" || v == null ? null : Number(v));
 
-export function ProfileForm({ athleteId, initial, isSelf }: { athleteId: string; initial: ProfileInput; isSelf: boolean }) {
+export function ProfileForm({ athleteId, initial, isSelf }: { athleteId: string; initial: ProfileInput & { version?: number }; isSelf: boolean }) {
   const router = useRouter();
   const save = useSaveProfile(athleteId);
   const [saved, setSaved] = useState(false);
+  // The version this form started from; each save answers the next one.
+  const [version, setVersion] = useState(initial.version);
   const timeZones = useMemo(() => Intl.supportedValuesOf("timeZone"), []);
   const { register, handleSubmit, formState, setError } = useForm<ProfileInput>({
     resolver: zodResolver(profileSchema),
@@ -25,10 +27,15 @@ export function ProfileForm({ athleteId, initial, isSelf }: { athleteId: string;
   const onSubmit = handleSubmit(async (values) => {
     setSaved(false);
     try {
-      await save.mutateAsync(values);
+      const result = await save.mutateAsync({ ...values, version });
+      setVersion(result.profile.version);
       setSaved(true);
       router.refresh();
     } catch (e) {
+      if (e instanceof ApiError && e.status === 409) {
+        router.refresh();
+        return setError("root", { message: `${e.message} Reload the page to see it; your entries here are kept until then.` });
+      }
       if (e instanceof ApiError && Object.keys(e.fieldErrors).length) {
         for (const [field, messages] of Object.entries(e.fieldErrors)) {
           setError(field as keyof ProfileInput, { message: messages[0] });

@@ -1,9 +1,9 @@
 import "server-only";
-import { eq } from "drizzle-orm";
+import { eq, sql } from "drizzle-orm";
 import { getDb, schema } from "@/db/client";
 import { requireAthleteAccess } from "@/features/access/server/permissions";
 import type { Actor } from "@/features/access/lib/rules";
-import { fieldErrors, HttpError, notFound } from "@/features/platform/server/http";
+import { editConflict, fieldErrors, HttpError, notFound } from "@/features/platform/server/http";
 import { profileSchema, type ProfileInput } from "../schemas";
 
 const DEFAULTS: ProfileInput = {
@@ -46,21 +46,26 @@ export async function getAthleteProfile(actor: Actor, athleteId: string) {
     .where(eq(schema.user.id, athleteId));
   if (!u) throw notFound("No such athlete.");
   const [row] = await db.select().from(schema.athleteProfile).where(eq(schema.athleteProfile.userId, athleteId));
-  return { athlete: u, profile: toProfile(row) };
+  return { athlete: u, profile: { ...toProfile(row), version: row?.version ?? 1 } };
 }
 
 /** Applies a partial update; the merged profile is validated as a whole and written in one statement. */
 export async function updateAthleteProfile(actor: Actor, athleteId: string, patch: Partial<Record<keyof ProfileInput, unknown>>) {
   await requireAthleteAccess(actor, athleteId, "edit");
-  const db = getDb();
-  const [row] = await db.select().from(schema.athleteProfile).where(eq(schema.athleteProfile.userId, athleteId));
-  const merged = { ...toProfile(row), ...patch };
-  const parsed = profileSchema.safeParse(merged);
-  if (!parsed.success) throw new HttpError(400, "Some fields are not valid.", { fieldErrors: fieldErrors(parsed.error) });
-  const values = parsed.data;
-  await db
-    .insert(schema.athleteProfile)
-    .values({ userId: athleteId, ...values })
-    .onConflictDoUpdate({ target: schema.athleteProfile.userId, set: values });
-  return values;
+  const { version, ...changes } = patch as typeof patch & { version?: number };
+  return getDb().transaction(async (tx) => {
+    // The profile as it is now, locked until the change is written: a change made on an older version is refused.
+    const [row] = await tx.select().from(schema.athleteProfile).where(eq(schema.athleteProfile.userId, athleteId)).for("update");
+    if (version !== undefined && (row?.version ?? 1) !== version) throw editConflict({ ...toProfile(row), version: row?.version ?? 1 }, "this profile");
+    const merged = { ...toProfile(row), ...changes };
+    const parsed = profileSchema.safeParse(merged);
+    if (!parsed.success) throw new HttpError(400, "Some fields are not valid.", { fieldErrors: fieldErrors(parsed.error) });
+    const values = parsed.data;
+    const [written] = await tx
+      .insert(schema.athleteProfile)
+      .values({ userId: athleteId, ...values })
+      .onConflictDoUpdate({ target: schema.athleteProfile.userId, set: { ...values, version: sql`${schema.athleteProfile.version} + 1` } })
+      .returning({ version: schema.athleteProfile.version });
+    return { ...values, version: written!.version };
+  });
 }

@@ -107,7 +107,16 @@ export function PlanCalendar({ athleteId, templates, initialDate, canEdit }: { a
     setPreview(summary ?? null);
   }
 
-  const fail = (e: unknown) => setMessage({ kind: "error", text: e instanceof ApiError ? `The server refused: ${e.message}` : "That did not work; the calendar shows the last saved plan." });
+  const fail = (e: unknown) =>
+    setMessage({
+      kind: "error",
+      text:
+        e instanceof ApiError && e.status === 409
+          ? `${e.message} The calendar has been reloaded with the current plan.`
+          : e instanceof ApiError
+            ? `The server refused: ${e.message}`
+            : "That did not work; the calendar shows the last saved plan.",
+    });
 
   const onDrop = (info: EventDropArg) => {
     setPreview(null);
@@ -115,7 +124,7 @@ export function PlanCalendar({ athleteId, templates, initialDate, canEdit }: { a
     const date = info.event.startStr.slice(0, 10);
     setMessage(undefined);
     move.mutate(
-      { id: s.id, date, scope: s.seriesId ? scope : "one" },
+      { id: s.id, date, scope: s.seriesId ? scope : "one", version: s.version },
       {
         onError: (e) => {
           info.revert();
@@ -250,9 +259,13 @@ export function PlanCalendar({ athleteId, templates, initialDate, canEdit }: { a
                   busy={move.isPending}
                   onMove={(date) =>
                     move.mutate(
-                      { id: selected.id, date, scope: selected.seriesId ? scope : "one" },
+                      { id: selected.id, date, scope: selected.seriesId ? scope : "one", version: selected.version },
                       {
-                        onError: fail,
+                        onError: (e) => {
+                          fail(e);
+                          // Its details are out of date: close them; the reloaded calendar shows the session as it is.
+                          if (e instanceof ApiError && e.status === 409) setSelected(null);
+                        },
                         onSuccess: () => {
                           setSelected(null);
                           setMessage({ kind: "ok", text: `Moved "${selected.title}" to ${date}.` });

@@ -3,7 +3,7 @@ import { useQueryClient } from "@tanstack/react-query";
 import { useRouter } from "next/navigation";
 import { useForm } from "react-hook-form";
 import { FieldError, FormAlert, FormNotice } from "@/features/platform/components/form-bits";
-import { apiFetch } from "@/features/squads/api";
+import { ApiError, apiFetch } from "@/features/squads/api";
 import { BUDGET_PRESETS, type BudgetPreset } from "../lib/budget";
 import { BLOCK_LABELS, type BlockName, type SeasonWeek } from "../lib/season";
 import { SubmitButton } from "@/features/platform/components/SubmitButton";
@@ -13,7 +13,7 @@ const ROLE_LABELS: Record<SeasonWeek["role"], string> = { loading: "Loading", un
 type Values = { block: BlockName; role: SeasonWeek["role"]; volumeHours: number; budget: BudgetPreset; retest: boolean };
 
 /** Edits one generated season week; what the generator proposed is only a starting point. */
-export function SeasonWeekEditor({ athleteId, seasonId, week }: { athleteId: string; seasonId: string; week: SeasonWeek }) {
+export function SeasonWeekEditor({ athleteId, seasonId, seasonVersion, week }: { athleteId: string; seasonId: string; seasonVersion: number; week: SeasonWeek }) {
   const router = useRouter();
   const qc = useQueryClient();
   const { register, handleSubmit, formState, setError } = useForm<Values>({
@@ -22,10 +22,15 @@ export function SeasonWeekEditor({ athleteId, seasonId, week }: { athleteId: str
   const onSubmit = handleSubmit(async (v) => {
     if (!(v.volumeHours >= 0 && v.volumeHours <= 40)) return setError("volumeHours", { message: "Give 0 to 40 hours." });
     try {
-      await apiFetch(`/api/seasons/${seasonId}/weeks/${week.weekStart}`, { method: "PATCH", body: JSON.stringify(v) });
+      await apiFetch(`/api/seasons/${seasonId}/weeks/${week.weekStart}`, { method: "PATCH", body: JSON.stringify({ ...v, version: seasonVersion }) });
       await Promise.all([qc.invalidateQueries({ queryKey: ["sessions", athleteId] }), qc.invalidateQueries({ queryKey: ["weeks", athleteId] })]);
       router.refresh();
     } catch (e) {
+      if (e instanceof ApiError && e.status === 409) {
+        // Someone else saved the season first: the page reloads with their version (this form then starts from it).
+        router.refresh();
+        return setError("root", { message: `${e.message} The page has been reloaded.` });
+      }
       setError("root", { message: e instanceof Error ? e.message : "Saving failed." });
     }
   });

@@ -4,7 +4,7 @@ import { useQueryClient } from "@tanstack/react-query";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { FieldError, FormAlert } from "@/features/platform/components/form-bits";
-import { apiFetch } from "@/features/squads/api";
+import { ApiError, apiFetch } from "@/features/squads/api";
 import type { SessionDto } from "../api";
 import { structureSchema, type Block } from "../lib/session";
 import { formSchema, fromStructure, StructureFields, toStructure, type Values } from "./TemplateBuilder";
@@ -23,7 +23,7 @@ export function SessionEditor({ athleteId, session, onDone, onCancel }: { athlet
     defaultValues: { name: session.title, sport: session.sport as Values["sport"], description: session.notes ?? "", blocks: blocks ?? [{ times: 1, steps: [{ kind: "work", amount: 10, unit: "min", zone: 1 }] }] },
   });
   const onSubmit = handleSubmit(async (v) => {
-    const body: Record<string, unknown> = { title: v.name, notes: v.description, scope: session.seriesId ? scope : "one" };
+    const body: Record<string, unknown> = { title: v.name, notes: v.description, scope: session.seriesId ? scope : "one", version: session.version };
     if (blocks) {
       const s = structureSchema.safeParse(toStructure(v));
       if (!s.success) return setError("root", { message: s.error.issues[0]!.message });
@@ -34,6 +34,11 @@ export function SessionEditor({ athleteId, session, onDone, onCancel }: { athlet
       await Promise.all([qc.invalidateQueries({ queryKey: ["sessions", athleteId] }), qc.invalidateQueries({ queryKey: ["weeks", athleteId] })]);
       onDone(`Saved "${v.name}".`);
     } catch (err) {
+      if (err instanceof ApiError && err.status === 409) {
+        // Someone else saved first: show their version (the calendar reloads) and keep this form's text for a retry.
+        await Promise.all([qc.invalidateQueries({ queryKey: ["sessions", athleteId] }), qc.invalidateQueries({ queryKey: ["weeks", athleteId] })]);
+        return setError("root", { message: `${err.message} Close this editor to see it.` });
+      }
       setError("root", { message: err instanceof Error ? err.message : "Saving failed." });
     }
   });

@@ -1,11 +1,11 @@
 import "server-only";
 import { randomUUID } from "node:crypto";
-import { and, asc, eq, gte, inArray, lte } from "drizzle-orm";
+import { and, asc, eq, gte, inArray, lte, sql } from "drizzle-orm";
 import type { z } from "zod";
 import { getDb, schema, type Database } from "@/db/client";
 import { checkAthleteAccess, requireAthleteAccess, requireAthleteAccessOrNotFound } from "@/features/access/server/permissions";
 import { canViewRoster, isCoachOf, type Actor } from "@/features/access/lib/rules";
-import { HttpError, notFound } from "@/features/platform/server/http";
+import { editConflict, HttpError, notFound } from "@/features/platform/server/http";
 import { localDate } from "@/features/platform/lib/dates";
 import { zoneSetInForce } from "@/features/zones/lib/zones";
 import { zoneSetsOf } from "@/features/zones/server/zone-sets";
@@ -106,6 +106,11 @@ export async function updateSession(actor: Actor, id: string, patch: z.infer<typ
     ...(patch.structure !== undefined ? { structure: patch.structure, ...totals(patch.structure) } : {}),
   };
   await db.transaction(async (tx: Tx) => {
+    // The session as it is now, locked until the change is written: a change made on an older version is refused.
+    const [current] = await tx.select().from(schema.plannedSession).where(eq(schema.plannedSession.id, id)).for("update");
+    if (!current) throw notFound("No such session.");
+    if (patch.version !== undefined && current.version !== patch.version) throw editConflict(current, "this session");
+    const bump = { version: sql`${schema.plannedSession.version} + 1` };
     if (patch.scope === "series" && row.seriesId) {
       const shift = patch.date ? Math.round((Date.parse(patch.date) - Date.parse(row.date)) / 86_400_000) : 0;
       const members = await tx
@@ -113,12 +118,12 @@ export async function updateSession(actor: Actor, id: string, patch: z.infer<typ
         .from(schema.plannedSession)
         .where(and(eq(schema.plannedSession.seriesId, row.seriesId), eq(schema.plannedSession.detached, false), gte(schema.plannedSession.date, row.date)));
       for (const m of members) {
-        await tx.update(schema.plannedSession).set({ ...fields, ...(shift ? { date: addDays(m.date, shift) } : {}) }).where(eq(schema.plannedSession.id, m.id));
+        await tx.update(schema.plannedSession).set({ ...fields, ...bump, ...(shift ? { date: addDays(m.date, shift) } : {}) }).where(eq(schema.plannedSession.id, m.id));
       }
     } else {
       await tx
         .update(schema.plannedSession)
-        .set({ ...fields, ...(patch.date ? { date: patch.date } : {}), detached: row.seriesId ? true : row.detached })
+        .set({ ...fields, ...bump, ...(patch.date ? { date: patch.date } : {}), detached: row.seriesId ? true : row.detached })
         .where(eq(schema.plannedSession.id, id));
     }
   });
@@ -182,11 +187,21 @@ export async function updateSeasonWeek(actor: Actor, seasonId: string, weekStart
   const weeks = row.weeks as unknown as SeasonWeek[];
   const index = weeks.findIndex((w) => w.weekStart === weekStart);
   if (index < 0) throw new HttpError(400, `The season has no week starting ${weekStart}.`, { fieldErrors: { weekStart: ["Choose a Monday of this season."] } });
-  const before = weeks[index]!;
-  const after: SeasonWeek = { ...before, ...patch };
-  const next = weeks.map((w, i) => (i === index ? after : w));
+  const { version, ...changes } = patch;
+  let after: SeasonWeek = { ...weeks[index]!, ...changes };
+  let before: SeasonWeek = weeks[index]!;
+  let nextVersion = row.version + 1;
   await db.transaction(async (tx) => {
-    await tx.update(schema.season).set({ weeks: next as unknown as Record<string, unknown>[] }).where(eq(schema.season.id, seasonId));
+    // The season as it is now, locked until the change is written: a change made on an older version is refused.
+    const [current] = await tx.select().from(schema.season).where(eq(schema.season.id, seasonId)).for("update");
+    if (!current) throw notFound("No such season.");
+    if (version !== undefined && current.version !== version) throw editConflict({ id: current.id, version: current.version, weeks: current.weeks }, "this season");
+    const currentWeeks = current.weeks as unknown as SeasonWeek[];
+    before = currentWeeks[index]!;
+    after = { ...before, ...changes };
+    nextVersion = current.version + 1;
+    const next = currentWeeks.map((w, i) => (i === index ? after : w));
+    await tx.update(schema.season).set({ weeks: next as unknown as Record<string, unknown>[], version: nextVersion }).where(eq(schema.season.id, seasonId));
     const weekEnd = addDays(weekStart, 6);
     if (after.retest && !before.retest) {
       const existing = await tx.select({ id: schema.plannedSession.id }).from(schema.plannedSession).where(and(eq(schema.plannedSession.athleteId, row.athleteId), eq(schema.plannedSession.kind, "retest"), gte(schema.plannedSession.date, weekStart), lte(schema.plannedSession.date, weekEnd)));
@@ -201,7 +216,7 @@ export async function updateSeasonWeek(actor: Actor, seasonId: string, weekStart
       if (drop.length) await tx.delete(schema.plannedSession).where(inArray(schema.plannedSession.id, drop));
     }
   });
-  return { id: seasonId, week: after };
+  return { id: seasonId, week: after, version: nextVersion };
 }
 
 export async function listSeasons(actor: Actor, athleteId: string) {

@@ -1,10 +1,10 @@
 import "server-only";
 import { randomUUID } from "node:crypto";
-import { and, asc, eq, ilike, inArray } from "drizzle-orm";
+import { and, asc, eq, ilike, inArray, sql } from "drizzle-orm";
 import type { z } from "zod";
 import { getDb, schema } from "@/db/client";
 import { coachedSquadIds, isCoachOf, type Actor } from "@/features/access/lib/rules";
-import { notFound } from "@/features/platform/server/http";
+import { editConflict, notFound } from "@/features/platform/server/http";
 import { expand, type Block } from "../lib/session";
 import type { templatePatchSchema, templateSchema } from "../schemas";
 
@@ -44,12 +44,15 @@ export async function createTemplate(actor: Actor, input: z.infer<typeof templat
 
 export async function updateTemplate(actor: Actor, id: string, patch: z.infer<typeof templatePatchSchema>) {
   await loadTemplate(actor, id);
+  const { version, ...changes } = patch;
   const [row] = await getDb()
     .update(schema.sessionTemplate)
-    .set({ ...patch, ...(patch.structure ? totals(patch.structure) : {}) })
-    .where(eq(schema.sessionTemplate.id, id))
+    .set({ ...changes, ...(changes.structure ? totals(changes.structure) : {}), version: sql`${schema.sessionTemplate.version} + 1` })
+    .where(version === undefined ? eq(schema.sessionTemplate.id, id) : and(eq(schema.sessionTemplate.id, id), eq(schema.sessionTemplate.version, version)))
     .returning();
-  return row!;
+  // Nothing written: the template changed since the client read it (it exists; loadTemplate found it).
+  if (!row) throw editConflict(await loadTemplate(actor, id), "this template");
+  return row;
 }
 
 export async function duplicateTemplate(actor: Actor, id: string) {

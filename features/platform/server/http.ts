@@ -17,6 +17,10 @@ export const notFound = (what = "Not found") => new HttpError(404, what);
 export const unauthenticated = () => new HttpError(401, "Please sign in.");
 export const forbidden = (why = "You do not have access to this.") => new HttpError(403, why);
 
+/** Someone else changed the record since the client read it: 409 with the current state, so the client can show it. */
+export const editConflict = (current: unknown, what = "this") =>
+  new HttpError(409, `Someone else changed ${what} since you opened it. The current version is shown; make your change again if it is still needed.`, { current });
+
 export function json(body: unknown, init: ResponseInit = {}): Response {
   return Response.json(body, init);
 }

@@ -53,7 +53,7 @@ export default async function PlanPage({ params, searchParams }: { params: Promi
       {current ? (
         <>
           <div className="card"><SeasonRibbon athleteId={id} name={current.name} weeks={seasonWeeks} overBudget={overBudget} /></div>
-          {canEdit && openWeek ? <div className="card"><SeasonWeekEditor key={openWeek.weekStart} athleteId={id} seasonId={current.id} week={openWeek} /></div> : null}
+          {canEdit && openWeek ? <div className="card"><SeasonWeekEditor key={`${openWeek.weekStart}-${current.version}`} athleteId={id} seasonId={current.id} seasonVersion={current.version} week={openWeek} /></div> : null}
         </>
       ) : canEdit ? (
         <section className="card space-y-3" aria-labelledby="season-h">
