@@ -23,6 +23,8 @@ type Executor = Pick<Database, "insert">;
  */
 export async function queueMessage(db: Executor, message: OutgoingMessage): Promise<string | null> {
   const id = randomUUID();
+  // A subject is one header line: names that reached it from older data cannot add headers (names are checked at entry).
+  message = { ...message, subject: message.subject.replace(/[\u0000-\u001F\u007F]+/g, " ").trim() };
   const rows = await db
     .insert(schema.outbox)
     .values({ id, ...message, meta: message.meta ?? {}, headers: message.headers ?? {}, idempotencyKey: message.idempotencyKey ?? null, userId: message.userId ?? null })
