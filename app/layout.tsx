@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import type { ReactNode } from "react";
-import { currentActor, homeFor } from "@/features/auth/server/current";
+import { currentActor, homeFor } from "@/features/access/server/current";
 import { SignOutButton } from "@/features/auth/components/SignOutButton";
 import { tidemarkSans } from "./fonts";
 import { Providers } from "./providers";

@@ -1,6 +1,6 @@
 import Link from "next/link";
 import { redirect } from "next/navigation";
-import { currentActor, homeFor } from "@/features/auth/server/current";
+import { currentActor, homeFor } from "@/features/access/server/current";
 
 export default async function Landing() {
   const actor = await currentActor();

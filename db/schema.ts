@@ -15,6 +15,7 @@ import {
   timestamp,
   uniqueIndex,
 } from "drizzle-orm/pg-core";
+import type { ThresholdPair, ThresholdValues } from "@/features/zones/lib/thresholds";
 
 const createdAt = () => timestamp("created_at", { withTimezone: true }).notNull().defaultNow();
 const updatedAt = () =>
@@ -299,22 +300,7 @@ export const athleteTest = pgTable(
   (t) => [index("athlete_test_athlete_idx").on(t.athleteId, t.testDate)],
 );
 
-export interface ThresholdValues {
-  timeS?: number | null;
-  vo2MlMin?: number | null;
-  hrBpm?: number | null;
-  /** Steady-state power and speed (a ramp's values corrected for the VO2 response time); zones use these. */
-  powerW?: number | null;
-  speedKmh?: number | null;
-  gradePct?: number | null;
-  /** The uncorrected values where VO2 showed the threshold on a ramp. */
-  rampPowerW?: number | null;
-  rampSpeedKmh?: number | null;
-}
-export interface ThresholdPair {
-  vt1: ThresholdValues | null;
-  vt2: ThresholdValues | null;
-}
+export type { ThresholdPair, ThresholdValues } from "@/features/zones/lib/thresholds";
 
 const bytea = customType<{ data: Buffer; driverData: Buffer }>({ dataType: () => "bytea" });
 

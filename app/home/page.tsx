@@ -1,5 +1,5 @@
 import { redirect } from "next/navigation";
-import { homeFor, requirePageActor } from "@/features/auth/server/current";
+import { homeFor, requirePageActor } from "@/features/access/server/current";
 
 export default async function Home() {
   const actor = await requirePageActor("/home");

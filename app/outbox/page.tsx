@@ -1,6 +1,6 @@
 import Link from "next/link";
 import { notFound } from "next/navigation";
-import { currentActor } from "@/features/auth/server/current";
+import { currentActor } from "@/features/access/server/current";
 import { ACCOUNT_MESSAGE_KINDS, getOutboxMessage, listOutbox, localOutboxEnabled, maskLinks } from "@/features/messages/server/list";
 
 export const metadata = { title: "Outbox" };

@@ -1,5 +1,5 @@
 import Link from "next/link";
-import { requirePageActor } from "@/features/auth/server/current";
+import { requirePageActor } from "@/features/access/server/current";
 import { coachedSquadIds, isHeadCoachOf } from "@/features/access/lib/rules";
 import { describeMe } from "@/features/squads/server/squads";
 import { InvitePanel } from "@/features/squads/components/InvitePanel";

@@ -1,4 +1,4 @@
-import { requirePageActor } from "@/features/auth/server/current";
+import { requirePageActor } from "@/features/access/server/current";
 import { getAthleteProfile } from "@/features/athletes/server/profile";
 import { ProfileForm } from "@/features/athletes/components/ProfileForm";
 import { CalendarFeedSettings, CoachDigestSettings } from "@/features/messages/components/EmailSettings";

@@ -1,6 +1,6 @@
 import Link from "next/link";
 import { coachedSquadIds } from "@/features/access/lib/rules";
-import { requirePageActor } from "@/features/auth/server/current";
+import { requirePageActor } from "@/features/access/server/current";
 import { TemplateBuilder } from "@/features/planning/components/TemplateBuilder";
 import { TemplateList } from "@/features/planning/components/TemplateList";
 import { listTemplates } from "@/features/planning/server/templates";

@@ -1,7 +1,7 @@
 import Link from "next/link";
-import { requirePageActor } from "@/features/auth/server/current";
+import { requirePageActor } from "@/features/access/server/current";
 import { getAthleteProfile } from "@/features/athletes/server/profile";
-import { SPORT_LABELS } from "@/features/athletes/schemas";
+import { SPORT_LABELS } from "@/features/platform/lib/sports";
 import { describeMe } from "@/features/squads/server/squads";
 import { ROLE_LABELS } from "@/features/squads/schemas";
 import { SessionCard } from "@/features/logs/components/SessionCard";
@@ -9,7 +9,7 @@ import { UnplannedLogForm } from "@/features/logs/components/UnplannedLogForm";
 import { LOG_STATUS_LABELS } from "@/features/logs/schemas";
 import { sessionCards } from "@/features/logs/server/cards";
 import { localDate } from "@/features/platform/lib/dates";
-import { addDays } from "@/features/planning/lib/weeks";
+import { addDays } from "@/features/platform/lib/days";
 import { nextRetestOf } from "@/features/planning/server/planning";
 
 export const metadata = { title: "Today" };

@@ -1,5 +1,5 @@
 import Link from "next/link";
-import { requirePageActor } from "@/features/auth/server/current";
+import { requirePageActor } from "@/features/access/server/current";
 import { listTests } from "@/features/athlete-tests/server/tests";
 import { KIND_LABELS } from "@/features/athlete-tests/components/TestSummary";
 import { ZoneSetList, ZonesInForce } from "@/features/zones/components/ZoneHistory";

@@ -1,6 +1,6 @@
 "use client";
 import { uploadWithProgress } from "@/features/platform/lib/upload";
-import { ApiError, apiFetch } from "@/features/squads/api";
+import { ApiError, apiFetch } from "@/features/platform/lib/api-client";
 
 export function createJsonTest(athleteId: string, body: unknown) {
   return apiFetch<{ id: string }>(`/api/athletes/${encodeURIComponent(athleteId)}/tests`, { method: "POST", body: JSON.stringify(body) });

@@ -1,6 +1,6 @@
 import { isoDate } from "@/features/platform/lib/date-schema";
 import { z } from "zod";
-import { SPORTS } from "@/features/athletes/schemas";
+import { SPORTS } from "@/features/platform/lib/sports";
 import { submaxSchema } from "@/features/field-tests/lib/submax";
 import { talkTestSchema } from "@/features/field-tests/lib/talk-test";
 import { CHANNELS, UNIT_CHOICES } from "@/features/gas-exchange/lib/csv";

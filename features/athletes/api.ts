@@ -1,6 +1,6 @@
 "use client";
 import { useMutation, useQueryClient } from "@tanstack/react-query";
-import { apiFetch } from "@/features/squads/api";
+import { apiFetch } from "@/features/platform/lib/api-client";
 import type { ProfileInput } from "./schemas";
 
 export function useSaveProfile(athleteId: string) {

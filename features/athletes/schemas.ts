@@ -1,28 +1,7 @@
 import { versionField } from "@/features/platform/lib/version";
 import { z } from "zod";
-
-export const SPORTS = ["running", "cycling", "triathlon", "rowing", "swimming", "cross_country_skiing", "walking"] as const;
-export const SPORT_LABELS: Record<(typeof SPORTS)[number], string> = {
-  running: "Running",
-  cycling: "Cycling",
-  triathlon: "Triathlon",
-  rowing: "Rowing",
-  swimming: "Swimming",
-  cross_country_skiing: "Cross-country skiing",
-  walking: "Walking",
-};
-
-/** An IANA time zone name that Node's Intl knows. */
-export const timeZoneSchema = z.string({ error: "Choose a time zone." }).max(64).refine((tz) => isTimeZone(tz), "Choose a time zone from the list (IANA name such as Europe/Oslo).");
-
-function isTimeZone(tz: string): boolean {
-  try {
-    new Intl.DateTimeFormat("en", { timeZone: tz });
-    return true;
-  } catch {
-    return false;
-  }
-}
+import { SPORTS } from "@/features/platform/lib/sports";
+import { isTimeZone, TIME_ZONE_MESSAGE } from "@/features/platform/lib/time-zones";
 
 const currentYear = new Date().getUTCFullYear();
 
@@ -53,7 +32,7 @@ export const profileSchema = z
       .max(240, "Maximal heart rate must be at most 240 bpm.")
       .nullable(),
     sports: z.array(z.enum(SPORTS, { error: "Unknown sport." })).max(SPORTS.length),
-    timeZone: z.string().refine(isTimeZone, "Choose a time zone from the list (IANA name such as Europe/Oslo)."),
+    timeZone: z.string().refine(isTimeZone, TIME_ZONE_MESSAGE),
     reminderTiming: z.enum(["evening_before", "morning_of", "off"], { error: "Choose when reminders arrive." }),
     reminderTime: z.string().regex(/^([01]\d|2[0-3]):[0-5]\d$/, "Enter the reminder time as HH:MM (24-hour clock)."),
     remindSessions: z.boolean(),

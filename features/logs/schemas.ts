@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { SPORTS } from "@/features/athletes/schemas";
+import { SPORTS } from "@/features/platform/lib/sports";
 import { isoDate } from "@/features/planning/schemas";
 import { isPlainText, isSingleLine, PLAIN_TEXT_MESSAGE, SINGLE_LINE_MESSAGE } from "@/features/platform/lib/text";
 

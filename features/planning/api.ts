@@ -1,6 +1,6 @@
 "use client";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import { apiFetch } from "@/features/squads/api";
+import { apiFetch } from "@/features/platform/lib/api-client";
 import type { Block } from "./lib/session";
 import type { WeekSummary } from "./lib/weeks";
 

@@ -1,7 +1,7 @@
 import { isoDate } from "@/features/platform/lib/date-schema";
 import { versionField } from "@/features/platform/lib/version";
 import { z } from "zod";
-import { SPORTS } from "@/features/athletes/schemas";
+import { SPORTS } from "@/features/platform/lib/sports";
 import { repeatSchema } from "./lib/repeat";
 import { structureSchema } from "./lib/session";
 import { isPlainText, isSingleLine, PLAIN_TEXT_MESSAGE, SINGLE_LINE_MESSAGE } from "@/features/platform/lib/text";

@@ -18,5 +18,4 @@ export const inviteSchema = z.object({
 
 export type InviteInput = z.infer<typeof inviteSchema>;
 
-export const idParam = z.object({ id: z.string().min(1).max(100) });
-export const tokenParam = z.object({ token: z.string().regex(/^[A-Za-z0-9_-]{20,100}$/) });
+

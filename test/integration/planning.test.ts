@@ -11,7 +11,7 @@ import * as squadWeekRoute from "@/app/api/squads/[id]/week/route";
 import { makeSquad } from "../support/squad";
 import { query, resetDatabase } from "../support/db";
 import * as profileRoute from "@/app/api/athletes/[id]/profile/route";
-import { addDays } from "@/features/planning/lib/weeks";
+import { addDays } from "@/features/platform/lib/days";
 import { weekSummariesJson } from "@/features/planning/server/planning";
 import { actorForUser } from "@/features/access/server/permissions";
 

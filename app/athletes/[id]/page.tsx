@@ -1,7 +1,7 @@
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { canCoachAthlete } from "@/features/access/lib/rules";
-import { requirePageActor } from "@/features/auth/server/current";
+import { requirePageActor } from "@/features/access/server/current";
 import { getAthleteProfile } from "@/features/athletes/server/profile";
 import { ProfileForm } from "@/features/athletes/components/ProfileForm";
 import { getScreening } from "@/features/athlete-tests/server/screening";
@@ -13,7 +13,7 @@ import { membershipsOfAthlete } from "@/features/access/server/permissions";
 import { LoadChart } from "@/features/load/components/LoadChart";
 import { athleteDrift, athleteLoad } from "@/features/load/server/load";
 import { localDate } from "@/features/platform/lib/dates";
-import { addDays } from "@/features/planning/lib/weeks";
+import { addDays } from "@/features/platform/lib/days";
 
 export const metadata = { title: "Athlete" };
 

@@ -1,8 +1,9 @@
 import Link from "next/link";
-import { currentActor } from "@/features/auth/server/current";
+import { currentActor } from "@/features/access/server/current";
 import { SignOutButton } from "@/features/auth/components/SignOutButton";
 import { AcceptButton, SignUpAndAccept } from "@/features/squads/components/AcceptInvitation";
-import { ROLE_LABELS, tokenParam } from "@/features/squads/schemas";
+import { ROLE_LABELS } from "@/features/squads/schemas";
+import { tokenParam } from "@/features/platform/lib/params";
 import { accountExists, lookupInvitation } from "@/features/squads/server/squads";
 
 export const metadata = { title: "Invitation" };

@@ -1,10 +1,10 @@
 import Link from "next/link";
 import { Fragment } from "react";
 import { coachedSquadIds } from "@/features/access/lib/rules";
-import { requirePageActor } from "@/features/auth/server/current";
+import { requirePageActor } from "@/features/access/server/current";
 import { BudgetBand } from "@/features/planning/components/BudgetBand";
-import { mondayOf } from "@/features/planning/lib/season";
-import { addDays } from "@/features/planning/lib/weeks";
+import { mondayOf } from "@/features/platform/lib/days";
+import { addDays } from "@/features/platform/lib/days";
 import { isoDate } from "@/features/planning/schemas";
 import { squadWeek } from "@/features/planning/server/planning";
 import { describeMe } from "@/features/squads/server/squads";

@@ -1,4 +1,4 @@
-import { requirePageActor } from "@/features/auth/server/current";
+import { requirePageActor } from "@/features/access/server/current";
 import { CreateSquadForm } from "@/features/squads/components/CreateSquadForm";
 
 export const metadata = { title: "Start a squad" };

@@ -2,7 +2,7 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { canCoachAthlete } from "@/features/access/lib/rules";
 import { membershipsOfAthlete } from "@/features/access/server/permissions";
-import { requirePageActor } from "@/features/auth/server/current";
+import { requirePageActor } from "@/features/access/server/current";
 import { TestCautions } from "@/features/athlete-tests/components/Cautions";
 import { TestBody, TestHeader } from "@/features/athlete-tests/components/TestSummary";
 import { getTest } from "@/features/athlete-tests/server/tests";

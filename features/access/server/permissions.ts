@@ -1,8 +1,8 @@
 import "server-only";
 import { eq } from "drizzle-orm";
 import { getDb, schema } from "@/db/client";
-import { getAuth } from "@/features/auth/server/auth";
-import { recallSession, rememberSession, sessionCookieKey } from "@/features/auth/server/session-memo";
+import { getAuth } from "@/features/auth/server";
+import { recallSession, rememberSession, sessionCookieKey } from "@/features/auth/server";
 import { HttpError, notFound, unauthenticated, forbidden } from "@/features/platform/server/http";
 import {
   canCoachAthlete,

@@ -7,7 +7,7 @@
 import { Decoder, Stream } from "@garmin/fitsdk";
 import { XMLParser } from "fast-xml-parser";
 import Papa from "papaparse";
-import { SPORTS } from "@/features/athletes/schemas";
+import { SPORTS } from "@/features/platform/lib/sports";
 
 export type Sport = (typeof SPORTS)[number];
 export type ActivityFormat = "fit" | "tcx" | "gpx" | "csv";

@@ -2,13 +2,13 @@ import "server-only";
 import { createHash, randomUUID } from "node:crypto";
 import { and, eq } from "drizzle-orm";
 import { getDb, schema } from "@/db/client";
-import { requireAthleteAccess } from "@/features/access/server/permissions";
+import { requireAthleteAccess } from "@/features/access/server";
 import type { Actor } from "@/features/access/lib/rules";
 import { banisterTrimp, edwardsTrimp } from "@/features/load/lib/load";
 import { localDate } from "@/features/platform/lib/dates";
 import { HttpError } from "@/features/platform/server/http";
 import { zoneSetInForce } from "@/features/zones/lib/zones";
-import { zoneSetsOf } from "@/features/zones/server/zone-sets";
+import { zoneSetsOf } from "@/features/zones/server";
 import { ActivityError, readActivity, type Sport } from "../lib/read";
 import { chooseMeasure, matchPlanned, summarise, toStreams, zoneTime } from "../lib/streams";
 

@@ -5,7 +5,7 @@ import { useFieldArray, useForm, useWatch } from "react-hook-form";
 import { z } from "zod";
 import { SPEECH } from "@/features/field-tests/lib/talk-test";
 import { FieldError, FormAlert } from "@/features/platform/components/form-bits";
-import { ApiError } from "@/features/squads/api";
+import { ApiError } from "@/features/platform/lib/api-client";
 import { createJsonTest } from "../api";
 import { testMetaSchema } from "../schemas";
 import { MetaFields } from "./MetaFields";

@@ -8,7 +8,7 @@ import { CHANNEL_LABELS, CHANNELS, guessColumns, REQUIRED_CHANNELS, UNIT_CHOICES
 import { fileKind, readGasExchangeFile, REFUSED_KINDS } from "@/features/gas-exchange/lib/workbook";
 import { parseTime } from "@/features/gas-exchange/lib/csv";
 import { FieldError, FormAlert } from "@/features/platform/components/form-bits";
-import { ApiError } from "@/features/squads/api";
+import { ApiError } from "@/features/platform/lib/api-client";
 import { uploadGasExchange } from "../api";
 import { MAX_UPLOAD_BYTES, testMetaSchema } from "../schemas";
 import { MetaFields } from "./MetaFields";

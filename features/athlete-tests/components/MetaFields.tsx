@@ -1,6 +1,6 @@
 "use client";
 import type { FieldErrors, UseFormRegister } from "react-hook-form";
-import { SPORT_LABELS, SPORTS } from "@/features/athletes/schemas";
+import { SPORT_LABELS, SPORTS } from "@/features/platform/lib/sports";
 import { FieldError } from "@/features/platform/components/form-bits";
 import { STOP_SIGNS } from "../schemas";
 

@@ -1,7 +1,7 @@
 import Link from "next/link";
-import { SPORT_LABELS } from "@/features/athletes/schemas";
+import { SPORT_LABELS } from "@/features/platform/lib/sports";
 import { ZoneTable } from "@/features/zones/components/ZoneTable";
-import type { TestView } from "../server/tests";
+import type { TestView } from "../lib/views";
 import { STOP_SIGNS } from "../schemas";
 import { FuelChart, type FuelChartProps } from "./FuelChart";
 import { mmss } from "@/features/platform/lib/format";

@@ -2,7 +2,7 @@
  * What a test stores, built from the engine's results: the detected thresholds and the result kept for charts and reports.
  * Pure, so that the upload route and the demo seed store tests the same way.
  */
-import type { ThresholdPair, ThresholdValues } from "@/db/schema";
+import type { ThresholdPair, ThresholdValues } from "@/features/zones/lib/thresholds";
 import { analyzeTalkTest, type TalkTestInput } from "@/features/field-tests/lib/talk-test";
 import type { Analysis, Threshold } from "@/features/gas-exchange/lib/analyze";
 import type { Breath } from "@/features/gas-exchange/lib/csv";

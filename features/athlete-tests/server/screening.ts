@@ -3,7 +3,7 @@ import { randomUUID } from "node:crypto";
 import { desc, eq } from "drizzle-orm";
 import type { z } from "zod";
 import { getDb, schema } from "@/db/client";
-import { requireAthleteAccess } from "@/features/access/server/permissions";
+import { requireAthleteAccess } from "@/features/access/server";
 import type { Actor } from "@/features/access/lib/rules";
 import type { screeningSchema } from "../schemas";
 

@@ -2,8 +2,8 @@ import "server-only";
 import { randomUUID } from "node:crypto";
 import { desc, eq } from "drizzle-orm";
 import { getDb, schema } from "@/db/client";
-import type { ThresholdPair, ThresholdValues } from "@/db/schema";
-import { requireAthleteAccess, requireAthleteAccessOrNotFound } from "@/features/access/server/permissions";
+import type { ThresholdPair, ThresholdValues } from "@/features/zones/lib/thresholds";
+import { requireAthleteAccess, requireAthleteAccessOrNotFound } from "@/features/access/server";
 import type { Actor } from "@/features/access/lib/rules";
 import { estimateVo2Max } from "@/features/field-tests/lib/submax";
 import { analyzeRead, DEFAULT_MRT_S, valuesAt } from "@/features/gas-exchange/lib/analyze";
@@ -12,9 +12,10 @@ import { readGasExchangeFile } from "@/features/gas-exchange/lib/workbook";
 import { fromRows, gasExchangeRecord, talkTestRecord, type PointRow } from "../lib/records";
 import { fuelProfile } from "@/features/physiology/lib/fuel";
 import { HttpError, notFound } from "@/features/platform/server/http";
-import { saveZoneSetForTest, zonesFor, type ZoneSetView } from "@/features/zones/server/zone-sets";
+import { saveZoneSetForTest, zonesFor, type ZoneSetView } from "@/features/zones/server";
 import type { z } from "zod";
 import type { JsonTestInput, testMetaSchema, ThresholdPatch } from "../schemas";
+import type { TestView } from "../lib/views";
 
 type Meta = z.infer<typeof testMetaSchema>;
 
@@ -139,7 +140,7 @@ async function loadTest(actor: Actor, testId: string) {
   return row;
 }
 
-export async function getTest(actor: Actor, testId: string) {
+export async function getTest(actor: Actor, testId: string): Promise<TestView> {
   const row = await loadTest(actor, testId);
   const db = getDb();
   const [athlete] = await db.select({ name: schema.user.name }).from(schema.user).where(eq(schema.user.id, row.athleteId));
@@ -182,7 +183,7 @@ export async function getTest(actor: Actor, testId: string) {
   };
 }
 
-export type TestView = Awaited<ReturnType<typeof getTest>>;
+export type { TestView };
 
 export async function listTests(actor: Actor, athleteId: string) {
   await requireAthleteAccess(actor, athleteId, "view");

@@ -4,9 +4,10 @@ import { useRouter } from "next/navigation";
 import { useMemo, useState } from "react";
 import { useForm } from "react-hook-form";
 import { FieldError, FormAlert, FormNotice } from "@/features/platform/components/form-bits";
-import { ApiError } from "@/features/squads/api";
+import { ApiError } from "@/features/platform/lib/api-client";
 import { useSaveProfile } from "../api";
-import { profileSchema, SPORT_LABELS, SPORTS, type ProfileInput } from "../schemas";
+import { profileSchema, type ProfileInput } from "../schemas";
+import { SPORT_LABELS, SPORTS } from "@/features/platform/lib/sports";
 import { SubmitButton } from "@/features/platform/components/SubmitButton";
 
 const toNumberOrNull = (v: unknown) => (v === "" || v == null ? null : Number(v));

@@ -1,7 +1,7 @@
 import "server-only";
 import { eq, sql } from "drizzle-orm";
 import { getDb, schema } from "@/db/client";
-import { requireAthleteAccess } from "@/features/access/server/permissions";
+import { requireAthleteAccess } from "@/features/access/server";
 import type { Actor } from "@/features/access/lib/rules";
 import { editConflict, fieldErrors, HttpError, notFound } from "@/features/platform/server/http";
 import { profileSchema, type ProfileInput } from "../schemas";

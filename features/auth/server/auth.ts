@@ -6,7 +6,7 @@ import { clearFailedSignIns, recordFailedSignIn, signInPausedFor } from "./sign-
 import { drizzleAdapter } from "better-auth/adapters/drizzle";
 import { getDb, schema } from "@/db/client";
 import { forgetSessionToken, forgetUserSessions } from "./session-memo";
-import { sendEmailVerification, sendExistingAccountNotice, sendPasswordReset } from "@/features/messages/server/account-messages";
+import { sendEmailVerification, sendExistingAccountNotice, sendPasswordReset } from "@/features/messages/server";
 
 /** Sign-ins per minute per client address: 8, or 60 when no trusted proxy names the address (then every client shares one
  * bucket, and the per-account limit does the fine work). TIDEMARK_SIGN_IN_LIMIT_PER_MIN overrides both. */

@@ -1,7 +1,7 @@
 import "server-only";
 import { eq, sql } from "drizzle-orm";
 import { getDb, schema } from "@/db/client";
-import { sendSignInPausedNotice } from "@/features/messages/server/account-messages";
+import { sendSignInPausedNotice } from "@/features/messages/server";
 
 /**
  * A per-account limit on wrong passwords, beside the per-address rate limit: one shared address (a lab, a club's Wi-Fi)

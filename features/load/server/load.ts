@@ -1,10 +1,10 @@
 import "server-only";
 import { and, asc, eq, gte, lte } from "drizzle-orm";
 import { getDb, schema } from "@/db/client";
-import { requireAthleteAccess } from "@/features/access/server/permissions";
+import { requireAthleteAccess } from "@/features/access/server";
 import type { Actor } from "@/features/access/lib/rules";
-import { addDays } from "@/features/planning/lib/weeks";
-import { mondayOf } from "@/features/planning/lib/season";
+import { addDays } from "@/features/platform/lib/days";
+import { mondayOf } from "@/features/platform/lib/days";
 import { driftAcrossSports } from "../lib/drift";
 import { loadReport, type ReportLog, type ReportPlanned } from "../lib/report";
 

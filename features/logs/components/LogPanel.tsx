@@ -3,7 +3,7 @@ import { useRouter } from "next/navigation";
 import { useState, type FormEvent } from "react";
 import { FormAlert, FormNotice } from "@/features/platform/components/form-bits";
 import { uploadWithProgress } from "@/features/platform/lib/upload";
-import { ApiError, apiFetch } from "@/features/squads/api";
+import { ApiError, apiFetch } from "@/features/platform/lib/api-client";
 import { anchorOf, CR10_ANCHORS } from "../lib/cr10";
 import { LOG_STATUS_LABELS } from "../schemas";
 import { SubmitButton } from "@/features/platform/components/SubmitButton";

@@ -1,4 +1,4 @@
-import { SPORT_LABELS } from "@/features/athletes/schemas";
+import { SPORT_LABELS } from "@/features/platform/lib/sports";
 import type { Block } from "@/features/planning/lib/session";
 import { targetText } from "@/features/zones/lib/format";
 import type { Zone } from "@/features/zones/lib/zones";

@@ -1,9 +1,9 @@
 "use client";
 import { useRouter } from "next/navigation";
 import { useState, type FormEvent } from "react";
-import { SPORT_LABELS, SPORTS } from "@/features/athletes/schemas";
+import { SPORT_LABELS, SPORTS } from "@/features/platform/lib/sports";
 import { FormAlert, FormNotice } from "@/features/platform/components/form-bits";
-import { ApiError, apiFetch } from "@/features/squads/api";
+import { ApiError, apiFetch } from "@/features/platform/lib/api-client";
 import { CR10_ANCHORS } from "../lib/cr10";
 import { SubmitButton } from "@/features/platform/components/SubmitButton";
 

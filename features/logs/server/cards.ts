@@ -1,6 +1,6 @@
 import "server-only";
 import type { Actor } from "@/features/access/lib/rules";
-import { listSessions } from "@/features/planning/server/planning";
+import { listSessions } from "@/features/planning/server";
 import type { SessionCardData } from "../components/SessionCard";
 import { listLogs } from "./logs";
 

@@ -3,7 +3,7 @@ import { randomUUID } from "node:crypto";
 import { and, asc, eq, gte, lte } from "drizzle-orm";
 import type { z } from "zod";
 import { getDb, schema } from "@/db/client";
-import { requireAthleteAccess, requireAthleteAccessOrNotFound } from "@/features/access/server/permissions";
+import { requireAthleteAccess, requireAthleteAccessOrNotFound } from "@/features/access/server";
 import type { Actor } from "@/features/access/lib/rules";
 import { HttpError, notFound } from "@/features/platform/server/http";
 import { editableUntil, LOG_EDIT_DAYS } from "../lib/cr10";

@@ -1,7 +1,7 @@
 "use client";
 import { useMemo, useState } from "react";
 import { FormAlert, FormNotice } from "@/features/platform/components/form-bits";
-import { apiFetch } from "@/features/squads/api";
+import { apiFetch } from "@/features/platform/lib/api-client";
 import { SubmitButton } from "@/features/platform/components/SubmitButton";
 
 /** The coach's digest setting and time zone. */

@@ -3,7 +3,7 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useHydrated } from "@/features/platform/components/use-hydrated";
 import { FormAlert } from "@/features/platform/components/form-bits";
-import { apiFetch } from "@/features/squads/api";
+import { apiFetch } from "@/features/platform/lib/api-client";
 
 /** The one button of the unsubscribe page: turns that kind of message off, then shows the page's new state. */
 export function TurnOffButton({ token, label }: { token: string; label: string }) {

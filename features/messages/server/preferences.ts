@@ -4,7 +4,7 @@ import { and, asc, eq, gte, lte } from "drizzle-orm";
 import { getDb, schema } from "@/db/client";
 import type { Actor } from "@/features/access/lib/rules";
 import { localDate } from "@/features/platform/lib/dates";
-import { addDays } from "@/features/planning/lib/weeks";
+import { addDays } from "@/features/platform/lib/days";
 import { KIND_LABELS, readUnsubscribeToken, type UnsubscribableKind } from "../lib/unsubscribe";
 import { calendarIcs } from "../lib/ics";
 

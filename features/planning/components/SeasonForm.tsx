@@ -3,9 +3,9 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
 import { useForm } from "react-hook-form";
 import { z } from "zod";
-import { SPORT_LABELS, SPORTS } from "@/features/athletes/schemas";
+import { SPORT_LABELS, SPORTS } from "@/features/platform/lib/sports";
 import { FieldError, FormAlert } from "@/features/platform/components/form-bits";
-import { apiFetch } from "@/features/squads/api";
+import { apiFetch } from "@/features/platform/lib/api-client";
 import { isoDate } from "../schemas";
 import { SubmitButton } from "@/features/platform/components/SubmitButton";
 

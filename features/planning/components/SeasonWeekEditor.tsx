@@ -3,7 +3,7 @@ import { useQueryClient } from "@tanstack/react-query";
 import { useRouter } from "next/navigation";
 import { useForm } from "react-hook-form";
 import { FieldError, FormAlert, FormNotice } from "@/features/platform/components/form-bits";
-import { ApiError, apiFetch } from "@/features/squads/api";
+import { ApiError, apiFetch } from "@/features/platform/lib/api-client";
 import { BUDGET_PRESETS, type BudgetPreset } from "../lib/budget";
 import { BLOCK_LABELS, type BlockName, type SeasonWeek } from "../lib/season";
 import { SubmitButton } from "@/features/platform/components/SubmitButton";

@@ -4,7 +4,7 @@ import { useQueryClient } from "@tanstack/react-query";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { FieldError, FormAlert } from "@/features/platform/components/form-bits";
-import { ApiError, apiFetch } from "@/features/squads/api";
+import { ApiError, apiFetch } from "@/features/platform/lib/api-client";
 import type { SessionDto } from "../api";
 import { structureSchema, type Block } from "../lib/session";
 import { formSchema, fromStructure, StructureFields, toStructure, type Values } from "./TemplateBuilder";

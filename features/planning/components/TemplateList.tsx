@@ -1,9 +1,9 @@
 "use client";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
-import { SPORT_LABELS } from "@/features/athletes/schemas";
+import { SPORT_LABELS } from "@/features/platform/lib/sports";
 import { FormAlert } from "@/features/platform/components/form-bits";
-import { apiFetch } from "@/features/squads/api";
+import { apiFetch } from "@/features/platform/lib/api-client";
 import type { Block } from "../lib/session";
 import { SessionProfile } from "./TemplateBuilder";
 

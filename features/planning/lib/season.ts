@@ -10,7 +10,7 @@
  * - Retests every 12 weeks by default (12–16), each placed in an unloading week at or before the due week.
  */
 import { BUDGET_PRESETS, DEFAULT_RAMP_CAP, type BudgetPreset } from "./budget";
-import { dayNumber, isoOfDay } from "@/features/platform/lib/days";
+import { DateError, dayOf, isoOfDay, mondayOf } from "@/features/platform/lib/days";
 
 export type BlockName = "general_preparation" | "specific_preparation" | "pre_competition" | "taper" | "competition" | "transition";
 
@@ -50,21 +50,22 @@ export class SeasonError extends Error {}
 const DAY_MS = 86_400_000;
 
 export function parseDate(iso: string): number {
-  if (typeof iso !== "string" || !/^\d{4}-\d{2}-\d{2}$/.test(iso)) throw new SeasonError(`"${iso}" is not a date (YYYY-MM-DD).`);
-  const n = dayNumber(iso);
-  if (Number.isNaN(n)) throw new SeasonError(`"${iso}" is not a date.`);
-  return n * DAY_MS;
+  try {
+    return dayOf(iso) * DAY_MS;
+  } catch (e) {
+    if (e instanceof DateError) throw new SeasonError(e.message);
+    throw e;
+  }
 }
 
 export function formatDate(t: number): string {
   return isoOfDay(Math.floor(t / DAY_MS));
 }
 
-export function mondayOf(iso: string): string {
-  const n = parseDate(iso) / DAY_MS;
-  // Day 0 (1970-01-01) was a Thursday.
-  const dow = (((n + 3) % 7) + 7) % 7;
-  return isoOfDay(n - dow);
+/** The Monday of a date's week, with a SeasonError for a date that is not one (the season form's own message). */
+function weekMonday(iso: string): string {
+  parseDate(iso);
+  return mondayOf(iso);
 }
 
 export function planSeason(input: SeasonInput): SeasonWeek[] {
@@ -73,9 +74,9 @@ export function planSeason(input: SeasonInput): SeasonWeek[] {
   if (every < 12 || every > 16) throw new SeasonError("Retests come every 12 to 16 weeks.");
   if (!(input.weeklyHours > 0 && input.weeklyHours <= 40)) throw new SeasonError("Weekly hours must be between 0 and 40.");
   if (!input.events.length) throw new SeasonError("Give at least one event date.");
-  const start = parseDate(mondayOf(input.startDate));
+  const start = parseDate(weekMonday(input.startDate));
   const events = [...input.events].sort((a, b) => a.date.localeCompare(b.date));
-  const eventWeek = (d: string) => Math.floor((parseDate(mondayOf(d)) - start) / (7 * DAY_MS));
+  const eventWeek = (d: string) => Math.floor((parseDate(weekMonday(d)) - start) / (7 * DAY_MS));
   const eventWeeks = events.map((e) => eventWeek(e.date));
   if (eventWeeks[0]! < 3) throw new SeasonError("The first event must be at least three weeks after the start.");
   if (eventWeeks[eventWeeks.length - 1]! > 104) throw new SeasonError("A season spans at most two years.");

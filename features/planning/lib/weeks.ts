@@ -3,8 +3,7 @@
  * the week's intensity budget, with the reasons and a concrete fix when the week is over budget.
  */
 import { BUDGET_PRESETS, checkWeek, type Breach, type Budget, type BudgetPreset, type Shares } from "./budget";
-import { formatDate, mondayOf, parseDate } from "./season";
-import { dayNumber, isoOfDay } from "@/features/platform/lib/days";
+import { addDays, dayNumber, mondayOf } from "@/features/platform/lib/days";
 
 export interface WeekSession {
   id: string;
@@ -41,12 +40,6 @@ export interface WeekSummary {
   block: string | null;
 }
 
-const DAY = 86_400_000;
-export function addDays(iso: string, n: number): string {
-  const day = dayNumber(iso);
-  // An invalid date takes the long way, which says what is wrong with it.
-  return Number.isNaN(day) ? formatDate(parseDate(iso) + n * DAY) : isoOfDay(day + n);
-}
 
 function minutesOf(sessions: WeekSession[]): Shares {
   const m: Shares = [0, 0, 0];

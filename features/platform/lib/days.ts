@@ -66,3 +66,27 @@ function computeIsoOfDay(n: number): string {
   const [y, m, d] = civilFromDay(n);
   return `${y}-${pad2(m)}-${pad2(d)}`;
 }
+
+/** A date that is not a real calendar date "YYYY-MM-DD"; the message says what is wrong. */
+export class DateError extends Error {}
+
+/** The day number of a real calendar date, or a DateError that says what is wrong with it. */
+export function dayOf(iso: string): number {
+  if (typeof iso !== "string" || !/^\d{4}-\d{2}-\d{2}$/.test(iso)) throw new DateError(`"${iso}" is not a date (YYYY-MM-DD).`);
+  const n = dayNumber(iso);
+  if (Number.isNaN(n)) throw new DateError(`"${iso}" is not a date.`);
+  return n;
+}
+
+/** The calendar date n days after (or before) iso. */
+export function addDays(iso: string, n: number): string {
+  return isoOfDay(dayOf(iso) + n);
+}
+
+/** The Monday of iso's ISO week. */
+export function mondayOf(iso: string): string {
+  const n = dayOf(iso);
+  // Day 0 (1970-01-01) was a Thursday.
+  const dow = (((n + 3) % 7) + 7) % 7;
+  return isoOfDay(n - dow);
+}

@@ -1,5 +1,5 @@
 "use client";
-import { ApiError } from "@/features/squads/api";
+import { ApiError } from "@/features/platform/lib/api-client";
 
 /** POSTs a multipart form and reports the upload's progress (0–1); resolves with the JSON body of a 201 answer. */
 export function uploadWithProgress<T>(url: string, form: FormData, onProgress: (fraction: number) => void): Promise<T> {

@@ -2,7 +2,7 @@
  * When a reminder is due, from an instant and a person's IANA time zone (Node's Intl time-zone data), so that "07:00 in
  * Oslo" is 06:00 UTC in winter and 05:00 UTC in summer. Pure: the jobs pass the clock in.
  */
-import { addDays } from "@/features/planning/lib/weeks";
+import { addDays } from "@/features/platform/lib/days";
 
 export interface LocalTime {
   /** The local calendar day, YYYY-MM-DD. */

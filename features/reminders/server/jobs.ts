@@ -6,18 +6,18 @@ import { CoachDigestEmail, coachDigestSubject, coachDigestText, type DigestLine 
 import { renderEmailHtml } from "@/emails/render";
 import { RetestReminderEmail, retestReminderSubject, retestReminderText } from "@/emails/retest-reminder";
 import { SessionReminderEmail, sessionReminderSubject, sessionReminderText, type ReminderSession } from "@/emails/session-reminder";
-import { actorForUser } from "@/features/access/server/permissions";
+import { actorForUser } from "@/features/access/server";
 import { SCREENING_QUESTIONS } from "@/features/athlete-tests/schemas";
 import { unsubscribeToken, type UnsubscribableKind } from "@/features/messages/lib/unsubscribe";
-import { queueMessage } from "@/features/messages/server/outbox";
+import { queueMessage } from "@/features/messages/server";
 import { localDate } from "@/features/platform/lib/dates";
 import { publicOrigin } from "@/features/platform/server/origin";
 import { flatten, type Block } from "@/features/planning/lib/session";
-import { addDays } from "@/features/planning/lib/weeks";
-import { squadRoster } from "@/features/roster/server/roster";
+import { addDays } from "@/features/platform/lib/days";
+import { squadRoster } from "@/features/roster/server";
 import { targetText } from "@/features/zones/lib/format";
 import { zoneSetInForce } from "@/features/zones/lib/zones";
-import { zoneSetsOf } from "@/features/zones/server/zone-sets";
+import { zoneSetsOf } from "@/features/zones/server";
 import { dayLabel, digestMonday, retestStage, sessionReminderDay } from "../lib/clock";
 
 const STEP_LABELS = { warmup: "Warm-up", work: "Work", recovery: "Recovery", cooldown: "Cool-down" } as const;

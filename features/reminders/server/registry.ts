@@ -1,5 +1,5 @@
 import "server-only";
-import { deliverPending } from "@/features/messages/server/deliver";
+import { deliverPending } from "@/features/messages/server";
 import { queueCoachDigests, queueRetestReminders, queueSessionReminders } from "./jobs";
 
 export interface JobDefinition {

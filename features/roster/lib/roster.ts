@@ -4,8 +4,9 @@
  */
 import { driftAcrossSports } from "@/features/load/lib/drift";
 import { latestLoad, type ReportLog, type ReportPlanned } from "@/features/load/lib/report";
-import { mondayOf } from "@/features/planning/lib/season";
-import { addDays, summariseWeeks, type SeasonWeekInfo } from "@/features/planning/lib/weeks";
+import { mondayOf } from "@/features/platform/lib/days";
+import { summariseWeeks, type SeasonWeekInfo } from "@/features/planning/lib/weeks";
+import { addDays } from "@/features/platform/lib/days";
 
 /** A retest is due at the latest this long after the zones were set (common practice: 12–16 weeks). */
 export const RETEST_DUE_WEEKS = 16;

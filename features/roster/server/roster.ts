@@ -5,8 +5,9 @@ import { canViewRoster, coachedSquadIds, type Actor } from "@/features/access/li
 import { forbidden, notFound } from "@/features/platform/server/http";
 import { localDate } from "@/features/platform/lib/dates";
 import type { ReportLog } from "@/features/load/lib/report";
-import { mondayOf } from "@/features/planning/lib/season";
-import { addDays, type SeasonWeekInfo } from "@/features/planning/lib/weeks";
+import { mondayOf } from "@/features/platform/lib/days";
+import { type SeasonWeekInfo } from "@/features/planning/lib/weeks";
+import { addDays } from "@/features/platform/lib/days";
 import { rosterRow, type RosterRow } from "../lib/roster";
 
 type PlannedRow = Record<string, unknown> & { id: string; athleteId: string; date: string; title: string; kind: string; totalS: number; minutesByZone: [number, number, number] };

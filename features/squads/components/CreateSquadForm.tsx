@@ -4,7 +4,7 @@ import { useRouter } from "next/navigation";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
 import { FieldError, FormAlert } from "@/features/platform/components/form-bits";
-import { apiFetch, ApiError } from "../api";
+import { apiFetch, ApiError } from "@/features/platform/lib/api-client";
 import { createSquadSchema } from "../schemas";
 import { SubmitButton } from "@/features/platform/components/SubmitButton";
 

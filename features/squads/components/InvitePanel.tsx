@@ -3,7 +3,8 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { FieldError, FormAlert, FormNotice } from "@/features/platform/components/form-bits";
-import { ApiError, useInvitations, useInvite, useWithdrawInvitation } from "../api";
+import { useInvitations, useInvite, useWithdrawInvitation } from "../api";
+import { ApiError } from "@/features/platform/lib/api-client";
 import { inviteSchema, ROLE_LABELS, type InviteInput } from "../schemas";
 import { SubmitButton } from "@/features/platform/components/SubmitButton";
 

@@ -1,7 +1,7 @@
 "use client";
 import Link from "next/link";
 import { useMemo, useState } from "react";
-import { SPORT_LABELS } from "@/features/athletes/schemas";
+import { SPORT_LABELS } from "@/features/platform/lib/sports";
 import type { RosterRow } from "@/features/roster/lib/roster";
 import { useRoster } from "../api";
 

@@ -2,9 +2,9 @@ import "server-only";
 import { createHash, randomBytes, randomUUID } from "node:crypto";
 import { and, asc, eq, inArray, isNull, sql } from "drizzle-orm";
 import { getDb, schema } from "@/db/client";
-import { requireSquadManager, type SignedInActor } from "@/features/access/server/permissions";
+import { requireSquadManager, type SignedInActor } from "@/features/access/server";
 import { coachedSquadIds, type Actor } from "@/features/access/lib/rules";
-import { sendInvitation } from "@/features/messages/server/account-messages";
+import { sendInvitation } from "@/features/messages/server";
 import { HttpError, notFound } from "@/features/platform/server/http";
 import { ROLE_LABELS, type InviteInput } from "../schemas";
 

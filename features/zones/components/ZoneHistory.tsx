@@ -1,6 +1,6 @@
 import Link from "next/link";
-import { SPORT_LABELS } from "@/features/athletes/schemas";
-import type { ZoneSetView } from "../server/zone-sets";
+import { SPORT_LABELS } from "@/features/platform/lib/sports";
+import type { ZoneSetView } from "../lib/views";
 import { ZoneTable } from "./ZoneTable";
 
 function sportName(s: string): string {

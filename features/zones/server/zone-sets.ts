@@ -2,26 +2,16 @@ import "server-only";
 import { randomUUID } from "node:crypto";
 import { desc, eq } from "drizzle-orm";
 import { getDb, schema, type Database } from "@/db/client";
-import type { ThresholdValues } from "@/db/schema";
-import { requireAthleteAccess } from "@/features/access/server/permissions";
+import type { ThresholdValues } from "@/features/zones/lib/thresholds";
+import { requireAthleteAccess } from "@/features/access/server";
 import type { Actor } from "@/features/access/lib/rules";
 import { HttpError } from "@/features/platform/server/http";
 import { fiveZones, threeZones, ZoneError, type Zone } from "../lib/zones";
+import type { ZoneSetView } from "../lib/views";
+
+export type { ZoneSetView };
 
 type Tx = Pick<Database, "insert" | "update" | "select">;
-
-export interface ZoneSetView {
-  id: string;
-  sport: string;
-  effectiveFrom: string;
-  model: "three" | "five";
-  source: string;
-  testId: string | null;
-  vt1: ThresholdValues;
-  vt2: ThresholdValues;
-  zones: Zone[];
-  fiveZones: Zone[] | null;
-}
 
 function point(v: ThresholdValues) {
   return { hrBpm: v.hrBpm ?? null, powerW: v.powerW ?? null, speedKmh: v.speedKmh ?? null };

@@ -2,7 +2,7 @@ import { z } from "zod";
 import { requireActor } from "@/features/access/server/permissions";
 import { json, readJson, route } from "@/features/platform/server/http";
 import { getNotificationSettings, updateNotificationSettings } from "@/features/messages/server/preferences";
-import { timeZoneSchema } from "@/features/athletes/schemas";
+import { timeZoneSchema } from "@/features/platform/lib/time-zones";
 
 export const dynamic = "force-dynamic";
 

@@ -3,7 +3,7 @@ import { requireActor } from "@/features/access/server/permissions";
 import { HttpError, json, parseParams, readJson, route } from "@/features/platform/server/http";
 import { isoDate, patchSessionSchema } from "@/features/planning/schemas";
 import { deleteSession, duplicateSession, updateSession } from "@/features/planning/server/planning";
-import { idParam } from "@/features/squads/schemas";
+import { idParam } from "@/features/platform/lib/params";
 
 export const dynamic = "force-dynamic";
 type Ctx = { params: Promise<{ id: string }> };

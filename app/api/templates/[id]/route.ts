@@ -2,7 +2,7 @@ import { requireActor } from "@/features/access/server/permissions";
 import { json, parseParams, readJson, route } from "@/features/platform/server/http";
 import { templatePatchSchema } from "@/features/planning/schemas";
 import { deleteTemplate, getTemplate, updateTemplate } from "@/features/planning/server/templates";
-import { idParam } from "@/features/squads/schemas";
+import { idParam } from "@/features/platform/lib/params";
 
 export const dynamic = "force-dynamic";
 type Ctx = { params: Promise<{ id: string }> };

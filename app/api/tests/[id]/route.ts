@@ -1,7 +1,7 @@
 import { requireActor } from "@/features/access/server/permissions";
 import { getTest } from "@/features/athlete-tests/server/tests";
 import { json, parseParams, route } from "@/features/platform/server/http";
-import { idParam } from "@/features/squads/schemas";
+import { idParam } from "@/features/platform/lib/params";
 
 export const dynamic = "force-dynamic";
 

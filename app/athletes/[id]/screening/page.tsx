@@ -1,6 +1,6 @@
 import Link from "next/link";
 import { notFound } from "next/navigation";
-import { requirePageActor } from "@/features/auth/server/current";
+import { requirePageActor } from "@/features/access/server/current";
 import { getAthleteProfile } from "@/features/athletes/server/profile";
 import { ScreeningForm } from "@/features/athlete-tests/components/ScreeningForm";
 import { getScreening } from "@/features/athlete-tests/server/screening";

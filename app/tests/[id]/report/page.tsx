@@ -1,5 +1,5 @@
 import { notFound } from "next/navigation";
-import { requirePageActor } from "@/features/auth/server/current";
+import { requirePageActor } from "@/features/access/server/current";
 import { TestCautions } from "@/features/athlete-tests/components/Cautions";
 import { PrintButton } from "@/features/athlete-tests/components/PrintButton";
 import { TestBody, TestHeader } from "@/features/athlete-tests/components/TestSummary";

@@ -2,7 +2,7 @@ import { requireActor } from "@/features/access/server/permissions";
 import { MAX_ACTIVITY_BYTES } from "@/features/activities/lib/read";
 import { importActivity } from "@/features/activities/server/import";
 import { HttpError, json, parseParams, route } from "@/features/platform/server/http";
-import { idParam } from "@/features/squads/schemas";
+import { idParam } from "@/features/platform/lib/params";
 
 export const dynamic = "force-dynamic";
 type Ctx = { params: Promise<{ id: string }> };

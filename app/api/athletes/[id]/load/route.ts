@@ -2,7 +2,7 @@ import { requireActor } from "@/features/access/server/permissions";
 import { loadQuerySchema } from "@/features/logs/schemas";
 import { athleteLoad } from "@/features/load/server/load";
 import { fieldErrors, HttpError, json, parseParams, route } from "@/features/platform/server/http";
-import { idParam } from "@/features/squads/schemas";
+import { idParam } from "@/features/platform/lib/params";
 
 export const dynamic = "force-dynamic";
 type Ctx = { params: Promise<{ id: string }> };

@@ -3,7 +3,7 @@ import { unplannedLogSchema } from "@/features/logs/schemas";
 import { listLogs, logUnplannedSession } from "@/features/logs/server/logs";
 import { fieldErrors, HttpError, json, parseParams, readJson, route } from "@/features/platform/server/http";
 import { rangeQuery } from "@/features/planning/schemas";
-import { idParam } from "@/features/squads/schemas";
+import { idParam } from "@/features/platform/lib/params";
 
 export const dynamic = "force-dynamic";
 type Ctx = { params: Promise<{ id: string }> };

@@ -2,7 +2,7 @@ import { requireActor } from "@/features/access/server/permissions";
 import { profilePatchSchema } from "@/features/athletes/schemas";
 import { getAthleteProfile, updateAthleteProfile } from "@/features/athletes/server/profile";
 import { json, parseParams, readJson, route } from "@/features/platform/server/http";
-import { idParam } from "@/features/squads/schemas";
+import { idParam } from "@/features/platform/lib/params";
 
 export const dynamic = "force-dynamic";
 

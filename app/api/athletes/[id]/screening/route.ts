@@ -2,7 +2,7 @@ import { requireActor } from "@/features/access/server/permissions";
 import { screeningSchema } from "@/features/athlete-tests/schemas";
 import { getScreening, saveScreening } from "@/features/athlete-tests/server/screening";
 import { json, parseParams, readJson, route } from "@/features/platform/server/http";
-import { idParam } from "@/features/squads/schemas";
+import { idParam } from "@/features/platform/lib/params";
 
 export const dynamic = "force-dynamic";
 

@@ -2,7 +2,7 @@ import { requireActor } from "@/features/access/server/permissions";
 import { json, parseParams, readJson, route } from "@/features/platform/server/http";
 import { seasonSchema } from "@/features/planning/schemas";
 import { createSeason, listSeasons } from "@/features/planning/server/planning";
-import { idParam } from "@/features/squads/schemas";
+import { idParam } from "@/features/platform/lib/params";
 
 export const dynamic = "force-dynamic";
 type Ctx = { params: Promise<{ id: string }> };

@@ -2,7 +2,7 @@ import { requireActor } from "@/features/access/server/permissions";
 import { jsonTestSchema, MAX_UPLOAD_BYTES, uploadFieldsSchema } from "@/features/athlete-tests/schemas";
 import { createGasExchangeTest, createJsonTest, listTests } from "@/features/athlete-tests/server/tests";
 import { fieldErrors, HttpError, json, parseParams, readJson, route } from "@/features/platform/server/http";
-import { idParam } from "@/features/squads/schemas";
+import { idParam } from "@/features/platform/lib/params";
 
 export const dynamic = "force-dynamic";
 

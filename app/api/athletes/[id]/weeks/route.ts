@@ -2,7 +2,7 @@ import { requireActor } from "@/features/access/server/permissions";
 import { fieldErrors, HttpError, parseParams, route } from "@/features/platform/server/http";
 import { rangeQuery } from "@/features/planning/schemas";
 import { weekSummariesJson } from "@/features/planning/server/planning";
-import { idParam } from "@/features/squads/schemas";
+import { idParam } from "@/features/platform/lib/params";
 
 export const dynamic = "force-dynamic";
 type Ctx = { params: Promise<{ id: string }> };

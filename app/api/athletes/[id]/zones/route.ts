@@ -2,7 +2,7 @@ import { z } from "zod";
 import { isoDate } from "@/features/platform/lib/date-schema";
 import { requireActor } from "@/features/access/server/permissions";
 import { HttpError, json, parseParams, route } from "@/features/platform/server/http";
-import { idParam } from "@/features/squads/schemas";
+import { idParam } from "@/features/platform/lib/params";
 import { getZones } from "@/features/zones/server/zone-sets";
 
 export const dynamic = "force-dynamic";

@@ -1,6 +1,6 @@
 import { requireActor } from "@/features/access/server/permissions";
 import { json, parseParams, route } from "@/features/platform/server/http";
-import { tokenParam } from "@/features/squads/schemas";
+import { tokenParam } from "@/features/platform/lib/params";
 import { acceptInvitation } from "@/features/squads/server/squads";
 
 export const dynamic = "force-dynamic";

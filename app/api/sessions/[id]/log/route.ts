@@ -2,7 +2,7 @@ import { requireActor } from "@/features/access/server/permissions";
 import { logSchema } from "@/features/logs/schemas";
 import { logPlannedSession } from "@/features/logs/server/logs";
 import { json, parseParams, readJson, route } from "@/features/platform/server/http";
-import { idParam } from "@/features/squads/schemas";
+import { idParam } from "@/features/platform/lib/params";
 
 export const dynamic = "force-dynamic";
 type Ctx = { params: Promise<{ id: string }> };

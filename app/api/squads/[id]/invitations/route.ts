@@ -1,6 +1,7 @@
 import { requireActor } from "@/features/access/server/permissions";
 import { json, parseParams, readJson, route } from "@/features/platform/server/http";
-import { idParam, inviteSchema } from "@/features/squads/schemas";
+import { inviteSchema } from "@/features/squads/schemas";
+import { idParam } from "@/features/platform/lib/params";
 import { inviteToSquad, listOpenInvitations } from "@/features/squads/server/squads";
 import { publicOrigin } from "@/features/platform/server/origin";
 

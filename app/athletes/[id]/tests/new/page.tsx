@@ -1,6 +1,6 @@
 import Link from "next/link";
 import { notFound } from "next/navigation";
-import { requirePageActor } from "@/features/auth/server/current";
+import { requirePageActor } from "@/features/access/server/current";
 import { getAthleteProfile } from "@/features/athletes/server/profile";
 import { requireAthleteAccess } from "@/features/access/server/permissions";
 import { StopSignChecklist, TestCautions } from "@/features/athlete-tests/components/Cautions";

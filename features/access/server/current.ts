@@ -1,7 +1,7 @@
 import "server-only";
 import { headers } from "next/headers";
 import { redirect } from "next/navigation";
-import { findActor, type SignedInActor } from "@/features/access/server/permissions";
+import { findActor, type SignedInActor } from "./permissions";
 
 /** The signed-in user for a page, or null. */
 export async function currentActor(): Promise<SignedInActor | null> {
