@@ -36,7 +36,7 @@ export const config = {
   matcher: [
     {
       // Pages only: not the API, not built assets, not prefetches (their pages get their own nonce when shown).
-      source: "/((?!api|_next/static|_next/image|icon.svg|favicon.ico).*)",
+      source: "/((?!api|_next/static|_next/image|icon.svg|favicon.ico|robots.txt|manifest.webmanifest).*)",
       missing: [
         { type: "header", key: "next-router-prefetch" },
         { type: "header", key: "purpose", value: "prefetch" },

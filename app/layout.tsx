@@ -1,4 +1,4 @@
-import type { Metadata } from "next";
+import type { Metadata, Viewport } from "next";
 import Link from "next/link";
 import type { ReactNode } from "react";
 import { currentActor, homeFor } from "@/features/access/server/current";
@@ -9,8 +9,12 @@ import "./globals.css";
 
 export const metadata: Metadata = {
   title: { default: "Tidemark", template: "%s · Tidemark" },
+  icons: { icon: "/icon.svg" },
+  manifest: "/manifest.webmanifest",
   description: "Threshold tests, personal zones and intensity-budgeted training plans for endurance coaches and athletes.",
 };
+
+export const viewport: Viewport = { themeColor: "#0f5e63" };
 
 export default async function RootLayout({ children }: { children: ReactNode }) {
   const actor = await currentActor().catch(() => null);

@@ -101,3 +101,19 @@ describe("the content security policy", () => {
     expect(problems.filter((p) => /Content Security Policy|Refused to/.test(p))).toEqual([]);
   });
 });
+
+describe("public files", () => {
+  it("robots.txt keeps search engines to the front page; the web-app manifest and its icon are served", async () => {
+    const robots = await fetch(`${BASE}/robots.txt`);
+    expect(robots.status).toBe(200);
+    expect(await robots.text()).toMatch(/Disallow: \//);
+    const manifest = await fetch(`${BASE}/manifest.webmanifest`);
+    expect(manifest.status).toBe(200);
+    const m = (await manifest.json()) as { name: string; start_url: string; icons: { src: string }[] };
+    expect(m).toMatchObject({ name: "Tidemark", start_url: "/home" });
+    expect((await fetch(`${BASE}${m.icons[0]!.src}`)).status).toBe(200);
+    const { page } = await newPage(browser);
+    await page.goto(`${BASE}/sign-in`);
+    await expect(page.locator('link[rel="manifest"]').getAttribute("href")).resolves.toBe("/manifest.webmanifest");
+  });
+});
