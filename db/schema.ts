@@ -266,6 +266,29 @@ export const screening = pgTable(
   (t) => [index("screening_athlete_idx").on(t.athleteId, t.createdAt)],
 );
 
+/**
+ * A medical clearance after a screening answer that needs one, recorded by a coach as told: who cleared, their role as
+ * typed, the date, a note. It counts for the screening answers given before it (features/athlete-tests/lib/readiness.ts).
+ */
+export const screeningClearance = pgTable(
+  "screening_clearance",
+  {
+    id: text("id").primaryKey(),
+    athleteId: text("athlete_id")
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
+    clearedBy: text("cleared_by").notNull(),
+    role: text("role").notNull(),
+    clearedOn: text("cleared_on").notNull(),
+    note: text("note"),
+    recordedBy: text("recorded_by")
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
+    createdAt: createdAt(),
+  },
+  (t) => [index("screening_clearance_athlete_idx").on(t.athleteId, t.createdAt)],
+);
+
 export const testKind = pgEnum("test_kind", ["gas_exchange", "talk", "submax", "manual"]);
 export const testEnd = pgEnum("test_end", ["exhaustion", "plan", "stop_sign"]);
 

@@ -22,6 +22,7 @@ import { flatten } from "../features/planning/lib/session";
 import { localDate } from "../features/platform/lib/dates";
 import { and, eq, lt } from "drizzle-orm";
 import * as schema from "./schema";
+import { SCREENING_QUESTIONS } from "../features/athlete-tests/lib/readiness";
 
 export const DEMO_PASSWORD = "northfold-demo";
 
@@ -131,7 +132,12 @@ export async function seedDemoIfEmpty(databaseUrl: string): Promise<boolean> {
           password: passwordHash,
         });
         await tx.insert(schema.membership).values({ squadId, userId, role: person.role });
-        if (person.profile) await tx.insert(schema.athleteProfile).values({ userId, ...person.profile });
+        if (person.profile) {
+          await tx.insert(schema.athleteProfile).values({ userId, ...person.profile });
+          // Readiness answered three weeks ago, all no (invented, like the rest of the demo).
+          const answers = Object.fromEntries(SCREENING_QUESTIONS.map((q) => [q.id, false]));
+          await tx.insert(schema.screening).values({ id: randomUUID(), athleteId: userId, answers, anyYes: false, recordedBy: userId, createdAt: new Date(Date.now() - 21 * 86_400_000) });
+        }
         people.set(person.email, userId);
       }
       const adminId = randomUUID();

@@ -11,6 +11,8 @@ import { sessionCards } from "@/features/logs/server/cards";
 import { localDate } from "@/features/platform/lib/dates";
 import { addDays } from "@/features/platform/lib/days";
 import { nextRetestOf } from "@/features/planning/server/planning";
+import { readinessOf } from "@/features/athlete-tests/server/screening";
+import { ReadinessBanner } from "@/features/athlete-tests/components/ReadinessBanner";
 
 export const metadata = { title: "Today" };
 
@@ -32,7 +34,7 @@ export default async function TodayPage() {
   }
   const { profile } = await getAthleteProfile(actor, actor.userId);
   const today = localDate(new Date(), profile.timeZone);
-  const [{ cards, unplanned }, retest] = await Promise.all([sessionCards(actor, actor.userId, today, addDays(today, 6)), nextRetestOf(actor, actor.userId, today)]);
+  const [{ cards, unplanned }, retest, ready] = await Promise.all([sessionCards(actor, actor.userId, today, addDays(today, 6)), nextRetestOf(actor, actor.userId, today), readinessOf(actor.userId)]);
   const todays = cards.filter((c) => c.date === today);
   const ahead = cards.filter((c) => c.date > today);
   const retestIn = retest ? Math.round((Date.parse(retest.date) - Date.parse(today)) / 86_400_000) : null;
@@ -42,6 +44,7 @@ export default async function TodayPage() {
         <p className="text-sm font-semibold uppercase tracking-widest text-tide">Today · {dayName(today)}</p>
         <h1 className="text-3xl font-bold">Hello, {actor.name.split(" ")[0]}</h1>
       </div>
+      <ReadinessBanner readiness={ready} athleteId={actor.userId} context="today" />
       <section aria-labelledby="sessions-heading" className="space-y-3">
         <h2 id="sessions-heading" className="text-lg font-bold">Today&apos;s sessions</h2>
         {todays.length === 0 ? <p className="card text-ink-soft">Nothing is planned for today: a rest day, or log something you did below.</p> : todays.map((c) => <SessionCard key={c.id} s={c} canLog />)}

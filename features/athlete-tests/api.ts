@@ -20,3 +20,7 @@ export function patchThresholds(testId: string, body: unknown) {
 export function saveScreening(athleteId: string, body: unknown) {
   return apiFetch<{ advice: string | null }>(`/api/athletes/${encodeURIComponent(athleteId)}/screening`, { method: "PUT", body: JSON.stringify(body) });
 }
+
+export function saveClearance(athleteId: string, body: unknown) {
+  return apiFetch<{ advice: string | null }>(`/api/athletes/${encodeURIComponent(athleteId)}/screening/clearance`, { method: "POST", body: JSON.stringify(body) });
+}

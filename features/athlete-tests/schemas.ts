@@ -5,19 +5,9 @@ import { submaxSchema } from "@/features/field-tests/lib/submax";
 import { talkTestSchema } from "@/features/field-tests/lib/talk-test";
 import { CHANNELS, UNIT_CHOICES } from "@/features/gas-exchange/lib/csv";
 import { isPlainText, isSingleLine, PLAIN_TEXT_MESSAGE, SINGLE_LINE_MESSAGE } from "@/features/platform/lib/text";
+import { SCREENING_QUESTIONS, type ScreeningQuestionId } from "./lib/readiness";
 
-/** Readiness questions before a test (our wording, in the spirit of common pre-participation screens). */
-export const SCREENING_QUESTIONS = [
-  { id: "heart", text: "Has a doctor ever said you have a heart condition, or that you should exercise only under medical supervision?" },
-  { id: "chest_pain", text: "Do you get chest pain or pressure at rest, in daily life or when you exercise?" },
-  { id: "dizziness", text: "Have you lost your balance from dizziness, fainted or lost consciousness in the past year?" },
-  { id: "bone_joint", text: "Do you have a bone, joint or muscle problem that hard exercise could make worse?" },
-  { id: "medication", text: "Do you take medicine for blood pressure or a heart condition?" },
-  { id: "pregnancy", text: "Are you pregnant, or have you given birth in the past six months?" },
-  { id: "other", text: "Is there any other reason you should not take part in a hard exercise test?" },
-] as const;
-
-export type ScreeningQuestionId = (typeof SCREENING_QUESTIONS)[number]["id"];
+export { SCREENING_QUESTIONS, type ScreeningQuestionId } from "./lib/readiness";
 
 export const screeningSchema = z.object({
   answers: z.object(
@@ -26,6 +16,16 @@ export const screeningSchema = z.object({
   ),
   notes: z.string().trim().max(1000, "Keep the notes under 1000 characters.").refine(isPlainText, PLAIN_TEXT_MESSAGE).optional(),
 });
+
+/** A clearance as a coach records it: who cleared, their role as they typed it, the date, a note. */
+export const clearanceSchema = z
+  .object({
+    clearedBy: z.string().trim().min(2, "Name who gave the clearance.").max(120, "Keep the name under 120 characters.").refine(isSingleLine, SINGLE_LINE_MESSAGE),
+    role: z.string().trim().min(2, "Give their role (for example: sports physician, cardiologist, GP).").max(120, "Keep the role under 120 characters.").refine(isSingleLine, SINGLE_LINE_MESSAGE),
+    clearedOn: isoDate,
+    note: z.string().trim().max(1000, "Keep the note under 1000 characters.").refine(isPlainText, PLAIN_TEXT_MESSAGE).optional(),
+  })
+  .strict();
 
 /** Signs for stopping a test (our wording of the usual indications, after the ACSM Guidelines' list; from memory). */
 export const STOP_SIGNS = [

@@ -132,6 +132,17 @@ describe("the everyday story", () => {
     await a.getByRole("button", { name: "Save my profile" }).click();
     await a.getByText(/Saved/).first().waitFor();
     await visit(a, "05-athlete-settings", athlete.problems);
+    // Before any test the athlete answers the readiness questions (all no here).
+    await a.getByRole("link", { name: "Today" }).click();
+    await a.waitForURL(/\/today/);
+    await a.getByTestId("readiness-banner").getByRole("link", { name: "Answer the readiness questions" }).click();
+    await a.waitForURL(/\/screening$/);
+    const noes = a.getByRole("radio", { name: "No" });
+    await noes.first().waitFor();
+    for (let i = 0; i < (await noes.count()); i++) await noes.nth(i).check();
+    await a.getByRole("button", { name: "Save the answers" }).click();
+    await a.getByText("Saved. No answer needs medical clearance.").waitFor();
+    await visit(a, "05b-readiness", athlete.problems);
 
     step("2");
     // 2. The coach records a gas-exchange test, drags VT2, saves; the zone set appears for coach and athlete.

@@ -5,6 +5,7 @@
 // the product brief (athletes see only their own data; coaches only their squads' athletes; admins no training data).
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { encodeFit } from "@/features/activities/lib/fit-fixture";
+import { SCREENING_QUESTIONS } from "@/features/athlete-tests/lib/readiness";
 import { unsubscribeToken } from "@/features/messages/lib/unsubscribe";
 import { syntheticRamp } from "@/features/gas-exchange/lib/synthetic-ramp";
 import { startFakeEmail, type FakeEmail } from "../../scripts/fake-email";
@@ -84,7 +85,8 @@ const MATRIX: Record<string, Cell> = {
   "GET /api/athletes/[id]/profile": { ok: A_AND_COACH, path: () => "/api/athletes/x/profile", params: (i) => ({ id: i.athleteA! }) },
   "PATCH /api/athletes/[id]/profile": { ok: A_AND_COACH, path: () => "/api/athletes/x/profile", params: (i) => ({ id: i.athleteA! }), body: () => ({ restingHrBpm: 50 }) },
   "GET /api/athletes/[id]/screening": { ok: A_AND_COACH, path: () => "/api/athletes/x/screening", params: (i) => ({ id: i.athleteA! }) },
-  "PUT /api/athletes/[id]/screening": { ok: A_AND_COACH, path: () => "/api/athletes/x/screening", params: (i) => ({ id: i.athleteA! }), body: () => ({ answers: { heart: false, chest_pain: false, dizziness: false, bone_joint: false, medication: false, pregnancy: false, other: false } }) },
+  "PUT /api/athletes/[id]/screening": { ok: A_AND_COACH, path: () => "/api/athletes/x/screening", params: (i) => ({ id: i.athleteA! }), body: () => ({ answers: Object.fromEntries(SCREENING_QUESTIONS.map((q) => [q.id, false])) }) },
+  "POST /api/athletes/[id]/screening/clearance": { ok: ["coach"], path: () => "/api/athletes/x/screening/clearance", params: (i) => ({ id: i.athleteA! }), body: () => ({ clearedBy: "Dr Matrix", role: "sports physician", clearedOn: "2026-11-30" }) },
   "GET /api/athletes/[id]/seasons": { ok: A_AND_COACH, path: () => "/api/athletes/x/seasons", params: (i) => ({ id: i.athleteA! }) },
   "POST /api/athletes/[id]/seasons": { ok: ["coach"], path: () => "/api/athletes/x/seasons", params: (i) => ({ id: i.athleteA! }), body: () => ({ name: "Matrix season", sport: "running", startDate: "2027-05-03", events: [{ date: "2027-08-01", name: "Race" }], weeklyHours: 5 }) },
   "GET /api/athletes/[id]/sessions": { ok: A_AND_COACH, path: () => "/api/athletes/x/sessions", params: (i) => ({ id: i.athleteA! }), query: () => "?from=2027-04-01&to=2027-04-30" },

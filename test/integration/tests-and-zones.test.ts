@@ -3,7 +3,6 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import * as testsRoute from "@/app/api/athletes/[id]/tests/route";
 import * as zonesRoute from "@/app/api/athletes/[id]/zones/route";
-import * as screeningRoute from "@/app/api/athletes/[id]/screening/route";
 import * as testRoute from "@/app/api/tests/[id]/route";
 import * as thresholdsRoute from "@/app/api/tests/[id]/thresholds/route";
 import * as fileRoute from "@/app/api/tests/[id]/file/route";
@@ -171,21 +170,5 @@ describe("talk tests, hand-entered thresholds and zones on a date", () => {
     expect(r.json.result.band).toHaveLength(2);
     const zones = await s.coach.browser.call(zonesRoute, "GET", `/api/athletes/${s.athleteB.id}/zones`, { params: { id: s.athleteB.id }, query: "?date=2026-12-01" });
     expect(zones.json.inForce.cycling).toBeUndefined();
-  });
-});
-
-describe("readiness screening", () => {
-  it("stores answers with their date and advises clearance on any yes", async () => {
-    const answers = { heart: false, chest_pain: false, dizziness: false, bone_joint: true, medication: false, pregnancy: false, other: false };
-    const put = await s.athleteA.browser.call(screeningRoute, "PUT", `/api/athletes/${s.athleteA.id}/screening`, { params: { id: s.athleteA.id }, body: { answers } });
-    expect(put.status).toBe(200);
-    expect(put.json.latest.anyYes).toBe(true);
-    expect(put.json.advice).toMatch(/clearance/);
-    const read = await s.coach.browser.call(screeningRoute, "GET", `/api/athletes/${s.athleteA.id}/screening`, { params: { id: s.athleteA.id } });
-    expect(read.json.latest.answers.bone_joint).toBe(true);
-    const partial = await s.athleteA.browser.call(screeningRoute, "PUT", `/api/athletes/${s.athleteA.id}/screening`, { params: { id: s.athleteA.id }, body: { answers: { heart: false } } });
-    expect(partial.status).toBe(400);
-    const stranger = await s.athleteB.browser.call(screeningRoute, "GET", `/api/athletes/${s.athleteA.id}/screening`, { params: { id: s.athleteA.id } });
-    expect(stranger.status).toBe(404);
   });
 });

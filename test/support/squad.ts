@@ -3,6 +3,8 @@ import * as acceptRoute from "@/app/api/invitations/[token]/accept/route";
 import * as meRoute from "@/app/api/me/route";
 import * as invitationsRoute from "@/app/api/squads/[id]/invitations/route";
 import * as squadsRoute from "@/app/api/squads/route";
+import * as screeningRoute from "@/app/api/athletes/[id]/screening/route";
+import { SCREENING_QUESTIONS } from "@/features/athlete-tests/lib/readiness";
 import { Browser } from "./api";
 import { query } from "./db";
 
@@ -28,7 +30,14 @@ async function join(head: Browser, squadId: string, name: string, email: string,
   const a = await b.call(acceptRoute, "POST", `/api/invitations/${token}/accept`, { params: { token } });
   if (a.status !== 200) throw new Error(`accept failed ${a.status}`);
   const me = await b.call(meRoute, "GET", "/api/me");
-  return { browser: b, id: me.json.user.id, email };
+  const id = me.json.user.id as string;
+  if (role === "athlete") {
+    // Readiness answered, all no: tests may be recorded (test/integration/screening tests the other answers).
+    const answers = Object.fromEntries(SCREENING_QUESTIONS.map((q) => [q.id, false]));
+    const put = await b.call(screeningRoute, "PUT", `/api/athletes/${id}/screening`, { params: { id }, body: { answers } });
+    if (put.status !== 200) throw new Error(`screening failed ${put.status}`);
+  }
+  return { browser: b, id, email };
 }
 
 export async function makeSquad(label = "s") {

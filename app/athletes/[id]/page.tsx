@@ -14,6 +14,7 @@ import { LoadChart } from "@/features/load/components/LoadChart";
 import { athleteDrift, athleteLoad } from "@/features/load/server/load";
 import { localDate } from "@/features/platform/lib/dates";
 import { addDays } from "@/features/platform/lib/days";
+import { ReadinessBanner } from "@/features/athlete-tests/components/ReadinessBanner";
 
 export const metadata = { title: "Athlete" };
 
@@ -63,7 +64,7 @@ export default async function AthletePage({ params }: { params: Promise<{ id: st
             </nav>
           ) : null}
         </div>
-        {screening.advice ? <p role="alert" className="rounded-md border border-alert/40 bg-alert-wash p-3 text-sm text-alert">{screening.advice}</p> : null}
+        <ReadinessBanner readiness={screening.readiness} athleteId={id} context="athlete" />
         <p className="text-sm">
           Readiness screening: {screening.latest ? `answered on ${new Date(screening.latest.date).toISOString().slice(0, 10)}${screening.latest.anyYes ? " — at least one yes" : " — all no"}` : "not answered yet"}.{" "}
           <Link href={`/athletes/${id}/screening`} className="font-semibold text-tide underline">{screening.latest ? "Review or update" : "Answer the questions"}</Link>

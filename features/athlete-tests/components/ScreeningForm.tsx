@@ -48,7 +48,7 @@ export function ScreeningForm({ athleteId, initial, advice }: { athleteId: strin
               <div className="mt-1 flex gap-6 text-sm">
                 {[true, false].map((v) => (
                   <label key={String(v)} className="flex items-center gap-2">
-                    <input type="radio" name={`screen-${q.id}`} checked={answers[q.id] === v} onChange={() => setAnswers({ ...answers, [q.id]: v })} />
+                    <input type="radio" name={`screen-${q.id}`} checked={answers[q.id] === v} onChange={() => setAnswers((prev) => ({ ...prev, [q.id]: v }))} />
                     {v ? "Yes" : "No"}
                   </label>
                 ))}

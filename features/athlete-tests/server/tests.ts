@@ -16,6 +16,7 @@ import { saveZoneSetForTest, zonesFor, type ZoneSetView } from "@/features/zones
 import type { z } from "zod";
 import type { JsonTestInput, testMetaSchema, ThresholdPatch } from "../schemas";
 import type { TestView } from "../lib/views";
+import { requireTestAllowed } from "./screening";
 
 type Meta = z.infer<typeof testMetaSchema>;
 
@@ -41,6 +42,8 @@ export async function createGasExchangeTest(
   file: { name: string; type: string; bytes: Uint8Array },
 ) {
   await requireAthleteAccess(actor, athleteId, "coach");
+  // Readiness first: a missing, expired or blocking screening stops the test before anything is read.
+  await requireTestAllowed(athleteId, "gas_exchange");
   if (file.bytes.length === 0) throw new HttpError(400, "The file is empty.");
   const mass = meta.bodyMassKg ?? (await profileMass(athleteId));
   const read = await readGasExchangeFile(file.bytes, meta.mapping, { bodyMassKg: mass, units: meta.units, sheet: meta.sheet });
@@ -81,6 +84,7 @@ export async function createGasExchangeTest(
 /** Talk tests, submaximal estimates and thresholds entered by hand. One transaction. */
 export async function createJsonTest(actor: Actor, athleteId: string, input: JsonTestInput) {
   await requireAthleteAccess(actor, athleteId, "coach");
+  await requireTestAllowed(athleteId, input.kind);
   const id = randomUUID();
   let detected: ThresholdPair = { vt1: null, vt2: null };
   let result: Record<string, unknown>;

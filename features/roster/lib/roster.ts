@@ -7,6 +7,7 @@ import { latestLoad, type ReportLog, type ReportPlanned } from "@/features/load/
 import { mondayOf } from "@/features/platform/lib/days";
 import { summariseWeeks, type SeasonWeekInfo } from "@/features/planning/lib/weeks";
 import { addDays } from "@/features/platform/lib/days";
+import { readiness, type ReadinessInput, type ReadinessStatus } from "@/features/athlete-tests/lib/readiness";
 
 /** A retest is due at the latest this long after the zones were set (common practice: 12–16 weeks). */
 export const RETEST_DUE_WEEKS = 16;
@@ -19,6 +20,8 @@ export interface RosterInput {
   sessions: (ReportPlanned & { title: string; kind: string })[];
   logs: (ReportLog & { sport: string; hrAvgBpm: number | null; powerAvgW: number | null; speedAvgKmh: number | null })[];
   seasonWeeks: SeasonWeekInfo[];
+  /** The latest screening answers and the clearances (features/athlete-tests/lib/readiness.ts); absent means none. */
+  readiness?: Omit<ReadinessInput, "today">;
 }
 
 export interface RosterRow {
@@ -35,6 +38,8 @@ export interface RosterRow {
   acwr: number | null;
   loadFlag: "low" | "high" | null;
   drift: { message: string; direction: "up" | "down" } | null;
+  /** Readiness for testing and hard sessions: a hold, a missing or expired screening, a caution on heart rate. */
+  readiness: { status: ReadinessStatus; holdHardSessions: boolean; label: string; hrMedication: boolean };
 }
 
 const days = (a: string, b: string) => Math.round((Date.parse(`${b}T00:00:00Z`) - Date.parse(`${a}T00:00:00Z`)) / 86_400_000);
@@ -85,5 +90,6 @@ export function rosterRow(input: RosterInput): RosterRow {
     acwr: latest.acwrEwma ?? latest.acwrRolling,
     loadFlag: latest.flag,
     drift,
+    readiness: (({ status, holdHardSessions, label, hrMedication }) => ({ status, holdHardSessions, label, hrMedication }))(readiness({ ...(input.readiness ?? { latest: null, clearances: [] }), today })),
   };
 }

@@ -9,6 +9,7 @@ import { mondayOf } from "@/features/platform/lib/days";
 import { type SeasonWeekInfo } from "@/features/planning/lib/weeks";
 import { addDays } from "@/features/platform/lib/days";
 import { rosterRow, type RosterRow } from "../lib/roster";
+import { readinessInputs } from "@/features/athlete-tests/server";
 
 type PlannedRow = Record<string, unknown> & { id: string; athleteId: string; date: string; title: string; kind: string; totalS: number; minutesByZone: [number, number, number] };
 type LogRow = ReportLog & Record<string, unknown> & { athleteId: string; sport: string; hrAvgBpm: number | null; powerAvgW: number | null; speedAvgKmh: number | null };
@@ -89,6 +90,7 @@ async function computeRows(athletes: Athlete[], localToday: (tz: string | null) 
   const ids = athletes.map((a) => a.id);
   const today = localDate(now, "UTC");
   const monday = mondayOf(today);
+  const readinessPending = readinessInputs(ids);
   const [zoneSets, tests, sessions, logs, seasons] = await Promise.all([
     db.select({ athleteId: schema.zoneSet.athleteId, sport: schema.zoneSet.sport, effectiveFrom: schema.zoneSet.effectiveFrom }).from(schema.zoneSet).where(inArray(schema.zoneSet.athleteId, ids)),
     db.select({ athleteId: schema.athleteTest.athleteId, date: schema.athleteTest.testDate }).from(schema.athleteTest).where(inArray(schema.athleteTest.athleteId, ids)),
@@ -115,6 +117,7 @@ async function computeRows(athletes: Athlete[], localToday: (tz: string | null) 
     return m;
   };
   const bySets = group(zoneSets), byTests = group(tests), bySessions = group([...sessions]), byLogs = group([...logs]), bySeasons = group(seasons);
+  const readinessBy = await readinessPending;
   const rows = athletes.map((a) => {
     const own = bySessions.get(a.id) ?? [];
     return rosterRow({
@@ -125,6 +128,7 @@ async function computeRows(athletes: Athlete[], localToday: (tz: string | null) 
       sessions: own,
       logs: byLogs.get(a.id) ?? [],
       seasonWeeks: (bySeasons.get(a.id) ?? []).flatMap((s) => s.weeks as unknown as SeasonWeekInfo[]),
+      readiness: readinessBy.get(a.id),
     });
   });
   return rows;

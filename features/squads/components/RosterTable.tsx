@@ -14,7 +14,7 @@ type Filter = "all" | "attention" | "over" | "retest" | "load";
 
 /** How much a row needs the coach: over budget, overdue retest, load flag, drift, low compliance. */
 function attention(r: RosterRow): number {
-  return (r.week.overBudget ? 1 : 0) + (r.retestOverdue ? 1 : 0) + (r.loadFlag ? 1 : 0) + (r.drift ? 1 : 0) + (r.compliance4w !== null && r.compliance4w < 0.7 ? 1 : 0);
+  return (r.readiness?.holdHardSessions ? 3 : 0) + (r.readiness && r.readiness.status !== "ready" ? 1 : 0) + (r.week.overBudget ? 1 : 0) + (r.retestOverdue ? 1 : 0) + (r.loadFlag ? 1 : 0) + (r.drift ? 1 : 0) + (r.compliance4w !== null && r.compliance4w < 0.7 ? 1 : 0);
 }
 
 const compare: Record<SortKey, (a: RosterRow, b: RosterRow) => number> = {
@@ -107,6 +107,12 @@ export function RosterTable({ squadId }: { squadId: string }) {
                   <Link href={`/athletes/${r.id}`} className="font-semibold text-tide hover:underline">{r.name}</Link>
                   <p className="text-xs text-ink-soft">{r.email}</p>
                   {r.drift ? <p className="mt-1 max-w-xs text-xs text-alert" data-testid="drift">Zone drift: {r.drift.message}</p> : null}
+                  {r.readiness && r.readiness.status !== "ready" ? (
+                    <p className={`mt-1 max-w-xs text-xs ${r.readiness.holdHardSessions ? "font-bold text-alert" : "text-alert"}`} data-testid="readiness">
+                      {r.readiness.label}
+                    </p>
+                  ) : null}
+                  {r.readiness?.hrMedication ? <p className="mt-1 max-w-xs text-xs text-ink-soft">Heart-rate-lowering medicine: use power, pace or RPE targets</p> : null}
                 </td>
                 <td className="py-2 pr-3">{r.sports.length ? r.sports.map(sportLabel).join(", ") : <span className="text-ink-soft">not set</span>}</td>
                 <td className="num py-2 pr-3">{r.zoneSetAgeDays === null ? <span className="text-ink-soft">no zones yet</span> : r.zoneSetAgeDays < 14 ? `${r.zoneSetAgeDays} days ago` : `${Math.round(r.zoneSetAgeDays / 7)} weeks ago`}</td>

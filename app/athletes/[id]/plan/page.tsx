@@ -14,6 +14,8 @@ import { mondayOf } from "@/features/platform/lib/days";
 import { listSeasons, weekSummaries } from "@/features/planning/server/planning";
 import { listTemplates } from "@/features/planning/server/templates";
 import { isoDate } from "@/features/planning/schemas";
+import { readinessOf } from "@/features/athlete-tests/server/screening";
+import { ReadinessBanner } from "@/features/athlete-tests/components/ReadinessBanner";
 
 export const metadata = { title: "Plan" };
 
@@ -28,7 +30,7 @@ export default async function PlanPage({ params, searchParams }: { params: Promi
   const memberships = await membershipsOfAthlete(id);
   const canEdit = canCoachAthlete(actor, { userId: id, memberships });
   const athleteSquads = new Set(memberships.filter((m) => m.role === "athlete").map((m) => m.squadId));
-  const [seasons, templates] = await Promise.all([listSeasons(actor, id), canEdit ? listTemplates(actor) : Promise.resolve([])]);
+  const [seasons, templates, ready] = await Promise.all([listSeasons(actor, id), canEdit ? listTemplates(actor) : Promise.resolve([]), readinessOf(id)]);
   const today = new Date().toISOString().slice(0, 10);
   const current = seasons.find((s) => {
     const w = s.weeks as unknown as SeasonWeek[];
@@ -51,6 +53,7 @@ export default async function PlanPage({ params, searchParams }: { params: Promi
         </div>
         {canEdit ? <Link href="/templates" className="btn-quiet">Session templates</Link> : null}
       </div>
+      <ReadinessBanner readiness={ready} athleteId={id} context="plan" />
       {current ? (
         <>
           <div className="card"><SeasonRibbon athleteId={id} name={current.name} weeks={seasonWeeks} overBudget={overBudget} /></div>

@@ -5,6 +5,10 @@ import { getAthleteProfile } from "@/features/athletes/server/profile";
 import { ScreeningForm } from "@/features/athlete-tests/components/ScreeningForm";
 import { getScreening } from "@/features/athlete-tests/server/screening";
 import { HttpError } from "@/features/platform/server/http";
+import { ClearanceForm } from "@/features/athlete-tests/components/ClearanceForm";
+import { ReadinessBanner } from "@/features/athlete-tests/components/ReadinessBanner";
+import { membershipsOfAthlete } from "@/features/access/server/permissions";
+import { canCoachAthlete } from "@/features/access/lib/rules";
 
 export const metadata = { title: "Readiness screening" };
 
@@ -15,7 +19,8 @@ export default async function ScreeningPage({ params }: { params: Promise<{ id: 
     if (e instanceof HttpError && e.status === 404) notFound();
     throw e;
   });
-  const screening = await getScreening(actor, id);
+  const [screening, memberships] = await Promise.all([getScreening(actor, id), membershipsOfAthlete(id)]);
+  const coaches = canCoachAthlete(actor, { userId: id, memberships });
   return (
     <div className="mx-auto max-w-2xl space-y-4">
       <p className="text-sm font-semibold uppercase tracking-widest text-tide">
@@ -23,12 +28,32 @@ export default async function ScreeningPage({ params }: { params: Promise<{ id: 
       </p>
       <h1 className="text-2xl font-bold">Readiness before testing</h1>
       <p className="text-sm text-ink-soft">
-        Answer each question before a maximal test. A yes does not forbid training, but it means a physician or another
-        licensed health professional should clear the athlete for a maximal test first. Tidemark is not a medical device.
+        Answer each question before any test, again every 12 months and whenever something changes. A yes to a symptom or a
+        recent illness holds testing and hard sessions until a physician or another licensed health professional has
+        cleared the athlete; another yes means a maximal test waits for such a clearance. Tidemark is not a medical device:
+        follow local clinical practice.
       </p>
+      <ReadinessBanner readiness={screening.readiness} athleteId={id} context="screening" />
       <div className="card">
-        <ScreeningForm athleteId={id} initial={screening.latest?.answers ?? null} advice={screening.advice} />
+        <ScreeningForm athleteId={id} initial={screening.latest?.answers ?? null} advice={screening.latest ? screening.advice : null} />
       </div>
+      {screening.clearances.length ? (
+        <section className="card text-sm" aria-labelledby="clearances-h">
+          <h2 id="clearances-h" className="font-bold">Clearances recorded</h2>
+          <ul className="mt-1 space-y-1">
+            {screening.clearances.map((c) => (
+              <li key={c.recordedAt.toISOString()}>
+                {c.clearedOn}: {c.clearedBy} ({c.role}){c.note ? ` — ${c.note}` : ""} <span className="text-ink-soft">(recorded {c.recordedAt.toISOString().slice(0, 10)})</span>
+              </li>
+            ))}
+          </ul>
+        </section>
+      ) : null}
+      {coaches && screening.latest && screening.readiness.status !== "ready" && screening.readiness.status !== "expired" && screening.readiness.status !== "incomplete" ? (
+        <div className="card">
+          <ClearanceForm athleteId={id} today={new Date().toISOString().slice(0, 10)} />
+        </div>
+      ) : null}
       {screening.history.length ? (
         <p className="text-xs text-ink-soft">Earlier answers: {screening.history.map((h) => `${new Date(h.date).toISOString().slice(0, 10)} (${h.anyYes ? "a yes" : "all no"})`).join(", ")}</p>
       ) : null}

@@ -8,6 +8,8 @@ import { ManualThresholdsForm, SubmaxForm, TalkTestForm } from "@/features/athle
 import { GasExchangeUpload } from "@/features/athlete-tests/components/GasExchangeUpload";
 import { getScreening } from "@/features/athlete-tests/server/screening";
 import { HttpError } from "@/features/platform/server/http";
+import { ReadinessBanner } from "@/features/athlete-tests/components/ReadinessBanner";
+import { testAllowed } from "@/features/athlete-tests/lib/readiness";
 
 export const metadata = { title: "Record a test" };
 
@@ -44,12 +46,11 @@ export default async function NewTestPage({ params, searchParams }: { params: Pr
         ))}
       </nav>
       <TestCautions />
-      {!screening.latest ? (
-        <p role="status" className="rounded-md border border-rule bg-paper p-3 text-sm">
-          The readiness questions have not been answered. <Link href={`/athletes/${id}/screening`} className="font-semibold text-tide underline">Answer them first</Link> before a maximal test.
+      <ReadinessBanner readiness={screening.readiness} athleteId={id} context="test" />
+      {!testAllowed(screening.readiness, kind === "gas" ? "gas_exchange" : kind) ? (
+        <p role="alert" className="rounded-md border border-alert bg-alert-wash p-3 text-sm font-semibold text-alert">
+          This test cannot be recorded until the readiness answers allow it: saving it will be refused.
         </p>
-      ) : screening.advice ? (
-        <p role="alert" className="rounded-md border border-alert/40 bg-alert-wash p-3 text-sm text-alert">{screening.advice}</p>
       ) : null}
       <div className="grid gap-6 lg:grid-cols-[2fr_1fr]">
         <div className="card">

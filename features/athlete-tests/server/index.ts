@@ -1,0 +1,2 @@
+/** What other features may use of athlete-tests/server. */
+export { readinessInputs, readinessOf } from "./screening";
