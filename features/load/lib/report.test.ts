@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { acwrRolling } from "./load";
-import { loadReport, logZoneMinutes, type ReportLog } from "./report";
+import { latestLoad, loadReport, logZoneMinutes, type ReportLog } from "./report";
 
 const log = (date: string, durationMin: number, rpe: number, extra: Partial<ReportLog> = {}): ReportLog => ({ date, status: "done", durationMin, rpe, measuredMinByZone: null, trimp: null, plannedSessionId: null, ...extra });
 
@@ -46,5 +46,35 @@ describe("latest load (the roster's shortcut)", () => {
     const logs = Array.from({ length: 60 }, (_, i) => log(new Date(Date.UTC(2026, 8, 20 + i)).toISOString().slice(0, 10), 20 + ((i * 37) % 70), 2 + ((i * 13) % 8)));
     const full = loadReport({ logs, planned: [], from: "2026-10-21", to: "2026-11-17" }).latest; // from = today − 27
     expect(latestLoad(logs, "2026-11-17")).toEqual(full);
+  });
+});
+
+describe("the exponentially weighted ratio is the same on every screen", () => {
+  // A year of invented logs: 45–90 min at RPE 3–8 on five days a week (deterministic).
+  const logs: ReportLog[] = [];
+  for (let d = 0; d < 365; d++) {
+    if (d % 7 === 2 || d % 7 === 5) continue;
+    const date = new Date(Date.UTC(2026, 0, 1) + d * 86_400_000).toISOString().slice(0, 10);
+    logs.push({ date, status: "done", durationMin: 45 + ((d * 37) % 46), rpe: 3 + ((d * 13) % 6), measuredMinByZone: null, trimp: null, plannedSessionId: null });
+  }
+  const first = logs[0]!.date;
+  const day = "2026-11-17";
+
+  it("a one-week report, an eight-week report and the roster's value agree for the same day", () => {
+    const week = loadReport({ logs, planned: [], from: "2026-11-11", to: day, firstLogDate: first }).days.at(-1)!.acwrEwma!;
+    const eight = loadReport({ logs, planned: [], from: "2026-09-23", to: day, firstLogDate: first }).days.at(-1)!.acwrEwma!;
+    const roster = latestLoad(logs, day, first).acwrEwma!;
+    expect(Math.abs(week - eight)).toBeLessThan(1e-4);
+    expect(Math.abs(roster - eight)).toBeLessThan(1e-4);
+  });
+
+  it("with a short history every window starts at the first log, so the values are identical; no ratio before 28 days of it", () => {
+    const recent = logs.filter((l) => l.date >= "2026-10-01");
+    const a = loadReport({ logs: recent, planned: [], from: "2026-11-10", to: day, firstLogDate: "2026-10-01" }).days.at(-1)!.acwrEwma;
+    const b = loadReport({ logs: recent, planned: [], from: "2026-10-20", to: day, firstLogDate: "2026-10-01" }).days.at(-1)!.acwrEwma;
+    expect(a).not.toBeNull();
+    expect(a).toBe(b);
+    expect(latestLoad(recent, day, "2026-10-01").acwrEwma).toBe(a);
+    expect(latestLoad(recent, "2026-10-20", "2026-10-01").acwrEwma).toBeNull();
   });
 });

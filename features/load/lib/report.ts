@@ -79,8 +79,50 @@ export function sessionCompliance(log: ReportLog | undefined, planned: ReportPla
   return log.durationMin / (planned.totalS / 60);
 }
 
-export function loadReport(p: { logs: ReportLog[]; planned: ReportPlanned[]; from: string; to: string }): LoadReport {
+/**
+ * The exponentially weighted ratio depends on where its series starts (the first day seeds both averages). So that every
+ * screen shows the same value for the same day, the series starts at the athlete's first logged day, or EWMA_HISTORY_DAYS
+ * before the first day asked for when the history is longer: the seed's weight in the chronic average is then
+ * (1 − 2/29)^180 ≈ 3 × 10⁻⁶, below any rounding shown.
+ */
+export const EWMA_HISTORY_DAYS = 180;
+
+/** The first day of the EWMA series for a report starting on `firstDay`, given the athlete's first logged day. */
+export function ewmaStart(firstLogDate: string | null | undefined, firstDay: string): string {
+  const earliest = isoOf(dayNum(firstDay) - EWMA_HISTORY_DAYS);
+  if (!firstLogDate || firstLogDate < earliest) return earliest;
+  return firstLogDate;
+}
+
+/** Daily session-RPE loads from `origin` (a day number) for `length` days, and the unrated count. */
+function dailyLoads(logs: ReportLog[], origin: number, length: number): { daily: number[]; unrated: number } {
+  const daily = new Array(length).fill(0) as number[];
+  let unrated = 0;
+  for (const l of logs) {
+    const d = dayNum(l.date) - origin;
+    if (d < 0 || d >= length || l.status === "skipped") continue;
+    if (l.rpe == null || l.durationMin == null) {
+      unrated++;
+      continue;
+    }
+    daily[d]! += sessionRpeLoad(l.rpe, l.durationMin);
+  }
+  return { daily, unrated };
+}
+
+/** The EWMA ratio of each day from `first` to `last` (day numbers), its series starting on `start`. */
+function ewmaRatios(logs: ReportLog[], start: number, first: number, last: number): (number | null)[] {
+  const from = Math.min(start, first);
+  const { daily } = dailyLoads(logs, from, last - from + 1);
+  const series = acwrEwmaSeries(daily.slice(start - from));
+  const out: (number | null)[] = [];
+  for (let n = first; n <= last; n++) out.push(n < start ? null : series[n - start]!.ratio);
+  return out;
+}
+
+export function loadReport(p: { logs: ReportLog[]; planned: ReportPlanned[]; from: string; to: string; firstLogDate?: string | null }): LoadReport {
   const first = dayNum(p.from), last = dayNum(p.to);
+  const ewmaByDay = ewmaRatios(p.logs, dayNum(ewmaStart(p.firstLogDate, p.from)), first, last);
   const origin = first - 27;
   const daily = new Array(last - origin + 1).fill(0) as number[];
   const plannedById = new Map(p.planned.map((s) => [s.id, s]));
@@ -94,11 +136,10 @@ export function loadReport(p: { logs: ReportLog[]; planned: ReportPlanned[]; fro
     }
     daily[d]! += sessionRpeLoad(l.rpe, l.durationMin);
   }
-  const ewma = acwrEwmaSeries(daily);
   const days: DayLoad[] = [];
   for (let n = first; n <= last; n++) {
     const i = n - origin;
-    days.push({ date: isoOf(n), load: daily[i]!, acwrRolling: acwrRolling(daily.slice(Math.max(0, i - 27), i + 1)), acwrEwma: ewma[i]!.ratio });
+    days.push({ date: isoOf(n), load: daily[i]!, acwrRolling: acwrRolling(daily.slice(Math.max(0, i - 27), i + 1)), acwrEwma: ewmaByDay[n - first]! });
   }
   // Bucket logs and planned sessions by week once (day numbers parsed once each).
   const firstMonday = mondayNum(first);
@@ -155,15 +196,10 @@ export function loadReport(p: { logs: ReportLog[]; planned: ReportPlanned[]; fro
  * Only the acute:chronic ratios of `today` — what the roster shows — without the day and week tables: the same numbers as
  * `loadReport({ from: today − 27, to: today }).latest`, for many athletes at once.
  */
-export function latestLoad(logs: ReportLog[], today: string): LoadReport["latest"] {
-  const last = dayNum(today), origin = last - 54;
-  const daily = new Array(55).fill(0) as number[];
-  for (const l of logs) {
-    if (l.status === "skipped" || l.rpe == null || l.durationMin == null) continue;
-    const d = dayNum(l.date) - origin;
-    if (d >= 0 && d < 55) daily[d]! += sessionRpeLoad(l.rpe, l.durationMin);
-  }
-  const ewma = acwrEwmaSeries(daily).at(-1)!.ratio;
-  const rolling = acwrRolling(daily.slice(-28));
+export function latestLoad(logs: ReportLog[], today: string, firstLogDate?: string | null): LoadReport["latest"] {
+  const last = dayNum(today), origin = last - 27;
+  const { daily } = dailyLoads(logs, origin, 28);
+  const ewma = ewmaRatios(logs, dayNum(ewmaStart(firstLogDate, today)), last, last)[0]!;
+  const rolling = acwrRolling(daily);
   return { acwrRolling: rolling, acwrEwma: ewma, flag: acwrFlag(ewma ?? rolling) };
 }

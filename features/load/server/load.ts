@@ -1,12 +1,11 @@
 import "server-only";
-import { and, asc, eq, gte, lte } from "drizzle-orm";
+import { and, asc, eq, gte, lte, sql } from "drizzle-orm";
 import { getDb, schema } from "@/db/client";
 import { requireAthleteAccess } from "@/features/access/server";
 import type { Actor } from "@/features/access/lib/rules";
-import { addDays } from "@/features/platform/lib/days";
-import { mondayOf } from "@/features/platform/lib/days";
+import { addDays, mondayOf } from "@/features/platform/lib/days";
 import { driftAcrossSports } from "../lib/drift";
-import { loadReport, type ReportLog, type ReportPlanned } from "../lib/report";
+import { ewmaStart, loadReport, type ReportLog, type ReportPlanned } from "../lib/report";
 
 const logColumns = {
   id: schema.sessionLog.id,
@@ -46,11 +45,15 @@ export interface LogLite extends ReportLog {
 export async function athleteLoad(actor: Actor, athleteId: string, from: string, to: string) {
   await requireAthleteAccess(actor, athleteId, "view");
   const db = getDb();
+  // The exponentially weighted ratio starts at the athlete's first log or 180 days back (report.ts: ewmaStart).
+  const [firstLog] = await db.select({ date: sql<string | null>`min(${schema.sessionLog.date})` }).from(schema.sessionLog).where(eq(schema.sessionLog.athleteId, athleteId));
+  const firstLogDate = firstLog?.date ?? null;
+  const since = [ewmaStart(firstLogDate, from), addDays(from, -28)].sort()[0]!;
   const [logs, planned] = await Promise.all([
-    db.select(logColumns).from(schema.sessionLog).where(and(eq(schema.sessionLog.athleteId, athleteId), gte(schema.sessionLog.date, addDays(from, -28)), lte(schema.sessionLog.date, to))).orderBy(asc(schema.sessionLog.date)),
+    db.select(logColumns).from(schema.sessionLog).where(and(eq(schema.sessionLog.athleteId, athleteId), gte(schema.sessionLog.date, since), lte(schema.sessionLog.date, to))).orderBy(asc(schema.sessionLog.date)),
     db.select(plannedColumns).from(schema.plannedSession).where(and(eq(schema.plannedSession.athleteId, athleteId), gte(schema.plannedSession.date, mondayOf(addDays(from, -28))), lte(schema.plannedSession.date, addDays(mondayOf(to), 6)))),
   ]);
-  return loadReport({ logs: logs as ReportLog[], planned: planned as ReportPlanned[], from, to });
+  return loadReport({ logs: logs as ReportLog[], planned: planned as ReportPlanned[], from, to, firstLogDate });
 }
 
 /** The athlete's zone drift as of `today` (logs of the last 120 days). */

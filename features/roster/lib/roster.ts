@@ -20,6 +20,8 @@ export interface RosterInput {
   sessions: (ReportPlanned & { title: string; kind: string })[];
   logs: (ReportLog & { sport: string; hrAvgBpm: number | null; powerAvgW: number | null; speedAvgKmh: number | null })[];
   seasonWeeks: SeasonWeekInfo[];
+  /** The athlete's first logged day: where the exponentially weighted load ratio starts (load/lib/report.ts). */
+  firstLogDate?: string | null;
   /** The latest screening answers and the clearances (features/athlete-tests/lib/readiness.ts); absent means none. */
   readiness?: Omit<ReadinessInput, "today">;
 }
@@ -64,7 +66,7 @@ export function rosterRow(input: RosterInput): RosterRow {
 
   const done = input.logs.map((l) => ({ date: l.date, minutesByZone: l.status === "skipped" ? ([0, 0, 0] as [number, number, number]) : (l.measuredMinByZone ?? [0, 0, 0]) }));
   const [week] = summariseWeeks({ from: monday, to: monday, sessions: input.sessions, seasonWeeks: input.seasonWeeks, testDates: lastTest ? input.testDates : [], today, done, withFix: false });
-  const latest = latestLoad(input.logs, today);
+  const latest = latestLoad(input.logs, today, input.firstLogDate);
   // Compliance over the sessions planned up to today in the last four weeks.
   const from4 = addDays(monday, -21);
   const past = input.sessions.filter((s) => s.date >= from4 && s.date <= today);
@@ -74,7 +76,9 @@ export function rosterRow(input: RosterInput): RosterRow {
   const weekEnd = addDays(monday, 7);
   const weekDoneMin = input.logs.filter((l) => l.status !== "skipped" && l.date >= monday && l.date < weekEnd).reduce((a, l) => a + (l.durationMin ?? 0), 0);
 
-  const d = driftAcrossSports(input.logs, input.zoneSets, today);
+  // Drift reads the last 120 days, as the athlete's page does (the logs given reach further back for the load ratio).
+  const driftFrom = addDays(today, -120);
+  const d = driftAcrossSports(input.logs.filter((l) => l.date >= driftFrom), input.zoneSets, today);
   const drift: RosterRow["drift"] = d?.drifted ? { message: d.message, direction: d.direction! } : null;
   return {
     id: input.athlete.id,

@@ -10,6 +10,7 @@ import { type SeasonWeekInfo } from "@/features/planning/lib/weeks";
 import { addDays } from "@/features/platform/lib/days";
 import { rosterRow, type RosterRow } from "../lib/roster";
 import { readinessInputs } from "@/features/athlete-tests/server";
+import { EWMA_HISTORY_DAYS } from "@/features/load/lib/report";
 
 type PlannedRow = Record<string, unknown> & { id: string; athleteId: string; date: string; title: string; kind: string; totalS: number; minutesByZone: [number, number, number] };
 type LogRow = ReportLog & Record<string, unknown> & { athleteId: string; sport: string; hrAvgBpm: number | null; powerAvgW: number | null; speedAvgKmh: number | null };
@@ -83,7 +84,7 @@ export async function squadRoster(actor: Actor, squadId?: string, now = new Date
 
 /**
  * Computes roster rows: five queries for the given athletes, run together, then the pure `rosterRow` per athlete. The
- * windows: five weeks of plan and retests back to 180 days; 120 days of logs (drift).
+ * windows: five weeks of plan and retests back to 180 days; 181 days of logs (the load ratio; drift reads 120 of them).
  */
 async function computeRows(athletes: Athlete[], localToday: (tz: string | null) => string, now: Date): Promise<RosterRow[]> {
   const db = getDb();
@@ -91,6 +92,7 @@ async function computeRows(athletes: Athlete[], localToday: (tz: string | null) 
   const today = localDate(now, "UTC");
   const monday = mondayOf(today);
   const readinessPending = readinessInputs(ids);
+  const firstLogsPending = db.execute<{ athleteId: string; first: string }>(sql`select athlete_id as "athleteId", min(date) as first from session_log where athlete_id in ${ids} group by athlete_id`);
   const [zoneSets, tests, sessions, logs, seasons] = await Promise.all([
     db.select({ athleteId: schema.zoneSet.athleteId, sport: schema.zoneSet.sport, effectiveFrom: schema.zoneSet.effectiveFrom }).from(schema.zoneSet).where(inArray(schema.zoneSet.athleteId, ids)),
     db.select({ athleteId: schema.athleteTest.athleteId, date: schema.athleteTest.testDate }).from(schema.athleteTest).where(inArray(schema.athleteTest.athleteId, ids)),
@@ -104,7 +106,7 @@ async function computeRows(athletes: Athlete[], localToday: (tz: string | null) 
       select l.athlete_id as "athleteId", l.date, l.status, l.duration_min as "durationMin", l.rpe, l.measured_min_by_zone as "measuredMinByZone", l.trimp,
         l.planned_session_id as "plannedSessionId", l.sport, l.hr_avg_bpm as "hrAvgBpm", l.power_avg_w as "powerAvgW", l.speed_avg_kmh as "speedAvgKmh"
       from session_log l
-      where l.athlete_id in ${ids} and l.date between ${addDays(today, -121)} and ${addDays(monday, 13)}`),
+      where l.athlete_id in ${ids} and l.date between ${addDays(today, -(EWMA_HISTORY_DAYS + 1))} and ${addDays(monday, 13)}`),
     db.select({ athleteId: schema.season.athleteId, weeks: schema.season.weeks }).from(schema.season).where(inArray(schema.season.athleteId, ids)),
   ]);
   const group = <T extends { athleteId: string }>(rows: T[]) => {
@@ -118,6 +120,7 @@ async function computeRows(athletes: Athlete[], localToday: (tz: string | null) 
   };
   const bySets = group(zoneSets), byTests = group(tests), bySessions = group([...sessions]), byLogs = group([...logs]), bySeasons = group(seasons);
   const readinessBy = await readinessPending;
+  const firstLogBy = new Map([...(await firstLogsPending)].map((r) => [r.athleteId, r.first]));
   const rows = athletes.map((a) => {
     const own = bySessions.get(a.id) ?? [];
     return rosterRow({
@@ -129,6 +132,7 @@ async function computeRows(athletes: Athlete[], localToday: (tz: string | null) 
       logs: byLogs.get(a.id) ?? [],
       seasonWeeks: (bySeasons.get(a.id) ?? []).flatMap((s) => s.weeks as unknown as SeasonWeekInfo[]),
       readiness: readinessBy.get(a.id),
+      firstLogDate: firstLogBy.get(a.id) ?? null,
     });
   });
   return rows;
