@@ -178,6 +178,8 @@ export const athleteProfile = pgTable(
       .references(() => user.id, { onDelete: "cascade" }),
     /** Edit counter: a change that names an older version is refused (409) instead of overwriting someone else's. */
     version: integer("version").notNull().default(1),
+    /** The athlete's one TRIMP method, fixed at the first TRIMP computed ("banister" or "edwards"). */
+    trimpMethod: text("trimp_method"),
     birthYear: integer("birth_year"),
     /** Sex as used by published sex-specific formulas (e.g. Banister's TRIMP). */
     sex: sex("sex"),
@@ -483,6 +485,8 @@ export const sessionLog = pgTable(
     powerAvgW: real("power_avg_w"),
     speedAvgKmh: real("speed_avg_kmh"),
     trimp: real("trimp"),
+    /** How `trimp` was computed ("banister" or "edwards"): a week adds up only the athlete's own method. */
+    trimpMethod: text("trimp_method"),
     /** A key chosen by the client for an unplanned log, so that a repeated submit does not log twice. */
     clientKey: text("client_key"),
     loggedBy: text("logged_by").references(() => user.id, { onDelete: "set null" }),

@@ -163,6 +163,26 @@ describe("activity files", () => {
     expect(b.status).toBe(201);
   });
 
+  it("TRIMP keeps the athlete's first method (Banister here) even when the profile would now allow only Edwards; a week never sums both", async () => {
+    expect((await query<{ trimp_method: string }>(`select trimp_method from athlete_profile where user_id = $1`, [s.athleteA.id]))[0]!.trimp_method).toBe("banister");
+    // Resting heart rate removed: Banister's TRIMP cannot be computed, and Edwards' is not used in its place.
+    const p = await s.athleteA.browser.call(profileRoute, "PATCH", "/api/athletes/x/profile", { params: { id: s.athleteA.id }, body: { restingHrBpm: null } });
+    expect(p.status).toBe(200);
+    const f = encodeFit({ start: new Date("2026-11-26T07:00:00Z"), sport: "cycling", seconds });
+    const r = await s.athleteA.browser.call(activitiesRoute, "POST", "/api/athletes/x/activities", { params: { id: s.athleteA.id }, form: upload(f, "thursday.fit") });
+    expect(r.status).toBe(201);
+    expect(r.json.trimp).toBeNull();
+    expect(r.json.warnings.join(" ")).toMatch(/TRIMP is Banister's, which needs resting heart rate/);
+    // A log scored otherwise (written as an older version might have) is left out of the week's sum and counted.
+    await query(`update session_log set trimp = 999, trimp_method = 'edwards' where id = $1`, [r.json.logId]);
+    const load = await s.coach.browser.call(loadRoute, "GET", "/api/athletes/x/load", { params: { id: s.athleteA.id }, query: "?from=2026-11-23&to=2026-11-29" });
+    expect(load.json.trimpMethod).toBe("banister");
+    expect(load.json.trimpOtherMethod).toBe(1);
+    const banister = await query<{ s: number }>(`select coalesce(sum(trimp), 0)::float as s from session_log where athlete_id = $1 and date between '2026-11-23' and '2026-11-29' and trimp_method = 'banister'`, [s.athleteA.id]);
+    expect(load.json.weeks[0].trimp).toBeCloseTo(banister[0]!.s, 3); // real (float4) column
+    await s.athleteA.browser.call(profileRoute, "PATCH", "/api/athletes/x/profile", { params: { id: s.athleteA.id }, body: { restingHrBpm: 60 } });
+  });
+
   it("corrupt, empty, truncated, unsupported and other people's files write nothing", async () => {
     const before = await counts();
     const bad: [Uint8Array, string][] = [

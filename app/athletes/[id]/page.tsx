@@ -46,6 +46,12 @@ export default async function AthletePage({ params }: { params: Promise<{ id: st
           </p>
         ) : null}
         {load.weeks.some((w) => w.load > 0 || w.doneMin > 0) ? <LoadChart report={load} /> : <p className="text-ink-soft">No logged sessions in the last 12 weeks yet.</p>}
+        {load.trimpMethod ? (
+          <p className="text-xs text-ink-soft">
+            TRIMP: {load.trimpMethod === "banister" ? "Banister's (average heart rate between resting and maximal, weighted by sex)" : "Edwards' (minutes in five heart-rate bands)"}, the one method this athlete&apos;s files are scored with.
+            {load.trimpOtherMethod ? ` ${load.trimpOtherMethod} log(s) scored otherwise are left out of the weekly TRIMP.` : ""}
+          </p>
+        ) : null}
       </section>
       <section className="card space-y-4" aria-labelledby="zones-heading">
         <h2 id="zones-heading" className="text-lg font-bold">Zones in force today</h2>

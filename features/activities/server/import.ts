@@ -1,6 +1,6 @@
 import "server-only";
 import { createHash, randomUUID } from "node:crypto";
-import { and, eq } from "drizzle-orm";
+import { and, eq, isNull } from "drizzle-orm";
 import { getDb, schema } from "@/db/client";
 import { requireAthleteAccess } from "@/features/access/server";
 import type { Actor } from "@/features/access/lib/rules";
@@ -102,12 +102,20 @@ export async function importActivity(actor: Actor, athleteId: string, file: { na
     }
   }
 
+  // One TRIMP method per athlete, kept from the first TRIMP computed: Banister's (Banister 1991; needs resting and
+  // maximal heart rate and sex) or Edwards' (Edwards 1993; needs maximal heart rate). The two scales differ (60 min at
+  // 150 of 190 bpm is about 100 in one and 180 in the other), so a week never adds up both.
   let trimp: ImportResult["trimp"] = null;
+  let fixMethod: "banister" | "edwards" | null = null;
   if (summary.hrAvgBpm !== null && profile?.maxHrBpm) {
-    if (profile.restingHrBpm && profile.sex) {
-      trimp = { value: banisterTrimp({ minutes: summary.recordedS / 60, hrAvgBpm: summary.hrAvgBpm, hrRestBpm: profile.restingHrBpm, hrMaxBpm: profile.maxHrBpm, sex: profile.sex }), method: "banister" };
+    const method = (profile.trimpMethod as "banister" | "edwards" | null) ?? (profile.restingHrBpm && profile.sex ? "banister" : "edwards");
+    if (!profile.trimpMethod) fixMethod = method;
+    if (method === "banister") {
+      if (profile.restingHrBpm && profile.sex) {
+        trimp = { value: banisterTrimp({ minutes: summary.recordedS / 60, hrAvgBpm: summary.hrAvgBpm, hrRestBpm: profile.restingHrBpm, hrMaxBpm: profile.maxHrBpm, sex: profile.sex }), method };
+      } else warnings.push("This athlete's TRIMP is Banister's, which needs resting heart rate and sex in the profile: TRIMP was not computed.");
     } else {
-      trimp = { value: edwardsTrimp(Array.from(streams.hrBpm, (v) => (Number.isNaN(v) ? null : v)), profile.maxHrBpm), method: "edwards" };
+      trimp = { value: edwardsTrimp(Array.from(streams.hrBpm, (v) => (Number.isNaN(v) ? null : v)), profile.maxHrBpm), method };
     }
   } else if (summary.hrAvgBpm !== null) warnings.push("No maximal heart rate in the profile: TRIMP was not computed.");
 
@@ -119,12 +127,15 @@ export async function importActivity(actor: Actor, athleteId: string, file: { na
     powerAvgW: summary.powerAvgW,
     speedAvgKmh: summary.speedAvgKmh,
     trimp: trimp?.value ?? null,
+    trimpMethod: trimp?.method ?? null,
   };
   const durationMin = Math.round((summary.elapsedS / 60) * 10) / 10;
   const distanceKm = summary.distanceKm !== null ? Math.round(summary.distanceKm * 100) / 100 : null;
   const fileId = randomUUID();
   let logId = "";
   await db.transaction(async (tx) => {
+    // The first TRIMP fixes the athlete's method (only if none was fixed meanwhile).
+    if (fixMethod) await tx.update(schema.athleteProfile).set({ trimpMethod: fixMethod }).where(and(eq(schema.athleteProfile.userId, athleteId), isNull(schema.athleteProfile.trimpMethod)));
     if (matched?.logId) {
       logId = matched.logId;
       const [existing] = await tx.select().from(schema.sessionLog).where(eq(schema.sessionLog.id, logId));

@@ -15,6 +15,8 @@ export interface ReportLog {
   rpe: number | null;
   measuredMinByZone: Shares | null;
   trimp: number | null;
+  /** How `trimp` was computed; a week adds up only the athlete's own method. */
+  trimpMethod?: string | null;
   plannedSessionId: string | null;
 }
 
@@ -55,6 +57,9 @@ export interface LoadReport {
   latest: { acwrRolling: number | null; acwrEwma: number | null; flag: "low" | "high" | null };
   /** Logs without an RPE (no session-RPE load): a file without a rating, say. */
   unratedLogs: number;
+  /** The athlete's TRIMP method (weekly TRIMP adds up only logs computed with it), and how many logs had another. */
+  trimpMethod: string | null;
+  trimpOtherMethod: number;
 }
 
 const dayNum = dayNumber;
@@ -120,7 +125,9 @@ function ewmaRatios(logs: ReportLog[], start: number, first: number, last: numbe
   return out;
 }
 
-export function loadReport(p: { logs: ReportLog[]; planned: ReportPlanned[]; from: string; to: string; firstLogDate?: string | null }): LoadReport {
+export function loadReport(p: { logs: ReportLog[]; planned: ReportPlanned[]; from: string; to: string; firstLogDate?: string | null; trimpMethod?: string | null }): LoadReport {
+  const trimpMethod = p.trimpMethod ?? null;
+  let trimpOtherMethod = 0;
   const first = dayNum(p.from), last = dayNum(p.to);
   const ewmaByDay = ewmaRatios(p.logs, dayNum(ewmaStart(p.firstLogDate, p.from)), first, last);
   const origin = first - 27;
@@ -167,7 +174,11 @@ export function loadReport(p: { logs: ReportLog[]; planned: ReportPlanned[]; fro
       const z = logZoneMinutes(l, l.plannedSessionId ? plannedById.get(l.plannedSessionId) : undefined);
       if (z) for (let i = 0; i < 3; i++) minByZone[i]! += z[i]!;
       if (l.measuredMinByZone) measured += l.measuredMinByZone[0] + l.measuredMinByZone[1] + l.measuredMinByZone[2];
-      trimp += l.trimp ?? 0;
+      if (l.trimp != null) {
+        // Never two scales in one sum: a log with another method (or none recorded) is left out and counted.
+        if (trimpMethod && l.trimpMethod === trimpMethod) trimp += l.trimp;
+        else trimpOtherMethod++;
+      }
       if (l.status !== "skipped") doneMin += l.durationMin ?? 0;
     }
     const plannedMin = planned.reduce((a, x) => a + x.totalS / 60, 0);
@@ -189,7 +200,7 @@ export function loadReport(p: { logs: ReportLog[]; planned: ReportPlanned[]; fro
   }
   const lastDay = days.at(-1);
   const latestRatio = lastDay?.acwrEwma ?? lastDay?.acwrRolling ?? null;
-  return { days, weeks, latest: { acwrRolling: lastDay?.acwrRolling ?? null, acwrEwma: lastDay?.acwrEwma ?? null, flag: acwrFlag(latestRatio) }, unratedLogs: unrated };
+  return { days, weeks, latest: { acwrRolling: lastDay?.acwrRolling ?? null, acwrEwma: lastDay?.acwrEwma ?? null, flag: acwrFlag(latestRatio) }, unratedLogs: unrated, trimpMethod, trimpOtherMethod };
 }
 
 /**

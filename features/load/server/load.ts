@@ -16,6 +16,7 @@ const logColumns = {
   rpe: schema.sessionLog.rpe,
   measuredMinByZone: schema.sessionLog.measuredMinByZone,
   trimp: schema.sessionLog.trimp,
+  trimpMethod: schema.sessionLog.trimpMethod,
   plannedSessionId: schema.sessionLog.plannedSessionId,
   sport: schema.sessionLog.sport,
   hrAvgBpm: schema.sessionLog.hrAvgBpm,
@@ -46,14 +47,17 @@ export async function athleteLoad(actor: Actor, athleteId: string, from: string,
   await requireAthleteAccess(actor, athleteId, "view");
   const db = getDb();
   // The exponentially weighted ratio starts at the athlete's first log or 180 days back (report.ts: ewmaStart).
-  const [firstLog] = await db.select({ date: sql<string | null>`min(${schema.sessionLog.date})` }).from(schema.sessionLog).where(eq(schema.sessionLog.athleteId, athleteId));
+  const [[firstLog], [profile]] = await Promise.all([
+    db.select({ date: sql<string | null>`min(${schema.sessionLog.date})` }).from(schema.sessionLog).where(eq(schema.sessionLog.athleteId, athleteId)),
+    db.select({ trimpMethod: schema.athleteProfile.trimpMethod }).from(schema.athleteProfile).where(eq(schema.athleteProfile.userId, athleteId)),
+  ]);
   const firstLogDate = firstLog?.date ?? null;
   const since = [ewmaStart(firstLogDate, from), addDays(from, -28)].sort()[0]!;
   const [logs, planned] = await Promise.all([
     db.select(logColumns).from(schema.sessionLog).where(and(eq(schema.sessionLog.athleteId, athleteId), gte(schema.sessionLog.date, since), lte(schema.sessionLog.date, to))).orderBy(asc(schema.sessionLog.date)),
     db.select(plannedColumns).from(schema.plannedSession).where(and(eq(schema.plannedSession.athleteId, athleteId), gte(schema.plannedSession.date, mondayOf(addDays(from, -28))), lte(schema.plannedSession.date, addDays(mondayOf(to), 6)))),
   ]);
-  return loadReport({ logs: logs as ReportLog[], planned: planned as ReportPlanned[], from, to, firstLogDate });
+  return loadReport({ logs: logs as ReportLog[], planned: planned as ReportPlanned[], from, to, firstLogDate, trimpMethod: profile?.trimpMethod ?? null });
 }
 
 /** The athlete's zone drift as of `today` (logs of the last 120 days). */
