@@ -15,7 +15,7 @@ const num = (v: unknown) => (v === "" || v == null ? null : Number(v));
 const SPEECH_LABELS: Record<(typeof SPEECH)[number], string> = {
   comfortable: "Comfortable: could talk easily",
   not_fully_comfortable: "Not fully comfortable",
-  cannot_speak: "Could not speak",
+  cannot_speak: "Cannot speak comfortably",
 };
 
 function useSubmitter(athleteId: string, setError: (name: "root", e: { message: string }) => void) {
@@ -64,6 +64,7 @@ export function TalkTestForm({ athleteId, today }: { athleteId: string; today: s
   const { fields, append, remove } = useFieldArray({ control, name: "stages" });
   const submit = useSubmitter(athleteId, setError);
   const unit = useWatch({ control, name: "workloadUnit" });
+  const stagesNow = useWatch({ control, name: "stages" });
   const onSubmit = handleSubmit((v) =>
     submit({
       kind: "talk",
@@ -132,7 +133,11 @@ export function TalkTestForm({ athleteId, today }: { athleteId: string; today: s
           </tbody>
         </table>
         <FieldError id="stages-error" message={se?.message ?? se?.root?.message} />
-        <button type="button" className="btn-quiet mt-2" onClick={() => append({ workload: NaN as unknown as number, durationMin: 3, hrBpm: NaN as unknown as number, speech: "cannot_speak" })}>Add a stage</button>
+        <button type="button" className="btn-quiet mt-2" onClick={() => {
+            // A new stage starts from the last one: its length and answer (the athlete changes what differs).
+            const last = stagesNow?.at(-1);
+            append({ workload: NaN as unknown as number, durationMin: last?.durationMin ?? 3, hrBpm: NaN as unknown as number, speech: last?.speech ?? "comfortable" });
+          }}>Add a stage</button>
       </fieldset>
       <SubmitButton className="btn" disabled={formState.isSubmitting}>{formState.isSubmitting ? "Saving…" : "Save the talk test"}</SubmitButton>
     </form>
@@ -143,12 +148,12 @@ export function TalkTestForm({ athleteId, today }: { athleteId: string; today: s
 
 const submaxForm = z.object({
   meta: testMetaSchema,
-  modality: z.enum(["cycling", "running", "walking"]),
+  modality: z.enum(["cycling", "arm", "running", "walking"]),
   massKg: z.number({ error: "Enter body mass in kg." }).gt(20, "Body mass must be above 20 kg.").lt(300, "Body mass must be below 300 kg."),
   age: z.number().int().min(10, "Age at least 10.").max(100, "Age at most 100.").nullable(),
   measuredHrMaxBpm: z.number().int().min(100, "At least 100 bpm.").max(240, "At most 240 bpm.").nullable(),
   hrMaxFormula: z.enum(["tanaka", "gellish", "traditional"]),
-  stages: z.array(z.object({ load: z.number({ error: "Enter the workload." }).positive("Above 0."), gradePct: z.number().min(0).max(40), hrBpm: z.number({ error: "Enter the steady heart rate." }).int().min(50, "At least 50 bpm.").max(230, "At most 230 bpm.") })).min(2, "Enter at least two stages."),
+  stages: z.array(z.object({ load: z.number({ error: "Enter the workload." }).positive("Above 0."), gradePct: z.number().min(0).max(40), hrBpm: z.number({ error: "Enter the steady heart rate." }).int().min(50, "At least 50 bpm.").max(230, "At most 230 bpm."), hrBpmMinuteBefore: z.number().int().min(50, "At least 50 bpm.").max(230, "At most 230 bpm.").nullable() })).min(2, "Enter at least two stages."),
 });
 type SubmaxValues = z.infer<typeof submaxForm>;
 
@@ -162,12 +167,13 @@ export function SubmaxForm({ athleteId, today, massKg, age }: { athleteId: strin
       age,
       measuredHrMaxBpm: null,
       hrMaxFormula: "tanaka",
-      stages: [50, 100, 150].map((load) => ({ load, gradePct: 0, hrBpm: NaN as unknown as number })),
+      stages: [50, 100, 150].map((load) => ({ load, gradePct: 0, hrBpm: NaN as unknown as number, hrBpmMinuteBefore: null })),
     },
   });
   const { fields, append, remove } = useFieldArray({ control, name: "stages" });
   const submit = useSubmitter(athleteId, setError);
   const modality = useWatch({ control, name: "modality" });
+  const powered = modality === "cycling" || modality === "arm";
   const onSubmit = handleSubmit((v) =>
     submit({
       kind: "submax",
@@ -178,7 +184,7 @@ export function SubmaxForm({ athleteId, today, massKg, age }: { athleteId: strin
         age: v.age,
         measuredHrMaxBpm: v.measuredHrMaxBpm,
         hrMaxFormula: v.hrMaxFormula,
-        stages: v.stages.map((s) => (v.modality === "cycling" ? { powerW: s.load, hrBpm: s.hrBpm } : { speedKmh: s.load, gradePct: s.gradePct, hrBpm: s.hrBpm })),
+        stages: v.stages.map((s) => (v.modality === "cycling" || v.modality === "arm" ? { powerW: s.load, hrBpm: s.hrBpm, hrBpmMinuteBefore: s.hrBpmMinuteBefore } : { speedKmh: s.load, gradePct: s.gradePct, hrBpm: s.hrBpm, hrBpmMinuteBefore: s.hrBpmMinuteBefore })),
       },
     }),
   );
@@ -192,6 +198,7 @@ export function SubmaxForm({ athleteId, today, massKg, age }: { athleteId: strin
           <label htmlFor="modality" className="field-label">Exercise</label>
           <select id="modality" className="field-input" {...register("modality")}>
             <option value="cycling">Leg cycling</option>
+            <option value="arm">Arm cranking</option>
             <option value="running">Running</option>
             <option value="walking">Walking</option>
           </select>
@@ -226,9 +233,10 @@ export function SubmaxForm({ athleteId, today, massKg, age }: { athleteId: strin
           <thead>
             <tr className="text-ink-soft">
               <th scope="col" className="py-1 pr-2">Stage</th>
-              <th scope="col" className="py-1 pr-2">{modality === "cycling" ? "Power (W)" : "Speed (km/h)"}</th>
-              {modality !== "cycling" ? <th scope="col" className="py-1 pr-2">Grade (%)</th> : null}
-              <th scope="col" className="py-1 pr-2">Steady heart rate (bpm)</th>
+              <th scope="col" className="py-1 pr-2">{powered ? "Power (W)" : "Speed (km/h)"}</th>
+              {!powered ? <th scope="col" className="py-1 pr-2">Grade (%)</th> : null}
+              <th scope="col" className="py-1 pr-2">Heart rate at the end (bpm)</th>
+              <th scope="col" className="py-1 pr-2">One minute before (bpm, optional)</th>
               <th scope="col"><span className="sr-only">Remove</span></th>
             </tr>
           </thead>
@@ -237,22 +245,26 @@ export function SubmaxForm({ athleteId, today, massKg, age }: { athleteId: strin
               <tr key={f.id} className="align-top">
                 <td className="py-1 pr-2 num">{i + 1}</td>
                 <td className="py-1 pr-2">
-                  <input aria-label={`Stage ${i + 1} ${modality === "cycling" ? "power (W)" : "speed (km/h)"}`} type="number" step="0.1" className="field-input mt-0 num" {...register(`stages.${i}.load`, { setValueAs: num })} />
+                  <input aria-label={`Stage ${i + 1} ${powered ? "power (W)" : "speed (km/h)"}`} type="number" step="0.1" className="field-input mt-0 num" {...register(`stages.${i}.load`, { setValueAs: num })} />
                   <FieldError id={`m${i}l`} message={e.stages?.[i]?.load?.message} />
                 </td>
-                {modality !== "cycling" ? (
+                {!powered ? (
                   <td className="py-1 pr-2"><input aria-label={`Stage ${i + 1} grade (%)`} type="number" step="0.5" className="field-input mt-0 num" {...register(`stages.${i}.gradePct`, { setValueAs: (v) => num(v) ?? 0 })} /></td>
                 ) : null}
                 <td className="py-1 pr-2">
                   <input aria-label={`Stage ${i + 1} heart rate (bpm)`} type="number" className="field-input mt-0 num" {...register(`stages.${i}.hrBpm`, { setValueAs: num })} />
                   <FieldError id={`m${i}h`} message={e.stages?.[i]?.hrBpm?.message} />
                 </td>
+                <td className="py-1 pr-2">
+                  <input aria-label={`Stage ${i + 1} heart rate one minute before its end (bpm)`} type="number" className="field-input mt-0 num" {...register(`stages.${i}.hrBpmMinuteBefore`, { setValueAs: num })} />
+                  <FieldError id={`m${i}p`} message={e.stages?.[i]?.hrBpmMinuteBefore?.message} />
+                </td>
                 <td className="py-1"><button type="button" className="text-sm text-alert underline" onClick={() => remove(i)} disabled={fields.length <= 2}>Remove</button></td>
               </tr>
             ))}
           </tbody>
         </table>
-        <button type="button" className="btn-quiet mt-2" onClick={() => append({ load: NaN as unknown as number, gradePct: 0, hrBpm: NaN as unknown as number })}>Add a stage</button>
+        <button type="button" className="btn-quiet mt-2" onClick={() => append({ load: NaN as unknown as number, gradePct: 0, hrBpm: NaN as unknown as number, hrBpmMinuteBefore: null })}>Add a stage</button>
       </fieldset>
       <SubmitButton className="btn" disabled={formState.isSubmitting}>{formState.isSubmitting ? "Estimating…" : "Estimate VO2max"}</SubmitButton>
     </form>

@@ -9,7 +9,7 @@ import { GasExchangeResult, type GasExchangeResultProps } from "./GasExchangeRes
 
 export const KIND_LABELS = { gas_exchange: "Gas-exchange test", talk: "Talk test", submax: "Submaximal estimate", manual: "Thresholds entered by hand" } as const;
 const ENDED = { exhaustion: "by exhaustion", plan: "as planned", stop_sign: "by a stop sign" } as const;
-const SPEECH = { comfortable: "comfortable", not_fully_comfortable: "not fully comfortable", cannot_speak: "could not speak" } as Record<string, string>;
+const SPEECH = { comfortable: "comfortable", not_fully_comfortable: "not fully comfortable", cannot_speak: "cannot speak comfortably" } as Record<string, string>;
 
 type R = Record<string, unknown>;
 

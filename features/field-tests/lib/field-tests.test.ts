@@ -73,3 +73,24 @@ describe("submaximal VO2max estimate", () => {
     expect(r.error!.issues[0]!.message).toMatch(/age or a measured/);
   });
 });
+
+describe("submaximal estimate: where the equations hold, and steady heart rate", () => {
+  const base = { massKg: 70, age: 40, measuredHrMaxBpm: null, hrMaxFormula: "tanaka" as const };
+  it("warns for a walking stage faster than 100 m/min and a cycling stage above 200 W (ACSM validity ranges)", () => {
+    const walk = estimateVo2Max({ ...base, modality: "walking", stages: [{ powerW: null, speedKmh: 4, gradePct: 0, hrBpm: 100, hrBpmMinuteBefore: null }, { powerW: null, speedKmh: 7, gradePct: 0, hrBpm: 125, hrBpmMinuteBefore: null }] });
+    expect(walk.warnings.join(" ")).toMatch(/Stage 2 \(117 m\/min \(7 km\/h\)\) lies outside the range where the ACSM walking equation holds \(about 50–100 m\/min\)/);
+    const ride = estimateVo2Max({ ...base, modality: "cycling", stages: [{ powerW: 100, speedKmh: null, gradePct: 0, hrBpm: 110, hrBpmMinuteBefore: null }, { powerW: 250, speedKmh: null, gradePct: 0, hrBpm: 150, hrBpmMinuteBefore: null }] });
+    expect(ride.warnings.join(" ")).toMatch(/Stage 2 \(250 W\).*about 50–200 W/);
+    const run = estimateVo2Max({ ...base, modality: "running", stages: [{ powerW: null, speedKmh: 6, gradePct: 0, hrBpm: 120, hrBpmMinuteBefore: null }, { powerW: null, speedKmh: 10, gradePct: 0, hrBpm: 150, hrBpmMinuteBefore: null }] });
+    expect(run.warnings.join(" ")).toMatch(/Stage 1 \(100 m\/min .*above about 134 m\/min/);
+  });
+  it("warns when heart rate changed by more than about 5 bpm over a stage's last minute", () => {
+    const r = estimateVo2Max({ ...base, modality: "cycling", stages: [{ powerW: 75, speedKmh: null, gradePct: 0, hrBpm: 110, hrBpmMinuteBefore: 108 }, { powerW: 150, speedKmh: null, gradePct: 0, hrBpm: 140, hrBpmMinuteBefore: 131 }] });
+    expect(r.warnings.join(" ")).toMatch(/Stage 2: heart rate changed by 9 bpm/);
+    expect(r.warnings.join(" ")).not.toMatch(/Stage 1: heart rate changed/);
+  });
+  it("arm cranking uses the ACSM arm-ergometry equation: 60 W at 70 kg → 3 × 367.2 / 70 + 3.5 = 19.2 mL/kg/min (hand calculation)", () => {
+    const r = estimateVo2Max({ ...base, modality: "arm", stages: [{ powerW: 30, speedKmh: null, gradePct: 0, hrBpm: 100, hrBpmMinuteBefore: null }, { powerW: 60, speedKmh: null, gradePct: 0, hrBpm: 125, hrBpmMinuteBefore: null }] });
+    expect(r.stageVo2MlKgMin[1]).toBeCloseTo(19.2, 1);
+  });
+});

@@ -7,6 +7,8 @@
 import { z } from "zod";
 import { fitLine } from "@/features/gas-exchange/lib/breakpoint";
 import {
+  ACSM_VALID,
+  acsmArmVo2,
   acsmCyclingVo2,
   acsmRunningVo2,
   acsmWalkingVo2,
@@ -18,7 +20,7 @@ import {
 
 export const submaxSchema = z
   .object({
-    modality: z.enum(["cycling", "running", "walking"], { error: "Choose cycling, running or walking." }),
+    modality: z.enum(["cycling", "arm", "running", "walking"], { error: "Choose cycling, arm cranking, running or walking." }),
     massKg: z.number({ error: "Enter body mass in kg." }).gt(20, "Body mass must be above 20 kg.").lt(300, "Body mass must be below 300 kg."),
     age: z.number().int().min(10, "Age must be at least 10.").max(100, "Age must be at most 100.").nullable(),
     measuredHrMaxBpm: z.number().int().min(100, "Maximal heart rate must be at least 100 bpm.").max(240, "Maximal heart rate must be at most 240 bpm.").nullable(),
@@ -30,6 +32,8 @@ export const submaxSchema = z
           speedKmh: z.number().positive("Speed must be above 0 km/h.").max(30).nullable().default(null),
           gradePct: z.number().min(0).max(40, "Grade at most 40 %.").default(0),
           hrBpm: z.number().int().min(50, "Heart rate must be at least 50 bpm.").max(230, "Heart rate must be at most 230 bpm."),
+          /** Heart rate one minute before the end of the stage: steady state when within about 5 bpm of the last. */
+          hrBpmMinuteBefore: z.number().int().min(50).max(230).nullable().default(null),
         }),
       )
       .min(2, "Enter at least two submaximal stages.")
@@ -39,10 +43,13 @@ export const submaxSchema = z
     path: ["age"],
     message: "Give the age or a measured maximal heart rate.",
   })
-  .refine((v) => v.stages.every((s) => (v.modality === "cycling" ? s.powerW !== null : s.speedKmh !== null)), {
+  .refine((v) => v.stages.every((s) => (v.modality === "cycling" || v.modality === "arm" ? s.powerW !== null : s.speedKmh !== null)), {
     path: ["stages"],
-    message: "Each stage needs a power (cycling) or a speed (running, walking).",
+    message: "Each stage needs a power (cycling, arm cranking) or a speed (running, walking).",
   });
+
+/** Steady state at the end of a stage: two readings a minute apart within this many bpm (common practice). */
+export const STEADY_HR_BPM = 5;
 
 export type SubmaxInput = z.infer<typeof submaxSchema>;
 
@@ -68,8 +75,21 @@ export function estimateVo2Max(input: SubmaxInput): SubmaxResult {
   const warnings: string[] = [];
   const hrMax = input.measuredHrMaxBpm ?? predictedHrMax(input.age!, input.hrMaxFormula as HrMaxFormula);
   const hrMaxSource = input.measuredHrMaxBpm ? "measured" : HR_MAX_FORMULAS[input.hrMaxFormula as HrMaxFormula].label;
+  const valid = ACSM_VALID[input.modality];
+  input.stages.forEach((s, i) => {
+    const x = input.modality === "cycling" || input.modality === "arm" ? s.powerW! : kmhToMMin(s.speedKmh!);
+    if (x < valid.min || x > valid.max) {
+      const shown = valid.unit === "W" ? `${Math.round(x)} W` : `${Math.round(x)} m/min (${s.speedKmh} km/h)`;
+      const range = valid.max === Infinity ? `above about ${valid.min} ${valid.unit}` : `about ${valid.min}–${valid.max} ${valid.unit}`;
+      warnings.push(`Stage ${i + 1} (${shown}) lies outside the range where the ACSM ${input.modality === "arm" ? "arm-ergometry" : input.modality} equation holds (${range}): its VO2, and the estimate, are less certain.`);
+    }
+    if (s.hrBpmMinuteBefore != null && Math.abs(s.hrBpm - s.hrBpmMinuteBefore) > STEADY_HR_BPM) {
+      warnings.push(`Stage ${i + 1}: heart rate changed by ${Math.abs(s.hrBpm - s.hrBpmMinuteBefore)} bpm over its last minute (more than about ${STEADY_HR_BPM}), so it was not steady; lengthen the stage until it settles.`);
+    }
+  });
   const vo2s = input.stages.map((s) => {
     if (input.modality === "cycling") return acsmCyclingVo2(s.powerW!, input.massKg);
+    if (input.modality === "arm") return acsmArmVo2(s.powerW!, input.massKg);
     const speed = kmhToMMin(s.speedKmh!);
     const grade = s.gradePct / 100;
     return input.modality === "running" ? acsmRunningVo2(speed, grade) : acsmWalkingVo2(speed, grade);

@@ -43,7 +43,7 @@ export function analyzeTalkTest(input: TalkTestInput): TalkTestResult {
   const { stages, workloadUnit } = input;
   const warnings: string[] = [];
   const short = stages.filter((s) => s.durationS < STEADY_STATE_S - 10).length;
-  if (short) warnings.push(`${short} stage(s) were shorter than about 3 minutes: heart rate may not have settled, so the thresholds may sit too high.`);
+  if (short) warnings.push(`${short} stage(s) were shorter than about 3 minutes: heart rate had not caught up with the workload, so the heart rate at each threshold is probably too low and the workload (speed or power) at each threshold too high.`);
   for (let i = 1; i < stages.length; i++) {
     if (stages[i]!.workload <= stages[i - 1]!.workload) {
       warnings.push(`Stage ${i + 1} is not harder than stage ${i}: talk-test stages should rise steadily.`);

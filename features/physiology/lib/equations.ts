@@ -23,6 +23,24 @@ export function acsmCyclingVo2(powerW: number, massKg: number): number {
   return (1.8 * powerW * KGM_PER_MIN_PER_WATT) / massKg + 7;
 }
 
+/** ACSM arm ergometry: VO2 = 3·WR/M + 3.5 (WR in kg·m/min, M in kg). */
+export function acsmArmVo2(powerW: number, massKg: number): number {
+  return (3 * powerW * KGM_PER_MIN_PER_WATT) / massKg + 3.5;
+}
+
+/**
+ * Where each ACSM equation is valid, as the Guidelines state it (ACSM's Guidelines for Exercise Testing and Prescription,
+ * chapter on the metabolic calculations; the ranges from memory of the 10th edition's text): walking about 50–100 m/min,
+ * running above about 134 m/min (or above 80 m/min when truly jogging), leg cycling about 50–200 W, arm ergometry about
+ * 25–125 W.
+ */
+export const ACSM_VALID = {
+  walking: { min: 50, max: 100, unit: "m/min" },
+  running: { min: 134, max: Infinity, unit: "m/min" },
+  cycling: { min: 50, max: 200, unit: "W" },
+  arm: { min: 25, max: 125, unit: "W" },
+} as const;
+
 export function metsFromVo2(vo2MlKgMin: number): number {
   return vo2MlKgMin / ML_PER_MET;
 }
