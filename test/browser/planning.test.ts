@@ -85,4 +85,34 @@ describe("planning in the browser", () => {
     await page.context().close();
     await assistant.page.context().close();
   });
+
+  it("dragging a planned session to another day with the mouse moves it (server state checked)", async () => {
+    const { page, problems } = await newPage(browser);
+    await signIn(page, "coach@northfold.test");
+    await page.getByRole("link", { name: "Jonas Okafor" }).click();
+    await page.waitForURL(/\/athletes\/[0-9a-f-]+$/);
+    const athleteId = page.url().split("/athletes/")[1]!;
+    const week = mondayInWeeks(111 + (Math.floor(Date.now() / 1000) % 400));
+    const made = await page.request.post(`${BASE}/api/athletes/${athleteId}/sessions`, { data: { date: plus(week, 1), title: "Drag me", sport: "cycling", structure: [{ type: "step", kind: "work", durationS: 3600, zone: 1 }] } });
+    const { id } = (await made.json()) as { id: string };
+    await page.goto(`${BASE}/athletes/${athleteId}/plan?week=${week}`);
+    const event = page.locator(`td.fc-day[data-date="${plus(week, 1)}"] .fc-event`, { hasText: "Drag me" }).first();
+    await event.waitFor();
+    const from = (await event.boundingBox())!;
+    const cell = page.locator(`td.fc-day[data-date="${plus(week, 4)}"]`);
+    await page.mouse.move(from.x + from.width / 2, from.y + from.height / 2);
+    await page.mouse.down();
+    await page.mouse.move(from.x + from.width / 2 + 10, from.y + from.height / 2, { steps: 5 });
+    for (let i = 0; i < 3; i++) {
+      const to = (await cell.boundingBox())!;
+      await page.mouse.move(to.x + to.width / 2, to.y + to.height / 2 + 10, { steps: 10 });
+      await page.waitForTimeout(150);
+    }
+    await page.mouse.up();
+    await page.getByText(`Moved "Drag me" to ${plus(week, 4)}.`).waitFor();
+    const after = (await (await page.request.get(`${BASE}/api/athletes/${athleteId}/sessions?from=${week}&to=${plus(week, 6)}`)).json()) as { id: string; date: string }[];
+    expect(after.find((s) => s.id === id)?.date).toBe(plus(week, 4));
+    expect(problems).toEqual([]);
+    await page.context().close();
+  });
 });

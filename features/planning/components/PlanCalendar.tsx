@@ -119,16 +119,14 @@ export function PlanCalendar({ athleteId, templates, initialDate, canEdit }: { a
             : "That did not work; the calendar shows the last saved plan.",
     });
 
-  const onDrop = (info: EventDropArg) => {
-    setPreview(null);
-    const s = info.event.extendedProps.session as SessionDto;
-    const date = info.event.startStr.slice(0, 10);
+  const moveTo = (s: SessionDto, date: string, revert?: () => void) => {
     setMessage(undefined);
+    if (date === s.date) return;
     move.mutate(
       { id: s.id, date, scope: s.seriesId ? scope : "one", version: s.version },
       {
         onError: (e) => {
-          info.revert();
+          revert?.();
           fail(e);
         },
         onSuccess: () => setMessage({ kind: "ok", text: `Moved "${s.title}" to ${date}.` }),
@@ -136,11 +134,21 @@ export function PlanCalendar({ athleteId, templates, initialDate, canEdit }: { a
     );
   };
 
+  const onDrop = (info: EventDropArg) => {
+    setPreview(null);
+    moveTo(info.event.extendedProps.session as SessionDto, info.event.startStr.slice(0, 10), () => info.revert());
+  };
+
   const onReceive = (info: EventReceiveArg) => {
     setPreview(null);
-    const templateId = info.event.extendedProps.templateId as string;
+    const templateId = info.event.extendedProps.templateId as string | undefined;
+    const existing = info.event.extendedProps.session as SessionDto | undefined;
     const date = info.event.startStr.slice(0, 10);
     info.event.remove();
+    // The calendar can hand a planned session dragged within it over as a drop from outside (when the page re-renders
+    // during the drag): that is a move, never a new session.
+    if (existing) return moveTo(existing, date);
+    if (!templateId) return setMessage({ kind: "error", text: "That drop was not a template; nothing was planned." });
     setMessage(undefined);
     create.mutate({ date, templateId }, { onError: fail, onSuccess: () => setMessage({ kind: "ok", text: `Planned "${info.event.title}" on ${date}.` }) });
   };
