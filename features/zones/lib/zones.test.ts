@@ -28,8 +28,18 @@ describe("zones from VT1 and VT2 (three-zone model, Seiler & Kjerland 2006)", ()
   it("five zones nest inside the three (our subdivision, common practice)", () => {
     const z = fiveZones(vt1, vt2);
     expect(z.map((x) => x.parent)).toEqual([1, 1, 2, 2, 3]);
-    expect(z[1]!.ranges.hrBpm).toEqual({ min: 127.5, max: 150 });
     expect(z[3]!.ranges.hrBpm).toEqual({ min: 161, max: 172 });
+  });
+
+  it("the easy edge is the same effort in every measure: 85 % of VT1 power, carried along the line through the thresholds", () => {
+    const z = fiveZones(vt1, vt2);
+    // Power edge 0.85 × 220 = 187 W, 33 W below VT1 = 33/80 of the VT1–VT2 span below it (hand calculation):
+    // heart rate 150 − 22 × 33/80 = 140.925 bpm, speed 12 − 3 × 33/80 = 10.7625 km/h.
+    expect(z[1]!.ranges.powerW!.min).toBeCloseTo(187, 9);
+    expect(z[1]!.ranges.hrBpm!.min).toBeCloseTo(140.925, 9);
+    expect(z[1]!.ranges.speedKmh!.min).toBeCloseTo(10.7625, 9);
+    // Heart rate alone: the edge is 85 % of VT1 heart rate.
+    expect(fiveZones({ hrBpm: 150 }, { hrBpm: 172 })[1]!.ranges.hrBpm!.min).toBeCloseTo(127.5, 9);
   });
 
   it("pace from speed: 12 km/h → 5:00 /km", () => {

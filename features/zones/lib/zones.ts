@@ -59,15 +59,27 @@ export function threeZones(vt1: ThresholdPoint, vt2: ThresholdPoint): Zone[] {
   }));
 }
 
-/** Five zones: 1 below 85 % of VT1, 2 up to VT1, 3 VT1 to the VT1–VT2 midpoint, 4 up to VT2, 5 above VT2. */
+/**
+ * Five zones: 1 below 85 % of VT1, 2 up to VT1, 3 VT1 to the VT1–VT2 midpoint, 4 up to VT2, 5 above VT2. The split of zone
+ * 1 is placed in ONE domain, the workload (power, else speed; heart rate only when it is the only measure), and carried
+ * to the other measures along the line through the two thresholds, so that the edge is the same effort in every measure.
+ * (85 % of VT1 applied to heart rate itself, which starts from a resting value, would put the heart-rate edge at an
+ * easier effort than the power edge.) Heart rate is close to linear in workload between the thresholds; below VT1 the
+ * line is extrapolated a little (common practice).
+ */
 export function fiveZones(vt1: ThresholdPoint, vt2: ThresholdPoint): Zone[] {
   const three = threeZones(vt1, vt2);
   const measures = Object.keys(three[0]!.ranges) as Measure[];
   const cut = (f: (m: Measure) => [number | null, number | null]) => Object.fromEntries(measures.map((m) => [m, { min: f(m)[0], max: f(m)[1] }]));
   const mid = (m: Measure) => (vt1[m]! + vt2[m]!) / 2;
+  const ref: Measure = measures.includes("powerW") ? "powerW" : measures.includes("speedKmh") ? "speedKmh" : "hrBpm";
+  const easyEdgeRef = 0.85 * vt1[ref]!;
+  // Where the reference edge lies between VT1 (0) and VT2 (1): negative, below VT1.
+  const at = (easyEdgeRef - vt1[ref]!) / (vt2[ref]! - vt1[ref]!);
+  const easyEdge = (m: Measure) => (m === ref ? easyEdgeRef : vt1[m]! + at * (vt2[m]! - vt1[m]!));
   return [
-    { zone: 1, parent: 1, name: "Zone 1 · recovery", rpe: [1, 2], ranges: cut((m) => [null, 0.85 * vt1[m]!]) },
-    { zone: 2, parent: 1, name: "Zone 2 · endurance", rpe: [2, 3], ranges: cut((m) => [0.85 * vt1[m]!, vt1[m]!]) },
+    { zone: 1, parent: 1, name: "Zone 1 · recovery", rpe: [1, 2], ranges: cut((m) => [null, easyEdge(m)]) },
+    { zone: 2, parent: 1, name: "Zone 2 · endurance", rpe: [2, 3], ranges: cut((m) => [easyEdge(m), vt1[m]!]) },
     { zone: 3, parent: 2, name: "Zone 3 · tempo", rpe: [4, 5], ranges: cut((m) => [vt1[m]!, mid(m)]) },
     { zone: 4, parent: 2, name: "Zone 4 · threshold", rpe: [5, 6], ranges: cut((m) => [mid(m), vt2[m]!]) },
     { zone: 5, parent: 3, name: "Zone 5 · high", rpe: [7, 10], ranges: cut((m) => [vt2[m]!, null]) },
