@@ -7,6 +7,7 @@ import PgBoss from "pg-boss";
 import { closeDb } from "../db/client";
 import { deliverPending } from "../features/messages/server/deliver";
 import { JOBS } from "../features/reminders/server/registry";
+import { signingSecret } from "../features/platform/server/config";
 
 function log(line: string) {
   console.log(`[worker] ${line}`);
@@ -14,6 +15,8 @@ function log(line: string) {
 
 const url = process.env.DATABASE_URL;
 if (!url) throw new Error("DATABASE_URL is not set; the worker is started by `npm start`.");
+// The reminders carry signed unsubscribe links: no worker without the signing secret.
+signingSecret();
 const boss = new PgBoss({ connectionString: url, schema: "pgboss", application_name: "tidemark-worker" });
 boss.on("error", (e) => log(`queue error: ${e.message}`));
 await boss.start();

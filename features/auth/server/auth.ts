@@ -2,6 +2,7 @@ import "server-only";
 import { betterAuth } from "better-auth";
 import { APIError, createAuthMiddleware } from "better-auth/api";
 import { personNameSchema } from "../schemas";
+import { signingSecret } from "@/features/platform/server/config";
 import { clearFailedSignIns, recordFailedSignIn, signInPausedFor } from "./sign-in-guard";
 import { drizzleAdapter } from "better-auth/adapters/drizzle";
 import { getDb, schema } from "@/db/client";
@@ -37,7 +38,7 @@ function createAuth() {
   const baseURL = process.env.BETTER_AUTH_URL ?? "http://127.0.0.1:3000";
   return betterAuth({
     baseURL,
-    secret: process.env.BETTER_AUTH_SECRET,
+    secret: process.env.NODE_ENV === "production" ? signingSecret() : process.env.BETTER_AUTH_SECRET,
     database: drizzleAdapter(getDb(), {
       provider: "pg",
       schema: {

@@ -7,6 +7,7 @@ import { localDate } from "@/features/platform/lib/dates";
 import { addDays } from "@/features/platform/lib/days";
 import { KIND_LABELS, readUnsubscribeToken, type UnsubscribableKind } from "../lib/unsubscribe";
 import { calendarIcs } from "../lib/ics";
+import { signingSecret } from "@/features/platform/server/config";
 
 export interface NotificationSettings {
   timeZone: string;
@@ -50,7 +51,7 @@ export async function revokeCalendarToken(actor: Actor): Promise<void> {
  * Only reads: a mail scanner or link preview opening the link changes nothing.
  */
 export async function readUnsubscribeLink(token: string): Promise<{ kind: UnsubscribableKind; label: string; email: string; alreadyOff: boolean } | null> {
-  const parsed = readUnsubscribeToken(process.env.BETTER_AUTH_SECRET ?? "", token);
+  const parsed = readUnsubscribeToken(signingSecret(), token);
   if (!parsed) return null;
   const [u] = await getDb()
     .select({ email: schema.user.email, remindSessions: schema.athleteProfile.remindSessions, remindRetests: schema.athleteProfile.remindRetests, coachDigest: schema.notificationSetting.coachDigest })
@@ -68,7 +69,7 @@ export async function readUnsubscribeLink(token: string): Promise<{ kind: Unsubs
  * off, or null for a token that is not ours.
  */
 export async function unsubscribe(token: string): Promise<{ kind: UnsubscribableKind; label: string; email: string } | null> {
-  const parsed = readUnsubscribeToken(process.env.BETTER_AUTH_SECRET ?? "", token);
+  const parsed = readUnsubscribeToken(signingSecret(), token);
   if (!parsed) return null;
   const db = getDb();
   const [u] = await db.select({ email: schema.user.email }).from(schema.user).where(eq(schema.user.id, parsed.userId));

@@ -19,12 +19,13 @@ import { targetText } from "@/features/zones/lib/format";
 import { zoneSetInForce } from "@/features/zones/lib/zones";
 import { zoneSetsOf } from "@/features/zones/server";
 import { dayLabel, digestMonday, retestStage, sessionReminderDay } from "../lib/clock";
+import { signingSecret } from "@/features/platform/server/config";
 
 const STEP_LABELS = { warmup: "Warm-up", work: "Work", recovery: "Recovery", cooldown: "Cool-down" } as const;
 
 function links(userId: string, kind: UnsubscribableKind) {
   const origin = publicOrigin();
-  const token = unsubscribeToken(process.env.BETTER_AUTH_SECRET ?? "", userId, kind);
+  const token = unsubscribeToken(signingSecret(), userId, kind);
   const unsubscribeUrl = `${origin}/unsubscribe/${token}`;
   return {
     unsubscribeUrl,
