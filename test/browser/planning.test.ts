@@ -1,7 +1,7 @@
 // The coach drags interval templates onto a week until it breaks its budget, sees the reason, applies the fix, and the
 // mark clears. The week is far beyond the demo season, so its budget is the default polarised one (80/5/15 ± 5 %).
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { Browser } from "playwright-core";
+import type { Browser, Page } from "playwright-core";
 import { BASE, dragTemplate, launch, newPage, shot, signIn } from "../support/browser";
 
 let browser: Browser;
@@ -18,6 +18,23 @@ function mondayInWeeks(weeks: number): string {
   return new Date(Date.UTC(now.getUTCFullYear(), now.getUTCMonth(), now.getUTCDate() - dow + weeks * 7)).toISOString().slice(0, 10);
 }
 const plus = (iso: string, n: number) => new Date(Date.parse(`${iso}T00:00:00Z`) + n * 86_400_000).toISOString().slice(0, 10);
+
+/** Drags a calendar event with the mouse from its day to another day's cell, as a coach does. */
+async function dragEvent(page: Page, title: string, fromDate: string, toDate: string) {
+  const event = page.locator(`td.fc-day[data-date="${fromDate}"] .fc-event`, { hasText: title }).first();
+  await event.waitFor();
+  const from = (await event.boundingBox())!;
+  const cell = page.locator(`td.fc-day[data-date="${toDate}"]`);
+  await page.mouse.move(from.x + from.width / 2, from.y + from.height / 2);
+  await page.mouse.down();
+  await page.mouse.move(from.x + from.width / 2 + 10, from.y + from.height / 2, { steps: 5 });
+  for (let i = 0; i < 3; i++) {
+    const to = (await cell.boundingBox())!;
+    await page.mouse.move(to.x + to.width / 2, to.y + to.height / 2 + 10, { steps: 10 });
+    await page.waitForTimeout(150);
+  }
+  await page.mouse.up();
+}
 
 describe("planning in the browser", () => {
   it("drag intervals until the week is over budget, then apply the fix and see the mark clear", async () => {
@@ -96,22 +113,42 @@ describe("planning in the browser", () => {
     const made = await page.request.post(`${BASE}/api/athletes/${athleteId}/sessions`, { data: { date: plus(week, 1), title: "Drag me", sport: "cycling", structure: [{ type: "step", kind: "work", durationS: 3600, zone: 1 }] } });
     const { id } = (await made.json()) as { id: string };
     await page.goto(`${BASE}/athletes/${athleteId}/plan?week=${week}`);
-    const event = page.locator(`td.fc-day[data-date="${plus(week, 1)}"] .fc-event`, { hasText: "Drag me" }).first();
-    await event.waitFor();
-    const from = (await event.boundingBox())!;
-    const cell = page.locator(`td.fc-day[data-date="${plus(week, 4)}"]`);
-    await page.mouse.move(from.x + from.width / 2, from.y + from.height / 2);
-    await page.mouse.down();
-    await page.mouse.move(from.x + from.width / 2 + 10, from.y + from.height / 2, { steps: 5 });
-    for (let i = 0; i < 3; i++) {
-      const to = (await cell.boundingBox())!;
-      await page.mouse.move(to.x + to.width / 2, to.y + to.height / 2 + 10, { steps: 10 });
-      await page.waitForTimeout(150);
-    }
-    await page.mouse.up();
+    await dragEvent(page, "Drag me", plus(week, 1), plus(week, 4));
     await page.getByText(`Moved "Drag me" to ${plus(week, 4)}.`).waitFor();
     const after = (await (await page.request.get(`${BASE}/api/athletes/${athleteId}/sessions?from=${week}&to=${plus(week, 6)}`)).json()) as { id: string; date: string }[];
     expect(after.find((s) => s.id === id)?.date).toBe(plus(week, 4));
+    expect(problems).toEqual([]);
+    await page.context().close();
+  });
+
+  it("dragging one occurrence of a repeat moves only it; with 'the series from here on' the rest follow (server state checked)", async () => {
+    const { page, problems } = await newPage(browser);
+    await signIn(page, "coach@northfold.test");
+    await page.getByRole("link", { name: "Jonas Okafor" }).click();
+    await page.waitForURL(/\/athletes\/[0-9a-f-]+$/);
+    const athleteId = page.url().split("/athletes/")[1]!;
+    const week = mondayInWeeks(112 + (Math.floor(Date.now() / 1000) % 400));
+    const made = await page.request.post(`${BASE}/api/athletes/${athleteId}/sessions`, { data: { date: plus(week, 1), title: "Weekly spin", sport: "cycling", structure: [{ type: "step", kind: "work", durationS: 2700, zone: 1 }], repeat: { byWeekday: ["TU"], count: 3 } } });
+    expect(made.status()).toBe(201);
+    const datesOf = async () =>
+      ((await (await page.request.get(`${BASE}/api/athletes/${athleteId}/sessions?from=${week}&to=${plus(week, 27)}`)).json()) as { title: string; date: string }[])
+        .filter((x) => x.title === "Weekly spin")
+        .map((x) => x.date)
+        .sort();
+    expect(await datesOf()).toEqual([plus(week, 1), plus(week, 8), plus(week, 15)]);
+
+    // This occurrence only (the default): Tuesday → Thursday of the first week.
+    await page.goto(`${BASE}/athletes/${athleteId}/plan?week=${week}`);
+    await dragEvent(page, "Weekly spin", plus(week, 1), plus(week, 3));
+    await page.getByText(`Moved "Weekly spin" to ${plus(week, 3)}.`).waitFor();
+    expect(await datesOf()).toEqual([plus(week, 3), plus(week, 8), plus(week, 15)]);
+
+    // The series from here on: the second week's Tuesday → Wednesday, and the third follows.
+    await page.goto(`${BASE}/athletes/${athleteId}/plan?week=${plus(week, 7)}`);
+    await page.getByLabel("the series from here on").check();
+    await dragEvent(page, "Weekly spin", plus(week, 8), plus(week, 9));
+    await page.getByText(`Moved "Weekly spin" to ${plus(week, 9)}.`).waitFor();
+    expect(await datesOf()).toEqual([plus(week, 3), plus(week, 9), plus(week, 16)]);
     expect(problems).toEqual([]);
     await page.context().close();
   });
