@@ -1,3 +1,5 @@
-/** What other features may use of access/server (the layout rule: another feature's server/ only through its index). */
+/**
+ * What other features may use of access/server. (current.ts, the page helper, is not here: it needs Next's request scope,
+ * and background jobs and scripts that import features must not load it. Pages import it directly.)
+ */
 export * from "./permissions";
-export * from "./current";
