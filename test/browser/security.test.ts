@@ -1,4 +1,5 @@
 // The outbox page as anonymous, athlete, coach and site operator, and the redirect after sign-in, in a real browser.
+import fs from "node:fs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, Page } from "playwright-core";
 import { BASE, launch, newPage, shot, signIn } from "../support/browser";
@@ -115,5 +116,20 @@ describe("public files", () => {
     const { page } = await newPage(browser);
     await page.goto(`${BASE}/sign-in`);
     await expect(page.locator('link[rel="manifest"]').getAttribute("href")).resolves.toBe("/manifest.webmanifest");
+  });
+});
+
+describe("CSV downloads from the athlete page", () => {
+  it("an athlete downloads their own logs from their page", async () => {
+    const { page, problems } = await newPage(browser);
+    await signIn(page, "runner@northfold.test");
+    await page.getByRole("link", { name: "My zones, tests and load" }).click();
+    await page.waitForURL(/\/athletes\/[0-9a-f-]+$/);
+    const [download] = await Promise.all([page.waitForEvent("download"), page.getByRole("link", { name: "logs, last year" }).click()]);
+    expect(download.suggestedFilename()).toMatch(/^tidemark-logs-\d{4}-\d{2}-\d{2}-to-\d{4}-\d{2}-\d{2}\.csv$/);
+    const text = fs.readFileSync((await download.path())!, "utf8").replace(/^\uFEFF/, "");
+    expect(text.split("\r\n")[0]).toMatch(/^date,title,sport,status,duration_min/);
+    expect(text.split("\r\n").length).toBeGreaterThan(2);
+    expect(problems).toEqual([]);
   });
 });

@@ -79,6 +79,7 @@ const MATRIX: Record<string, Cell> = {
       return f;
     },
   },
+  "GET /api/athletes/[id]/export/[file]": { ok: A_AND_COACH, path: () => "/api/athletes/x/export/plan.csv", params: (i) => ({ id: i.athleteA!, file: "plan.csv" }) },
   "GET /api/athletes/[id]/load": { ok: A_AND_COACH, path: () => "/api/athletes/x/load", params: (i) => ({ id: i.athleteA! }), query: () => "?from=2027-01-01&to=2027-01-31" },
   "GET /api/athletes/[id]/logs": { ok: A_AND_COACH, path: () => "/api/athletes/x/logs", params: (i) => ({ id: i.athleteA! }), query: () => "?from=2027-01-01&to=2027-12-31" },
   "POST /api/athletes/[id]/logs": { ok: A_AND_COACH, path: () => "/api/athletes/x/logs", params: (i) => ({ id: i.athleteA! }), body: () => ({ status: "done", date: "2027-02-02", sport: "running", title: "Unplanned jog", durationMin: 30, rpe: 3 }) },

@@ -14,6 +14,7 @@ import { forgetUserSessions } from "@/features/auth/server/session-memo";
 import { SIGN_IN_FAILURES_BEFORE_PAUSE } from "@/features/auth/server/sign-in-guard";
 import * as sessionsRoute from "@/app/api/athletes/[id]/sessions/route";
 import * as sessionRoute from "@/app/api/sessions/[id]/route";
+import * as exportRoute from "@/app/api/athletes/[id]/export/[file]/route";
 import * as templateRoute from "@/app/api/templates/[id]/route";
 import * as seasonsRoute from "@/app/api/athletes/[id]/seasons/route";
 import * as seasonWeekRoute from "@/app/api/seasons/[id]/weeks/[weekStart]/route";
@@ -240,6 +241,30 @@ describe("two coaches editing the same thing", () => {
     expect(staleProfile.json.current).toMatchObject({ bodyMassKg: 61, version: v + 1 });
     // Without a version the change is taken as it comes (older clients).
     expect((await profile(head.browser, { restingHrBpm: 50 })).status).toBe(200);
+  });
+});
+
+describe("CSV downloads", () => {
+  it("the athlete and their coaches download the plan, logs and zone history; formula cells are neutralised; others get 404", async () => {
+    const { head, athleteA } = await makeSquad("export");
+    const other = await makeSquad("export-other");
+    const made = await head.browser.call(sessionsRoute, "POST", `/api/athletes/${athleteA.id}/sessions`, { params: { id: athleteA.id }, body: { date: "2027-03-02", title: '=HYPERLINK("http://evil.test","x")', sport: "running", structure: [{ type: "step", kind: "work", durationS: 2700, zone: 1 }] } });
+    expect(made.status).toBe(201);
+    const get = (who: Browser, file: string, query = "?from=2027-03-01&to=2027-03-31") => who.call(exportRoute, "GET", `/api/athletes/${athleteA.id}/export/${file}`, { params: { id: athleteA.id, file }, query });
+    for (const who of [athleteA.browser, head.browser]) {
+      const r = await get(who, "plan.csv");
+      expect(r.status).toBe(200);
+      expect(r.headers.get("content-type")).toMatch(/text\/csv/);
+      expect(r.headers.get("content-disposition")).toMatch(/attachment; filename="tidemark-plan-2027-03-01-to-2027-03-31.csv"/);
+      const text = String(r.json).replace(/^\uFEFF/, "");
+      expect(text.split("\r\n")[0]).toBe("date,title,sport,kind,planned_min,zone1_min,zone2_min,zone3_min,notes,logged,done_min,rpe");
+      expect(text).toContain(`2027-03-02,"'=HYPERLINK(""http://evil.test"",""x"")",running,training,45,45,0,0`);
+    }
+    expect((await get(head.browser, "logs.csv")).status).toBe(200);
+    expect((await get(head.browser, "zones.csv", "")).status).toBe(200);
+    expect((await get(other.head.browser, "plan.csv")).status).toBe(404);
+    expect((await get(head.browser, "secrets.csv")).status).toBe(404);
+    expect((await get(head.browser, "plan.csv", "?from=2020-01-01&to=2027-01-01")).status).toBe(400);
   });
 });
 

@@ -52,6 +52,14 @@ export default async function AthletePage({ params }: { params: Promise<{ id: st
             {load.trimpOtherMethod ? ` ${load.trimpOtherMethod} log(s) scored otherwise are left out of the weekly TRIMP.` : ""}
           </p>
         ) : null}
+        <p className="text-sm">
+          Download as CSV (opens in any spreadsheet):{" "}
+          <a className="font-semibold text-tide underline" href={`/api/athletes/${id}/export/plan.csv`} download>plan, a year back and ahead</a>
+          {" · "}
+          <a className="font-semibold text-tide underline" href={`/api/athletes/${id}/export/logs.csv`} download>logs, last year</a>
+          {" · "}
+          <a className="font-semibold text-tide underline" href={`/api/athletes/${id}/export/zones.csv`} download>zone history</a>
+        </p>
       </section>
       <section className="card space-y-4" aria-labelledby="zones-heading">
         <h2 id="zones-heading" className="text-lg font-bold">Zones in force today</h2>

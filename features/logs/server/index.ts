@@ -1,0 +1,2 @@
+/** What other features may use of logs/server. */
+export { listLogs } from "./logs";
