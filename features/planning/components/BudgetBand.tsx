@@ -15,6 +15,9 @@ export function BudgetBand({ week, preview, onApplyFix, busy }: { week: WeekSumm
         <p className="font-semibold">
           {label}
           {week.block ? <span className="font-normal text-ink-soft"> · {week.block.replaceAll("_", " ")}</span> : null}
+          {week.role === "taper" || week.role === "event" ? (
+            <span className="font-normal text-ink-soft"> · {week.role === "taper" ? "taper" : "race week"}: intensity kept, judged on volume</span>
+          ) : null}
           {preview ? <span className="ml-2 text-tide">preview of the drop</span> : null}
         </p>
         <p className="num text-ink-soft">

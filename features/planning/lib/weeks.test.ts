@@ -89,3 +89,32 @@ describe("weekly budget summaries", () => {
     expect(planned[0]!.flags.map((f) => f.code)).toEqual(["too_much_moderate"]);
   });
 });
+
+describe("weeks judged by their role in the season", () => {
+  // A week of 3 h 20 min: 130 min zone 1 and 70 min zone 3 (35 % zone 3, far above any budget's share).
+  const sessions = [
+    { id: "a", date: "2027-09-13", title: "Intervals", kind: "training", minutesByZone: [40, 0, 35] as [number, number, number] },
+    { id: "b", date: "2027-09-15", title: "Openers", kind: "training", minutesByZone: [50, 0, 35] as [number, number, number] },
+    { id: "c", date: "2027-09-17", title: "Easy", kind: "training", minutesByZone: [40, 0, 0] as [number, number, number] },
+  ];
+  const week = (role: "loading" | "taper" | "event" | "unloading", volumeHours: number) =>
+    summariseWeeks({ from: "2027-09-13", to: "2027-09-13", sessions, seasonWeeks: [{ weekStart: "2027-09-13", budget: "polarised", block: "taper", retest: false, role, volumeHours }], today: "2027-09-01" })[0]!;
+
+  it("a taper that keeps its intervals is not flagged for its zone 3 share, only for volume above its target (+15 %)", () => {
+    expect(week("loading", 6).flags.map((f) => f.code)).toContain("too_much_high");
+    const taper = week("taper", 3.5);
+    expect(taper.overBudget).toBe(false);
+    expect(taper.role).toBe("taper");
+    const tooLong = week("taper", 2.5);
+    expect(tooLong.flags.map((f) => f.code)).toEqual(["role_volume"]);
+    // 200 min planned against 150 min (at most 172.5 min): hand calculation.
+    expect(tooLong.flags[0]!.numbers).toEqual({ plannedMin: 200, targetMin: 150, limitMin: 173 });
+    expect(tooLong.fix).toBeNull();
+  });
+
+  it("a race week is exempt from the zone shares; an unloading week is judged on its volume and its budget", () => {
+    expect(week("event", 4).overBudget).toBe(false);
+    const unloading = week("unloading", 2);
+    expect(unloading.flags.map((f) => f.code).sort()).toEqual(["role_volume", "too_little_low", "too_much_high"].sort());
+  });
+});

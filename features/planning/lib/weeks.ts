@@ -18,7 +18,21 @@ export interface SeasonWeekInfo {
   budget: BudgetPreset;
   block: string;
   retest: boolean;
+  /** The week's role in the season and its volume target (a season's weeks carry them; a preview may not). */
+  role?: WeekRole;
+  volumeHours?: number;
 }
+
+export type WeekRole = "loading" | "unloading" | "taper" | "event" | "recovery";
+
+/**
+ * How a week is judged depends on its role. A taper keeps its intensity and cuts volume (Mujika & Padilla 2003; Bosquet
+ * et al. 2007), and a race week holds the race itself, so neither is judged on zone shares: both are judged on volume
+ * against the season's target for the week. An unloading or recovery week is judged on its reduced volume too, as well as
+ * on its (easy) budget. A week's volume may exceed its target by ROLE_VOLUME_TOLERANCE (common practice).
+ */
+export const ROLE_VOLUME_TOLERANCE = 0.15;
+const SHARE_CODES = new Set(["too_much_high", "too_little_low", "too_much_moderate"]);
 
 export interface Fix {
   action: "move";
@@ -33,6 +47,8 @@ export interface WeekSummary {
   plannedMinByZone: Shares;
   doneMinByZone: Shares;
   budget: { name: string; shares: Shares; tolerance: number };
+  /** The week's role in its season, when it has one; taper and event weeks are judged on volume, not zone shares. */
+  role: WeekRole | null;
   overBudget: boolean;
   /** The engine's reasons, each with its numbers (e.g. the minutes of zone 3 to remove). */
   flags: Pick<Breach, "code" | "message" | "numbers">[];
@@ -98,7 +114,7 @@ export interface SummariseInput {
 
 const seasonWeekIndex = new WeakMap<SeasonWeekInfo[], Map<string, SeasonWeekInfo>>();
 
-function weekBudget(weekStart: string, input: SummariseInput): { budget: Budget; block: string | null; retest: boolean } {
+function weekBudget(weekStart: string, input: SummariseInput): { budget: Budget; block: string | null; retest: boolean; role: WeekRole | null; volumeHours: number | null } {
   let byStart = input.seasonWeeks ? seasonWeekIndex.get(input.seasonWeeks) : undefined;
   if (input.seasonWeeks && !byStart) {
     byStart = new Map(input.seasonWeeks.map((w) => [w.weekStart, w]));
@@ -106,19 +122,43 @@ function weekBudget(weekStart: string, input: SummariseInput): { budget: Budget;
   }
   const sw = byStart?.get(weekStart);
   const preset = sw?.budget ?? input.defaultBudget ?? "polarised";
-  return { budget: BUDGET_PRESETS[preset], block: sw?.block ?? null, retest: sw?.retest ?? false };
+  return { budget: BUDGET_PRESETS[preset], block: sw?.block ?? null, retest: sw?.retest ?? false, role: sw?.role ?? null, volumeHours: sw?.volumeHours ?? null };
 }
 
 function check(weekStart: string, weekOf: WeekOf, input: SummariseInput, previousTotals: number[], retestOverdue: boolean) {
   const inWeek = weekOf(weekStart);
   const planned = minutesOf(inWeek);
-  const { budget, block } = weekBudget(weekStart, input);
+  const { budget, block, role, volumeHours } = weekBudget(weekStart, input);
   // A week that holds nothing but its retest is not planned yet: the test alone is no mix of training to judge (common
   // practice: the budget governs training; the test's minutes count once training is planned around it).
   const judged: Shares = inWeek.some((s) => s.kind !== "retest") ? planned : [0, 0, 0];
   // The easy-day rule applies only to weeks with training on most days; a week of two sessions has easy days by itself.
-  const result = checkWeek({ minutesByZone: judged, days: daysOf(weekStart, inWeek), previousWeeksMinutes: previousTotals, budget, retestOverdue });
-  return { inWeek, planned, budget, block, result };
+  const checked = checkWeek({ minutesByZone: judged, days: daysOf(weekStart, inWeek), previousWeeksMinutes: previousTotals, budget, retestOverdue });
+  const result = role ? judgeByRole(checked, role, judged, volumeHours) : checked;
+  return { inWeek, planned, budget, block, role, result };
+}
+
+/** Role rules (see ROLE_VOLUME_TOLERANCE): taper and event weeks drop the zone-share checks; the reduced weeks get a volume check. */
+function judgeByRole(checked: ReturnType<typeof checkWeek>, role: WeekRole, minutes: Shares, volumeHours: number | null): ReturnType<typeof checkWeek> {
+  let breaches = checked.breaches;
+  if (role === "taper" || role === "event") breaches = breaches.filter((b) => !SHARE_CODES.has(b.code));
+  if (role !== "loading" && volumeHours !== null && volumeHours > 0) {
+    const total = minutes[0] + minutes[1] + minutes[2];
+    const limit = volumeHours * 60 * (1 + ROLE_VOLUME_TOLERANCE);
+    if (total > limit) {
+      const what = role === "taper" ? "A taper keeps its intensity and cuts volume" : role === "event" ? "A race week keeps the volume low around the race" : "An easier week rests by its lower volume";
+      const hours = (m: number) => `${Math.round((m / 60) * 100) / 100} h`;
+      breaches = [
+        ...breaches,
+        {
+          code: "role_volume",
+          message: `${what}: this week plans ${hours(total)} against a target of ${hours(volumeHours * 60)} (at most ${hours(limit)}). Remove about ${Math.ceil(total - volumeHours * 60)} min, easy minutes first.`,
+          numbers: { plannedMin: Math.round(total), targetMin: Math.round(volumeHours * 60), limitMin: Math.round(limit) },
+        },
+      ];
+    }
+  }
+  return { ...checked, breaches, ok: breaches.length === 0 };
 }
 
 /** A retest week in the past without a test on or after its Monday is overdue. */
@@ -139,16 +179,17 @@ export function summariseWeeks(input: SummariseInput): WeekSummary[] {
     const next = addDays(w, 7);
     const previous = previousTotals(w, weekOf);
     const overdue = isRetestOverdue(w, input) && w <= (input.today ?? new Date().toISOString().slice(0, 10));
-    const { inWeek, planned, budget, block, result } = check(w, weekOf, input, previous, overdue);
+    const { inWeek, planned, budget, block, role, result } = check(w, weekOf, input, previous, overdue);
     const budgetBreaches = result.breaches.filter((b) => b.code !== "retest_overdue");
     out.push({
       weekStart: w,
       plannedMinByZone: planned.map((v) => Math.round(v * 10) / 10) as Shares,
       doneMinByZone: minutesOf((input.done ?? []).filter((d) => d.date >= w && d.date < next).map((d) => ({ id: "", date: d.date, title: "", kind: "", minutesByZone: d.minutesByZone }))).map((v) => Math.round(v * 10) / 10) as Shares,
       budget: { name: budget.name, shares: [...budget.shares] as Shares, tolerance: budget.tolerance },
+      role,
       overBudget: budgetBreaches.length > 0,
       flags: result.breaches.map((b) => ({ code: b.code, message: b.message, numbers: b.numbers })),
-      fix: input.withFix !== false && budgetBreaches.some((b) => b.code !== "volume_ramp") ? proposeFix(w, inWeek, input, weekOf) : null,
+      fix: input.withFix !== false && budgetBreaches.some((b) => b.code !== "volume_ramp" && b.code !== "role_volume") ? proposeFix(w, inWeek, input, weekOf) : null,
       block,
     });
   }
@@ -163,7 +204,7 @@ export function proposeFix(weekStart: string, inWeek: WeekSession[], input: Summ
   const candidates = inWeek.filter((s) => s.kind !== "retest").sort((a, b) => b.minutesByZone[2] + b.minutesByZone[1] - (a.minutesByZone[2] + a.minutesByZone[1]));
   // The share and easy-day breaches are what a move can cure; a volume ramp needs shorter sessions instead.
   const breachesOf = (week: string, of: WeekOf) =>
-    check(week, of, input, previousTotals(week, of), false).result.breaches.filter((b) => b.code !== "retest_overdue" && b.code !== "volume_ramp");
+    check(week, of, input, previousTotals(week, of), false).result.breaches.filter((b) => b.code !== "retest_overdue" && b.code !== "volume_ramp" && b.code !== "role_volume");
   for (const s of candidates) {
     if (s.minutesByZone[2] + s.minutesByZone[1] === 0) break;
     // The week without this session: the checks that count here (shares, easy day) do not look at other weeks, so
