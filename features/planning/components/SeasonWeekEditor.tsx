@@ -65,6 +65,10 @@ export function SeasonWeekEditor({ athleteId, seasonId, seasonVersion, week }: {
           <input type="checkbox" {...register("retest")} /> Retest this week
         </label>
       </div>
+      {week.retest && week.retestNote ? <p className="text-sm text-ink-soft">{week.retestNote}</p> : null}
+      {(week.role === "taper" || week.role === "event" || week.role === "recovery") ? (
+        <p className="text-sm text-ink-soft">A retest in a {week.role === "event" ? "race" : week.role} week would cost the event or measure a tired athlete: the generator never places one here.</p>
+      ) : null}
       <SubmitButton className="btn" disabled={formState.isSubmitting}>{formState.isSubmitting ? "Saving…" : "Save the week"}</SubmitButton>
     </form>
   );

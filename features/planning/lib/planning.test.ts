@@ -111,3 +111,24 @@ describe("season planning", () => {
     expect(() => planSeason({ startDate: "not a date", events: [{ date: "2027-06-10", name: "x" }], weeklyHours: 8 })).toThrow(/not a date/);
   });
 });
+
+describe("retest placement", () => {
+  const cases = [
+    { weeks: 16, events: [["2027-04-25", "Spring 10k"]] },
+    { weeks: 52, events: [["2027-06-06", "Half"], ["2027-10-03", "Marathon"]] },
+    { weeks: 104, events: [["2027-05-02", "A"], ["2027-05-23", "B"], ["2028-09-24", "C"]] },
+  ] as const;
+  for (const c of cases) {
+    it(`never lands in a taper, race or recovery week, and says where it went (${c.weeks} weeks, ${c.events.length} event(s))`, () => {
+      const weeks = planSeason({ startDate: "2027-01-04", events: c.events.map(([date, name]) => ({ date, name })), weeklyHours: 8 });
+      const tests = weeks.filter((w) => w.retest);
+      expect(tests.length).toBeGreaterThan(0);
+      for (const w of tests) {
+        expect(["unloading", "loading"], `${w.weekStart} is ${w.role}`).toContain(w.role);
+        expect(w.retestNote).toMatch(/Retest due/);
+      }
+      // At least 8 weeks apart.
+      for (let i = 1; i < tests.length; i++) expect(tests[i]!.index - tests[i - 1]!.index).toBeGreaterThanOrEqual(8);
+    });
+  }
+});

@@ -42,6 +42,8 @@ export interface SeasonWeek {
   volumeHours: number;
   budget: BudgetPreset;
   retest: boolean;
+  /** Where the retest went and why, when this week has one. */
+  retestNote?: string;
   events: string[];
 }
 
@@ -158,20 +160,25 @@ export function planSeason(input: SeasonInput): SeasonWeek[] {
     return trained ? "polarised" : "pyramidal";
   };
 
-  // Retests: due every `every` weeks from the start; the latest unloading week at or before the due week, not before the
-  // previous retest + 8 weeks; otherwise the due week itself.
+  // Retests: due every `every` weeks from the start, never in a taper, race or recovery week (a test there would cost the
+  // event or measure a tired athlete). The nearest unloading week within four weeks of the due week (earlier first) is
+  // best (rested, common practice); otherwise the nearest loading week; never sooner than 8 weeks after the previous one.
+  // Each placed retest says where it went and why.
   const retest = new Array<boolean>(total).fill(false);
+  const retestNote = new Array<string | null>(total).fill(null);
   let last = 0;
   for (let due = every; due < total; due = last + every) {
-    let placed = -1;
-    for (let w = due; w >= Math.max(last + 8, due - 4); w--) {
-      if (role[w] === "unloading" || role[w] === "recovery") {
-        placed = w;
-        break;
-      }
+    const window: number[] = [];
+    for (let d = 0; d <= 4; d++) for (const w of d === 0 ? [due] : [due - d, due + d]) if (w >= Math.max(last + 8, 1) && w < total) window.push(w);
+    const placed = window.find((w) => role[w] === "unloading") ?? window.find((w) => role[w] === "loading") ?? -1;
+    if (placed === -1) {
+      // Nothing suitable near the due week (a block of races and tapers): the next cycle starts from the due week.
+      last = due;
+      continue;
     }
-    if (placed === -1) placed = due;
     retest[placed] = true;
+    const dueOn = formatDate(start + due * 7 * DAY_MS);
+    retestNote[placed] = placed === due ? `Retest due this week (${role[placed]} week).` : `Retest due the week of ${dueOn}; placed here, ${placed < due ? "earlier" : "later"}, in ${role[placed] === "unloading" ? "an unloading" : "a loading"} week${role[due] === "taper" || role[due] === "event" || role[due] === "recovery" ? `, because the due week is a ${role[due] === "event" ? "race" : role[due]} week` : ""}.`;
     last = placed;
   }
 
@@ -183,6 +190,7 @@ export function planSeason(input: SeasonInput): SeasonWeek[] {
     volumeHours: volumes[w]!,
     budget: budgetFor(block[w]!),
     retest: retest[w]!,
+    ...(retestNote[w] ? { retestNote: retestNote[w]! } : {}),
     events: events.filter((_, i) => eventWeeks[i] === w).map((e) => e.name),
   }));
 }
