@@ -41,8 +41,13 @@ export function BudgetBand({ week, preview, onApplyFix, busy }: { week: WeekSumm
           <span className="num shrink-0 text-ink-soft">{total ? Math.round((100 * done) / total) : 0} % of plan</span>
         </div>
       ) : null}
+      {week.inProgress && week.targetMin ? (
+        <p className="mt-1 text-sm font-semibold text-ink-soft" data-testid="in-progress">
+          In progress: {Math.round(total)} of {week.targetMin} min planned. The budget is judged once half the target is planned or the week begins.
+        </p>
+      ) : null}
       {week.flags.length ? (
-        <ul className="mt-1 space-y-0.5 text-sm">
+        <ul className={`mt-1 space-y-0.5 text-sm ${week.inProgress ? "text-ink-soft" : ""}`}>
           {week.overBudget ? <li className="font-semibold text-alert">Over budget</li> : null}
           {week.flags.map((f) => (
             <li key={f.code} data-flag={f.code}>{f.message}</li>

@@ -25,7 +25,7 @@ export type BudgetPreset = keyof typeof BUDGET_PRESETS;
 
 export const DEFAULT_RAMP_CAP = 0.1;
 
-export type BreachCode = "too_much_high" | "too_little_low" | "too_much_moderate" | "volume_ramp" | "no_easy_day" | "retest_overdue" | "role_volume";
+export type BreachCode = "too_much_high" | "too_little_low" | "too_much_moderate" | "volume_ramp" | "no_easy_day" | "retest_overdue" | "role_volume" | "volume_off_target";
 
 export interface Breach {
   code: BreachCode;

@@ -118,3 +118,25 @@ describe("weeks judged by their role in the season", () => {
     expect(unloading.flags.map((f) => f.code).sort()).toEqual(["role_volume", "too_little_low", "too_much_high"].sort());
   });
 });
+
+describe("volume against the week's target", () => {
+  const one = (minutes: [number, number, number], volumeHours: number, today: string) =>
+    summariseWeeks({ from: "2027-09-13", to: "2027-09-13", sessions: [{ id: "a", date: "2027-09-14", title: "Long", kind: "training", minutesByZone: minutes }], seasonWeeks: [{ weekStart: "2027-09-13", budget: "polarised", block: "general_preparation", retest: false, role: "loading", volumeHours }], today })[0]!;
+
+  it("a loading week planned far above its target (8.5 h against 5.75 h) is flagged", () => {
+    const w = one([480, 0, 30], 5.75, "2027-09-14");
+    expect(w.flags.map((f) => f.code)).toContain("volume_off_target");
+    // 510 min against 345 min: 48 % more (hand calculation).
+    expect(w.flags.find((f) => f.code === "volume_off_target")!.message).toMatch(/8\.5 h against its target of 5\.75 h \(48 % more\)/);
+  });
+
+  it("a future week with less than half its target planned is in progress, not over budget; once begun it is judged", () => {
+    const filling = one([60, 0, 30], 6, "2027-09-01");
+    expect(filling.inProgress).toBe(true);
+    expect(filling.overBudget).toBe(false);
+    expect(filling.flags.map((f) => f.code)).toContain("too_much_high");
+    const begun = one([60, 0, 30], 6, "2027-09-13");
+    expect(begun.inProgress).toBe(false);
+    expect(begun.overBudget).toBe(true);
+  });
+});

@@ -32,6 +32,10 @@ export type WeekRole = "loading" | "unloading" | "taper" | "event" | "recovery";
  * on its (easy) budget. A week's volume may exceed its target by ROLE_VOLUME_TOLERANCE (common practice).
  */
 export const ROLE_VOLUME_TOLERANCE = 0.15;
+/** A loading week planned more than this far above its target is flagged too (common practice). */
+export const LOADING_VOLUME_TOLERANCE = 0.25;
+/** A future week with less than this share of its target planned is still being filled: "in progress", not red. */
+export const IN_PROGRESS_SHARE = 0.5;
 const SHARE_CODES = new Set(["too_much_high", "too_little_low", "too_much_moderate"]);
 
 export interface Fix {
@@ -49,6 +53,10 @@ export interface WeekSummary {
   budget: { name: string; shares: Shares; tolerance: number };
   /** The week's role in its season, when it has one; taper and event weeks are judged on volume, not zone shares. */
   role: WeekRole | null;
+  /** The season's volume target for the week, in minutes, when it has one. */
+  targetMin: number | null;
+  /** A future week still being filled (less than half its target planned): shown as in progress, not over budget. */
+  inProgress: boolean;
   overBudget: boolean;
   /** The engine's reasons, each with its numbers (e.g. the minutes of zone 3 to remove). */
   flags: Pick<Breach, "code" | "message" | "numbers">[];
@@ -135,13 +143,27 @@ function check(weekStart: string, weekOf: WeekOf, input: SummariseInput, previou
   // The easy-day rule applies only to weeks with training on most days; a week of two sessions has easy days by itself.
   const checked = checkWeek({ minutesByZone: judged, days: daysOf(weekStart, inWeek), previousWeeksMinutes: previousTotals, budget, retestOverdue });
   const result = role ? judgeByRole(checked, role, judged, volumeHours) : checked;
-  return { inWeek, planned, budget, block, role, result };
+  return { inWeek, planned, budget, block, role, volumeHours, result };
 }
 
 /** Role rules (see ROLE_VOLUME_TOLERANCE): taper and event weeks drop the zone-share checks; the reduced weeks get a volume check. */
 function judgeByRole(checked: ReturnType<typeof checkWeek>, role: WeekRole, minutes: Shares, volumeHours: number | null): ReturnType<typeof checkWeek> {
   let breaches = checked.breaches;
   if (role === "taper" || role === "event") breaches = breaches.filter((b) => !SHARE_CODES.has(b.code));
+  if (role === "loading" && volumeHours !== null && volumeHours > 0) {
+    const total = minutes[0] + minutes[1] + minutes[2];
+    if (total > volumeHours * 60 * (1 + LOADING_VOLUME_TOLERANCE)) {
+      const hours = (m: number) => `${Math.round((m / 60) * 100) / 100} h`;
+      breaches = [
+        ...breaches,
+        {
+          code: "volume_off_target",
+          message: `This week plans ${hours(total)} against its target of ${hours(volumeHours * 60)} (${Math.round((100 * total) / (volumeHours * 60) - 100)} % more).`,
+          numbers: { plannedMin: Math.round(total), targetMin: Math.round(volumeHours * 60) },
+        },
+      ];
+    }
+  }
   if (role !== "loading" && volumeHours !== null && volumeHours > 0) {
     const total = minutes[0] + minutes[1] + minutes[2];
     const limit = volumeHours * 60 * (1 + ROLE_VOLUME_TOLERANCE);
@@ -179,17 +201,22 @@ export function summariseWeeks(input: SummariseInput): WeekSummary[] {
     const next = addDays(w, 7);
     const previous = previousTotals(w, weekOf);
     const overdue = isRetestOverdue(w, input) && w <= (input.today ?? new Date().toISOString().slice(0, 10));
-    const { inWeek, planned, budget, block, role, result } = check(w, weekOf, input, previous, overdue);
+    const { inWeek, planned, budget, block, role, volumeHours, result } = check(w, weekOf, input, previous, overdue);
     const budgetBreaches = result.breaches.filter((b) => b.code !== "retest_overdue");
+    // A week not yet begun and planned to less than half its target is still being filled: in progress, not red.
+    const plannedTotal = planned[0] + planned[1] + planned[2];
+    const inProgress = volumeHours !== null && volumeHours > 0 && w > (input.today ?? new Date().toISOString().slice(0, 10)) && plannedTotal < IN_PROGRESS_SHARE * volumeHours * 60;
     out.push({
       weekStart: w,
       plannedMinByZone: planned.map((v) => Math.round(v * 10) / 10) as Shares,
       doneMinByZone: minutesOf((input.done ?? []).filter((d) => d.date >= w && d.date < next).map((d) => ({ id: "", date: d.date, title: "", kind: "", minutesByZone: d.minutesByZone }))).map((v) => Math.round(v * 10) / 10) as Shares,
       budget: { name: budget.name, shares: [...budget.shares] as Shares, tolerance: budget.tolerance },
       role,
-      overBudget: budgetBreaches.length > 0,
+      targetMin: volumeHours !== null ? Math.round(volumeHours * 60) : null,
+      inProgress,
+      overBudget: !inProgress && budgetBreaches.length > 0,
       flags: result.breaches.map((b) => ({ code: b.code, message: b.message, numbers: b.numbers })),
-      fix: input.withFix !== false && budgetBreaches.some((b) => b.code !== "volume_ramp" && b.code !== "role_volume") ? proposeFix(w, inWeek, input, weekOf) : null,
+      fix: !inProgress && input.withFix !== false && budgetBreaches.some((b) => b.code !== "volume_ramp" && b.code !== "role_volume" && b.code !== "volume_off_target") ? proposeFix(w, inWeek, input, weekOf) : null,
       block,
     });
   }
@@ -204,7 +231,7 @@ export function proposeFix(weekStart: string, inWeek: WeekSession[], input: Summ
   const candidates = inWeek.filter((s) => s.kind !== "retest").sort((a, b) => b.minutesByZone[2] + b.minutesByZone[1] - (a.minutesByZone[2] + a.minutesByZone[1]));
   // The share and easy-day breaches are what a move can cure; a volume ramp needs shorter sessions instead.
   const breachesOf = (week: string, of: WeekOf) =>
-    check(week, of, input, previousTotals(week, of), false).result.breaches.filter((b) => b.code !== "retest_overdue" && b.code !== "volume_ramp" && b.code !== "role_volume");
+    check(week, of, input, previousTotals(week, of), false).result.breaches.filter((b) => b.code !== "retest_overdue" && b.code !== "volume_ramp" && b.code !== "role_volume" && b.code !== "volume_off_target");
   for (const s of candidates) {
     if (s.minutesByZone[2] + s.minutesByZone[1] === 0) break;
     // The week without this session: the checks that count here (shares, easy day) do not look at other weeks, so
