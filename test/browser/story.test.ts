@@ -21,7 +21,6 @@ const ATHLETE = { name: "Bo Lindqvist", email: `bo-${tag}@story.test`, password:
 const iso = (d: Date) => d.toISOString().slice(0, 10);
 const plus = (date: string, n: number) => iso(new Date(Date.parse(`${date}T00:00:00Z`) + n * 86_400_000));
 const today = iso(new Date());
-const mondayOf = (date: string) => plus(date, -((new Date(`${date}T00:00:00Z`).getUTCDay() + 6) % 7));
 
 let browser: Browser;
 beforeAll(async () => {
@@ -195,8 +194,13 @@ describe("the everyday story", () => {
     await visit(c, "11-template-builder", coach.problems);
     await c.getByRole("button", { name: "Save the template" }).click();
     await c.getByText("Harbour intervals 6 × 4 min").first().waitFor();
-    // Two easy long runs in the target week and the next (through the API, as the coach).
-    const week = mondayOf(plus(today, 14));
+    // Two easy long runs in the target week and the next (through the API, as the coach). The target week is a loading
+    // week followed by another, so that a fix may move a session there (never into an unloading, taper or race week).
+    const seasons = (await (await c.request.get(`${BASE}/api/athletes/${athleteId}/seasons`)).json()) as { weeks: { weekStart: string; role: string; budget: string }[] }[];
+    const sw = seasons[0]!.weeks;
+    const at = sw.findIndex((w, i) => i >= 1 && w.weekStart > plus(today, 7) && w.role === "loading" && w.budget === "pyramidal" && sw[i + 1]?.role === "loading" && sw[i + 1]?.budget === "pyramidal");
+    expect(at).toBeGreaterThan(0);
+    const week = sw[at]!.weekStart;
     for (const d of [plus(week, 5), plus(week, 6), plus(week, 12), plus(week, 13)]) {
       const r = await c.request.post(`${BASE}/api/athletes/${athleteId}/sessions`, { data: { date: d, title: "Easy long run", sport: "running", structure: [{ type: "step", kind: "work", durationS: 90 * 60, zone: 1 }] } });
       expect(r.status()).toBe(201);

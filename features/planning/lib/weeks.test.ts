@@ -140,3 +140,44 @@ describe("volume against the week's target", () => {
     expect(begun.overBudget).toBe(true);
   });
 });
+
+describe("the one-click fix does no harm", () => {
+  // Week A (2027-09-06) over budget with three hard sessions; week B (2027-09-13) easy.
+  const hard = (id: string, date: string) => ({ id, date, title: `Intervals ${id}`, kind: "training", minutesByZone: [40, 0, 35] as [number, number, number] });
+  const easy = (id: string, date: string, min = 90) => ({ id, date, title: `Easy ${id}`, kind: "training", minutesByZone: [min, 0, 0] as [number, number, number] });
+  // Week A: two hard sessions and 180 easy minutes, 21.2 % zone 3 (over 15 ± 5 %); one hard session fewer makes 13.7 %.
+  // Week B: three easy hours of 60 min; with one hard session added it stays within budget and its ramp (hand computation).
+  const base = [hard("h1", "2027-09-07"), easy("e0", "2027-09-08"), hard("h2", "2027-09-10"), easy("e1", "2027-09-12"), easy("e2", "2027-09-14", 60), easy("e4", "2027-09-17", 60), easy("e3", "2027-09-19", 60)];
+  const fixFor = (sessions: typeof base, roleB: "loading" | "taper" = "loading") =>
+    summariseWeeks({
+      from: "2027-09-06",
+      to: "2027-09-06",
+      sessions,
+      seasonWeeks: [
+        { weekStart: "2027-09-06", budget: "polarised", block: "specific_preparation", retest: false, role: "loading", volumeHours: 7 },
+        { weekStart: "2027-09-13", budget: "polarised", block: "specific_preparation", retest: false, role: roleB, volumeHours: 7 },
+        { weekStart: "2027-08-30", budget: "polarised", block: "specific_preparation", retest: false, role: "taper", volumeHours: 7 },
+      ],
+      today: "2027-09-01",
+    })[0]!.fix;
+
+  it("moves a hard session into the next loading week, on a day with no hard session beside it", () => {
+    const fix = fixFor(base)!;
+    expect(fix.toDate >= "2027-09-13").toBe(true);
+    const moved = base.find((s) => s.id === fix.sessionId)!;
+    expect(moved.minutesByZone[2]).toBeGreaterThan(0);
+  });
+
+  it("never into a taper week (here the next week, and the week before is a taper too)", () => {
+    expect(fixFor(base, "taper")).toBeNull();
+  });
+
+  it("never back to back with a hard session already there", () => {
+    const crowded = [...base, hard("b1", "2027-09-15")];
+    // Tuesday 14 September (h1 + 7 days) would sit beside Wednesday's hard session, Friday 17 (h2) would break week B's
+    // budget, the week before is a taper and a week holding only intervals breaks its own: no fix is offered.
+    expect(fixFor(crowded)).toBeNull();
+    // Without Wednesday's session the same move is offered.
+    expect(fixFor(base)).toMatchObject({ sessionId: "h1", toDate: "2027-09-14" });
+  });
+});

@@ -227,11 +227,20 @@ export function summariseWeeks(input: SummariseInput): WeekSummary[] {
  * A one-click fix: move the session with the most zone 3 (or zone 2) minutes to the same weekday of a neighbouring week
  * where it fits the budget, preferring the next week.
  */
+/** A hard session: meaningful zone 3 (10 min or more) or long zone 2 (30 min or more); short strides are not (common practice). */
+export function isHardSession(s: Pick<WeekSession, "minutesByZone">): boolean {
+  return s.minutesByZone[2] >= 10 || s.minutesByZone[1] >= 30;
+}
+
 export function proposeFix(weekStart: string, inWeek: WeekSession[], input: SummariseInput, weekOf: WeekOf = indexByWeek(input.sessions)): Fix | null {
-  const candidates = inWeek.filter((s) => s.kind !== "retest").sort((a, b) => b.minutesByZone[2] + b.minutesByZone[1] - (a.minutesByZone[2] + a.minutesByZone[1]));
+  // Never a retest or a race: those are placed on purpose.
+  const candidates = inWeek.filter((s) => s.kind !== "retest" && s.kind !== "race" && s.kind !== "event").sort((a, b) => b.minutesByZone[2] + b.minutesByZone[1] - (a.minutesByZone[2] + a.minutesByZone[1]));
   // The share and easy-day breaches are what a move can cure; a volume ramp needs shorter sessions instead.
-  const breachesOf = (week: string, of: WeekOf) =>
-    check(week, of, input, previousTotals(week, of), false).result.breaches.filter((b) => b.code !== "retest_overdue" && b.code !== "volume_ramp" && b.code !== "role_volume" && b.code !== "volume_off_target");
+  const curable = (b: Breach) => b.code !== "retest_overdue" && b.code !== "volume_ramp" && b.code !== "role_volume" && b.code !== "volume_off_target";
+  const breachesOf = (week: string, of: WeekOf) => check(week, of, input, previousTotals(week, of), false).result.breaches.filter(curable);
+  // The week it lands in is checked against every rule, the volume ramp and its target included.
+  const everyBreachOf = (week: string, of: WeekOf) => check(week, of, input, previousTotals(week, of), false).result.breaches.filter((b) => b.code !== "retest_overdue");
+  const sessionsOn = (of: WeekOf, date: string) => of(mondayOf(date)).filter((x) => x.date === date);
   for (const s of candidates) {
     if (s.minutesByZone[2] + s.minutesByZone[1] === 0) break;
     // The week without this session: the checks that count here (shares, easy day) do not look at other weeks, so
@@ -242,10 +251,14 @@ export function proposeFix(weekStart: string, inWeek: WeekSession[], input: Summ
       const toDate = addDays(s.date, shift);
       if (toDate < (input.today ?? "0000-00-00")) continue;
       const targetWeek = mondayOf(toDate);
+      // Never into a taper, race, unloading or recovery week, nor a week with a retest.
+      const target = weekBudget(targetWeek, input);
+      if ((target.role && target.role !== "loading") || target.retest || weekOf(targetWeek).some((x) => x.kind === "retest")) continue;
+      // Never back to back with another hard session (nor onto a day that has one).
+      if (isHardSession(s) && [-1, 0, 1].some((d) => sessionsOn(without, addDays(toDate, d)).some(isHardSession))) continue;
       // The plan with this one session moved: only its old and new weeks differ.
       const moved: WeekOf = (w) => (w === targetWeek ? [...without(w), { ...s, date: toDate }] : without(w));
-      // The week it lands in must then keep its budget too.
-      if (breachesOf(targetWeek, moved).length === 0) {
+      if (everyBreachOf(targetWeek, moved).length === 0) {
         return { action: "move", sessionId: s.id, title: s.title, toDate, message: `Move "${s.title}" to ${toDate}: both weeks then keep their budget.` };
       }
     }
