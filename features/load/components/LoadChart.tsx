@@ -45,7 +45,7 @@ export function LoadChart({ report }: { report: LoadReport }) {
         <span className="flex items-center gap-1"><span aria-hidden className="inline-block h-3 w-3 rounded-sm bg-tide" /> load (RPE × minutes, AU)</span>
         {[1, 2, 3].map((z) => <span key={z} className="flex items-center gap-1"><span aria-hidden className={`inline-block h-3 w-3 rounded-sm bg-zone-${z}`} /> zone {z} minutes</span>)}
         <span className="num" data-testid="acwr">
-          Acute:chronic ratio today: {ratio === null ? "needs four weeks of logs" : ratio.toFixed(2)}
+          Acute:chronic ratio today: {ratio === null ? "not enough history yet (it needs at least three of the last four weeks)" : ratio.toFixed(2)}
           {report.latest.flag ? <strong className="text-alert"> — {report.latest.flag === "high" ? "above" : "below"} the commonly used {ACWR_SAFE_BAND[0]}–{ACWR_SAFE_BAND[1]} band</strong> : ratio !== null ? ` (within ${ACWR_SAFE_BAND[0]}–${ACWR_SAFE_BAND[1]})` : ""}
         </span>
         {report.unratedLogs ? <span className="text-ink-soft">{report.unratedLogs} log(s) without an RPE are not in the load.</span> : null}

@@ -78,3 +78,13 @@ describe("the exponentially weighted ratio is the same on every screen", () => {
     expect(latestLoad(recent, "2026-10-20", "2026-10-01").acwrEwma).toBeNull();
   });
 });
+
+describe("not enough history", () => {
+  it("one day of logs gives no ratio and no flag (it would read as about 4); from 21 days of history the rolling ratio shows", () => {
+    const one = [log("2026-11-17", 60, 6)];
+    expect(latestLoad(one, "2026-11-17", "2026-11-17")).toEqual({ acwrRolling: null, acwrEwma: null, flag: null });
+    const three = Array.from({ length: 21 }, (_, i) => log(new Date(Date.UTC(2026, 9, 28 + i)).toISOString().slice(0, 10), 45, 5));
+    expect(latestLoad(three, "2026-11-17", "2026-10-28").acwrRolling).not.toBeNull();
+    expect(latestLoad(three.slice(1), "2026-11-17", "2026-10-29").acwrRolling).toBeNull();
+  });
+});

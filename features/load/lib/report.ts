@@ -92,6 +92,14 @@ export function sessionCompliance(log: ReportLog | undefined, planned: ReportPla
  */
 export const EWMA_HISTORY_DAYS = 180;
 
+/** The rolling ratio needs at least 21 of its 28 days to lie inside the athlete's history (common practice); before that
+ * "not enough history" (one day of logs would otherwise read as a ratio of 4, flagged). */
+export const MIN_HISTORY_DAYS = 21;
+
+const enoughHistory = (day: number, firstLogDate: string | null | undefined) => !!firstLogDate && day - dayNum(firstLogDate) + 1 >= MIN_HISTORY_DAYS;
+/** The athlete's first logged day as given, or else the earliest of the logs passed in. */
+const firstOf = (given: string | null | undefined, logs: ReportLog[]) => given ?? logs.reduce<string | null>((m, l) => (m === null || l.date < m ? l.date : m), null);
+
 /** The first day of the EWMA series for a report starting on `firstDay`, given the athlete's first logged day. */
 export function ewmaStart(firstLogDate: string | null | undefined, firstDay: string): string {
   const earliest = isoOf(dayNum(firstDay) - EWMA_HISTORY_DAYS);
@@ -129,7 +137,8 @@ export function loadReport(p: { logs: ReportLog[]; planned: ReportPlanned[]; fro
   const trimpMethod = p.trimpMethod ?? null;
   let trimpOtherMethod = 0;
   const first = dayNum(p.from), last = dayNum(p.to);
-  const ewmaByDay = ewmaRatios(p.logs, dayNum(ewmaStart(p.firstLogDate, p.from)), first, last);
+  const firstLog = firstOf(p.firstLogDate, p.logs);
+  const ewmaByDay = ewmaRatios(p.logs, dayNum(ewmaStart(firstLog, p.from)), first, last);
   const origin = first - 27;
   const daily = new Array(last - origin + 1).fill(0) as number[];
   const plannedById = new Map(p.planned.map((s) => [s.id, s]));
@@ -146,7 +155,7 @@ export function loadReport(p: { logs: ReportLog[]; planned: ReportPlanned[]; fro
   const days: DayLoad[] = [];
   for (let n = first; n <= last; n++) {
     const i = n - origin;
-    days.push({ date: isoOf(n), load: daily[i]!, acwrRolling: acwrRolling(daily.slice(Math.max(0, i - 27), i + 1)), acwrEwma: ewmaByDay[n - first]! });
+    days.push({ date: isoOf(n), load: daily[i]!, acwrRolling: enoughHistory(n, firstLog) ? acwrRolling(daily.slice(Math.max(0, i - 27), i + 1)) : null, acwrEwma: ewmaByDay[n - first]! });
   }
   // Bucket logs and planned sessions by week once (day numbers parsed once each).
   const firstMonday = mondayNum(first);
@@ -210,7 +219,8 @@ export function loadReport(p: { logs: ReportLog[]; planned: ReportPlanned[]; fro
 export function latestLoad(logs: ReportLog[], today: string, firstLogDate?: string | null): LoadReport["latest"] {
   const last = dayNum(today), origin = last - 27;
   const { daily } = dailyLoads(logs, origin, 28);
-  const ewma = ewmaRatios(logs, dayNum(ewmaStart(firstLogDate, today)), last, last)[0]!;
-  const rolling = acwrRolling(daily);
+  const firstLog = firstOf(firstLogDate, logs);
+  const ewma = ewmaRatios(logs, dayNum(ewmaStart(firstLog, today)), last, last)[0]!;
+  const rolling = enoughHistory(last, firstLog) ? acwrRolling(daily) : null;
   return { acwrRolling: rolling, acwrEwma: ewma, flag: acwrFlag(ewma ?? rolling) };
 }

@@ -127,7 +127,7 @@ export function RosterTable({ squadId }: { squadId: string }) {
                 </td>
                 <td className="py-2 pr-3" data-testid="compliance"><Fill value={r.compliance4w} label={`Share of planned time done by ${r.name}, last 4 weeks`} /></td>
                 <td className="num py-2 pr-3">
-                  {r.acwr === null ? <span className="text-ink-soft">too few logs</span> : r.acwr.toFixed(2)}
+                  {r.acwr === null ? <span className="text-ink-soft">not enough history</span> : r.acwr.toFixed(2)}
                   {r.loadFlag ? <p className="text-xs font-semibold text-alert">{r.loadFlag === "high" ? "above" : "below"} the 0.8–1.3 band</p> : null}
                 </td>
               </tr>
