@@ -133,3 +133,32 @@ describe("CSV downloads from the athlete page", () => {
     expect(problems).toEqual([]);
   });
 });
+
+describe("readiness hold and clearance in the browser", () => {
+  it("a symptom holds hard sessions on the plan; the coach records a clearance with the form and the hold lifts", async () => {
+    const { page, problems } = await newPage(browser);
+    await signIn(page, "coach@northfold.test");
+    await page.getByRole("link", { name: "Lotte Aune" }).click();
+    await page.waitForURL(/\/athletes\/[0-9a-f-]+$/);
+    const athleteId = page.url().split("/athletes/")[1]!;
+    // The athlete reports chest pain (recorded here by the coach for them).
+    await page.goto(`${BASE}/athletes/${athleteId}/screening`);
+    const questions = page.locator("fieldset");
+    await questions.first().waitFor();
+    for (let i = 0; i < (await questions.count()); i++) await questions.nth(i).getByRole("radio", { name: i === 0 ? "Yes" : "No" }).check();
+    await page.getByRole("button", { name: "Save the answers" }).click();
+    await page.getByRole("heading", { name: "Record a clearance" }).waitFor();
+    await page.goto(`${BASE}/athletes/${athleteId}/plan`);
+    await page.getByTestId("readiness-banner").getByText("Hold hard sessions and testing").waitFor();
+    // The clearance, typed in as the physician gave it.
+    await page.goto(`${BASE}/athletes/${athleteId}/screening`);
+    await page.getByLabel("Cleared by (name)").fill("Dr Lena Berg");
+    await page.getByLabel("Their role (as they gave it)").fill("sports physician");
+    await page.getByRole("button", { name: "Record the clearance" }).click();
+    await page.getByText(/Dr Lena Berg \(sports physician\)/).first().waitFor();
+    await page.goto(`${BASE}/athletes/${athleteId}/plan`);
+    await page.getByRole("heading", { name: "Plan" }).waitFor();
+    await expect(page.getByText("Hold hard sessions and testing").count()).resolves.toBe(0);
+    expect(problems).toEqual([]);
+  });
+});

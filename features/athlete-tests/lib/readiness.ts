@@ -18,6 +18,8 @@
  * reports. Tidemark is not a medical device: a clearance is recorded as the coach types it, not verified.
  */
 
+import { addDays } from "@/features/platform/lib/days";
+
 export type QuestionKind = "symptom" | "illness" | "condition" | "hr_medication";
 
 export const SCREENING_QUESTIONS = [
@@ -69,7 +71,6 @@ export interface Readiness {
 }
 
 const day = (iso: string) => iso.slice(0, 10);
-const addDays = (iso: string, n: number) => new Date(Date.parse(`${iso}T00:00:00Z`) + n * 86_400_000).toISOString().slice(0, 10);
 
 export function readiness(input: ReadinessInput): Readiness {
   const base = { hrMedication: false, answeredOn: null, expiresOn: null, clearance: null } as const;

@@ -1,3 +1,4 @@
+import { dayNumber } from "./days";
 /** The calendar day (YYYY-MM-DD) of an instant in an IANA time zone, from Node's Intl time-zone data. */
 const formatters = new Map<string, Intl.DateTimeFormat>();
 
@@ -15,10 +16,8 @@ export const LAST_YEAR = 2200;
 
 /** Whether "YYYY-MM-DD" is a real calendar date within FIRST_YEAR–LAST_YEAR (2026-02-30 and 0000-01-01 are not). */
 export function isCalendarDate(value: string): boolean {
-  const m = /^(\d{4})-(\d{2})-(\d{2})$/.exec(value);
-  if (!m) return false;
-  const [y, mo, d] = [Number(m[1]), Number(m[2]), Number(m[3])];
-  if (y < FIRST_YEAR || y > LAST_YEAR || mo < 1 || mo > 12 || d < 1) return false;
-  const leap = (y % 4 === 0 && y % 100 !== 0) || y % 400 === 0;
-  return d <= [31, leap ? 29 : 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31][mo - 1]!;
+  if (!/^\d{4}-\d{2}-\d{2}$/.test(value)) return false;
+  const y = Number(value.slice(0, 4));
+  // The one calendar check (days.ts: dayNumber is NaN for an impossible date).
+  return y >= FIRST_YEAR && y <= LAST_YEAR && !Number.isNaN(dayNumber(value));
 }
