@@ -2,12 +2,15 @@
  * `npm run validate [-- --per-cell N] [-- --failures]`: detection rates of the threshold engine on generated lab tests
  * (every protocol × phase pattern × export style, N seeds each; deterministic) and on the three real files.
  * Targets: VT1 ≥ 95 %, VT2 ≥ 97 %, peak ≥ 98 % overall and ≥ 90 % in every row. Exit 1 when a target is missed.
+ * `-- --noise` also prints the breath-to-breath scatter of the real files beside the generated ones (the generator's noise
+ * is matched to them). A second run with 1.5 × that noise is printed for information (not a target).
  */
 import fs from "node:fs";
 import path from "node:path";
 import { analyzeCsv } from "../features/gas-exchange/lib/analyze";
-import { labCases } from "../features/gas-exchange/lib/lab-generator";
-import { groupRates, rates, runCase, type Rates } from "../features/gas-exchange/lib/validation";
+import { readGasExchangeCsv } from "../features/gas-exchange/lib/csv";
+import { labCases, labExport, PROTOCOLS } from "../features/gas-exchange/lib/lab-generator";
+import { breathScatter, groupRates, rampBand, rates, runCase, type Rates } from "../features/gas-exchange/lib/validation";
 
 const args = process.argv.slice(2);
 const perCell = Number(args[args.indexOf("--per-cell") + 1] ?? 2) || 2;
@@ -28,6 +31,29 @@ line("all", rates(results), true);
 for (const [title, key] of [["by protocol", (c: { protocol: string }) => c.protocol], ["by phase pattern", (c: { phase: string }) => c.phase], ["by export style", (c: { style: string }) => c.style]] as const) {
   console.log(`\n${title}`);
   for (const [k, r] of groupRates(results, key as (c: (typeof results)[number]["c"]) => string)) line(`  ${k}`, r);
+}
+console.log(`\nby ramp length (information; guidelines ask for 8–12 min ramps)`);
+for (const [k, r] of groupRates(results, (c) => rampBand(results.find((x) => x.c === c)!.rampMin))) {
+  console.log(`  ${k.padEnd(24)} ${String(r.n).padStart(4)}  ${pct(r.vt1)}  ${pct(r.vt2)}  ${pct(r.peak)}  ${String(r.beforeRamp).padStart(6)}`);
+}
+const noisier = rates(labCases(args.includes("--per-cell") ? perCell : 2).map((c) => runCase({ ...c, noiseScale: 1.5 })));
+console.log(`\nwith 1.5 × the breath noise (information)\n  ${"all".padEnd(24)} ${String(noisier.n).padStart(4)}  ${pct(noisier.vt1)}  ${pct(noisier.vt2)}  ${pct(noisier.peak)}  ${String(noisier.beforeRamp).padStart(6)}`);
+if (args.includes("--noise")) {
+  console.log(`\nBreath-to-breath scatter, % (robust SD against the median of 15 neighbouring breaths)\n`);
+  console.log(`${"".padEnd(44)} ${"VO2".padStart(5)} ${"RER".padStart(5)} ${"VE/VCO2".padStart(8)} ${"VE/VO2".padStart(7)}`);
+  const show = (label: string, b: Parameters<typeof breathScatter>[0]) => {
+    const s = breathScatter(b);
+    console.log(`${label.padEnd(44)} ${String(s.vo2).padStart(5)} ${String(s.rer).padStart(5)} ${String(s.veVco2).padStart(8)} ${String(s.veVo2).padStart(7)}`);
+  };
+  const realDir = path.resolve("test/fixtures/real-cpet");
+  for (const f of fs.readdirSync(realDir).filter((x) => x.endsWith(".csv")).sort()) {
+    const read = readGasExchangeCsv(fs.readFileSync(path.join(realDir, f), "utf8"));
+    if (read.ok) show(`real: ${f}`, read.breaths);
+  }
+  for (const protocol of PROTOCOLS) {
+    const read = readGasExchangeCsv(labExport({ seed: 1, protocol, phase: "warmup", style: "breath" }).csv);
+    if (read.ok) show(`generated: ${protocol}`, read.breaths);
+  }
 }
 if (showFailures) {
   console.log("\nMisses:");

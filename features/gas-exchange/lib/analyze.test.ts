@@ -80,6 +80,15 @@ describe("threshold detection on synthetic ramp tests", () => {
     expect(a.warnings.join(" ")).toMatch(/Too few points/);
   });
 
+  it("warns that a short ramp gives less certain thresholds, and not on a ramp of recommended length", () => {
+    // 50 → 250 W at 35 W/min is under 6 minutes; at 20 W/min it is 10 minutes (8–12 min recommended: Buchfuhrer et al. 1983).
+    const short = analyzeCsv(syntheticRamp({ seed: 3, peakW: 250, rampWPerMin: 35 }).csv);
+    const usual = analyzeCsv(syntheticRamp({ seed: 3, peakW: 250, rampWPerMin: 20 }).csv);
+    if (!short.ok || !usual.ok) throw new Error("not read");
+    expect(short.warnings.join(" ")).toMatch(/shorter than about 8 minutes/);
+    expect(usual.warnings.join(" ")).not.toMatch(/shorter than about 8 minutes/);
+  });
+
   it("warns when peak RER stays below 1.05 (probably not maximal)", () => {
     const a = analyzeCsv(syntheticRamp({ seed: 4, noBreakpoints: true }).csv);
     if (!a.ok) throw new Error(a.error);

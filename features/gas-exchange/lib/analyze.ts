@@ -96,6 +96,11 @@ export type CsvAnalysis = ({ ok: true } & Analysis) | { ok: false; error: string
 const MIN_POINTS = 20;
 /** The same five minutes in rows `spacingS` apart (a file already averaged every 30 s has half as many rows). */
 const minPointsFor = (spacingS: number) => Math.max(10, Math.ceil((MIN_POINTS * 15) / Math.max(15, spacingS)));
+/**
+ * A test segment shorter than this (minutes) gets a warning: ramps of 8–12 minutes give the clearest thresholds (Buchfuhrer
+ * et al. 1983, J Appl Physiol 55:1558–1564). `npm run validate` shows VT1 detection by ramp length.
+ */
+const SHORT_TEST_MIN = 8;
 /** Points this soon after the segment starts are left out of the threshold search while VO2 catches up. */
 const KINETICS_LAG_S = 30;
 /**
@@ -499,6 +504,12 @@ export function analyzeBreaths(breaths: Breath[], opts: AnalysisOptions = {}): A
     const reason = "Too few points during exercise to find thresholds.";
     warnings.push(reason);
     return { ...base, onsetS, endS, segmentSource, vt1: null, vt1Reason: reason, vt2: null, vt2Reason: reason, peak };
+  }
+  const rampMin = (endS - onsetS) / 60;
+  if (rampMin < SHORT_TEST_MIN) {
+    warnings.push(
+      `The test segment lasts ${round(rampMin, 1)} min: thresholds from tests shorter than about 8 minutes are less certain (a ramp of 8–12 min is recommended: Buchfuhrer et al. 1983). Check the curves or retest with a slower ramp.`,
+    );
   }
   const mrtS = opts.meanResponseTimeS ?? DEFAULT_MRT_S;
   const { vt2, reason: vt2Reason } = detectVt2(detection, mass, mrtS);

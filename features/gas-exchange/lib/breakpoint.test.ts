@@ -6,13 +6,15 @@ import { mulberry32 } from "./synthetic-ramp";
 // Deterministic noise so the checks are repeatable.
 const rng = mulberry32;
 
-/** Brute force: a fresh 3-parameter least-squares fit per candidate (the O(n²) method the prefix sums replace). */
+/** Brute force: a fresh 3-parameter least-squares fit per candidate (the O(n²) method the prefix sums replace). The
+ * candidates are the data points and seven evenly spaced points between each neighbouring pair. */
 function bruteForceHinge(xs: number[], ys: number[], minSeg: number) {
   const idx = xs.map((_, i) => i).sort((a, b) => xs[a]! - xs[b]!);
   const sx = idx.map((i) => xs[i]!), sy = idx.map((i) => ys[i]!);
   let best = { rss: Infinity, x0: NaN };
-  for (let k = minSeg; k <= sx.length - minSeg; k++) {
-    const x0 = sx[k - 1]!;
+  const candidates: number[] = [];
+  for (let k = minSeg; k <= sx.length - minSeg; k++) for (let s = 0; s < 8; s++) candidates.push(sx[k - 1]! + (s / 8) * (sx[k]! - sx[k - 1]!));
+  for (const x0 of candidates) {
     // Normal equations built directly from the data.
     const rows = sx.map((x) => [1, x, Math.max(0, x - x0)]);
     const A = [0, 1, 2].map((i) => [0, 1, 2].map((j) => rows.reduce((s, r) => s + r[i]! * r[j]!, 0)));
@@ -70,6 +72,13 @@ describe("continuous two-segment regression", () => {
     const ref = linearRegression(xs.map((x, i) => [x, ys[i]!]));
     expect(mine.slope).toBeCloseTo(ref.m, 9);
     expect(mine.intercept).toBeCloseTo(ref.b, 9);
+  });
+
+  it("finds a breakpoint that lies between two data points, not only at one", () => {
+    // Points every 100 on x, true breakpoint at 2530: the fit lands within an eighth of the spacing.
+    const xs = Array.from({ length: 30 }, (_, i) => 1000 + i * 100);
+    const ys = xs.map((x) => 0.9 * x + 0.5 * Math.max(0, x - 2530));
+    expect(Math.abs(fitHinge(xs, ys)!.x0 - 2530)).toBeLessThanOrEqual(12.5);
   });
 
   it("the prefix-sum search finds the same breakpoint as a brute-force refit per candidate", () => {

@@ -12,7 +12,8 @@
  *   time constant 15 s longer than VO2's (the body's CO2 stores; from memory), so the onset of exercise bends the lower
  *   slope as real tests do. The true VT1 is that steady-state breakpoint.
  * - VE is two straight lines of VCO2 meeting at VT2 (VE/VCO2 slope 22–30 below, ×1.7–2.2 above; from memory).
- * - Breath noise: a shared tidal-volume factor (SD 6–9 %) and 3 % independent noise; 2 % aberrant breaths; some tests
+ * - Breath noise: a shared tidal-volume factor (SD 6–9 %) and independent noise per gas (BREATH_NOISE, matched to the real
+ *   files); 2 % aberrant breaths; some tests
  *   hyperventilate for the first 40 s of exercise (RER above 1).
  * Thresholds are fractions of the ramp's VO2 range, so the true VT1 and VT2 VO2 are known exactly; peak VO2 is the highest
  * 30-s mean of the noise-free VO2.
@@ -32,7 +33,17 @@ export interface LabCase {
   protocol: Protocol;
   phase: Phase;
   style: ExportStyle;
+  /** Multiplies the independent breath noise (default 1: the scatter measured in the real files). */
+  noiseScale?: number;
 }
+
+/**
+ * Independent breath-to-breath noise of each gas (SD, fraction), on top of the shared tidal-volume factor. Chosen so that
+ * the generated breaths scatter like the three real files in test/fixtures/real-cpet: RER 1.8–3.4 % there, about 2.5 %
+ * here; VE/VCO2 3.0–3.8 % there, about 3.2 % here (robust SD of each breath against the median of its 15 neighbours;
+ * `npm run validate -- --noise` prints both). VE/VO2 scatters less here (about 4 %) than in the real files (4.8–6.4 %).
+ */
+export const BREATH_NOISE = { vo2: 0.025, vco2: 0.01, ve: 0.03 } as const;
 
 export interface LabTruth {
   vt1Vo2MlMin: number;
@@ -200,6 +211,7 @@ export function labTest(c: LabCase): { rows: Record<string, number | null>[]; tr
     }
   }
   const noise = 0.06 + 0.03 * r();
+  const scale = c.noiseScale ?? 1;
   const hrRest = 55 + 20 * r(), hrMax = 180 + 20 * r();
   const rowing = c.protocol === "rowing-ramp";
   const rows: Record<string, number | null>[] = [];
@@ -209,9 +221,9 @@ export function labTest(c: LabCase): { rows: Record<string, number | null>[]; tr
     const frac = Math.max(0, Math.min(1, (vo2[i]! - rest) / (peak - rest)));
     const rf = 14 + 34 * frac * frac + gaussian(r);
     const common = 1 + noise * gaussian(r);
-    let bVo2 = vo2[i]! * common * (1 + 0.03 * gaussian(r));
-    let bVco2 = vco2[i]! * common * (1 + 0.03 * gaussian(r));
-    let bVe = veOf(vco2[i]!) * common * (1 + 0.03 * gaussian(r));
+    let bVo2 = vo2[i]! * common * (1 + scale * BREATH_NOISE.vo2 * gaussian(r));
+    let bVco2 = vco2[i]! * common * (1 + scale * BREATH_NOISE.vco2 * gaussian(r));
+    let bVe = veOf(vco2[i]!) * common * (1 + scale * BREATH_NOISE.ve * gaussian(r));
     if (hyper && t >= exerciseStart && t < exerciseStart + 40) {
       bVco2 *= 1.3;
       bVe *= 1.5;
