@@ -24,3 +24,8 @@ export function saveScreening(athleteId: string, body: unknown) {
 export function saveClearance(athleteId: string, body: unknown) {
   return apiFetch<{ advice: string | null }>(`/api/athletes/${encodeURIComponent(athleteId)}/screening/clearance`, { method: "POST", body: JSON.stringify(body) });
 }
+
+/** Sets the test segment by hand (nulls give it back to the finder); the server analyses the file again. */
+export function putSegment(testId: string, body: { fromS: number | null; toS: number | null }) {
+  return apiFetch(`/api/tests/${encodeURIComponent(testId)}/segment`, { method: "PUT", body: JSON.stringify(body) });
+}

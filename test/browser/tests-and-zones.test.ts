@@ -1,4 +1,5 @@
-// A coach uploads a gas-exchange file, confirms the columns, drags VT1, saves, and the athlete sees the same zones.
+// A coach uploads a gas-exchange file, confirms the columns, moves the test segment and back, drags VT1, saves, and the
+// athlete sees the same zones.
 // The file comes from the documented synthetic ramp model (features/gas-exchange/lib/synthetic-ramp.ts).
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser } from "playwright-core";
@@ -33,6 +34,26 @@ describe("gas-exchange test in the browser", () => {
     await page.getByRole("button", { name: "Analyse and save the test" }).click();
     await page.waitForURL(/\/tests\/[0-9a-f-]+$/);
     await page.getByRole("heading", { name: "Thresholds" }).waitFor();
+
+    // The test segment: drag its start later with the mouse, search again, then give the segment back to the finder.
+    await page.getByText("Tidemark found the test segment from the workload.").waitFor();
+    const rangeBefore = await page.getByTestId("segment-range").textContent();
+    const start = page.locator('figure:has-text("VO2 over the whole file") [data-marker="segment-start"] line');
+    await start.scrollIntoViewIfNeeded();
+    const sb = (await start.boundingBox())!;
+    await page.mouse.move(sb.x + sb.width / 2, sb.y + sb.height / 2);
+    await page.mouse.down();
+    await page.mouse.move(sb.x + 50, sb.y + sb.height / 2, { steps: 8 });
+    await page.mouse.up();
+    const rangeMoved = await page.getByTestId("segment-range").textContent();
+    expect(rangeMoved).not.toBe(rangeBefore);
+    await page.getByRole("button", { name: "Find the thresholds in this segment" }).click();
+    await page.getByText("A coach set this test segment by hand.").waitFor();
+    await expect(page.getByTestId("segment-range").textContent()).resolves.toBe(rangeMoved);
+    await page.getByText(`Exercise analysed`).waitFor();
+    await page.getByRole("button", { name: "Let Tidemark find the segment again" }).click();
+    await page.getByText("Tidemark found the test segment from the workload.").waitFor();
+    await expect(page.getByTestId("segment-range").textContent()).resolves.toBe(rangeBefore);
 
     const hrBefore = await page.getByTestId("VT1-hr").textContent();
     const marker = page.locator('figure:has-text("Heart rate over time") [data-marker="vt1"] line');

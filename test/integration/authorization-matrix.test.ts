@@ -143,6 +143,7 @@ const MATRIX: Record<string, Cell> = {
   "POST /api/templates": { ok: ["coach"], path: () => "/api/templates", params: () => ({}), body: (i) => ({ squadId: i.squad, name: "Matrix template", sport: "running", structure: [step("work", 30, 1)] }) },
   "GET /api/tests/[id]/file": { ok: A_AND_COACH, path: () => "/api/tests/x/file", params: (i) => ({ id: i.test! }) },
   "GET /api/tests/[id]": { ok: A_AND_COACH, path: () => "/api/tests/x", params: (i) => ({ id: i.test! }) },
+  "PUT /api/tests/[id]/segment": { ok: ["coach"], path: () => "/api/tests/x/segment", params: (i) => ({ id: i.test! }), body: () => ({ fromS: null, toS: null }) },
   "PATCH /api/tests/[id]/thresholds": { ok: ["coach"], path: () => "/api/tests/x/thresholds", params: (i) => ({ id: i.test! }), body: () => ({ vt1: { hrBpm: 140 }, vt2: { hrBpm: 165 } }) },
   "POST /api/unsubscribe/[token]": { ok: EVERYONE, path: () => "/api/unsubscribe/x", params: (i) => ({ token: i.unsubscribe! }) },
 };

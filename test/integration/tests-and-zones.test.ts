@@ -6,6 +6,7 @@ import * as zonesRoute from "@/app/api/athletes/[id]/zones/route";
 import * as testRoute from "@/app/api/tests/[id]/route";
 import * as thresholdsRoute from "@/app/api/tests/[id]/thresholds/route";
 import * as fileRoute from "@/app/api/tests/[id]/file/route";
+import * as segmentRoute from "@/app/api/tests/[id]/segment/route";
 import { syntheticRamp } from "@/features/gas-exchange/lib/synthetic-ramp";
 import { makeSquad } from "../support/squad";
 import { query, resetDatabase } from "../support/db";
@@ -83,6 +84,37 @@ describe("gas-exchange tests", () => {
     expect(zones.json.inForce.cycling.zones[2].ranges.hrBpm.min).toBe(r.json.adjusted.vt2.hrBpm);
     const wrongOrder = await s.coach.browser.call(thresholdsRoute, "PATCH", `/api/tests/${testId}/thresholds`, { params: { id: testId }, body: { vt1: { timeS: 800 }, vt2: { timeS: 700 } } });
     expect(wrongOrder.status).toBe(400);
+  });
+
+  it("a coach sets the test segment by hand: the file is analysed again inside it, adjustments are cleared, the zones follow", async () => {
+    const before = (await s.coach.browser.call(testRoute, "GET", `/api/tests/${testId}`, { params: { id: testId } })).json;
+    expect(before.adjusted).not.toBeNull(); // from the test above
+    const put = (body: unknown, who = s.coach) => who.browser.call(segmentRoute, "PUT", `/api/tests/${testId}/segment`, { params: { id: testId }, body });
+    // End the segment half-way between the detected VT1 and VT2: VT2 can no longer be found there, VT1 still can.
+    const cut = Math.round((before.detected.vt1.timeS + before.detected.vt2.timeS) / 2);
+    const r = await put({ fromS: before.result.onsetS, toS: cut });
+    expect(r.status, JSON.stringify(r.json)).toBe(200);
+    expect(r.json.result.segmentSource).toBe("chosen");
+    expect(r.json.result.endS).toBe(cut);
+    expect(r.json.input.segment).toEqual({ fromS: before.result.onsetS, toS: cut });
+    expect(r.json.adjusted).toBeNull();
+    expect(r.json.detected.vt2 === null || r.json.detected.vt2.timeS <= cut).toBe(true);
+    if (r.json.detected.vt2 === null) expect(r.json.zoneSet).toBeNull();
+    // Given back to the finder, the original detection returns, and with it the zone set.
+    const back = await put({ fromS: null, toS: null });
+    expect(back.status).toBe(200);
+    expect(back.json.result.segmentSource).toBe("workload");
+    expect(back.json.detected).toEqual(before.detected);
+    expect(back.json.input.segment).toBeNull();
+    expect(back.json.zoneSet.vt2.timeS).toBe(before.detected.vt2.timeS);
+    // Bad input and the wrong person.
+    const bad = await put({ fromS: 600, toS: 620 });
+    expect(bad.status).toBe(400);
+    expect(bad.json.error + JSON.stringify(bad.json)).toMatch(/at least a minute/);
+    const athlete = await put({ fromS: 100, toS: 900 }, s.athleteA);
+    expect(athlete.status).toBe(403);
+    const outsider = await put({ fromS: 100, toS: 900 }, other.head);
+    expect(outsider.status).toBe(404);
   });
 
   it("an athlete cannot read another athlete's test or zones, and cannot adjust their own", async () => {

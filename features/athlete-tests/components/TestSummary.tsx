@@ -6,6 +6,7 @@ import { STOP_SIGNS } from "../schemas";
 import { FuelChart, type FuelChartProps } from "./FuelChart";
 import { mmss } from "@/features/platform/lib/format";
 import { GasExchangeResult, type GasExchangeResultProps } from "./GasExchangeResult";
+import { SegmentEditor, type SegmentEditorProps } from "./SegmentEditor";
 
 export const KIND_LABELS = { gas_exchange: "Gas-exchange test", talk: "Talk test", submax: "Submaximal estimate", manual: "Thresholds entered by hand" } as const;
 const ENDED = { exhaustion: "by exhaustion", plan: "as planned", stop_sign: "by a stop sign" } as const;
@@ -89,9 +90,21 @@ function GasBody({ test, canEdit, interactive }: { test: TestView; canEdit: bool
           </ul>
         ) : null}
       </section>
+      {interactive ? (
+        <SegmentEditor
+          // A new analysis (another segment) starts the handles afresh from the stored result.
+          key={`${String(r.onsetS)}-${String(r.endS)}-${String(r.segmentSource)}`}
+          testId={test.id}
+          rows={r.points as SegmentEditorProps["rows"]}
+          onsetS={Number(r.onsetS)}
+          endS={Number(r.endS)}
+          source={(r.segmentSource as SegmentEditorProps["source"]) ?? "workload"}
+          canEdit={canEdit}
+        />
+      ) : null}
       <section aria-labelledby="thr-h" className="space-y-3">
         <h2 id="thr-h" className="text-lg font-bold">Thresholds</h2>
-        <GasExchangeResult {...props} />
+        <GasExchangeResult key={`${String(r.onsetS)}-${String(r.endS)}-${JSON.stringify(test.detected)}`} {...props} />
       </section>
       {test.fuel && test.fuel.rows.length ? (
         <section className="card" aria-labelledby="fuel-h">

@@ -14,7 +14,7 @@ import { fuelProfile } from "@/features/physiology/lib/fuel";
 import { HttpError, notFound } from "@/features/platform/server/http";
 import { saveZoneSetForTest, zonesFor, type ZoneSetView } from "@/features/zones/server";
 import type { z } from "zod";
-import type { JsonTestInput, testMetaSchema, ThresholdPatch } from "../schemas";
+import type { JsonTestInput, segmentSchema, testMetaSchema, ThresholdPatch } from "../schemas";
 import type { TestView } from "../lib/views";
 import { requireTestAllowed } from "./screening";
 
@@ -224,6 +224,41 @@ export async function adjustThresholds(actor: Actor, testId: string, patch: Thre
       .where(eq(schema.athleteTest.id, testId));
     if (hasBoth(adjusted)) {
       await saveZoneSetForTest(tx, { athleteId: row.athleteId, sport: row.sport, testId, effectiveFrom: row.testDate, vt1: adjusted.vt1!, vt2: adjusted.vt2!, five, source: `${row.kind === "gas_exchange" ? "gas-exchange test" : row.kind === "talk" ? "talk test" : "thresholds by hand"} (adjusted)`, createdBy: actor.userId });
+    }
+  });
+  return getTest(actor, testId);
+}
+
+/**
+ * The coach sets the test segment by hand (or gives it back to the finder with nulls): the stored file is read again with
+ * the same columns and units and the engine searches the thresholds inside the new segment. The detection, the segment and
+ * the test's zone set change together; thresholds a coach had moved belong to the old segment and are cleared. One
+ * transaction.
+ */
+export async function resegmentTest(actor: Actor, testId: string, segment: z.infer<typeof segmentSchema>) {
+  const row = await loadTest(actor, testId);
+  await requireAthleteAccess(actor, row.athleteId, "coach");
+  if (row.kind !== "gas_exchange") throw new HttpError(400, "Only gas-exchange tests have a test segment.");
+  const [file] = await getDb().select().from(schema.testFile).where(eq(schema.testFile.testId, row.id));
+  if (!file) throw new HttpError(409, "This test's file is not stored, so it cannot be analysed again; upload it once more.");
+  const input = row.input as { mapping?: ColumnMapping; units?: UnitChoices; sheet?: string | null; fiveZones?: boolean };
+  const mass = row.bodyMassKg ?? null;
+  const read = await readGasExchangeFile(new Uint8Array(file.data), input.mapping, { bodyMassKg: mass, units: input.units, sheet: input.sheet ?? null });
+  const chosen = { fromS: segment.fromS ?? null, toS: segment.toS ?? null };
+  const a = analyzeRead(read, { bodyMassKg: mass, segment: chosen });
+  if (!a.ok) throw new HttpError(422, a.error);
+  const { detected, result } = gasExchangeRecord(a, mass);
+  const five = Boolean(input.fiveZones);
+  await getDb().transaction(async (tx) => {
+    await tx
+      .update(schema.athleteTest)
+      .set({ result, detected, adjusted: null, adjustedBy: null, adjustedAt: null, input: { ...row.input, segment: chosen.fromS === null && chosen.toS === null ? null : chosen } })
+      .where(eq(schema.athleteTest.id, testId));
+    if (hasBoth(detected)) {
+      await saveZoneSetForTest(tx, { athleteId: row.athleteId, sport: row.sport, testId, effectiveFrom: row.testDate, vt1: detected.vt1!, vt2: detected.vt2!, five, source: "gas-exchange test (detected in a segment set by a coach)", createdBy: actor.userId });
+    } else {
+      // Without both thresholds the old zone set would describe a segment the coach has just rejected.
+      await tx.delete(schema.zoneSet).where(eq(schema.zoneSet.testId, testId));
     }
   });
   return getTest(actor, testId);
