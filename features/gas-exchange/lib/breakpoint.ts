@@ -45,16 +45,16 @@ export function fitLine(xs: ArrayLike<number>, ys: ArrayLike<number>): LineFit {
   return { slope, intercept: my - slope * mx, rss: Math.max(0, syy - slope * sxy) };
 }
 
-/** Solves the symmetric 3×3 system A·β = r by Cramer's rule; null when singular. */
-function solve3(a: number[][], r: number[]): [number, number, number] | null {
-  const det = (m: number[][]) =>
-    m[0]![0]! * (m[1]![1]! * m[2]![2]! - m[1]![2]! * m[2]![1]!) -
-    m[0]![1]! * (m[1]![0]! * m[2]![2]! - m[1]![2]! * m[2]![0]!) +
-    m[0]![2]! * (m[1]![0]! * m[2]![1]! - m[1]![1]! * m[2]![0]!);
-  const d = det(a);
-  if (!Number.isFinite(d) || Math.abs(d) < 1e-12) return null;
-  const col = (k: number) => a.map((row, i) => row.map((v, j) => (j === k ? r[i]! : v)));
-  return [det(col(0)) / d, det(col(1)) / d, det(col(2)) / d];
+/** Solves the symmetric 3×3 system [[a, b, c], [b, d, e], [c, e, f]]·β = (r0, r1, r2) by Cramer's rule, without
+ * allocating (it runs for every candidate breakpoint); null when singular. */
+function solve3(a: number, b: number, c: number, d: number, e: number, f: number, r0: number, r1: number, r2: number): [number, number, number] | null {
+  const m00 = d * f - e * e, m01 = b * f - e * c, m02 = b * e - d * c;
+  const det = a * m00 - b * m01 + c * m02;
+  if (!Number.isFinite(det) || Math.abs(det) < 1e-12) return null;
+  const b0 = r0 * m00 - b * (r1 * f - e * r2) + c * (r1 * e - d * r2);
+  const b1 = a * (r1 * f - e * r2) - r0 * m01 + c * (b * r2 - r1 * c);
+  const b2 = a * (d * r2 - r1 * e) - b * (b * r2 - r1 * c) + r0 * m02;
+  return [b0 / det, b1 / det, b2 / det];
 }
 
 export interface HingeOptions {
@@ -123,14 +123,7 @@ export function fitHinge(xsIn: ArrayLike<number>, ysIn: ArrayLike<number>, opts:
       const Shh = s2[k]! - 2 * x0 * s1[k]! + m * x0 * x0;
       const Sxh = s2[k]! - x0 * s1[k]!;
       const Shy = sxy[k]! - x0 * sy[k]!;
-      const beta = solve3(
-        [
-          [n, Sx, Sh],
-          [Sx, Sxx, Sxh],
-          [Sh, Sxh, Shh],
-        ],
-        [Sy, Sxy, Shy],
-      );
+      const beta = solve3(n, Sx, Sh, Sxx, Sxh, Shh, Sy, Sxy, Shy);
       if (!beta) continue;
       const rss = Syy - (beta[0] * Sy + beta[1] * Sxy + beta[2] * Shy);
       if (!best || rss < best.rss) best = { rss, k, beta, x0 };
