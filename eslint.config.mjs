@@ -30,12 +30,23 @@ const layoutZones = [
   },
 ];
 
+// Configuration is read in one place (features/platform/server/config.ts); NODE_ENV, which the framework inlines, is the
+// one exception. test/unit/layout-rules.test.ts proves the rule fires.
+const ENV_MESSAGE = "Read settings through config() from @/features/platform/server/config, not process.env.";
+const envRule = [
+  "error",
+  { selector: "MemberExpression[object.type='MemberExpression'][object.object.name='process'][object.property.name='env'][property.name!='NODE_ENV']", message: ENV_MESSAGE },
+  { selector: "VariableDeclarator > MemberExpression.init[object.name='process'][property.name='env']", message: ENV_MESSAGE },
+  { selector: "SpreadElement > MemberExpression[object.name='process'][property.name='env']", message: ENV_MESSAGE },
+];
+
 const config = [
   ...nextCoreWebVitals,
   ...nextTypescript,
   // E-mails are rendered to static HTML, not Next.js pages.
   { files: ["emails/**"], rules: { "@next/next/no-head-element": "off" } },
   { files: ["app/**", "features/**", "db/**", "emails/**", "scripts/**"], rules: { "import/no-restricted-paths": ["error", { zones: layoutZones }] } },
+  { files: ["app/**", "features/**", "db/**", "emails/**", "proxy.ts"], ignores: ["features/platform/server/config.ts", "**/*.test.ts"], rules: { "no-restricted-syntax": envRule } },
   { ignores: ["node_modules/**", ".next/**", ".next-*/**", ".data/**", "db/migrations/**", "test/.artifacts/**", "next-env.d.ts"] },
 ];
 

@@ -1,13 +1,14 @@
 import { drizzle, type PostgresJsDatabase } from "drizzle-orm/postgres-js";
 import postgres from "postgres";
 import * as schema from "./schema";
+import { config } from "@/features/platform/server/config";
 
 export type Database = PostgresJsDatabase<typeof schema>;
 
 const globalForDb = globalThis as unknown as { tidemarkSql?: postgres.Sql; tidemarkDb?: Database };
 
 function databaseUrl(): string {
-  const url = process.env.DATABASE_URL;
+  const url = config().database.url;
   if (!url) throw new Error("DATABASE_URL is not set. Start Tidemark with `npm start` (it starts PostgreSQL and sets it).");
   return url;
 }
@@ -16,7 +17,7 @@ function databaseUrl(): string {
 export function getDb(): Database {
   if (!globalForDb.tidemarkDb) {
     const sql = postgres(databaseUrl(), {
-      max: Number(process.env.DATABASE_POOL_SIZE ?? 10),
+      max: config().database.poolSize,
       onnotice: () => {},
       connection: { application_name: "tidemark" },
     });

@@ -7,13 +7,13 @@ import PgBoss from "pg-boss";
 import { closeDb } from "../db/client";
 import { deliverPending } from "../features/messages/server/deliver";
 import { JOBS } from "../features/reminders/server/registry";
-import { signingSecret } from "../features/platform/server/config";
+import { config, signingSecret } from "../features/platform/server/config";
 
 function log(line: string) {
   console.log(`[worker] ${line}`);
 }
 
-const url = process.env.DATABASE_URL;
+const url = config().database.url;
 if (!url) throw new Error("DATABASE_URL is not set; the worker is started by `npm start`.");
 // The reminders carry signed unsubscribe links: no worker without the signing secret.
 signingSecret();

@@ -1,7 +1,7 @@
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { currentActor } from "@/features/access/server/current";
-import { ACCOUNT_MESSAGE_KINDS, getOutboxMessage, listOutbox, localOutboxEnabled, maskLinks } from "@/features/messages/server/list";
+import { ACCOUNT_MESSAGE_KINDS, fakeEmailOutboxUrl, getOutboxMessage, listOutbox, localOutboxEnabled, maskLinks } from "@/features/messages/server/list";
 
 export const metadata = { title: "Outbox" };
 export const dynamic = "force-dynamic";
@@ -24,7 +24,7 @@ export default async function OutboxPage({ searchParams }: { searchParams: Promi
         <h1 className="text-2xl font-bold">Outbox</h1>
         <p className="text-sm text-ink-soft">
           Messages Tidemark queued on this local installation, newest first, and whether the worker has sent them yet. They go
-          to the local e-mail fake (its own outbox is at port {process.env.FAKE_EMAIL_PORT ?? "4010"}); nothing leaves the machine.
+          to the local e-mail fake (its own outbox is at {fakeEmailOutboxUrl()}); nothing leaves the machine.
           Links that open an account (password resets, invitations, address confirmations) are hidden here; the recipient
           reads them in the e-mail fake&apos;s inbox.
         </p>

@@ -4,7 +4,7 @@ import { coachedSquadIds, isHeadCoachOf } from "@/features/access/lib/rules";
 import { describeMe } from "@/features/squads/server/squads";
 import { InvitePanel } from "@/features/squads/components/InvitePanel";
 import { RosterTable } from "@/features/squads/components/RosterTable";
-import { localOutboxEnabled } from "@/features/messages/server/list";
+import { fakeEmailOutboxUrl, localOutboxEnabled } from "@/features/messages/server/list";
 
 export const metadata = { title: "Roster" };
 
@@ -50,7 +50,7 @@ export default async function RosterPage({ searchParams }: { searchParams: Promi
         <section className="card" aria-label="Athletes">
           <RosterTable squadId={squad.id} />
         </section>
-        {manages ? <div className="max-w-xl"><InvitePanel squadId={squad.id} fakeInbox={localOutboxEnabled() ? `${process.env.FAKE_EMAIL_URL ?? `http://127.0.0.1:${process.env.FAKE_EMAIL_PORT ?? "4010"}`}/outbox` : null} /></div> : null}
+        {manages ? <div className="max-w-xl"><InvitePanel squadId={squad.id} fakeInbox={localOutboxEnabled() ? fakeEmailOutboxUrl() : null} /></div> : null}
       </div>
     </div>
   );

@@ -4,6 +4,7 @@
 // cell must be refused (401 anonymous, 403 or 404 otherwise) and refusals must carry no data. Source: the roles table of
 // the product brief (athletes see only their own data; coaches only their squads' athletes; admins no training data).
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { resetConfig } from "@/features/platform/server/config";
 import { encodeFit } from "@/features/activities/lib/fit-fixture";
 import { SCREENING_QUESTIONS } from "@/features/athlete-tests/lib/readiness";
 import { unsubscribeToken } from "@/features/messages/lib/unsubscribe";
@@ -152,6 +153,7 @@ beforeAll(async () => {
   await resetDatabase();
   fake = await startFakeEmail({ quiet: true });
   process.env.RESEND_BASE_URL = fake.url;
+  resetConfig();
   s = await makeSquad("mx");
   other = await makeSquad("my");
   admin = new Browser("198.51.100.9");

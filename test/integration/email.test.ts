@@ -2,6 +2,7 @@
 // check values from the IANA time-zone database in Node's Intl (Oslo UTC+1 in winter, UTC+2 in summer).
 import ICAL from "ical.js";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { resetConfig } from "@/features/platform/server/config";
 import * as sessionsRoute from "@/app/api/athletes/[id]/sessions/route";
 import * as calendarRoute from "@/app/api/calendar/[feed]/route";
 import * as feedRoute from "@/app/api/me/calendar-feed/route";
@@ -29,6 +30,7 @@ beforeAll(async () => {
   process.env.RESEND_BASE_URL = fake.url;
   delete process.env.RESEND_API_KEY;
   delete process.env.TIDEMARK_EMAIL_TRANSPORT;
+  resetConfig();
   s = await makeSquad("mail");
   await query(
     `insert into athlete_profile (user_id, time_zone, reminder_timing, reminder_time) values ($1, 'Europe/Oslo', 'morning_of', '07:00')
@@ -155,6 +157,7 @@ describe("retest reminders, the coach digest and the calendar feed", () => {
     process.env.TIDEMARK_EMAIL_TRANSPORT = "smtp";
     process.env.SMTP_HOST = "127.0.0.1";
     process.env.SMTP_PORT = String(fake.smtpPort);
+    resetConfig();
     try {
       await query(`update athlete_profile set remind_retests = true where user_id = $1`, [s.athleteA.id]);
       expect((await plan("2027-03-10", "Retest: threshold test", "retest")).status).toBe(201);
@@ -169,6 +172,7 @@ describe("retest reminders, the coach digest and the calendar feed", () => {
       expect(viaSmtp[0]!.headers["list-unsubscribe"] ?? viaSmtp[0]!.headers["List-Unsubscribe"]).toMatch(/\/api\/unsubscribe\//);
     } finally {
       delete process.env.TIDEMARK_EMAIL_TRANSPORT;
+      resetConfig();
     }
   });
 });

@@ -1,6 +1,7 @@
 // Attacks that must fail, through the real route handlers on real PostgreSQL: each checks the answer and that nothing was
 // written. (The outbox page and the sign-in redirect are in test/browser/security.test.ts.)
 import { describe, expect, it } from "vitest";
+import { resetConfig } from "@/features/platform/server/config";
 import * as logRoute from "@/app/api/logs/[id]/route";
 import * as meRoute from "@/app/api/me/route";
 import * as acceptRoute from "@/app/api/invitations/[token]/accept/route";
@@ -81,10 +82,13 @@ describe("rate limits and the per-account pause", () => {
     const saved = { header: process.env.TIDEMARK_CLIENT_IP_HEADER, limit: process.env.TIDEMARK_SIGN_IN_LIMIT_PER_MIN };
     delete process.env.TIDEMARK_CLIENT_IP_HEADER;
     process.env.TIDEMARK_SIGN_IN_LIMIT_PER_MIN = "8";
+    resetConfig();
     const auth = createAuth();
-    process.env.TIDEMARK_CLIENT_IP_HEADER = saved.header;
+    if (saved.header === undefined) delete process.env.TIDEMARK_CLIENT_IP_HEADER;
+    else process.env.TIDEMARK_CLIENT_IP_HEADER = saved.header;
     if (saved.limit === undefined) delete process.env.TIDEMARK_SIGN_IN_LIMIT_PER_MIN;
     else process.env.TIDEMARK_SIGN_IN_LIMIT_PER_MIN = saved.limit;
+    resetConfig();
     await query(`delete from rate_limit`);
     const statuses: number[] = [];
     for (let i = 0; i < 10; i++) {

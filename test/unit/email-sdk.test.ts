@@ -5,6 +5,7 @@ import { createElement } from "react";
 import { http, HttpResponse } from "msw";
 import { setupServer } from "msw/node";
 import { afterAll, afterEach, beforeAll, describe, expect, it } from "vitest";
+import { resetConfig } from "@/features/platform/server/config";
 import { CoachDigestEmail, coachDigestSubject, coachDigestText } from "@/emails/coach-digest";
 import { InvitationEmail, invitationSubject, invitationText } from "@/emails/invitation";
 import { PasswordResetEmail, passwordResetSubject, passwordResetText } from "@/emails/password-reset";
@@ -27,6 +28,7 @@ beforeAll(() => {
   process.env.RESEND_BASE_URL = BASE;
   process.env.RESEND_API_KEY = "re_test_key";
   delete process.env.TIDEMARK_EMAIL_TRANSPORT;
+  resetConfig();
   server.listen({ onUnhandledRequest: "error" });
 });
 afterEach(() => {

@@ -41,6 +41,24 @@ describe("the layout rules", () => {
   });
 });
 
+describe("configuration in one place", () => {
+  const envMessages = async (filePath: string, code: string) => {
+    const [result] = await eslint.lintText(code, { filePath });
+    return result!.messages.filter((m) => m.ruleId === "no-restricted-syntax").map((m) => m.message);
+  };
+
+  it("no file under app/, features/ or db/ reads process.env except the config module (NODE_ENV excepted)", async () => {
+    for (const code of ["export const x = process.env.DATABASE_URL;\n", 'export const x = process.env["DATABASE_URL"];\n', "const env = process.env;\nexport const x = env;\n", "export const x = { ...process.env };\n"]) {
+      expect(await envMessages("features/planning/server/probe.ts", code), code).toEqual([expect.stringMatching(/through config\(\)/)]);
+    }
+    expect(await envMessages("db/probe.ts", "export const x = process.env.DATABASE_URL;\n")).toHaveLength(1);
+    expect(await envMessages("app/probe/page.tsx", "export const x = process.env.FAKE_EMAIL_PORT;\n")).toHaveLength(1);
+    expect(await envMessages("features/planning/server/probe.ts", 'export const x = process.env.NODE_ENV === "production";\n')).toEqual([]);
+    expect(await envMessages("features/platform/server/config.ts", "export const x = process.env.DATABASE_URL;\n")).toEqual([]);
+    expect(await envMessages("scripts/probe.ts", "export const x = process.env.DATABASE_URL;\n")).toEqual([]);
+  });
+});
+
 describe("the import graph (scripts/import-graph.ts)", () => {
   it("has no folder-level cycle and no import that breaks a layout rule", async () => {
     const { analyse } = await import("../../scripts/import-graph");

@@ -2,7 +2,7 @@ import "server-only";
 import { betterAuth } from "better-auth";
 import { APIError, createAuthMiddleware } from "better-auth/api";
 import { personNameSchema } from "../schemas";
-import { signingSecret } from "@/features/platform/server/config";
+import { config, signingSecret } from "@/features/platform/server/config";
 import { clearFailedSignIns, recordFailedSignIn, signInPausedFor } from "./sign-in-guard";
 import { drizzleAdapter } from "better-auth/adapters/drizzle";
 import { getDb, schema } from "@/db/client";
@@ -12,9 +12,8 @@ import { sendEmailVerification, sendExistingAccountNotice, sendPasswordReset } f
 /** Sign-ins per minute per client address: 8, or 60 when no trusted proxy names the address (then every client shares one
  * bucket, and the per-account limit does the fine work). TIDEMARK_SIGN_IN_LIMIT_PER_MIN overrides both. */
 function signInLimit(): number {
-  const fallback = process.env.TIDEMARK_CLIENT_IP_HEADER?.trim() ? 8 : 60;
-  const n = Number(process.env.TIDEMARK_SIGN_IN_LIMIT_PER_MIN ?? fallback);
-  return Number.isInteger(n) && n > 0 ? n : fallback;
+  const { signIn } = config();
+  return signIn.limitPerMin ?? (signIn.clientIpHeader ? 8 : 60);
 }
 
 /**
@@ -24,8 +23,7 @@ function signInLimit(): number {
  * attempts, and every request shares one per-path bucket, beside the per-account limit (sign-in-guard.ts).
  */
 function ipAddressOptions() {
-  const header = process.env.TIDEMARK_CLIENT_IP_HEADER?.trim().toLowerCase();
-  const proxies = (process.env.TIDEMARK_TRUSTED_PROXIES ?? "").split(",").map((p) => p.trim()).filter(Boolean);
+  const { clientIpHeader: header, trustedProxies: proxies } = config().signIn;
   return { ipAddressHeaders: header ? [header] : [], ...(proxies.length ? { trustedProxies: proxies } : {}) };
 }
 
@@ -35,10 +33,11 @@ const emailOf = (body: unknown): string | null => {
 };
 
 function createAuth() {
-  const baseURL = process.env.BETTER_AUTH_URL ?? "http://127.0.0.1:3000";
+  const c = config();
+  const baseURL = c.auth.url;
   return betterAuth({
     baseURL,
-    secret: process.env.NODE_ENV === "production" ? signingSecret() : process.env.BETTER_AUTH_SECRET,
+    secret: c.production ? signingSecret() : c.auth.secret,
     database: drizzleAdapter(getDb(), {
       provider: "pg",
       schema: {
@@ -101,7 +100,7 @@ function createAuth() {
       },
     },
     rateLimit: {
-      enabled: process.env.TIDEMARK_DISABLE_RATE_LIMIT !== "1",
+      enabled: !c.signIn.rateLimitDisabled,
       storage: "database",
       window: 60,
       max: 300,

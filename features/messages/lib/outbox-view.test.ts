@@ -1,37 +1,27 @@
-import { afterEach, describe, expect, it } from "vitest";
-import { localFakeTransport, localOutboxEnabled, maskLinks } from "./outbox-view";
+import { describe, expect, it } from "vitest";
+import { localFakeTransport, localOutboxEnabled, maskLinks, type MailSettings } from "./outbox-view";
 
-const saved = { ...process.env };
-afterEach(() => {
-  process.env = { ...saved };
+const mail = (o: { outbox?: boolean; transport?: "resend" | "smtp"; resendBaseUrl?: string; smtpHost?: string }): MailSettings => ({
+  transport: o.transport ?? "resend",
+  resend: { baseUrl: o.resendBaseUrl },
+  smtp: { host: o.smtpHost },
+  localOutbox: o.outbox ?? false,
 });
 
 describe("the local outbox page", () => {
   it("exists only when the harness turned it on and the messages go to the local e-mail fake", () => {
-    process.env.TIDEMARK_LOCAL_OUTBOX = "1";
-    delete process.env.TIDEMARK_EMAIL_TRANSPORT;
-    process.env.RESEND_BASE_URL = "http://127.0.0.1:4010";
-    expect(localFakeTransport()).toBe(true);
-    expect(localOutboxEnabled()).toBe(true);
+    expect(localFakeTransport(mail({ resendBaseUrl: "http://127.0.0.1:4010" }))).toBe(true);
+    expect(localOutboxEnabled(mail({ outbox: true, resendBaseUrl: "http://127.0.0.1:4010" }))).toBe(true);
     // Real e-mail: the service's own address, or none set (the SDK's default), or an SMTP relay elsewhere.
-    process.env.RESEND_BASE_URL = "https://api.resend.com";
-    expect(localOutboxEnabled()).toBe(false);
-    delete process.env.RESEND_BASE_URL;
-    expect(localOutboxEnabled()).toBe(false);
-    process.env.TIDEMARK_EMAIL_TRANSPORT = "smtp";
-    process.env.SMTP_HOST = "smtp.example.test";
-    expect(localOutboxEnabled()).toBe(false);
-    process.env.SMTP_HOST = "127.0.0.1";
-    expect(localOutboxEnabled()).toBe(true);
-    delete process.env.TIDEMARK_LOCAL_OUTBOX;
-    expect(localOutboxEnabled()).toBe(false);
+    expect(localOutboxEnabled(mail({ outbox: true, resendBaseUrl: "https://api.resend.com" }))).toBe(false);
+    expect(localOutboxEnabled(mail({ outbox: true }))).toBe(false);
+    expect(localOutboxEnabled(mail({ outbox: true, transport: "smtp", smtpHost: "smtp.example.test" }))).toBe(false);
+    expect(localOutboxEnabled(mail({ outbox: true, transport: "smtp", smtpHost: "127.0.0.1" }))).toBe(true);
+    expect(localOutboxEnabled(mail({ outbox: false, transport: "smtp", smtpHost: "127.0.0.1" }))).toBe(false);
   });
 
   it("a look-alike host is not loopback", () => {
-    process.env.TIDEMARK_LOCAL_OUTBOX = "1";
-    delete process.env.TIDEMARK_EMAIL_TRANSPORT;
-    process.env.RESEND_BASE_URL = "http://127.0.0.1.evil.test";
-    expect(localOutboxEnabled()).toBe(false);
+    expect(localOutboxEnabled(mail({ outbox: true, resendBaseUrl: "http://127.0.0.1.evil.test" }))).toBe(false);
   });
 
   it("hides the secret part of every link, keeping where it goes", () => {

@@ -1,21 +1,29 @@
 /** What the local outbox page may show, and when it exists at all (pure; read by app/outbox). */
 const LOOPBACK = /^https?:\/\/(127\.0\.0\.1|localhost|\[::1\])(:\d+)?(\/|$)/;
 
+/** The mail settings these rules look at (the `mail` part of the configuration, features/platform/server/config.ts). */
+export interface MailSettings {
+  transport: "resend" | "smtp";
+  resend: { baseUrl: string | undefined };
+  smtp: { host: string | undefined };
+  localOutbox: boolean;
+}
+
 /** Whether messages go to the local e-mail fake (on this machine) rather than to a real e-mail service. */
-export function localFakeTransport(): boolean {
-  if (process.env.TIDEMARK_EMAIL_TRANSPORT === "smtp") {
-    const host = process.env.SMTP_HOST ?? "127.0.0.1";
+export function localFakeTransport(mail: MailSettings): boolean {
+  if (mail.transport === "smtp") {
+    const host = mail.smtp.host ?? "127.0.0.1";
     return host === "127.0.0.1" || host === "localhost" || host === "::1";
   }
-  return LOOPBACK.test(process.env.RESEND_BASE_URL ?? "https://api.resend.com");
+  return LOOPBACK.test(mail.resend.baseUrl ?? "https://api.resend.com");
 }
 
 /**
  * The local outbox page is an aid for site operators on a local installation: it exists only when the start or test
  * harness turned it on and the messages go to the local e-mail fake, never when real e-mail is configured.
  */
-export function localOutboxEnabled(): boolean {
-  return process.env.TIDEMARK_LOCAL_OUTBOX === "1" && localFakeTransport();
+export function localOutboxEnabled(mail: MailSettings): boolean {
+  return mail.localOutbox && localFakeTransport(mail);
 }
 
 /** Messages whose links open an account (reset, invitation, address confirmation): shown masked on the outbox page. */

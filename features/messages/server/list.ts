@@ -2,7 +2,20 @@ import "server-only";
 import { desc, eq } from "drizzle-orm";
 import { getDb, schema } from "@/db/client";
 
-export { ACCOUNT_MESSAGE_KINDS, localFakeTransport, localOutboxEnabled, maskLinks } from "../lib/outbox-view";
+import { config } from "@/features/platform/server/config";
+import { localOutboxEnabled as outboxEnabledFor } from "../lib/outbox-view";
+
+export { ACCOUNT_MESSAGE_KINDS, maskLinks } from "../lib/outbox-view";
+
+/** Whether the local outbox page exists in this process (see outbox-view.ts). */
+export function localOutboxEnabled(): boolean {
+  return outboxEnabledFor(config().mail);
+}
+
+/** The local e-mail fake's own outbox page. */
+export function fakeEmailOutboxUrl(): string {
+  return `${config().mail.fakeUrl}/outbox`;
+}
 
 export async function listOutbox(limit = 100) {
   return getDb()

@@ -1,6 +1,7 @@
 import "server-only";
 import nodemailer from "nodemailer";
 import { Resend } from "resend";
+import { config } from "@/features/platform/server/config";
 
 export interface Envelope {
   to: string;
@@ -14,7 +15,10 @@ export interface Envelope {
 
 export type SendResult = { ok: true; providerId: string } | { ok: false; retry: boolean; error: string };
 
-export const FROM_ADDRESS = process.env.TIDEMARK_MAIL_FROM ?? "Tidemark <no-reply@tidemark.test>";
+/** The sender of every message (TIDEMARK_MAIL_FROM). */
+export function fromAddress(): string {
+  return config().mail.from;
+}
 
 /**
  * The e-mail transport: the Resend SDK by default (pointed at the local fake of its API through the SDK's base-URL setting
@@ -22,22 +26,23 @@ export const FROM_ADDRESS = process.env.TIDEMARK_MAIL_FROM ?? "Tidemark <no-repl
  * TIDEMARK_EMAIL_TRANSPORT=smtp (SMTP_HOST, SMTP_PORT).
  */
 export async function sendEmail(e: Envelope): Promise<SendResult> {
-  return process.env.TIDEMARK_EMAIL_TRANSPORT === "smtp" ? sendSmtp(e) : sendResend(e);
+  return config().mail.transport === "smtp" ? sendSmtp(e) : sendResend(e);
 }
 
 let resend: Resend | undefined;
 let resendFor = "";
 
 async function sendResend(e: Envelope): Promise<SendResult> {
-  const baseUrl = process.env.RESEND_BASE_URL ?? "https://api.resend.com";
-  const key = process.env.RESEND_API_KEY ?? (process.env.RESEND_BASE_URL ? "re_local_fake_key" : "");
+  const { resend: settings } = config().mail;
+  const baseUrl = settings.baseUrl ?? "https://api.resend.com";
+  const key = settings.apiKey ?? (settings.baseUrl ? "re_local_fake_key" : "");
   if (!key) return { ok: false, retry: false, error: "No RESEND_API_KEY is set and no local fake (RESEND_BASE_URL) is configured." };
   if (!resend || resendFor !== `${baseUrl} ${key}`) {
     resend = new Resend(key, { baseUrl });
     resendFor = `${baseUrl} ${key}`;
   }
   const { data, error } = await resend.emails.send(
-    { from: FROM_ADDRESS, to: [e.to], subject: e.subject, html: e.html, text: e.text, headers: e.headers, tags: [{ name: "kind", value: e.kind }] },
+    { from: fromAddress(), to: [e.to], subject: e.subject, html: e.html, text: e.text, headers: e.headers, tags: [{ name: "kind", value: e.kind }] },
     { idempotencyKey: e.idempotencyKey },
   );
   if (data?.id) return { ok: true, providerId: data.id };
@@ -50,15 +55,16 @@ async function sendResend(e: Envelope): Promise<SendResult> {
 let smtp: nodemailer.Transporter | undefined;
 
 async function sendSmtp(e: Envelope): Promise<SendResult> {
+  const s = config().mail.smtp;
   smtp ??= nodemailer.createTransport({
-    host: process.env.SMTP_HOST ?? "127.0.0.1",
-    port: Number(process.env.SMTP_PORT ?? 2525),
+    host: s.host ?? "127.0.0.1",
+    port: s.port,
     secure: false,
-    ignoreTLS: process.env.SMTP_HOST === undefined || process.env.SMTP_HOST === "127.0.0.1",
-    ...(process.env.SMTP_USER ? { auth: { user: process.env.SMTP_USER, pass: process.env.SMTP_PASSWORD ?? "" } } : {}),
+    ignoreTLS: s.host === undefined || s.host === "127.0.0.1",
+    ...(s.user ? { auth: { user: s.user, pass: s.password } } : {}),
   });
   try {
-    const info = await smtp.sendMail({ from: FROM_ADDRESS, to: e.to, subject: e.subject, html: e.html, text: e.text, headers: { ...e.headers, "X-Tidemark-Kind": e.kind, "X-Tidemark-Idempotency-Key": e.idempotencyKey } });
+    const info = await smtp.sendMail({ from: fromAddress(), to: e.to, subject: e.subject, html: e.html, text: e.text, headers: { ...e.headers, "X-Tidemark-Kind": e.kind, "X-Tidemark-Idempotency-Key": e.idempotencyKey } });
     return { ok: true, providerId: info.messageId };
   } catch (err) {
     const code = (err as { responseCode?: number }).responseCode;

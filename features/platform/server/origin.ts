@@ -1,6 +1,7 @@
 import "server-only";
+import { config } from "./config";
 
-/** The site's public address, used in links inside e-mails. */
+/** The site's public address, used in links inside e-mails (BETTER_AUTH_URL). */
 export function publicOrigin(): string {
-  return (process.env.BETTER_AUTH_URL ?? "http://127.0.0.1:3000").replace(/\/$/, "");
+  return config().auth.url;
 }
