@@ -3,8 +3,6 @@ import { json, readJson, route } from "@/features/platform/server/http";
 import { createSquadSchema } from "@/features/squads/schemas";
 import { createSquad, describeMe } from "@/features/squads/server/squads";
 
-export const dynamic = "force-dynamic";
-
 export const GET = route(async (req) => {
   const actor = await requireActor(req.headers);
   return json((await describeMe(actor)).squads);

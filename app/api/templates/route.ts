@@ -1,18 +1,15 @@
 import { z } from "zod";
 import { requireActor } from "@/features/access/server/permissions";
-import { HttpError, json, readJson, route } from "@/features/platform/server/http";
+import { json, parseQuery, readJson, route } from "@/features/platform/server/http";
 import { templateSchema } from "@/features/planning/schemas";
 import { createTemplate, duplicateTemplate, listTemplates } from "@/features/planning/server/templates";
-
-export const dynamic = "force-dynamic";
 
 const query = z.object({ squad: z.string().min(1).max(100).optional(), q: z.string().max(80).optional() });
 
 export const GET = route(async (req) => {
   const actor = await requireActor(req.headers);
-  const q = query.safeParse(Object.fromEntries(new URL(req.url).searchParams));
-  if (!q.success) throw new HttpError(400, "Use ?squad=<id> and ?q=<search text>.");
-  return json(await listTemplates(actor, { squadId: q.data.squad, q: q.data.q }));
+  const q = parseQuery(req, query, "Use ?squad=<id> and ?q=<search text>.");
+  return json(await listTemplates(actor, { squadId: q.squad, q: q.q }));
 });
 
 const duplicate = z.object({ copyOf: z.string().min(1).max(100) }).strict();

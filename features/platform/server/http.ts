@@ -63,6 +63,49 @@ export function parseQuery<T extends z.ZodType>(req: Request, schema: T, message
   return parsed.data;
 }
 
+export interface UploadLimits {
+  maxBytes: number;
+  /** Said when the file is too large, e.g. "The file is larger than 10 MB." */
+  tooLarge: string;
+  /** Said when no file is attached (the field is named `file`). */
+  missing: string;
+  /** The field error shown beside the file input when none is attached. */
+  missingField: string;
+}
+
+/**
+ * One reader for file uploads (multipart/form-data, the file in the field `file`): refuses other content types (415),
+ * too large a body before reading it and too large a file after (413), a form that cannot be read (400), a missing file
+ * (400). Gives the file's bytes and the other fields.
+ */
+export async function readUpload(req: Request, limits: UploadLimits): Promise<{ file: { name: string; type: string; bytes: Uint8Array }; form: FormData }> {
+  if (!(req.headers.get("content-type") ?? "").startsWith("multipart/form-data")) throw new HttpError(415, "Send the file as multipart/form-data in the field named file.");
+  const length = Number(req.headers.get("content-length") ?? 0);
+  if (length > limits.maxBytes + 64 * 1024) throw new HttpError(413, limits.tooLarge);
+  let form: FormData;
+  try {
+    form = await req.formData();
+  } catch {
+    throw new HttpError(400, "The upload could not be read as a form with a file.");
+  }
+  const file = form.get("file");
+  if (!(file instanceof File)) throw new HttpError(400, limits.missing, { fieldErrors: { file: [limits.missingField] } });
+  if (file.size > limits.maxBytes) throw new HttpError(413, limits.tooLarge);
+  return { file: { name: file.name, type: file.type, bytes: new Uint8Array(await file.arrayBuffer()) }, form };
+}
+
+/** A form field holding JSON, or undefined when it is absent or empty. */
+export function jsonField(form: FormData, name: string): unknown {
+  const raw = form.get(name);
+  if (raw === null || raw === "") return undefined;
+  if (typeof raw !== "string") throw new HttpError(400, `The field ${name} must be text.`);
+  try {
+    return JSON.parse(raw);
+  } catch {
+    throw new HttpError(400, `The field ${name} is not valid JSON.`);
+  }
+}
+
 export function parseParams<T extends z.ZodType>(params: unknown, schema: T): z.infer<T> {
   const parsed = schema.safeParse(params);
   if (!parsed.success) throw notFound();

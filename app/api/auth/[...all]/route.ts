@@ -1,7 +1,5 @@
 import { getAuth } from "@/features/auth/server/auth";
 
-export const dynamic = "force-dynamic";
-
 export async function GET(req: Request) {
   return getAuth().handler(req);
 }

@@ -1,11 +1,8 @@
 import { json, route } from "@/features/platform/server/http";
 import { calendarFeed } from "@/features/messages/server/preferences";
 
-export const dynamic = "force-dynamic";
-type Ctx = { params: Promise<{ feed: string }> };
-
 /** GET /api/calendar/<token>.ics: the private iCalendar feed of an athlete's plan. No sign-in: the token is the key. */
-export const GET = route<Ctx>(async (_req, ctx) => {
+export const GET = route<RouteContext<"/api/calendar/[feed]">>(async (_req, ctx) => {
   const { feed } = await ctx.params;
   const token = feed.endsWith(".ics") ? feed.slice(0, -4) : "";
   const ics = token ? await calendarFeed(token) : null;

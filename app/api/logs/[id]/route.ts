@@ -4,16 +4,13 @@ import { deleteLog, updateLog } from "@/features/logs/server/logs";
 import { json, parseParams, readJson, route } from "@/features/platform/server/http";
 import { idParam } from "@/features/platform/lib/params";
 
-export const dynamic = "force-dynamic";
-type Ctx = { params: Promise<{ id: string }> };
-
-export const PATCH = route<Ctx>(async (req, ctx) => {
+export const PATCH = route<RouteContext<"/api/logs/[id]">>(async (req, ctx) => {
   const actor = await requireActor(req.headers);
   const { id } = parseParams(await ctx.params, idParam);
   return json(await updateLog(actor, id, await readJson(req, patchLogSchema)));
 });
 
-export const DELETE = route<Ctx>(async (req, ctx) => {
+export const DELETE = route<RouteContext<"/api/logs/[id]">>(async (req, ctx) => {
   const actor = await requireActor(req.headers);
   const { id } = parseParams(await ctx.params, idParam);
   await deleteLog(actor, id);

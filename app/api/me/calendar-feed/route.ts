@@ -3,8 +3,6 @@ import { json, route } from "@/features/platform/server/http";
 import { publicOrigin } from "@/features/platform/server/origin";
 import { renewCalendarToken, revokeCalendarToken } from "@/features/messages/server/preferences";
 
-export const dynamic = "force-dynamic";
-
 /** POST: a new private feed address (any old one stops working). */
 export const POST = route(async (req) => {
   const actor = await requireActor(req.headers);

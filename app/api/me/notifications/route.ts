@@ -4,8 +4,6 @@ import { json, readJson, route } from "@/features/platform/server/http";
 import { getNotificationSettings, updateNotificationSettings } from "@/features/messages/server/preferences";
 import { timeZoneSchema } from "@/features/platform/lib/time-zones";
 
-export const dynamic = "force-dynamic";
-
 export const GET = route(async (req) => json(await getNotificationSettings(await requireActor(req.headers))));
 
 /** PATCH {timeZone?, coachDigest?}: the coach digest on or off and the time zone it follows. */

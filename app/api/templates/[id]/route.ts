@@ -4,22 +4,19 @@ import { templatePatchSchema } from "@/features/planning/schemas";
 import { deleteTemplate, getTemplate, updateTemplate } from "@/features/planning/server/templates";
 import { idParam } from "@/features/platform/lib/params";
 
-export const dynamic = "force-dynamic";
-type Ctx = { params: Promise<{ id: string }> };
-
-export const GET = route<Ctx>(async (req, ctx) => {
+export const GET = route<RouteContext<"/api/templates/[id]">>(async (req, ctx) => {
   const actor = await requireActor(req.headers);
   const { id } = parseParams(await ctx.params, idParam);
   return json(await getTemplate(actor, id));
 });
 
-export const PATCH = route<Ctx>(async (req, ctx) => {
+export const PATCH = route<RouteContext<"/api/templates/[id]">>(async (req, ctx) => {
   const actor = await requireActor(req.headers);
   const { id } = parseParams(await ctx.params, idParam);
   return json(await updateTemplate(actor, id, await readJson(req, templatePatchSchema)));
 });
 
-export const DELETE = route<Ctx>(async (req, ctx) => {
+export const DELETE = route<RouteContext<"/api/templates/[id]">>(async (req, ctx) => {
   const actor = await requireActor(req.headers);
   const { id } = parseParams(await ctx.params, idParam);
   await deleteTemplate(actor, id);

@@ -1,11 +1,8 @@
 import { json, route } from "@/features/platform/server/http";
 import { unsubscribe } from "@/features/messages/server/preferences";
 
-export const dynamic = "force-dynamic";
-type Ctx = { params: Promise<{ token: string }> };
-
 /** RFC 8058 one-click unsubscribe: mail programs POST here from the List-Unsubscribe header; no sign-in. */
-export const POST = route<Ctx>(
+export const POST = route<RouteContext<"/api/unsubscribe/[token]">>(
   async (_req, ctx) => {
     const { token } = await ctx.params;
     let decoded: string;

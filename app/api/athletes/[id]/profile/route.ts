@@ -4,17 +4,13 @@ import { getAthleteProfile, updateAthleteProfile } from "@/features/athletes/ser
 import { json, parseParams, readJson, route } from "@/features/platform/server/http";
 import { idParam } from "@/features/platform/lib/params";
 
-export const dynamic = "force-dynamic";
-
-type Ctx = { params: Promise<{ id: string }> };
-
-export const GET = route<Ctx>(async (req, ctx) => {
+export const GET = route<RouteContext<"/api/athletes/[id]/profile">>(async (req, ctx) => {
   const actor = await requireActor(req.headers);
   const { id } = parseParams(await ctx.params, idParam);
   return json(await getAthleteProfile(actor, id));
 });
 
-export const PATCH = route<Ctx>(async (req, ctx) => {
+export const PATCH = route<RouteContext<"/api/athletes/[id]/profile">>(async (req, ctx) => {
   const actor = await requireActor(req.headers);
   const { id } = parseParams(await ctx.params, idParam);
   const patch = await readJson(req, profilePatchSchema);

@@ -4,17 +4,13 @@ import { getScreening, saveScreening } from "@/features/athlete-tests/server/scr
 import { json, parseParams, readJson, route } from "@/features/platform/server/http";
 import { idParam } from "@/features/platform/lib/params";
 
-export const dynamic = "force-dynamic";
-
-type Ctx = { params: Promise<{ id: string }> };
-
-export const GET = route<Ctx>(async (req, ctx) => {
+export const GET = route<RouteContext<"/api/athletes/[id]/screening">>(async (req, ctx) => {
   const actor = await requireActor(req.headers);
   const { id } = parseParams(await ctx.params, idParam);
   return json(await getScreening(actor, id));
 });
 
-export const PUT = route<Ctx>(async (req, ctx) => {
+export const PUT = route<RouteContext<"/api/athletes/[id]/screening">>(async (req, ctx) => {
   const actor = await requireActor(req.headers);
   const { id } = parseParams(await ctx.params, idParam);
   const body = await readJson(req, screeningSchema);

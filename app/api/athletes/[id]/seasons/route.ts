@@ -4,16 +4,13 @@ import { seasonSchema } from "@/features/planning/schemas";
 import { createSeason, listSeasons } from "@/features/planning/server/planning";
 import { idParam } from "@/features/platform/lib/params";
 
-export const dynamic = "force-dynamic";
-type Ctx = { params: Promise<{ id: string }> };
-
-export const GET = route<Ctx>(async (req, ctx) => {
+export const GET = route<RouteContext<"/api/athletes/[id]/seasons">>(async (req, ctx) => {
   const actor = await requireActor(req.headers);
   const { id } = parseParams(await ctx.params, idParam);
   return json(await listSeasons(actor, id));
 });
 
-export const POST = route<Ctx>(async (req, ctx) => {
+export const POST = route<RouteContext<"/api/athletes/[id]/seasons">>(async (req, ctx) => {
   const actor = await requireActor(req.headers);
   const { id } = parseParams(await ctx.params, idParam);
   return json(await createSeason(actor, id, await readJson(req, seasonSchema)), { status: 201 });

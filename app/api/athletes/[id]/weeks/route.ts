@@ -1,17 +1,13 @@
 import { requireActor } from "@/features/access/server/permissions";
-import { fieldErrors, HttpError, parseParams, route } from "@/features/platform/server/http";
+import { parseParams, parseQuery, route } from "@/features/platform/server/http";
 import { rangeQuery } from "@/features/planning/schemas";
 import { weekSummariesJson } from "@/features/planning/server/planning";
 import { idParam } from "@/features/platform/lib/params";
 
-export const dynamic = "force-dynamic";
-type Ctx = { params: Promise<{ id: string }> };
-
-export const GET = route<Ctx>(async (req, ctx) => {
+export const GET = route<RouteContext<"/api/athletes/[id]/weeks">>(async (req, ctx) => {
   const actor = await requireActor(req.headers);
   const { id } = parseParams(await ctx.params, idParam);
-  const q = rangeQuery.safeParse(Object.fromEntries(new URL(req.url).searchParams));
-  if (!q.success) throw new HttpError(400, "Give ?from=YYYY-MM-DD&to=YYYY-MM-DD.", { fieldErrors: fieldErrors(q.error) });
-  const body = await weekSummariesJson(actor, id, q.data.from, q.data.to);
+  const q = parseQuery(req, rangeQuery, "Give ?from=YYYY-MM-DD&to=YYYY-MM-DD.");
+  const body = await weekSummariesJson(actor, id, q.from, q.to);
   return new Response(body, { headers: { "content-type": "application/json", "cache-control": "no-store" } });
 });

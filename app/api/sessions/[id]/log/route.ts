@@ -4,11 +4,8 @@ import { logPlannedSession } from "@/features/logs/server/logs";
 import { json, parseParams, readJson, route } from "@/features/platform/server/http";
 import { idParam } from "@/features/platform/lib/params";
 
-export const dynamic = "force-dynamic";
-type Ctx = { params: Promise<{ id: string }> };
-
 /** Logs a planned session: 201 with the new log, or 200 with the log already made (a repeated submit writes nothing). */
-export const POST = route<Ctx>(async (req, ctx) => {
+export const POST = route<RouteContext<"/api/sessions/[id]/log">>(async (req, ctx) => {
   const actor = await requireActor(req.headers);
   const { id } = parseParams(await ctx.params, idParam);
   const { log, created } = await logPlannedSession(actor, id, await readJson(req, logSchema));

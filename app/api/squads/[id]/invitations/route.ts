@@ -5,17 +5,13 @@ import { idParam } from "@/features/platform/lib/params";
 import { inviteToSquad, listOpenInvitations } from "@/features/squads/server/squads";
 import { publicOrigin } from "@/features/platform/server/origin";
 
-export const dynamic = "force-dynamic";
-
-type Ctx = { params: Promise<{ id: string }> };
-
-export const GET = route<Ctx>(async (req, ctx) => {
+export const GET = route<RouteContext<"/api/squads/[id]/invitations">>(async (req, ctx) => {
   const actor = await requireActor(req.headers);
   const { id } = parseParams(await ctx.params, idParam);
   return json(await listOpenInvitations(actor, id));
 });
 
-export const POST = route<Ctx>(async (req, ctx) => {
+export const POST = route<RouteContext<"/api/squads/[id]/invitations">>(async (req, ctx) => {
   const actor = await requireActor(req.headers);
   const { id } = parseParams(await ctx.params, idParam);
   const body = await readJson(req, inviteSchema);

@@ -5,11 +5,8 @@ import { isoDate } from "@/features/planning/schemas";
 import { squadWeek } from "@/features/planning/server/planning";
 import { idParam } from "@/features/platform/lib/params";
 
-export const dynamic = "force-dynamic";
-type Ctx = { params: Promise<{ id: string }> };
-
 /** GET /api/squads/:id/week?week=YYYY-MM-DD: every athlete's sessions and budget state in that ISO week. */
-export const GET = route<Ctx>(async (req, ctx) => {
+export const GET = route<RouteContext<"/api/squads/[id]/week">>(async (req, ctx) => {
   const actor = await requireActor(req.headers);
   const { id } = parseParams(await ctx.params, idParam);
   const { week } = parseQuery(req, z.object({ week: isoDate }), "Give ?week=YYYY-MM-DD.");

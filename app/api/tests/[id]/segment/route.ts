@@ -4,12 +4,8 @@ import { resegmentTest } from "@/features/athlete-tests/server/tests";
 import { json, parseParams, readJson, route } from "@/features/platform/server/http";
 import { idParam } from "@/features/platform/lib/params";
 
-export const dynamic = "force-dynamic";
-
-type Ctx = { params: Promise<{ id: string }> };
-
 /** Sets the test segment by hand ({fromS, toS} in seconds; nulls give it back to the finder) and analyses the file again. */
-export const PUT = route<Ctx>(async (req, ctx) => {
+export const PUT = route<RouteContext<"/api/tests/[id]/segment">>(async (req, ctx) => {
   const actor = await requireActor(req.headers);
   const { id } = parseParams(await ctx.params, idParam);
   const body = await readJson(req, segmentSchema);

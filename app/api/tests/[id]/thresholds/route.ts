@@ -4,11 +4,7 @@ import { adjustThresholds } from "@/features/athlete-tests/server/tests";
 import { json, parseParams, readJson, route } from "@/features/platform/server/http";
 import { idParam } from "@/features/platform/lib/params";
 
-export const dynamic = "force-dynamic";
-
-type Ctx = { params: Promise<{ id: string }> };
-
-export const PATCH = route<Ctx>(async (req, ctx) => {
+export const PATCH = route<RouteContext<"/api/tests/[id]/thresholds">>(async (req, ctx) => {
   const actor = await requireActor(req.headers);
   const { id } = parseParams(await ctx.params, idParam);
   const body = await readJson(req, thresholdPatchSchema);

@@ -4,13 +4,11 @@ import { EXPORT_FILES, exportCsv } from "@/features/exports/server/exports";
 import { isoDate } from "@/features/platform/lib/date-schema";
 import { parseParams, parseQuery, route } from "@/features/platform/server/http";
 
-type Ctx = { params: Promise<{ id: string; file: string }> };
-
 const params = z.object({ id: z.string().min(1).max(100), file: z.enum(EXPORT_FILES) });
 const query = z.object({ from: isoDate.optional(), to: isoDate.optional() }).strict();
 
 /** GET /api/athletes/:id/export/plan.csv | logs.csv | zones.csv [?from&to]: a download for the athlete and their coaches. */
-export const GET = route<Ctx>(async (req, ctx) => {
+export const GET = route<RouteContext<"/api/athletes/[id]/export/[file]">>(async (req, ctx) => {
   const actor = await requireActor(req.headers);
   const { id, file } = parseParams(await ctx.params, params);
   const range = parseQuery(req, query, "Give ?from=YYYY-MM-DD&to=YYYY-MM-DD, or neither.");

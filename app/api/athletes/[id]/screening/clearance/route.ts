@@ -4,11 +4,8 @@ import { saveClearance } from "@/features/athlete-tests/server/screening";
 import { json, parseParams, readJson, route } from "@/features/platform/server/http";
 import { idParam } from "@/features/platform/lib/params";
 
-export const dynamic = "force-dynamic";
-type Ctx = { params: Promise<{ id: string }> };
-
 /** POST: a coach records a medical clearance for the athlete's latest readiness answers (201 with the new state). */
-export const POST = route<Ctx>(async (req, ctx) => {
+export const POST = route<RouteContext<"/api/athletes/[id]/screening/clearance">>(async (req, ctx) => {
   const actor = await requireActor(req.headers);
   const { id } = parseParams(await ctx.params, idParam);
   return json(await saveClearance(actor, id, await readJson(req, clearanceSchema)), { status: 201 });
