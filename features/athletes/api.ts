@@ -1,16 +1,16 @@
 "use client";
-import { useMutation, useQueryClient } from "@tanstack/react-query";
+import { useMutation } from "@tanstack/react-query";
 import { apiFetch } from "@/features/platform/lib/api-client";
 import type { ProfileInput } from "./schemas";
 
+/** Saves an athlete's profile. No client query reads profiles (pages render them on the server), so the form refreshes
+ * the page after a save instead of invalidating a query. */
 export function useSaveProfile(athleteId: string) {
-  const qc = useQueryClient();
   return useMutation({
     mutationFn: (profile: ProfileInput & { version?: number }) =>
       apiFetch<{ profile: ProfileInput & { version: number } }>(`/api/athletes/${encodeURIComponent(athleteId)}/profile`, {
         method: "PATCH",
         body: JSON.stringify(profile),
       }),
-    onSuccess: () => qc.invalidateQueries({ queryKey: ["athletes"] }),
   });
 }

@@ -1,5 +1,5 @@
 "use client";
-import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import { queryOptions, useMutation, useQuery, useQueryClient, type QueryClient } from "@tanstack/react-query";
 import { apiFetch } from "@/features/platform/lib/api-client";
 import type { Block } from "./lib/session";
 import type { WeekSummary } from "./lib/weeks";
@@ -21,21 +21,35 @@ export interface SessionDto {
   log: { id: string; status: "done" | "partial" | "skipped"; durationMin: number | null; rpe: number | null; measuredMinByZone: [number, number, number] | null; compliance: number } | null;
 }
 
-export const sessionsKey = (athleteId: string, from: string, to: string) => ["sessions", athleteId, from, to];
-export const weeksKey = (athleteId: string, from: string, to: string) => ["weeks", athleteId, from, to];
+/** The planner's queries: one factory per query, so keys are written once (TanStack Query's `queryOptions`). */
+export const planQueries = {
+  /** Every cached range of an athlete's sessions (for invalidation). */
+  sessionsOf: (athleteId: string) => ["sessions", athleteId] as const,
+  /** Every cached range of an athlete's weekly summaries (for invalidation). */
+  weeksOf: (athleteId: string) => ["weeks", athleteId] as const,
+  sessions: (athleteId: string, from: string, to: string) =>
+    queryOptions({ queryKey: [...planQueries.sessionsOf(athleteId), from, to], queryFn: () => apiFetch<SessionDto[]>(`/api/athletes/${athleteId}/sessions?from=${from}&to=${to}`), enabled: !!from }),
+  weeks: (athleteId: string, from: string, to: string) =>
+    queryOptions({ queryKey: [...planQueries.weeksOf(athleteId), from, to], queryFn: () => apiFetch<WeekSummary[]>(`/api/athletes/${athleteId}/weeks?from=${from}&to=${to}`), enabled: !!from }),
+};
+
+/** After any change to an athlete's plan: their sessions and weekly summaries are fetched again. */
+export function invalidatePlan(qc: QueryClient, athleteId: string) {
+  return Promise.all([qc.invalidateQueries({ queryKey: planQueries.sessionsOf(athleteId) }), qc.invalidateQueries({ queryKey: planQueries.weeksOf(athleteId) })]);
+}
 
 export function useSessions(athleteId: string, from: string, to: string) {
-  return useQuery({ queryKey: sessionsKey(athleteId, from, to), queryFn: () => apiFetch<SessionDto[]>(`/api/athletes/${athleteId}/sessions?from=${from}&to=${to}`), enabled: !!from });
+  return useQuery(planQueries.sessions(athleteId, from, to));
 }
 
 export function useWeeks(athleteId: string, from: string, to: string) {
-  return useQuery({ queryKey: weeksKey(athleteId, from, to), queryFn: () => apiFetch<WeekSummary[]>(`/api/athletes/${athleteId}/weeks?from=${from}&to=${to}`), enabled: !!from });
+  return useQuery(planQueries.weeks(athleteId, from, to));
 }
 
 /** Moves a session at once in the cache and rolls back with the server's reason when it refuses. */
 export function useMoveSession(athleteId: string, from: string, to: string) {
   const qc = useQueryClient();
-  const key = sessionsKey(athleteId, from, to);
+  const key = planQueries.sessions(athleteId, from, to).queryKey;
   return useMutation({
     mutationFn: (v: { id: string; date: string; scope?: "one" | "series"; version?: number }) =>
       apiFetch(`/api/sessions/${v.id}`, { method: "PATCH", body: JSON.stringify({ date: v.date, scope: v.scope ?? "one", version: v.version ?? qc.getQueryData<SessionDto[]>(key)?.find((s) => s.id === v.id)?.version }) }),
@@ -48,10 +62,7 @@ export function useMoveSession(athleteId: string, from: string, to: string) {
     onError: (_e, _v, ctx) => {
       if (ctx?.previous) qc.setQueryData(key, ctx.previous);
     },
-    onSettled: () => {
-      void qc.invalidateQueries({ queryKey: ["sessions", athleteId] });
-      void qc.invalidateQueries({ queryKey: ["weeks", athleteId] });
-    },
+    onSettled: () => invalidatePlan(qc, athleteId),
   });
 }
 
@@ -59,10 +70,7 @@ export function useCreateSession(athleteId: string) {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: (body: unknown) => apiFetch<{ id: string }>(`/api/athletes/${athleteId}/sessions`, { method: "POST", body: JSON.stringify(body) }),
-    onSettled: () => {
-      void qc.invalidateQueries({ queryKey: ["sessions", athleteId] });
-      void qc.invalidateQueries({ queryKey: ["weeks", athleteId] });
-    },
+    onSettled: () => invalidatePlan(qc, athleteId),
   });
 }
 
@@ -70,9 +78,6 @@ export function useDeleteSession(athleteId: string) {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: (v: { id: string; scope: "one" | "series" }) => apiFetch(`/api/sessions/${v.id}?scope=${v.scope}`, { method: "DELETE" }),
-    onSettled: () => {
-      void qc.invalidateQueries({ queryKey: ["sessions", athleteId] });
-      void qc.invalidateQueries({ queryKey: ["weeks", athleteId] });
-    },
+    onSettled: () => invalidatePlan(qc, athleteId),
   });
 }

@@ -1,5 +1,5 @@
 "use client";
-import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import { queryOptions, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import type { RosterRow } from "@/features/roster/lib/roster";
 import type { InviteInput } from "./schemas";
 import { apiFetch } from "@/features/platform/lib/api-client";
@@ -13,11 +13,16 @@ export async function acceptInvitationRequest(token: string): Promise<{ ok: true
   }
 }
 
+/** The squad's queries, one factory each (TanStack Query's `queryOptions`). */
+export const squadQueries = {
+  roster: (squadId: string) =>
+    queryOptions({ queryKey: ["roster", squadId] as const, queryFn: () => apiFetch<{ squadId: string | null; rows: RosterRow[] }>(`/api/roster?squad=${encodeURIComponent(squadId)}`) }),
+  invitations: (squadId: string) =>
+    queryOptions({ queryKey: ["invitations", squadId] as const, queryFn: () => apiFetch<OpenInvitation[]>(`/api/squads/${encodeURIComponent(squadId)}/invitations`) }),
+};
+
 export function useRoster(squadId: string) {
-  return useQuery({
-    queryKey: ["roster", squadId],
-    queryFn: () => apiFetch<{ squadId: string | null; rows: RosterRow[] }>(`/api/roster?squad=${encodeURIComponent(squadId)}`),
-  });
+  return useQuery(squadQueries.roster(squadId));
 }
 
 export interface OpenInvitation {
@@ -28,11 +33,7 @@ export interface OpenInvitation {
 }
 
 export function useInvitations(squadId: string, enabled: boolean) {
-  return useQuery({
-    queryKey: ["invitations", squadId],
-    enabled,
-    queryFn: () => apiFetch<OpenInvitation[]>(`/api/squads/${encodeURIComponent(squadId)}/invitations`),
-  });
+  return useQuery({ ...squadQueries.invitations(squadId), enabled });
 }
 
 export function useWithdrawInvitation(squadId: string) {
@@ -40,7 +41,7 @@ export function useWithdrawInvitation(squadId: string) {
   return useMutation({
     mutationFn: (invitationId: string) =>
       apiFetch<void>(`/api/squads/${encodeURIComponent(squadId)}/invitations/${encodeURIComponent(invitationId)}`, { method: "DELETE" }),
-    onSuccess: () => qc.invalidateQueries({ queryKey: ["invitations", squadId] }),
+    onSuccess: () => qc.invalidateQueries({ queryKey: squadQueries.invitations(squadId).queryKey }),
   });
 }
 
@@ -52,6 +53,6 @@ export function useInvite(squadId: string) {
         method: "POST",
         body: JSON.stringify(input),
       }),
-    onSuccess: () => qc.invalidateQueries({ queryKey: ["invitations", squadId] }),
+    onSuccess: () => qc.invalidateQueries({ queryKey: squadQueries.invitations(squadId).queryKey }),
   });
 }

@@ -10,7 +10,7 @@ import { FormAlert, FormNotice } from "@/features/platform/components/form-bits"
 import { useHydrated } from "@/features/platform/components/use-hydrated";
 import { useQueryClient } from "@tanstack/react-query";
 import { ApiError, apiFetch } from "@/features/platform/lib/api-client";
-import { useCreateSession, useDeleteSession, useMoveSession, useSessions, useWeeks, type SessionDto } from "../api";
+import { invalidatePlan, useCreateSession, useDeleteSession, useMoveSession, useSessions, useWeeks, type SessionDto } from "../api";
 import { BUDGET_PRESETS, type BudgetPreset } from "../lib/budget";
 import { mondayOf } from "@/features/platform/lib/days";
 import { summariseWeeks, type SeasonWeekInfo, type WeekSession, type WeekSummary } from "../lib/weeks";
@@ -343,7 +343,7 @@ function DuplicateButton({ sessionId, date, onDone, onError, athleteId }: { sess
         setBusy(true);
         try {
           await apiFetch(`/api/sessions/${sessionId}`, { method: "POST", body: JSON.stringify({ date }) });
-          await Promise.all([qc.invalidateQueries({ queryKey: ["sessions", athleteId] }), qc.invalidateQueries({ queryKey: ["weeks", athleteId] })]);
+          await invalidatePlan(qc, athleteId);
           onDone(`Copied to ${date}.`);
         } catch (e) {
           onError(e);

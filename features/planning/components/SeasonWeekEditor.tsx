@@ -7,6 +7,7 @@ import { ApiError, apiFetch } from "@/features/platform/lib/api-client";
 import { BUDGET_PRESETS, type BudgetPreset } from "../lib/budget";
 import { BLOCK_LABELS, type BlockName, type SeasonWeek } from "../lib/season";
 import { SubmitButton } from "@/features/platform/components/SubmitButton";
+import { invalidatePlan } from "../api";
 
 const ROLE_LABELS: Record<SeasonWeek["role"], string> = { loading: "Loading", unloading: "Unloading", taper: "Taper", event: "Event", recovery: "Recovery" };
 
@@ -23,7 +24,7 @@ export function SeasonWeekEditor({ athleteId, seasonId, seasonVersion, week }: {
     if (!(v.volumeHours >= 0 && v.volumeHours <= 40)) return setError("volumeHours", { message: "Give 0 to 40 hours." });
     try {
       await apiFetch(`/api/seasons/${seasonId}/weeks/${week.weekStart}`, { method: "PATCH", body: JSON.stringify({ ...v, version: seasonVersion }) });
-      await Promise.all([qc.invalidateQueries({ queryKey: ["sessions", athleteId] }), qc.invalidateQueries({ queryKey: ["weeks", athleteId] })]);
+      await invalidatePlan(qc, athleteId);
       router.refresh();
     } catch (e) {
       if (e instanceof ApiError && e.status === 409) {

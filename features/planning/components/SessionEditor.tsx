@@ -5,7 +5,7 @@ import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { FieldError, FormAlert } from "@/features/platform/components/form-bits";
 import { ApiError, apiFetch } from "@/features/platform/lib/api-client";
-import type { SessionDto } from "../api";
+import { invalidatePlan, type SessionDto } from "../api";
 import { structureSchema, type Block } from "../lib/session";
 import { formSchema, fromStructure, StructureFields, toStructure, type Values } from "./TemplateBuilder";
 import { SubmitButton } from "@/features/platform/components/SubmitButton";
@@ -31,12 +31,12 @@ export function SessionEditor({ athleteId, session, onDone, onCancel }: { athlet
     }
     try {
       await apiFetch(`/api/sessions/${session.id}`, { method: "PATCH", body: JSON.stringify(body) });
-      await Promise.all([qc.invalidateQueries({ queryKey: ["sessions", athleteId] }), qc.invalidateQueries({ queryKey: ["weeks", athleteId] })]);
+      await invalidatePlan(qc, athleteId);
       onDone(`Saved "${v.name}".`);
     } catch (err) {
       if (err instanceof ApiError && err.status === 409) {
         // Someone else saved first: show their version (the calendar reloads) and keep this form's text for a retry.
-        await Promise.all([qc.invalidateQueries({ queryKey: ["sessions", athleteId] }), qc.invalidateQueries({ queryKey: ["weeks", athleteId] })]);
+        await invalidatePlan(qc, athleteId);
         return setError("root", { message: `${err.message} Close this editor to see it.` });
       }
       setError("root", { message: err instanceof Error ? err.message : "Saving failed." });
