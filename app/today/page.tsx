@@ -10,7 +10,7 @@ import { LOG_STATUS_LABELS } from "@/features/logs/schemas";
 import { sessionCards } from "@/features/logs/server/cards";
 import { localDate } from "@/features/platform/lib/dates";
 import { addDays } from "@/features/platform/lib/days";
-import { nextRetestOf } from "@/features/planning/server/planning";
+import { nextRetestOf } from "@/features/planning/server";
 import { readinessOf } from "@/features/athlete-tests/server/screening";
 import { ReadinessBanner } from "@/features/athlete-tests/components/ReadinessBanner";
 

@@ -12,7 +12,7 @@ import { makeSquad } from "../support/squad";
 import { query, resetDatabase } from "../support/db";
 import * as profileRoute from "@/app/api/athletes/[id]/profile/route";
 import { addDays } from "@/features/platform/lib/days";
-import { weekSummariesJson } from "@/features/planning/server/planning";
+import { weekSummariesJson } from "@/features/planning/server";
 import { actorForUser } from "@/features/access/server/permissions";
 
 type Squad = Awaited<ReturnType<typeof makeSquad>>;

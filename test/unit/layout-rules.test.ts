@@ -27,12 +27,12 @@ describe("the layout rules", () => {
   });
 
   it("another feature's server/ only through its server/index.ts", async () => {
-    expect(await layoutMessages("features/logs/server/probe.ts", 'import { listSessions } from "@/features/planning/server/planning";\nexport const x = listSessions;\n')).toEqual([
+    expect(await layoutMessages("features/logs/server/probe.ts", 'import { listSessions } from "@/features/planning/server/sessions";\nexport const x = listSessions;\n')).toEqual([
       expect.stringMatching(/only through its server\/index\.ts: import "@\/features\/planning\/server"/),
     ]);
     expect(await layoutMessages("features/logs/server/probe.ts", 'import { listSessions } from "@/features/planning/server";\nexport const x = listSessions;\n')).toEqual([]);
     // Inside the feature itself, and the shared layer from anywhere, are fine.
-    expect(await layoutMessages("features/planning/server/probe.ts", 'import { listSessions } from "./planning";\nimport { route } from "@/features/platform/server/http";\nexport const x = [listSessions, route];\n')).toEqual([]);
+    expect(await layoutMessages("feature./sessions/server/probe.ts", 'import { listSessions } from "./planning";\nimport { route } from "@/features/platform/server/http";\nexport const x = [listSessions, route];\n')).toEqual([]);
   });
 
   it("only app/ and scripts/ import app/", async () => {

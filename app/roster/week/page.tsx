@@ -6,7 +6,7 @@ import { BudgetBand } from "@/features/planning/components/BudgetBand";
 import { mondayOf } from "@/features/platform/lib/days";
 import { addDays } from "@/features/platform/lib/days";
 import { isoDate } from "@/features/planning/schemas";
-import { squadWeek } from "@/features/planning/server/planning";
+import { squadWeek } from "@/features/planning/server";
 import { describeMe } from "@/features/squads/server/squads";
 
 export const metadata = { title: "Squad week" };

@@ -1,5 +1,4 @@
 "use client";
-import dynamic from "next/dynamic";
 import dayGridPlugin from "@fullcalendar/daygrid";
 import interactionPlugin, { Draggable } from "@fullcalendar/interaction";
 import FullCalendar from "@fullcalendar/react";
@@ -7,21 +6,14 @@ import type { DatesSetArg, EventClickArg, EventDropArg, EventInput } from "@full
 import type { EventReceiveArg } from "@fullcalendar/interaction";
 import { useEffect, useMemo, useRef, useState } from "react";
 import { FormAlert, FormNotice } from "@/features/platform/components/form-bits";
-import { useHydrated } from "@/features/platform/components/use-hydrated";
-import { useQueryClient } from "@tanstack/react-query";
-import { ApiError, apiFetch } from "@/features/platform/lib/api-client";
-import { invalidatePlan, useCreateSession, useDeleteSession, useMoveSession, useSessions, useWeeks, type SessionDto } from "../api";
-import { BUDGET_PRESETS, type BudgetPreset } from "../lib/budget";
-import { mondayOf } from "@/features/platform/lib/days";
-import { summariseWeeks, type SeasonWeekInfo, type WeekSession, type WeekSummary } from "../lib/weeks";
+import { ApiError } from "@/features/platform/lib/api-client";
 import { addDays } from "@/features/platform/lib/days";
+import { useCreateSession, useDeleteSession, useMoveSession, useSessions, useWeeks, type SessionDto } from "../api";
 import { BudgetBand } from "./BudgetBand";
-import type { Repeat } from "../lib/repeat";
-import { WEEKDAYS } from "../lib/weekdays";
-import { SubmitButton } from "@/features/platform/components/SubmitButton";
-
-// The editor brings the form and validation libraries; it loads when a coach first opens it, not with the calendar.
-const SessionEditor = dynamic(() => import("./SessionEditor").then((m) => m.SessionEditor), { ssr: false, loading: () => <p role="status" className="text-sm text-ink-soft">Opening the editor…</p> });
+import { KeyboardPlanner } from "./KeyboardPlanner";
+import { SelectedSession } from "./SelectedSession";
+import { LOG_MARK, LOG_WORD, zoneText } from "./session-text";
+import { useDragPreview } from "./use-drag-preview";
 
 export interface TrayTemplate {
   id: string;
@@ -31,45 +23,24 @@ export interface TrayTemplate {
   minutesByZone: [number, number, number];
 }
 
-const presetOf = (name: string): BudgetPreset => (Object.entries(BUDGET_PRESETS).find(([, b]) => b.name === name)?.[0] as BudgetPreset) ?? "polarised";
-
-const LOG_MARK = { done: "✓", partial: "◐", skipped: "✗" } as const;
-const LOG_WORD = { done: "done", partial: "partly done", skipped: "skipped" } as const;
-
-function zoneText(m: [number, number, number]) {
-  return `z1 ${Math.round(m[0])} · z2 ${Math.round(m[1])} · z3 ${Math.round(m[2])} min`;
-}
-
 export function PlanCalendar({ athleteId, templates, initialDate, canEdit }: { athleteId: string; templates: TrayTemplate[]; initialDate: string; canEdit: boolean }) {
   const calendarRef = useRef<FullCalendar>(null);
   const trayRef = useRef<HTMLUListElement>(null);
   const [range, setRange] = useState<{ from: string; to: string }>({ from: "", to: "" });
   const [message, setMessage] = useState<{ kind: "ok" | "error"; text: string }>();
-  const [preview, setPreview] = useState<WeekSummary | null>(null);
   const [selected, setSelected] = useState<SessionDto | null>(null);
   const [scope, setScope] = useState<"one" | "series">("one");
-  const [editing, setEditing] = useState(false);
   const sessions = useSessions(athleteId, range.from, range.to);
   const weeks = useWeeks(athleteId, range.from, range.to);
   const move = useMoveSession(athleteId, range.from, range.to);
   const create = useCreateSession(athleteId);
   const remove = useDeleteSession(athleteId);
+  const { preview, previewFor, clearPreview } = useDragPreview(sessions.data, weeks.data, templates);
 
   // A week chosen on the season ribbon arrives as a new initial date while the calendar stays mounted.
   useEffect(() => {
     calendarRef.current?.getApi().gotoDate(initialDate);
   }, [initialDate]);
-
-  // An external drag can end anywhere; the preview ends with it.
-  useEffect(() => {
-    const clear = () => setTimeout(() => setPreview(null), 0);
-    document.addEventListener("pointerup", clear);
-    document.addEventListener("mouseup", clear);
-    return () => {
-      document.removeEventListener("pointerup", clear);
-      document.removeEventListener("mouseup", clear);
-    };
-  }, []);
 
   useEffect(() => {
     if (!trayRef.current || !canEdit) return;
@@ -92,21 +63,6 @@ export function PlanCalendar({ athleteId, templates, initialDate, canEdit }: { a
       })),
     [sessions.data],
   );
-
-  const seasonWeeks: SeasonWeekInfo[] = useMemo(() => (weeks.data ?? []).map((w) => ({ weekStart: w.weekStart, budget: presetOf(w.budget.name), block: w.block ?? "", retest: false })), [weeks.data]);
-
-  function previewFor(date: string, moving: { id?: string; templateId?: string }) {
-    const base: WeekSession[] = (sessions.data ?? []).map((s) => ({ id: s.id, date: s.date, title: s.title, kind: s.kind, minutesByZone: s.minutesByZone }));
-    let next = base;
-    if (moving.id) next = base.map((s) => (s.id === moving.id ? { ...s, date } : s));
-    else if (moving.templateId) {
-      const t = templates.find((x) => x.id === moving.templateId);
-      if (t) next = [...base, { id: "__new", date, title: t.name, kind: "training", minutesByZone: t.minutesByZone }];
-    }
-    const week = mondayOf(date);
-    const [summary] = summariseWeeks({ from: week, to: week, sessions: next, seasonWeeks, today: "0000-00-00" });
-    setPreview(summary ?? null);
-  }
 
   const fail = (e: unknown) =>
     setMessage({
@@ -135,12 +91,12 @@ export function PlanCalendar({ athleteId, templates, initialDate, canEdit }: { a
   };
 
   const onDrop = (info: EventDropArg) => {
-    setPreview(null);
+    clearPreview();
     moveTo(info.event.extendedProps.session as SessionDto, info.event.startStr.slice(0, 10), () => info.revert());
   };
 
   const onReceive = (info: EventReceiveArg) => {
-    setPreview(null);
+    clearPreview();
     const templateId = info.event.extendedProps.templateId as string | undefined;
     const existing = info.event.extendedProps.session as SessionDto | undefined;
     const date = info.event.startStr.slice(0, 10);
@@ -213,13 +169,10 @@ export function PlanCalendar({ athleteId, templates, initialDate, canEdit }: { a
               previewFor(date, s ? { id: s.id } : { templateId: moving?.extendedProps.templateId as string });
               return true;
             }}
-            eventDragStop={() => setPreview(null)}
+            eventDragStop={() => clearPreview()}
             eventDrop={onDrop}
             eventReceive={onReceive}
-            eventClick={(arg: EventClickArg) => {
-              setSelected(arg.event.extendedProps.session as SessionDto);
-              setEditing(false);
-            }}
+            eventClick={(arg: EventClickArg) => setSelected(arg.event.extendedProps.session as SessionDto)}
             eventContent={(arg) => {
               const s = arg.event.extendedProps.session as SessionDto | undefined;
               return (
@@ -236,61 +189,39 @@ export function PlanCalendar({ athleteId, templates, initialDate, canEdit }: { a
           />
         </div>
         {selected ? (
-          <section className="card space-y-2" aria-label="Selected session">
-            <h3 className="font-bold">{selected.title} · {selected.date}</h3>
-            <p className="num text-sm">{Math.round(selected.totalS / 60)} min · {zoneText(selected.minutesByZone)}{selected.rrule ? ` · repeats (${selected.rrule})` : ""}</p>
-            {selected.log ? (
-              <p className="num text-sm" data-testid="selected-log">
-                <span className="font-semibold">{LOG_WORD[selected.log.status][0]!.toUpperCase() + LOG_WORD[selected.log.status].slice(1)}</span>
-                {selected.log.durationMin != null ? ` · ${Math.round(selected.log.durationMin)} min (${Math.round(selected.log.compliance * 100)} % of plan)` : ""}
-                {selected.log.rpe != null ? ` · RPE ${selected.log.rpe}` : ""}
-                {selected.log.measuredMinByZone ? ` · measured ${zoneText(selected.log.measuredMinByZone)}` : ""}
-              </p>
-            ) : <p className="text-sm text-ink-soft">Not logged yet.</p>}
-            {canEdit && editing ? (
-              <SessionEditor
-                athleteId={athleteId}
-                session={selected}
-                onCancel={() => setEditing(false)}
-                onDone={(text) => {
-                  setEditing(false);
-                  setSelected(null);
-                  setMessage({ kind: "ok", text });
-                }}
-              />
-            ) : null}
-            {canEdit && !editing ? (
-              <div className="flex flex-wrap gap-2 text-sm">
-                <button type="button" className="btn-quiet py-1" onClick={() => setEditing(true)}>Edit steps and notes</button>
-                <MoveToDay
-                  key={selected.id}
-                  session={selected}
-                  busy={move.isPending}
-                  onMove={(date) =>
-                    move.mutate(
-                      { id: selected.id, date, scope: selected.seriesId ? scope : "one", version: selected.version },
-                      {
-                        onError: (e) => {
-                          fail(e);
-                          // Its details are out of date: close them; the reloaded calendar shows the session as it is.
-                          if (e instanceof ApiError && e.status === 409) setSelected(null);
-                        },
-                        onSuccess: () => {
-                          setSelected(null);
-                          setMessage({ kind: "ok", text: `Moved "${selected.title}" to ${date}.` });
-                          calendarRef.current?.getApi().gotoDate(date);
-                        },
-                      },
-                    )
-                  }
-                />
-                <DuplicateButton sessionId={selected.id} date={addDays(selected.date, 7)} onDone={(t) => setMessage({ kind: "ok", text: t })} onError={fail} athleteId={athleteId} />
-                <button type="button" className="btn-quiet py-1" onClick={() => remove.mutate({ id: selected.id, scope: "one" }, { onSuccess: () => { setSelected(null); setMessage({ kind: "ok", text: "Session deleted." }); }, onError: fail })}>Delete</button>
-                {selected.seriesId ? <button type="button" className="btn-quiet py-1" onClick={() => remove.mutate({ id: selected.id, scope: "series" }, { onSuccess: () => { setSelected(null); setMessage({ kind: "ok", text: "Series deleted from this occurrence on." }); }, onError: fail })}>Delete the series from here</button> : null}
-                <button type="button" className="text-sm underline" onClick={() => setSelected(null)}>Close</button>
-              </div>
-            ) : null}
-          </section>
+          <SelectedSession
+            key={selected.id}
+            athleteId={athleteId}
+            session={selected}
+            canEdit={canEdit}
+            busy={move.isPending}
+            onClose={() => setSelected(null)}
+            onDone={(text) => setMessage({ kind: "ok", text })}
+            onError={fail}
+            onDelete={(which) =>
+              remove.mutate(
+                { id: selected.id, scope: which },
+                { onSuccess: () => { setSelected(null); setMessage({ kind: "ok", text: which === "series" ? "Series deleted from this occurrence on." : "Session deleted." }); }, onError: fail },
+              )
+            }
+            onMove={(date) =>
+              move.mutate(
+                { id: selected.id, date, scope: selected.seriesId ? scope : "one", version: selected.version },
+                {
+                  onError: (e) => {
+                    fail(e);
+                    // Its details are out of date: close them; the reloaded calendar shows the session as it is.
+                    if (e instanceof ApiError && e.status === 409) setSelected(null);
+                  },
+                  onSuccess: () => {
+                    setSelected(null);
+                    setMessage({ kind: "ok", text: `Moved "${selected.title}" to ${date}.` });
+                    calendarRef.current?.getApi().gotoDate(date);
+                  },
+                },
+              )
+            }
+          />
         ) : null}
       </div>
       {canEdit ? (
@@ -310,126 +241,5 @@ export function PlanCalendar({ athleteId, templates, initialDate, canEdit }: { a
         </aside>
       ) : null}
     </div>
-  );
-}
-
-/** Moving a session without dragging: choose the new day. */
-function MoveToDay({ session, busy, onMove }: { session: SessionDto; busy: boolean; onMove: (date: string) => void }) {
-  const [date, setDate] = useState(session.date);
-  return (
-    <form
-      className="flex items-center gap-1"
-      onSubmit={(e) => {
-        e.preventDefault();
-        if (date && date !== session.date) onMove(date);
-      }}
-    >
-      <label htmlFor={`move-${session.id}`} className="sr-only">New day for {session.title}</label>
-      <input id={`move-${session.id}`} type="date" className="field-input mt-0 w-40 py-1 num" value={date} onChange={(e) => setDate(e.target.value)} />
-      <SubmitButton className="btn-quiet py-1" disabled={busy || !date || date === session.date}>Move to this day</SubmitButton>
-    </form>
-  );
-}
-
-function DuplicateButton({ sessionId, date, onDone, onError, athleteId }: { sessionId: string; date: string; onDone: (t: string) => void; onError: (e: unknown) => void; athleteId: string }) {
-  const qc = useQueryClient();
-  const [busy, setBusy] = useState(false);
-  return (
-    <button
-      type="button"
-      className="btn-quiet py-1"
-      disabled={busy}
-      onClick={async () => {
-        setBusy(true);
-        try {
-          await apiFetch(`/api/sessions/${sessionId}`, { method: "POST", body: JSON.stringify({ date }) });
-          await invalidatePlan(qc, athleteId);
-          onDone(`Copied to ${date}.`);
-        } catch (e) {
-          onError(e);
-        } finally {
-          setBusy(false);
-        }
-      }}
-    >
-      Copy to the next week
-    </button>
-  );
-}
-
-const WEEKDAY_LABELS: Record<(typeof WEEKDAYS)[number], string> = { MO: "Mon", TU: "Tue", WE: "Wed", TH: "Thu", FR: "Fri", SA: "Sat", SU: "Sun" };
-
-/** Planning without a pointer: choose a template and a day, and optionally repeat it weekly (an RRULE). */
-function KeyboardPlanner({ templates, defaultDate, onPlan }: { templates: TrayTemplate[]; defaultDate: string; onPlan: (templateId: string, date: string, repeat?: Repeat) => void }) {
-  const [templateId, setTemplateId] = useState("");
-  const [date, setDate] = useState(defaultDate);
-  const [repeats, setRepeats] = useState(false);
-  const [days, setDays] = useState<(typeof WEEKDAYS)[number][]>([]);
-  const [endBy, setEndBy] = useState<"count" | "until">("count");
-  const [count, setCount] = useState(8);
-  const [until, setUntil] = useState("");
-  const [problem, setProblem] = useState("");
-  const hydrated = useHydrated();
-  if (!templates.length) return null;
-  return (
-    <form
-      className="space-y-2 rounded-md border border-rule p-2 text-sm"
-      onSubmit={(e) => {
-        e.preventDefault();
-        setProblem("");
-        if (!templateId || !date) return;
-        if (!repeats) return onPlan(templateId, date);
-        if (!days.length) return setProblem("Choose at least one weekday to repeat on.");
-        if (endBy === "until" && !until) return setProblem("Give the last date of the repeat, or a number of sessions.");
-        if (endBy === "count" && !(count >= 1 && count <= 104)) return setProblem("Repeat between 1 and 104 times.");
-        onPlan(templateId, date, endBy === "count" ? { byWeekday: days, count } : { byWeekday: days, until });
-      }}
-    >
-      <p className="font-semibold">Plan without dragging</p>
-      <fieldset disabled={!hydrated} className="space-y-2">
-        <div>
-          <label htmlFor="kp-template" className="field-label">Template</label>
-          <select id="kp-template" className="field-input" value={templateId} onChange={(e) => setTemplateId(e.target.value)}>
-            <option value="">Choose…</option>
-            {templates.map((t) => <option key={t.id} value={t.id}>{t.name}</option>)}
-          </select>
-        </div>
-        <div>
-          <label htmlFor="kp-day" className="field-label">Day</label>
-          <input id="kp-day" type="date" className="field-input num" value={date} onChange={(e) => setDate(e.target.value)} />
-        </div>
-        <label className="flex items-center gap-2">
-          <input type="checkbox" checked={repeats} onChange={(e) => setRepeats(e.target.checked)} /> Repeat weekly
-        </label>
-        {repeats ? (
-          <div className="space-y-2 border-l-2 border-rule pl-2">
-            <fieldset>
-              <legend className="field-label">On</legend>
-              <div className="flex flex-wrap gap-x-2">
-                {WEEKDAYS.map((d) => (
-                  <label key={d} className="flex items-center gap-1">
-                    <input type="checkbox" checked={days.includes(d)} onChange={(e) => setDays((x) => (e.target.checked ? [...x, d] : x.filter((y) => y !== d)))} />
-                    {WEEKDAY_LABELS[d]}
-                  </label>
-                ))}
-              </div>
-            </fieldset>
-            <fieldset className="space-y-1">
-              <legend className="field-label">Ends</legend>
-              <label className="flex items-center gap-1">
-                <input type="radio" checked={endBy === "count"} onChange={() => setEndBy("count")} /> after
-                <input aria-label="Number of sessions" type="number" min={1} max={104} className="field-input mt-0 w-16 num" value={count} onChange={(e) => setCount(Number(e.target.value))} /> sessions
-              </label>
-              <label className="flex items-center gap-1">
-                <input type="radio" checked={endBy === "until"} onChange={() => setEndBy("until")} /> on
-                <input aria-label="Last date" type="date" className="field-input mt-0 num" value={until} onChange={(e) => setUntil(e.target.value)} />
-              </label>
-            </fieldset>
-          </div>
-        ) : null}
-        {problem ? <p role="alert" className="text-alert">{problem}</p> : null}
-        <SubmitButton className="btn w-full" disabled={!templateId || !date}>{repeats ? "Plan the series" : "Plan it"}</SubmitButton>
-      </fieldset>
-    </form>
   );
 }

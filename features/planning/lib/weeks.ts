@@ -50,7 +50,8 @@ export interface WeekSummary {
   weekStart: string;
   plannedMinByZone: Shares;
   doneMinByZone: Shares;
-  budget: { name: string; shares: Shares; tolerance: number };
+  /** The week's budget: its preset key (what the season stores), display name, zone shares and tolerance. */
+  budget: { key: BudgetPreset; name: string; shares: Shares; tolerance: number };
   /** The week's role in its season, when it has one; taper and event weeks are judged on volume, not zone shares. */
   role: WeekRole | null;
   /** The season's volume target for the week, in minutes, when it has one. */
@@ -113,7 +114,9 @@ export interface SummariseInput {
   defaultBudget?: BudgetPreset;
   /** Dates of the athlete's tests, to tell whether a past retest was done. */
   testDates?: string[];
-  today?: string;
+  /** The athlete's own day (YYYY-MM-DD): which weeks have begun, which retests are overdue, which dates a fix may use.
+   * Required: the engine never reads a clock. */
+  today: string;
   /** What was done (logged minutes per zone by day), shown beside the plan; it does not change the budget check. */
   done?: { date: string; minutesByZone: Shares }[];
   /** Propose a fix for over-budget weeks (default); the roster only needs the state. */
@@ -122,7 +125,7 @@ export interface SummariseInput {
 
 const seasonWeekIndex = new WeakMap<SeasonWeekInfo[], Map<string, SeasonWeekInfo>>();
 
-function weekBudget(weekStart: string, input: SummariseInput): { budget: Budget; block: string | null; retest: boolean; role: WeekRole | null; volumeHours: number | null } {
+function weekBudget(weekStart: string, input: SummariseInput): { preset: BudgetPreset; budget: Budget; block: string | null; retest: boolean; role: WeekRole | null; volumeHours: number | null } {
   let byStart = input.seasonWeeks ? seasonWeekIndex.get(input.seasonWeeks) : undefined;
   if (input.seasonWeeks && !byStart) {
     byStart = new Map(input.seasonWeeks.map((w) => [w.weekStart, w]));
@@ -130,20 +133,20 @@ function weekBudget(weekStart: string, input: SummariseInput): { budget: Budget;
   }
   const sw = byStart?.get(weekStart);
   const preset = sw?.budget ?? input.defaultBudget ?? "polarised";
-  return { budget: BUDGET_PRESETS[preset], block: sw?.block ?? null, retest: sw?.retest ?? false, role: sw?.role ?? null, volumeHours: sw?.volumeHours ?? null };
+  return { preset, budget: BUDGET_PRESETS[preset], block: sw?.block ?? null, retest: sw?.retest ?? false, role: sw?.role ?? null, volumeHours: sw?.volumeHours ?? null };
 }
 
 function check(weekStart: string, weekOf: WeekOf, input: SummariseInput, previousTotals: number[], retestOverdue: boolean) {
   const inWeek = weekOf(weekStart);
   const planned = minutesOf(inWeek);
-  const { budget, block, role, volumeHours } = weekBudget(weekStart, input);
+  const { preset, budget, block, role, volumeHours } = weekBudget(weekStart, input);
   // A week that holds nothing but its retest is not planned yet: the test alone is no mix of training to judge (common
   // practice: the budget governs training; the test's minutes count once training is planned around it).
   const judged: Shares = inWeek.some((s) => s.kind !== "retest") ? planned : [0, 0, 0];
   // The easy-day rule applies only to weeks with training on most days; a week of two sessions has easy days by itself.
   const checked = checkWeek({ minutesByZone: judged, days: daysOf(weekStart, inWeek), previousWeeksMinutes: previousTotals, budget, retestOverdue });
   const result = role ? judgeByRole(checked, role, judged, volumeHours) : checked;
-  return { inWeek, planned, budget, block, role, volumeHours, result };
+  return { inWeek, planned, preset, budget, block, role, volumeHours, result };
 }
 
 /** Role rules (see ROLE_VOLUME_TOLERANCE): taper and event weeks drop the zone-share checks; the reduced weeks get a volume check. */
@@ -185,7 +188,7 @@ function judgeByRole(checked: ReturnType<typeof checkWeek>, role: WeekRole, minu
 
 /** A retest week in the past without a test on or after its Monday is overdue. */
 function isRetestOverdue(weekStart: string, input: SummariseInput): boolean {
-  const today = input.today ?? new Date().toISOString().slice(0, 10);
+  const today = input.today;
   const retestWeeks = (input.seasonWeeks ?? []).filter((w) => w.retest && addDays(w.weekStart, 7) <= today && w.weekStart <= weekStart);
   const last = retestWeeks.at(-1);
   if (!last) return false;
@@ -200,17 +203,17 @@ export function summariseWeeks(input: SummariseInput): WeekSummary[] {
   for (let w = first; w <= last; w = addDays(w, 7)) {
     const next = addDays(w, 7);
     const previous = previousTotals(w, weekOf);
-    const overdue = isRetestOverdue(w, input) && w <= (input.today ?? new Date().toISOString().slice(0, 10));
-    const { inWeek, planned, budget, block, role, volumeHours, result } = check(w, weekOf, input, previous, overdue);
+    const overdue = isRetestOverdue(w, input) && w <= input.today;
+    const { inWeek, planned, preset, budget, block, role, volumeHours, result } = check(w, weekOf, input, previous, overdue);
     const budgetBreaches = result.breaches.filter((b) => b.code !== "retest_overdue");
     // A week not yet begun and planned to less than half its target is still being filled: in progress, not red.
     const plannedTotal = planned[0] + planned[1] + planned[2];
-    const inProgress = volumeHours !== null && volumeHours > 0 && w > (input.today ?? new Date().toISOString().slice(0, 10)) && plannedTotal < IN_PROGRESS_SHARE * volumeHours * 60;
+    const inProgress = volumeHours !== null && volumeHours > 0 && w > input.today && plannedTotal < IN_PROGRESS_SHARE * volumeHours * 60;
     out.push({
       weekStart: w,
       plannedMinByZone: planned.map((v) => Math.round(v * 10) / 10) as Shares,
       doneMinByZone: minutesOf((input.done ?? []).filter((d) => d.date >= w && d.date < next).map((d) => ({ id: "", date: d.date, title: "", kind: "", minutesByZone: d.minutesByZone }))).map((v) => Math.round(v * 10) / 10) as Shares,
-      budget: { name: budget.name, shares: [...budget.shares] as Shares, tolerance: budget.tolerance },
+      budget: { key: preset, name: budget.name, shares: [...budget.shares] as Shares, tolerance: budget.tolerance },
       role,
       targetMin: volumeHours !== null ? Math.round(volumeHours * 60) : null,
       inProgress,
@@ -249,7 +252,7 @@ export function proposeFix(weekStart: string, inWeek: WeekSession[], input: Summ
     if (breachesOf(weekStart, without).length > 0) continue;
     for (const shift of [7, -7, 14]) {
       const toDate = addDays(s.date, shift);
-      if (toDate < (input.today ?? "0000-00-00")) continue;
+      if (toDate < input.today) continue;
       const targetWeek = mondayOf(toDate);
       // Never into a taper, race, unloading or recovery week, nor a week with a retest.
       const target = weekBudget(targetWeek, input);

@@ -1,2 +1,4 @@
 /** What other features may use of planning/server (the layout rule: another feature's server/ only through its index). */
-export * from "./planning";
+export * from "./sessions";
+export * from "./seasons";
+export * from "./weeks";

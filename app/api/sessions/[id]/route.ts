@@ -2,7 +2,7 @@ import { z } from "zod";
 import { requireActor } from "@/features/access/server/permissions";
 import { json, parseParams, parseQuery, readJson, route } from "@/features/platform/server/http";
 import { isoDate, patchSessionSchema } from "@/features/planning/schemas";
-import { deleteSession, duplicateSession, updateSession } from "@/features/planning/server/planning";
+import { deleteSession, duplicateSession, updateSession } from "@/features/planning/server";
 import { idParam } from "@/features/platform/lib/params";
 
 export const PATCH = route<RouteContext<"/api/sessions/[id]">>(async (req, ctx) => {

@@ -11,7 +11,7 @@ import { SeasonRibbon } from "@/features/planning/components/SeasonRibbon";
 import { SeasonWeekEditor } from "@/features/planning/components/SeasonWeekEditor";
 import { type SeasonWeek } from "@/features/planning/lib/season";
 import { mondayOf } from "@/features/platform/lib/days";
-import { listSeasons, weekSummaries } from "@/features/planning/server/planning";
+import { listSeasons, weekSummaries } from "@/features/planning/server";
 import { listTemplates } from "@/features/planning/server/templates";
 import { isoDate } from "@/features/planning/schemas";
 import { readinessOf } from "@/features/athlete-tests/server/screening";

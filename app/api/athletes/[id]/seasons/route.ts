@@ -1,7 +1,7 @@
 import { requireActor } from "@/features/access/server/permissions";
 import { json, parseParams, readJson, route } from "@/features/platform/server/http";
 import { seasonSchema } from "@/features/planning/schemas";
-import { createSeason, listSeasons } from "@/features/planning/server/planning";
+import { createSeason, listSeasons } from "@/features/planning/server";
 import { idParam } from "@/features/platform/lib/params";
 
 export const GET = route<RouteContext<"/api/athletes/[id]/seasons">>(async (req, ctx) => {

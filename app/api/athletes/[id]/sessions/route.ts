@@ -1,7 +1,7 @@
 import { requireActor } from "@/features/access/server/permissions";
 import { json, parseParams, parseQuery, readJson, route } from "@/features/platform/server/http";
 import { createSessionSchema, rangeQuery } from "@/features/planning/schemas";
-import { createSession, listSessions } from "@/features/planning/server/planning";
+import { createSession, listSessions } from "@/features/planning/server";
 import { idParam } from "@/features/platform/lib/params";
 
 export const GET = route<RouteContext<"/api/athletes/[id]/sessions">>(async (req, ctx) => {

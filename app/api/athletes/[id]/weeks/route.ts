@@ -1,7 +1,7 @@
 import { requireActor } from "@/features/access/server/permissions";
 import { parseParams, parseQuery, route } from "@/features/platform/server/http";
 import { rangeQuery } from "@/features/planning/schemas";
-import { weekSummariesJson } from "@/features/planning/server/planning";
+import { weekSummariesJson } from "@/features/planning/server";
 import { idParam } from "@/features/platform/lib/params";
 
 export const GET = route<RouteContext<"/api/athletes/[id]/weeks">>(async (req, ctx) => {

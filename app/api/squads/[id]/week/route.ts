@@ -2,7 +2,7 @@ import { z } from "zod";
 import { requireActor } from "@/features/access/server/permissions";
 import { json, parseParams, parseQuery, route } from "@/features/platform/server/http";
 import { isoDate } from "@/features/planning/schemas";
-import { squadWeek } from "@/features/planning/server/planning";
+import { squadWeek } from "@/features/planning/server";
 import { idParam } from "@/features/platform/lib/params";
 
 /** GET /api/squads/:id/week?week=YYYY-MM-DD: every athlete's sessions and budget state in that ISO week. */
