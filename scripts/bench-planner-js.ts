@@ -6,7 +6,7 @@
 import zlib from "node:zlib";
 import postgres from "postgres";
 import { applyMigrations } from "../db/migrate";
-import { seedDemoIfEmpty } from "../db/seed";
+import { seedDemoIfEmpty } from "./demo";
 import { startAppServer, type AppServer } from "./app-server";
 import { ensureBuild } from "./build";
 import { createDatabase, freePort, startThrowawayCluster } from "./postgres";

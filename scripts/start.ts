@@ -7,7 +7,7 @@ import fs from "node:fs";
 import net from "node:net";
 import path from "node:path";
 import { applyMigrations } from "../db/migrate";
-import { DEMO_ADMIN, DEMO_PASSWORD, DEMO_PEOPLE, seedDemoIfEmpty } from "../db/seed";
+import { DEMO_ADMIN, DEMO_PASSWORD, DEMO_PEOPLE, seedDemoIfEmpty } from "./demo";
 import { startAppServer } from "./app-server";
 import { ensureBuild } from "./build";
 import { spawn } from "node:child_process";

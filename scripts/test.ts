@@ -6,7 +6,7 @@ import { spawn, spawnSync } from "node:child_process";
 import fs from "node:fs";
 import path from "node:path";
 import { applyMigrations } from "../db/migrate";
-import { seedDemoIfEmpty } from "../db/seed";
+import { seedDemoIfEmpty } from "./demo";
 import { startAppServer, type AppServer } from "./app-server";
 import { ensureBuild } from "./build";
 import { ROOT } from "./env";
