@@ -1,6 +1,7 @@
 import fs from "node:fs";
 import nextCoreWebVitals from "eslint-config-next/core-web-vitals";
 import nextTypescript from "eslint-config-next/typescript";
+import prettier from "eslint-config-prettier";
 
 // The layout rules (DEVELOPERS.md → Layout), enforced: `npm run lint` fails on an import that breaks one, and
 // test/unit/layout-rules.test.ts proves each rule fires. features/platform is the shared layer, open to everyone.
@@ -47,6 +48,8 @@ const config = [
   { files: ["emails/**"], rules: { "@next/next/no-head-element": "off" } },
   { files: ["app/**", "features/**", "db/**", "emails/**", "scripts/**"], rules: { "import/no-restricted-paths": ["error", { zones: layoutZones }] } },
   { files: ["app/**", "features/**", "db/**", "emails/**", "proxy.ts"], ignores: ["features/platform/server/config.ts", "**/*.test.ts"], rules: { "no-restricted-syntax": envRule } },
+  // Formatting is Prettier's (npm run format); ESLint's own formatting rules are off.
+  prettier,
   { ignores: ["node_modules/**", ".next/**", ".next-*/**", ".data/**", "db/migrations/**", "test/.artifacts/**", "next-env.d.ts"] },
 ];
 
