@@ -5,11 +5,23 @@ import prettier from "eslint-config-prettier";
 
 // The layout rules (DEVELOPERS.md → Layout), enforced: `npm run lint` fails on an import that breaks one, and
 // test/unit/layout-rules.test.ts proves each rule fires. features/platform is the shared layer, open to everyone.
-const features = fs.readdirSync("features", { withFileTypes: true }).filter((d) => d.isDirectory() && d.name !== "platform").map((d) => d.name);
+const features = fs
+  .readdirSync("features", { withFileTypes: true })
+  .filter((d) => d.isDirectory() && d.name !== "platform")
+  .map((d) => d.name);
 const layoutZones = [
   {
     target: "./features/*/lib/**",
-    from: ["./features/*/server/**", "./features/*/components/**", "./features/*/*.ts", "./features/*/*.tsx", "./app/**", "./db/**", "./emails/**", "./scripts/**"],
+    from: [
+      "./features/*/server/**",
+      "./features/*/components/**",
+      "./features/*/*.ts",
+      "./features/*/*.tsx",
+      "./app/**",
+      "./db/**",
+      "./emails/**",
+      "./scripts/**",
+    ],
     message: "lib/ imports only lib/ folders and the shared layer (features/platform/lib).",
   },
   {
@@ -36,8 +48,15 @@ const layoutZones = [
 const ENV_MESSAGE = "Read settings through config() from @/features/platform/server/config, not process.env.";
 const envRule = [
   "error",
-  { selector: "MemberExpression[object.type='MemberExpression'][object.object.name='process'][object.property.name='env'][property.name!='NODE_ENV']", message: ENV_MESSAGE },
-  { selector: "VariableDeclarator > MemberExpression.init[object.name='process'][property.name='env']", message: ENV_MESSAGE },
+  {
+    selector:
+      "MemberExpression[object.type='MemberExpression'][object.object.name='process'][object.property.name='env'][property.name!='NODE_ENV']",
+    message: ENV_MESSAGE,
+  },
+  {
+    selector: "VariableDeclarator > MemberExpression.init[object.name='process'][property.name='env']",
+    message: ENV_MESSAGE,
+  },
   { selector: "SpreadElement > MemberExpression[object.name='process'][property.name='env']", message: ENV_MESSAGE },
 ];
 
@@ -46,11 +65,28 @@ const config = [
   ...nextTypescript,
   // E-mails are rendered to static HTML, not Next.js pages.
   { files: ["emails/**"], rules: { "@next/next/no-head-element": "off" } },
-  { files: ["app/**", "features/**", "db/**", "emails/**", "scripts/**"], rules: { "import/no-restricted-paths": ["error", { zones: layoutZones }] } },
-  { files: ["app/**", "features/**", "db/**", "emails/**", "proxy.ts"], ignores: ["features/platform/server/config.ts", "**/*.test.ts"], rules: { "no-restricted-syntax": envRule } },
+  {
+    files: ["app/**", "features/**", "db/**", "emails/**", "scripts/**"],
+    rules: { "import/no-restricted-paths": ["error", { zones: layoutZones }] },
+  },
+  {
+    files: ["app/**", "features/**", "db/**", "emails/**", "proxy.ts"],
+    ignores: ["features/platform/server/config.ts", "**/*.test.ts"],
+    rules: { "no-restricted-syntax": envRule },
+  },
   // Formatting is Prettier's (npm run format); ESLint's own formatting rules are off.
   prettier,
-  { ignores: ["node_modules/**", ".next/**", ".next-*/**", ".data/**", "db/migrations/**", "test/.artifacts/**", "next-env.d.ts"] },
+  {
+    ignores: [
+      "node_modules/**",
+      ".next/**",
+      ".next-*/**",
+      ".data/**",
+      "db/migrations/**",
+      "test/.artifacts/**",
+      "next-env.d.ts",
+    ],
+  },
 ];
 
 export default config;

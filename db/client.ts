@@ -9,7 +9,8 @@ const globalForDb = globalThis as unknown as { tidemarkSql?: postgres.Sql; tidem
 
 function databaseUrl(): string {
   const url = config().database.url;
-  if (!url) throw new Error("DATABASE_URL is not set. Start Tidemark with `npm start` (it starts PostgreSQL and sets it).");
+  if (!url)
+    throw new Error("DATABASE_URL is not set. Start Tidemark with `npm start` (it starts PostgreSQL and sets it).");
   return url;
 }
 

@@ -186,7 +186,10 @@ export const athleteProfile = pgTable(
     bodyMassKg: real("body_mass_kg"),
     restingHrBpm: integer("resting_hr_bpm"),
     maxHrBpm: integer("max_hr_bpm"),
-    sports: text("sports").array().notNull().default(sql`'{}'::text[]`),
+    sports: text("sports")
+      .array()
+      .notNull()
+      .default(sql`'{}'::text[]`),
     timeZone: text("time_zone").notNull().default("UTC"),
     reminderTiming: reminderTiming("reminder_timing").notNull().default("evening_before"),
     /** Local time of day for reminders, "HH:MM". */
@@ -197,7 +200,10 @@ export const athleteProfile = pgTable(
   },
   (t) => [
     check("athlete_profile_mass", sql`${t.bodyMassKg} is null or (${t.bodyMassKg} > 20 and ${t.bodyMassKg} < 300)`),
-    check("athlete_profile_hr", sql`${t.restingHrBpm} is null or ${t.maxHrBpm} is null or ${t.restingHrBpm} < ${t.maxHrBpm}`),
+    check(
+      "athlete_profile_hr",
+      sql`${t.restingHrBpm} is null or ${t.maxHrBpm} is null or ${t.restingHrBpm} < ${t.maxHrBpm}`,
+    ),
   ],
 );
 
@@ -359,7 +365,10 @@ export const zoneSet = pgTable(
     createdAt: createdAt(),
     updatedAt: updatedAt(),
   },
-  (t) => [index("zone_set_athlete_idx").on(t.athleteId, t.sport, t.effectiveFrom), uniqueIndex("zone_set_test_idx").on(t.testId)],
+  (t) => [
+    index("zone_set_athlete_idx").on(t.athleteId, t.sport, t.effectiveFrom),
+    uniqueIndex("zone_set_test_idx").on(t.testId),
+  ],
 );
 
 // ---------------------------------------------------------------------------------------------------------------------
@@ -448,7 +457,10 @@ export const plannedSession = pgTable(
     createdAt: createdAt(),
     updatedAt: updatedAt(),
   },
-  (t) => [index("planned_session_athlete_date_idx").on(t.athleteId, t.date), index("planned_session_series_idx").on(t.seriesId)],
+  (t) => [
+    index("planned_session_athlete_date_idx").on(t.athleteId, t.date),
+    index("planned_session_series_idx").on(t.seriesId),
+  ],
 );
 
 // ---------------------------------------------------------------------------------------------------------------------
@@ -549,4 +561,3 @@ export const rosterCache = pgTable("roster_cache", {
   row: jsonb("row").$type<Record<string, unknown>>(),
   computedAt: timestamp("computed_at", { withTimezone: true }),
 });
-

@@ -19,9 +19,13 @@ export interface CoachDigestProps {
   settingsUrl: string;
 }
 
-export function coachDigestSubject(p: Pick<CoachDigestProps, "squad" | "overBudget" | "overdueRetests" | "loadFlags" | "missed">): string {
+export function coachDigestSubject(
+  p: Pick<CoachDigestProps, "squad" | "overBudget" | "overdueRetests" | "loadFlags" | "missed">,
+): string {
   const n = p.overBudget.length + p.overdueRetests.length + p.loadFlags.length + p.missed.length;
-  return n ? `${p.squad}: ${n} thing${n === 1 ? "" : "s"} to look at this week` : `${p.squad}: a quiet week, nothing flagged`;
+  return n
+    ? `${p.squad}: ${n} thing${n === 1 ? "" : "s"} to look at this week`
+    : `${p.squad}: a quiet week, nothing flagged`;
 }
 
 const SECTIONS = [
@@ -33,21 +37,36 @@ const SECTIONS = [
 
 export function CoachDigestEmail(p: CoachDigestProps) {
   return (
-    <EmailLayout title={coachDigestSubject(p)} footer={<UnsubscribeFooter what="the weekly coach digest" url={p.unsubscribeUrl} settingsUrl={p.settingsUrl} />}>
+    <EmailLayout
+      title={coachDigestSubject(p)}
+      footer={<UnsubscribeFooter what="the weekly coach digest" url={p.unsubscribeUrl} settingsUrl={p.settingsUrl} />}
+    >
       <p>Hello {p.name},</p>
-      <p>What needs a look in <strong>{p.squad}</strong>, week of {p.weekLabel}:</p>
+      <p>
+        What needs a look in <strong>{p.squad}</strong>, week of {p.weekLabel}:
+      </p>
       {SECTIONS.map(([key, title]) => (
         <div key={key}>
-          <p style={{ fontWeight: 700, marginBottom: 4 }}>{title} ({p[key].length})</p>
+          <p style={{ fontWeight: 700, marginBottom: 4 }}>
+            {title} ({p[key].length})
+          </p>
           {p[key].length ? (
-            <ul style={{ marginTop: 0, paddingLeft: 20 }}>{p[key].map((l, i) => <li key={i}><strong>{l.athlete}</strong>: {l.detail}</li>)}</ul>
+            <ul style={{ marginTop: 0, paddingLeft: 20 }}>
+              {p[key].map((l, i) => (
+                <li key={i}>
+                  <strong>{l.athlete}</strong>: {l.detail}
+                </li>
+              ))}
+            </ul>
           ) : (
             <p style={{ marginTop: 0, color: "#5b6770" }}>None.</p>
           )}
         </div>
       ))}
       <p>
-        <a href={p.rosterUrl} style={{ color: "#0f5e63", fontWeight: 700 }}>Open the roster</a>
+        <a href={p.rosterUrl} style={{ color: "#0f5e63", fontWeight: 700 }}>
+          Open the roster
+        </a>
       </p>
     </EmailLayout>
   );
@@ -58,7 +77,11 @@ export function coachDigestText(p: CoachDigestProps): string {
     `Hello ${p.name},`,
     "",
     `What needs a look in ${p.squad}, week of ${p.weekLabel}:`,
-    ...SECTIONS.flatMap(([key, title]) => ["", `${title} (${p[key].length}):`, ...(p[key].length ? p[key].map((l) => `- ${l.athlete}: ${l.detail}`) : ["None."])]),
+    ...SECTIONS.flatMap(([key, title]) => [
+      "",
+      `${title} (${p[key].length}):`,
+      ...(p[key].length ? p[key].map((l) => `- ${l.athlete}: ${l.detail}`) : ["None."]),
+    ]),
     "",
     `Open the roster: ${p.rosterUrl}`,
     "",

@@ -18,8 +18,8 @@ export function EmailVerificationEmail(p: EmailVerificationProps) {
         </a>
       </p>
       <p style={{ fontSize: 13, color: "#5b6770" }}>
-        The link expires in 24 hours. If it was not you, ignore this message: the account stays locked until the address is
-        confirmed.
+        The link expires in 24 hours. If it was not you, ignore this message: the account stays locked until the address
+        is confirmed.
       </p>
     </EmailLayout>
   );
@@ -43,8 +43,8 @@ export function ExistingAccountEmail(p: { name: string }) {
     <EmailLayout title={existingAccountSubject}>
       <p>Hello {p.name},</p>
       <p>
-        Someone tried to open a new Tidemark account with this address. You already have one, so nothing was created. If it
-        was you, sign in, or choose a new password from the sign-in page. If it was not you, you need do nothing.
+        Someone tried to open a new Tidemark account with this address. You already have one, so nothing was created. If
+        it was you, sign in, or choose a new password from the sign-in page. If it was not you, you need do nothing.
       </p>
     </EmailLayout>
   );
@@ -63,10 +63,13 @@ export function SignInPausedEmail(p: { name: string; failures: number; minutes: 
     <EmailLayout title="Sign-in to your Tidemark account is paused">
       <p>Hello {p.name},</p>
       <p>
-        Someone typed a wrong password for your Tidemark account {p.failures} times in a row, so sign-in to it is paused for{" "}
-        {p.minutes} minutes.
+        Someone typed a wrong password for your Tidemark account {p.failures} times in a row, so sign-in to it is paused
+        for {p.minutes} minutes.
       </p>
-      <p>If it was you, wait and try again, or choose a new password with &ldquo;Forgot your password?&rdquo; on the sign-in page.</p>
+      <p>
+        If it was you, wait and try again, or choose a new password with &ldquo;Forgot your password?&rdquo; on the
+        sign-in page.
+      </p>
       <p style={{ fontSize: 13, color: "#5b6770" }}>
         If it was not you, your account is safe as long as nobody knows the password; choosing a new one is a good idea.
       </p>

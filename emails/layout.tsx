@@ -13,8 +13,12 @@ export function EmailLayout({ title, children, footer }: { title: string; childr
           <tbody>
             <tr>
               <td style={{ padding: "24px" }}>
-                <p style={{ margin: "0 0 16px", fontWeight: 700, color: "#0f5e63", letterSpacing: "0.04em" }}>Tidemark</p>
-                <div style={{ background: "#ffffff", borderRadius: 8, padding: "24px", lineHeight: 1.6 }}>{children}</div>
+                <p style={{ margin: "0 0 16px", fontWeight: 700, color: "#0f5e63", letterSpacing: "0.04em" }}>
+                  Tidemark
+                </p>
+                <div style={{ background: "#ffffff", borderRadius: 8, padding: "24px", lineHeight: 1.6 }}>
+                  {children}
+                </div>
                 {footer ? <div style={{ marginTop: 16, fontSize: 12, color: "#5b6770" }}>{footer}</div> : null}
               </td>
             </tr>

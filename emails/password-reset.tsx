@@ -17,7 +17,9 @@ export function PasswordResetEmail(p: PasswordResetEmailProps) {
           Choose a new password
         </a>
       </p>
-      <p style={{ fontSize: 13, color: "#5b6770" }}>The link expires in one hour. If it was not you, ignore this message.</p>
+      <p style={{ fontSize: 13, color: "#5b6770" }}>
+        The link expires in one hour. If it was not you, ignore this message.
+      </p>
     </EmailLayout>
   );
 }

@@ -28,21 +28,43 @@ const PREPARE = [
 
 export function RetestReminderEmail(p: RetestReminderProps) {
   return (
-    <EmailLayout title={retestReminderSubject(p)} footer={<UnsubscribeFooter what="retest reminders" url={p.unsubscribeUrl} settingsUrl={p.settingsUrl} />}>
+    <EmailLayout
+      title={retestReminderSubject(p)}
+      footer={<UnsubscribeFooter what="retest reminders" url={p.unsubscribeUrl} settingsUrl={p.settingsUrl} />}
+    >
       <p>Hello {p.name},</p>
       {p.stage === "overdue" ? (
-        <p>Your retest was planned for <strong>{p.dateLabel}</strong> and no new test is recorded yet. Your zones follow your fitness only when they are tested; agree a new date with your coach.</p>
+        <p>
+          Your retest was planned for <strong>{p.dateLabel}</strong> and no new test is recorded yet. Your zones follow
+          your fitness only when they are tested; agree a new date with your coach.
+        </p>
       ) : (
-        <p>Your retest is on <strong>{p.dateLabel}</strong> ({p.stage === "day" ? "tomorrow" : "in seven days"}): {p.protocol}.</p>
+        <p>
+          Your retest is on <strong>{p.dateLabel}</strong> ({p.stage === "day" ? "tomorrow" : "in seven days"}):{" "}
+          {p.protocol}.
+        </p>
       )}
       <p style={{ fontWeight: 700, marginBottom: 4 }}>How to prepare</p>
-      <ul style={{ marginTop: 0, paddingLeft: 20 }}>{PREPARE.map((x) => <li key={x}>{x}</li>)}</ul>
+      <ul style={{ marginTop: 0, paddingLeft: 20 }}>
+        {PREPARE.map((x) => (
+          <li key={x}>{x}</li>
+        ))}
+      </ul>
       <p style={{ fontWeight: 700, marginBottom: 4 }}>Before the test, answer the readiness questions</p>
-      <ol style={{ marginTop: 0, paddingLeft: 20 }}>{p.questions.map((q) => <li key={q}>{q}</li>)}</ol>
+      <ol style={{ marginTop: 0, paddingLeft: 20 }}>
+        {p.questions.map((q) => (
+          <li key={q}>{q}</li>
+        ))}
+      </ol>
       <p>
-        <a href={p.screeningUrl} style={{ color: "#0f5e63", fontWeight: 700 }}>Answer them in Tidemark</a>
+        <a href={p.screeningUrl} style={{ color: "#0f5e63", fontWeight: 700 }}>
+          Answer them in Tidemark
+        </a>
       </p>
-      <p style={{ fontSize: 13, color: "#5b6770" }}>A yes to any question means: talk to a doctor or another licensed health professional before a hard test. Tidemark is not a medical device.</p>
+      <p style={{ fontSize: 13, color: "#5b6770" }}>
+        A yes to any question means: talk to a doctor or another licensed health professional before a hard test.
+        Tidemark is not a medical device.
+      </p>
     </EmailLayout>
   );
 }

@@ -26,29 +26,44 @@ export interface SessionReminderProps {
 
 export function sessionReminderSubject(p: Pick<SessionReminderProps, "sessions" | "when">): string {
   const first = p.sessions[0]?.title ?? "Training";
-  return p.sessions.length > 1 ? `${p.when === "today" ? "Today" : "Tomorrow"}: ${first} and ${p.sessions.length - 1} more` : `${p.when === "today" ? "Today" : "Tomorrow"}: ${first}`;
+  return p.sessions.length > 1
+    ? `${p.when === "today" ? "Today" : "Tomorrow"}: ${first} and ${p.sessions.length - 1} more`
+    : `${p.when === "today" ? "Today" : "Tomorrow"}: ${first}`;
 }
 
 export function SessionReminderEmail(p: SessionReminderProps) {
   return (
-    <EmailLayout title={sessionReminderSubject(p)} footer={<UnsubscribeFooter what="session reminders" url={p.unsubscribeUrl} settingsUrl={p.settingsUrl} />}>
+    <EmailLayout
+      title={sessionReminderSubject(p)}
+      footer={<UnsubscribeFooter what="session reminders" url={p.unsubscribeUrl} settingsUrl={p.settingsUrl} />}
+    >
       <p>Hello {p.name},</p>
-      <p>Your plan for {p.when}, {p.dayLabel}:</p>
+      <p>
+        Your plan for {p.when}, {p.dayLabel}:
+      </p>
       {p.sessions.map((s, i) => (
         <div key={i} style={{ margin: "12px 0" }}>
-          <p style={{ margin: 0, fontWeight: 700 }}>{s.title} · {s.minutes} min</p>
+          <p style={{ margin: 0, fontWeight: 700 }}>
+            {s.title} · {s.minutes} min
+          </p>
           {s.notes ? <p style={{ margin: "4px 0", color: "#5b6770" }}>{s.notes}</p> : null}
           <ul style={{ margin: "4px 0", paddingLeft: 20 }}>
             {s.steps.map((st, j) => (
-              <li key={j}>{st.label}: {st.target}</li>
+              <li key={j}>
+                {st.label}: {st.target}
+              </li>
             ))}
           </ul>
         </div>
       ))}
       <p>
-        <a href={p.todayUrl} style={{ color: "#0f5e63", fontWeight: 700 }}>Open today in Tidemark</a>
+        <a href={p.todayUrl} style={{ color: "#0f5e63", fontWeight: 700 }}>
+          Open today in Tidemark
+        </a>
       </p>
-      <p style={{ fontSize: 13, color: "#5b6770" }}>Feeling unwell or unusually tired? An easy day or rest is the better choice; tell your coach.</p>
+      <p style={{ fontSize: 13, color: "#5b6770" }}>
+        Feeling unwell or unusually tired? An easy day or rest is the better choice; tell your coach.
+      </p>
     </EmailLayout>
   );
 }
@@ -58,7 +73,12 @@ export function sessionReminderText(p: SessionReminderProps): string {
     `Hello ${p.name},`,
     "",
     `Your plan for ${p.when}, ${p.dayLabel}:`,
-    ...p.sessions.flatMap((s) => ["", `${s.title} · ${s.minutes} min`, ...(s.notes ? [s.notes] : []), ...s.steps.map((st) => `- ${st.label}: ${st.target}`)]),
+    ...p.sessions.flatMap((s) => [
+      "",
+      `${s.title} · ${s.minutes} min`,
+      ...(s.notes ? [s.notes] : []),
+      ...s.steps.map((st) => `- ${st.label}: ${st.target}`),
+    ]),
     "",
     `Open today in Tidemark: ${p.todayUrl}`,
     "",

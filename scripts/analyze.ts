@@ -6,7 +6,14 @@
  */
 import fs from "node:fs";
 import { analyzeRead, type Threshold } from "../features/gas-exchange/lib/analyze";
-import { CHANNELS, parseTime, UNIT_CHOICES, type Channel, type ColumnMapping, type UnitChoices } from "../features/gas-exchange/lib/csv";
+import {
+  CHANNELS,
+  parseTime,
+  UNIT_CHOICES,
+  type Channel,
+  type ColumnMapping,
+  type UnitChoices,
+} from "../features/gas-exchange/lib/csv";
 import { readGasExchangeFile } from "../features/gas-exchange/lib/workbook";
 
 const USAGE =
@@ -36,7 +43,9 @@ function seconds(v: string | undefined, option: string): number {
 export function parseArgs(argv: string[]) {
   let json = false;
   let mass: number | null = null;
-  let fromS: number | null = null, toS: number | null = null, mrtS: number | undefined;
+  let fromS: number | null = null,
+    toS: number | null = null,
+    mrtS: number | undefined;
   let sheet: string | null = null;
   const mapping: ColumnMapping = {};
   const units: UnitChoices = {};
@@ -64,7 +73,8 @@ export function parseArgs(argv: string[]) {
     else if (a === "--to") toS = seconds(argv[++i], "--to");
     else if (a === "--mrt") {
       const v = Number(argv[++i]);
-      if (!Number.isFinite(v) || v < 0 || v > 120) fail("--mrt needs a mean response time in seconds between 0 and 120.");
+      if (!Number.isFinite(v) || v < 0 || v > 120)
+        fail("--mrt needs a mean response time in seconds between 0 and 120.");
       mrtS = v;
     } else if (a === "--sheet") {
       sheet = argv[++i] ?? fail("--sheet needs a sheet name.");
@@ -111,10 +121,16 @@ function describe(label: string, t: Threshold | null, reason: string | null): st
   parts.push(`RER ${t.rer}`);
   if (t.hrBpm !== null) parts.push(`HR ${t.hrBpm} bpm`);
   if (t.powerW !== null) parts.push(`${t.powerW} W (steady state ${t.steadyPowerW} W)`);
-  if (t.speedKmh !== null) parts.push(`${t.speedKmh} km/h${t.gradePct !== null ? ` at ${t.gradePct} %` : ""} (steady state ${t.steadySpeedKmh} km/h${t.steadyGradePct !== null ? ` at ${t.steadyGradePct} %` : ""})`);
+  if (t.speedKmh !== null)
+    parts.push(
+      `${t.speedKmh} km/h${t.gradePct !== null ? ` at ${t.gradePct} %` : ""} (steady state ${t.steadySpeedKmh} km/h${t.steadyGradePct !== null ? ` at ${t.steadyGradePct} %` : ""})`,
+    );
   parts.push(`at ${mmss(t.timeS)}`);
   const agree = t.agreement ? `, methods ${t.agreement.differencePct} % apart` : "";
-  return [`  ${label}: ${parts.join(", ")} (confidence ${t.confidence}; ${t.methods.join(" + ")}${agree})`, ...t.warnings.map((w) => `    ${label} warning: ${w}`)];
+  return [
+    `  ${label}: ${parts.join(", ")} (confidence ${t.confidence}; ${t.methods.join(" + ")}${agree})`,
+    ...t.warnings.map((w) => `    ${label} warning: ${w}`),
+  ];
 }
 
 async function main() {
@@ -148,7 +164,12 @@ async function main() {
           vt1: thresholdJson(a.vt1, a.vt1Reason),
           vt2: thresholdJson(a.vt2, a.vt2Reason),
           peak: a.peak,
-          segment: { fromS: Math.round(a.onsetS), toS: Math.round(a.endS), source: a.segmentSource, meanResponseTimeS: a.meanResponseTimeS },
+          segment: {
+            fromS: Math.round(a.onsetS),
+            toS: Math.round(a.endS),
+            source: a.segmentSource,
+            meanResponseTimeS: a.meanResponseTimeS,
+          },
           columns: a.columns,
           breathsRead: a.breathsRead,
           warnings: a.warnings,
@@ -156,12 +177,19 @@ async function main() {
       );
     } else {
       console.log(file);
-      const cols = Object.entries(a.columns).map(([c, d]) => `${c} = "${d!.header}" (${d!.unit})`).join(", ");
+      const cols = Object.entries(a.columns)
+        .map(([c, d]) => `${c} = "${d!.header}" (${d!.unit})`)
+        .join(", ");
       console.log(`  Columns: ${cols}`);
-      console.log(`  Test segment: ${mmss(a.onsetS)}–${mmss(a.endS)} (${a.segmentSource === "chosen" ? "as given" : `found from the ${a.segmentSource}`})`);
-      for (const line of [...describe("VT1", a.vt1, a.vt1Reason), ...describe("VT2", a.vt2, a.vt2Reason)]) console.log(line);
+      console.log(
+        `  Test segment: ${mmss(a.onsetS)}–${mmss(a.endS)} (${a.segmentSource === "chosen" ? "as given" : `found from the ${a.segmentSource}`})`,
+      );
+      for (const line of [...describe("VT1", a.vt1, a.vt1Reason), ...describe("VT2", a.vt2, a.vt2Reason)])
+        console.log(line);
       const p = a.peak;
-      console.log(`  Peak: VO2 ${p.vo2MlMin} mL/min${p.vo2MlKgMin !== null ? ` (${p.vo2MlKgMin} mL/kg/min)` : ""}, HR ${p.hrBpm ?? "—"} bpm, RER ${p.rer ?? "—"}${p.plateau ? ", VO2 plateaued" : ""}`);
+      console.log(
+        `  Peak: VO2 ${p.vo2MlMin} mL/min${p.vo2MlKgMin !== null ? ` (${p.vo2MlKgMin} mL/kg/min)` : ""}, HR ${p.hrBpm ?? "—"} bpm, RER ${p.rer ?? "—"}${p.plateau ? ", VO2 plateaued" : ""}`,
+      );
       for (const w of a.warnings) console.log(`  warning: ${w}`);
     }
   }

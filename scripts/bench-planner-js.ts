@@ -21,12 +21,28 @@ try {
   await seedDemoIfEmpty(url);
   const port = await freePort();
   const origin = `http://127.0.0.1:${port}`;
-  const env: NodeJS.ProcessEnv = { ...process.env, NODE_ENV: "production", NEXT_TELEMETRY_DISABLED: "1", DATABASE_URL: url, BETTER_AUTH_URL: origin, BETTER_AUTH_SECRET: "tidemark-bench-secret-0123456789-abcdefghij", TIDEMARK_DIST_DIR: ".next-test", TIDEMARK_LOCAL_OUTBOX: "1" };
+  const env: NodeJS.ProcessEnv = {
+    ...process.env,
+    NODE_ENV: "production",
+    NEXT_TELEMETRY_DISABLED: "1",
+    DATABASE_URL: url,
+    BETTER_AUTH_URL: origin,
+    BETTER_AUTH_SECRET: "tidemark-bench-secret-0123456789-abcdefghij",
+    TIDEMARK_DIST_DIR: ".next-test",
+    TIDEMARK_LOCAL_OUTBOX: "1",
+  };
   ensureBuild(".next-test", env, (l) => console.log(`[bench] ${l}`));
   app = await startAppServer({ mode: "start", port, env, quiet: true });
-  const signIn = await fetch(`${origin}/api/auth/sign-in/email`, { method: "POST", headers: { "content-type": "application/json", origin }, body: JSON.stringify({ email: "coach@northfold.test", password: "northfold-demo" }) });
+  const signIn = await fetch(`${origin}/api/auth/sign-in/email`, {
+    method: "POST",
+    headers: { "content-type": "application/json", origin },
+    body: JSON.stringify({ email: "coach@northfold.test", password: "northfold-demo" }),
+  });
   if (!signIn.ok) throw new Error(`sign-in: ${signIn.status}`);
-  const cookie = signIn.headers.getSetCookie().map((c) => c.split(";")[0]).join("; ");
+  const cookie = signIn.headers
+    .getSetCookie()
+    .map((c) => c.split(";")[0])
+    .join("; ");
   const sql = postgres(url, { max: 1, onnotice: () => {} });
   const [runner] = await sql<{ id: string }[]>`select id from "user" where email = 'runner@northfold.test'`;
   await sql.end();
@@ -34,14 +50,23 @@ try {
   if (!page.ok) throw new Error(`planner page: ${page.status}`);
   const html = await page.text();
   // Scripts marked nomodule (legacy polyfills) are skipped by every browser that runs modules, so they do not count.
-  const sources = [...new Set([...html.matchAll(/<script([^>]*)>/g)].filter((m) => !/\bnomodule\b/i.test(m[1]!)).map((m) => /src="([^"]+)"/.exec(m[1]!)?.[1]).filter((x): x is string => !!x))];
+  const sources = [
+    ...new Set(
+      [...html.matchAll(/<script([^>]*)>/g)]
+        .filter((m) => !/\bnomodule\b/i.test(m[1]!))
+        .map((m) => /src="([^"]+)"/.exec(m[1]!)?.[1])
+        .filter((x): x is string => !!x),
+    ),
+  ];
   let gzipBytes = 0;
   for (const src of sources) {
     const body = Buffer.from(await (await fetch(new URL(src.replaceAll("&amp;", "&"), origin))).arrayBuffer());
     gzipBytes += zlib.gzipSync(body).length;
   }
   const kb = gzipBytes / 1024;
-  console.log(`the planner page's first-load JavaScript: ${kb.toFixed(0)} kB gzip in ${sources.length} scripts (target ≤ ${TARGET_KB}) ${kb <= TARGET_KB ? "OK" : "ABOVE TARGET"}`);
+  console.log(
+    `the planner page's first-load JavaScript: ${kb.toFixed(0)} kB gzip in ${sources.length} scripts (target ≤ ${TARGET_KB}) ${kb <= TARGET_KB ? "OK" : "ABOVE TARGET"}`,
+  );
 } finally {
   await app?.stop();
   await cluster.stop();

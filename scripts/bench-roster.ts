@@ -31,21 +31,72 @@ try {
   const now = new Date();
   const today = now.toISOString().slice(0, 10);
   const plus = (n: number) => new Date(Date.parse(`${today}T00:00:00Z`) + n * 86_400_000).toISOString().slice(0, 10);
-  const squadId = randomUUID(), coachId = randomUUID();
+  const squadId = randomUUID(),
+    coachId = randomUUID();
   await db.insert(schema.squad).values({ id: squadId, name: "Bench squad" });
   await db.insert(schema.user).values({ id: coachId, name: "Bench coach", email: "coach@bench.test" });
   await db.insert(schema.membership).values({ squadId, userId: coachId, role: "head_coach" });
   for (let a = 0; a < ATHLETES; a++) {
     const id = randomUUID();
-    await db.insert(schema.user).values({ id, name: `Athlete ${String(a).padStart(3, "0")}`, email: `a${a}@bench.test` });
+    await db
+      .insert(schema.user)
+      .values({ id, name: `Athlete ${String(a).padStart(3, "0")}`, email: `a${a}@bench.test` });
     await db.insert(schema.membership).values({ squadId, userId: id, role: "athlete" });
     await db.insert(schema.athleteProfile).values({ userId: id, sports: ["cycling"], timeZone: "Europe/Berlin" });
     const testId = randomUUID();
-    await db.insert(schema.athleteTest).values({ id: testId, athleteId: id, kind: "manual", sport: "cycling", testDate: plus(-60 - (a % 50)), protocol: "bench", endedBy: "plan", input: {}, result: {}, detected: { vt1: { hrBpm: 140, powerW: 200 }, vt2: { hrBpm: 165, powerW: 280 } }, createdBy: coachId });
-    await db.insert(schema.zoneSet).values({ id: randomUUID(), athleteId: id, sport: "cycling", testId, effectiveFrom: plus(-60 - (a % 50)), vt1: { hrBpm: 140, powerW: 200 }, vt2: { hrBpm: 165, powerW: 280 }, source: "manual" });
-    const sessions = Array.from({ length: 35 }, (_, d) => d).filter((d) => d % 7 !== 0 && d % 7 !== 4).map((d) => ({ id: randomUUID(), athleteId: id, date: plus(d - 28), sport: "cycling", title: "Ride", structure: [], totalS: 3600, minutesByZone: [48, 4, 8] as [number, number, number], createdBy: coachId }));
+    await db.insert(schema.athleteTest).values({
+      id: testId,
+      athleteId: id,
+      kind: "manual",
+      sport: "cycling",
+      testDate: plus(-60 - (a % 50)),
+      protocol: "bench",
+      endedBy: "plan",
+      input: {},
+      result: {},
+      detected: { vt1: { hrBpm: 140, powerW: 200 }, vt2: { hrBpm: 165, powerW: 280 } },
+      createdBy: coachId,
+    });
+    await db.insert(schema.zoneSet).values({
+      id: randomUUID(),
+      athleteId: id,
+      sport: "cycling",
+      testId,
+      effectiveFrom: plus(-60 - (a % 50)),
+      vt1: { hrBpm: 140, powerW: 200 },
+      vt2: { hrBpm: 165, powerW: 280 },
+      source: "manual",
+    });
+    const sessions = Array.from({ length: 35 }, (_, d) => d)
+      .filter((d) => d % 7 !== 0 && d % 7 !== 4)
+      .map((d) => ({
+        id: randomUUID(),
+        athleteId: id,
+        date: plus(d - 28),
+        sport: "cycling",
+        title: "Ride",
+        structure: [],
+        totalS: 3600,
+        minutesByZone: [48, 4, 8] as [number, number, number],
+        createdBy: coachId,
+      }));
     await db.insert(schema.plannedSession).values(sessions);
-    const logs = sessions.filter((s) => s.date < today).map((s, k) => ({ id: randomUUID(), athleteId: id, plannedSessionId: s.id, date: s.date, sport: "cycling", title: s.title, status: "done" as const, durationMin: 55 + (k % 10), rpe: 3 + (k % 5), hrAvgBpm: 130 + (k % 9), powerAvgW: 180 + (k % 13), loggedBy: id }));
+    const logs = sessions
+      .filter((s) => s.date < today)
+      .map((s, k) => ({
+        id: randomUUID(),
+        athleteId: id,
+        plannedSessionId: s.id,
+        date: s.date,
+        sport: "cycling",
+        title: s.title,
+        status: "done" as const,
+        durationMin: 55 + (k % 10),
+        rpe: 3 + (k % 5),
+        hrAvgBpm: 130 + (k % 9),
+        powerAvgW: 180 + (k % 13),
+        loggedBy: id,
+      }));
     await db.insert(schema.sessionLog).values(logs);
   }
   const actor = { userId: coachId, isAdmin: false, memberships: [{ squadId, role: "head_coach" as const }] };
@@ -70,8 +121,12 @@ try {
     await squadRoster(actor, squadId, now);
   }, 10);
   console.log(`floor: one aggregate query over the rows of a ${ATHLETES}-athlete roster, measured in this run = 1`);
-  console.log(`the roster for ${ATHLETES} athletes (zones, retests, budget, compliance, load, drift): ${(roster / floor).toFixed(3)} × floor (target ≤ 3) ${roster / floor <= 3 ? "OK" : "ABOVE TARGET"}`);
-  console.log(`  the same with every row computed afresh (first load of a day, or all athletes changed): ${(cold / floor).toFixed(3)} × floor`);
+  console.log(
+    `the roster for ${ATHLETES} athletes (zones, retests, budget, compliance, load, drift): ${(roster / floor).toFixed(3)} × floor (target ≤ 3) ${roster / floor <= 3 ? "OK" : "ABOVE TARGET"}`,
+  );
+  console.log(
+    `  the same with every row computed afresh (first load of a day, or all athletes changed): ${(cold / floor).toFixed(3)} × floor`,
+  );
   await closeDb();
 } finally {
   await cluster.stop();

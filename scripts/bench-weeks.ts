@@ -20,14 +20,20 @@ async function p95(url: string, cookie: string): Promise<{ p95: number; requests
   const latencies: number[] = [];
   let errors = 0;
   const result = await new Promise<autocannon.Result>((resolve, reject) => {
-    const instance = autocannon({ url, connections: CONNECTIONS, duration: SECONDS, headers: { cookie } }, (err, r) => (err ? reject(err) : resolve(r)));
+    const instance = autocannon({ url, connections: CONNECTIONS, duration: SECONDS, headers: { cookie } }, (err, r) =>
+      err ? reject(err) : resolve(r),
+    );
     instance.on("response", (_client, statusCode, _bytes, responseTime) => {
       if (statusCode !== 200) errors++;
       latencies.push(responseTime);
     });
   });
   latencies.sort((a, b) => a - b);
-  return { p95: latencies[Math.floor(0.95 * (latencies.length - 1))] ?? NaN, requests: result.requests.total, errors: errors + result.errors + result.non2xx };
+  return {
+    p95: latencies[Math.floor(0.95 * (latencies.length - 1))] ?? NaN,
+    requests: result.requests.total,
+    errors: errors + result.errors + result.non2xx,
+  };
 }
 
 const cluster = await startThrowawayCluster();
@@ -36,7 +42,12 @@ try {
   await createDatabase(cluster, "tidemark_bench_weeks");
   const url = cluster.url("tidemark_bench_weeks");
   await applyMigrations(url);
-  Object.assign(process.env, { DATABASE_URL: url, BETTER_AUTH_SECRET: "tidemark-bench-secret-0123456789-abcdefghij", BETTER_AUTH_URL: "http://127.0.0.1:3999", TIDEMARK_LOCAL_OUTBOX: "1" });
+  Object.assign(process.env, {
+    DATABASE_URL: url,
+    BETTER_AUTH_SECRET: "tidemark-bench-secret-0123456789-abcdefghij",
+    BETTER_AUTH_URL: "http://127.0.0.1:3999",
+    TIDEMARK_LOCAL_OUTBOX: "1",
+  });
   const { Browser } = await import("../test/support/api");
   const squadsRoute = await import("../app/api/squads/route");
   const weeksRoute = await import("../app/api/athletes/[id]/weeks/route");
@@ -52,7 +63,10 @@ try {
   // Accounts are confirmed directly (e-mails render with react-dom/server, which this react-server run cannot load).
   const confirmed = async (b: InstanceType<typeof Browser>, name: string, email: string) => {
     const user = await b.signUp(name, email, "correct-horse-battery", { verify: false });
-    await getDb().update(schema.user).set({ emailVerified: true }).where(sql`${schema.user.email} = ${email}`);
+    await getDb()
+      .update(schema.user)
+      .set({ emailVerified: true })
+      .where(sql`${schema.user.email} = ${email}`);
     const r = await b.signIn(email);
     if (r.status !== 200) throw new Error(`sign-in: ${r.status}`);
     return user;
@@ -65,15 +79,40 @@ try {
   const s = { squadId: squad.json.id as string, coach: { browser: coach } };
   const season = await s.coach.browser.call(seasonsRoute, "POST", `/api/athletes/${athleteId}/seasons`, {
     params: { id: athleteId },
-    body: { name: "Bench season", sport: "running", startDate: "2027-01-04", events: [{ date: "2027-10-03", name: "Race" }], weeklyHours: 8 },
+    body: {
+      name: "Bench season",
+      sport: "running",
+      startDate: "2027-01-04",
+      events: [{ date: "2027-10-03", name: "Race" }],
+      weeklyHours: 8,
+    },
   });
   if (season.status !== 201) throw new Error(`season: ${season.status}`);
   const weeks = season.json.weeks as { weekStart: string }[];
   const step = (kind: string, min: number, zone: number) => ({ type: "step", kind, durationS: min * 60, zone });
-  const template = await s.coach.browser.call(templatesRoute, "POST", "/api/templates", { body: { squadId: s.squadId, name: "4 × 5 min", sport: "running", structure: [step("warmup", 15, 1), { type: "repeat", times: 4, steps: [step("work", 5, 3), step("recovery", 3, 1)] }, step("cooldown", 10, 1)] } });
-  const planned = await s.coach.browser.call(sessionsRoute, "POST", `/api/athletes/${athleteId}/sessions`, { params: { id: athleteId }, body: { date: weeks[0]!.weekStart, templateId: template.json.id, repeat: { byWeekday: ["MO", "TU", "TH", "FR", "SA"], count: 104 } } });
+  const template = await s.coach.browser.call(templatesRoute, "POST", "/api/templates", {
+    body: {
+      squadId: s.squadId,
+      name: "4 × 5 min",
+      sport: "running",
+      structure: [
+        step("warmup", 15, 1),
+        { type: "repeat", times: 4, steps: [step("work", 5, 3), step("recovery", 3, 1)] },
+        step("cooldown", 10, 1),
+      ],
+    },
+  });
+  const planned = await s.coach.browser.call(sessionsRoute, "POST", `/api/athletes/${athleteId}/sessions`, {
+    params: { id: athleteId },
+    body: {
+      date: weeks[0]!.weekStart,
+      templateId: template.json.id,
+      repeat: { byWeekday: ["MO", "TU", "TH", "FR", "SA"], count: 104 },
+    },
+  });
   if (planned.status !== 201) throw new Error(`sessions: ${planned.status}`);
-  const from = weeks[0]!.weekStart, to = weeks[weeks.length - 1]!.weekStart;
+  const from = weeks[0]!.weekStart,
+    to = weeks[weeks.length - 1]!.weekStart;
 
   const db = getDb();
   let inFlight = 0;
@@ -89,12 +128,16 @@ try {
       }
       if (u.pathname === "/bare") {
         // The floor: one query on the same pool, its rows as JSON.
-        const rows = await db.execute(sql`select date, minutes_by_zone from planned_session where athlete_id = ${athleteId} and date between ${from} and ${to}`);
+        const rows = await db.execute(
+          sql`select date, minutes_by_zone from planned_session where athlete_id = ${athleteId} and date between ${from} and ${to}`,
+        );
         response = Response.json(rows);
       } else {
         const headers = new Headers();
         for (const [k, v] of Object.entries(req.headers)) if (typeof v === "string") headers.set(k, v);
-        response = await weeksRoute.GET(new Request(`http://127.0.0.1:3999${u.pathname}${u.search}`, { headers }), { params: Promise.resolve({ id: athleteId }) });
+        response = await weeksRoute.GET(new Request(`http://127.0.0.1:3999${u.pathname}${u.search}`, { headers }), {
+          params: Promise.resolve({ id: athleteId }),
+        });
       }
       res.writeHead(response.status, { "content-type": "application/json" });
       res.end(Buffer.from(await response.arrayBuffer()));
@@ -117,16 +160,23 @@ try {
     const floor = await p95(`${base}/bare`, cookie);
     const stored = await p95(`${base}${weeksPath}`, cookie);
     const computed = await p95(`${base}/cold${weeksPath}`, cookie);
-    for (const r of [floor, stored, computed]) if (r.errors) throw new Error(`${r.errors} errors during round ${round + 1}`);
+    for (const r of [floor, stored, computed])
+      if (r.errors) throw new Error(`${r.errors} errors during round ${round + 1}`);
     warm.push(stored.p95 / floor.p95);
     cold.push(computed.p95 / floor.p95);
     requests += stored.requests;
   }
   const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)]!;
   const list = (xs: number[]) => xs.map((x) => x.toFixed(2)).join(", ");
-  console.log(`floor: p95 of a bare handler running one query on the same pool, ${CONNECTIONS} connections for ${SECONDS} s, measured in each of ${ROUNDS} rounds of this run = 1`);
-  console.log(`GET /api/athletes/:id/weeks for a ${weeks.length}-week season: p95 ${median(warm).toFixed(2)} × floor (median of ${list(warm)}; ${requests} requests, target ≤ 2) ${median(warm) <= 2 ? "OK" : "ABOVE TARGET"}`);
-  console.log(`  the same, computed afresh for every request (as after each change): p95 ${median(cold).toFixed(2)} × floor (median of ${list(cold)}; no target)`);
+  console.log(
+    `floor: p95 of a bare handler running one query on the same pool, ${CONNECTIONS} connections for ${SECONDS} s, measured in each of ${ROUNDS} rounds of this run = 1`,
+  );
+  console.log(
+    `GET /api/athletes/:id/weeks for a ${weeks.length}-week season: p95 ${median(warm).toFixed(2)} × floor (median of ${list(warm)}; ${requests} requests, target ≤ 2) ${median(warm) <= 2 ? "OK" : "ABOVE TARGET"}`,
+  );
+  console.log(
+    `  the same, computed afresh for every request (as after each change): p95 ${median(cold).toFixed(2)} × floor (median of ${list(cold)}; no target)`,
+  );
   // Requests still running when a run's time was up finish before the pool closes.
   server.close();
   server.closeAllConnections();

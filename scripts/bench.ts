@@ -39,7 +39,17 @@ function sixtyMinuteCsv(): string {
   for (let t = 0; t < 3600; t++) {
     while (j < rows.length - 1 && rows[j + 1]![0]! <= t) j++;
     const r = rows[j]!;
-    lines.push([t, r[1]!.toFixed(0), r[2]!.toFixed(0), r[3]!.toFixed(1), r[4]!.toFixed(0), r[5]!.toFixed(0), r[6]!.toFixed(0)].join(","));
+    lines.push(
+      [
+        t,
+        r[1]!.toFixed(0),
+        r[2]!.toFixed(0),
+        r[3]!.toFixed(1),
+        r[4]!.toFixed(0),
+        r[5]!.toFixed(0),
+        r[6]!.toFixed(0),
+      ].join(","),
+    );
   }
   return lines.join("\n") + "\n";
 }
@@ -53,7 +63,21 @@ const analysis = timeIt(() => {
 
 const session = structureSchema.parse([
   { type: "step", kind: "warmup", durationS: 900, zone: 1 },
-  { type: "repeat", times: 6, steps: [{ type: "repeat", times: 3, steps: [{ type: "step", kind: "work", durationS: 60, zone: 3 }, { type: "step", kind: "recovery", durationS: 60, zone: 1 }] }, { type: "step", kind: "recovery", durationS: 300, zone: 1 }] },
+  {
+    type: "repeat",
+    times: 6,
+    steps: [
+      {
+        type: "repeat",
+        times: 3,
+        steps: [
+          { type: "step", kind: "work", durationS: 60, zone: 3 },
+          { type: "step", kind: "recovery", durationS: 60, zone: 1 },
+        ],
+      },
+      { type: "step", kind: "recovery", durationS: 300, zone: 1 },
+    ],
+  },
   { type: "step", kind: "cooldown", durationS: 600, zone: 1 },
 ]);
 const expansion = timeIt(() => expand(session));
@@ -62,7 +86,11 @@ const seasonCheck = timeIt(() => {
   const previous: number[] = [];
   for (const w of season) {
     const total = w.volumeHours * 60;
-    checkWeek({ minutesByZone: [total * 0.8, total * 0.05, total * 0.15], previousWeeksMinutes: previous, budget: BUDGET_PRESETS[w.budget] });
+    checkWeek({
+      minutesByZone: [total * 0.8, total * 0.05, total * 0.15],
+      previousWeeksMinutes: previous,
+      budget: BUDGET_PRESETS[w.budget],
+    });
     previous.push(total);
   }
 });
@@ -70,24 +98,57 @@ const seasonCheck = timeIt(() => {
 // The weekly summaries of the same season, five sessions a week with 20 min of zone 3 each: every week breaks its budget
 // and no move can cure it, so the search for a fix tries every session of every week (the worst case).
 const hardWeek = [0, 1, 3, 4, 5];
-const hardSessions = season.flatMap((w, i) => hardWeek.map((d) => ({ id: `s${i}-${d}`, date: addDays(w.weekStart, d), title: "4 × 5 min", kind: "training", minutesByZone: [57, 0, 20] as [number, number, number] })));
-const summaries = timeIt(() => summariseWeeks({ from: season[0]!.weekStart, to: season.at(-1)!.weekStart, sessions: hardSessions, seasonWeeks: season, testDates: [], today: "2026-12-02" }));
+const hardSessions = season.flatMap((w, i) =>
+  hardWeek.map((d) => ({
+    id: `s${i}-${d}`,
+    date: addDays(w.weekStart, d),
+    title: "4 × 5 min",
+    kind: "training",
+    minutesByZone: [57, 0, 20] as [number, number, number],
+  })),
+);
+const summaries = timeIt(() =>
+  summariseWeeks({
+    from: season[0]!.weekStart,
+    to: season.at(-1)!.weekStart,
+    sessions: hardSessions,
+    seasonWeeks: season,
+    testDates: [],
+    today: "2026-12-02",
+  }),
+);
 
 const ratio = (x: number) => (x / floor).toFixed(3);
-console.log(`floor: papaparse parsing a 60-minute 1 Hz CSV (${(csv.length / 1024).toFixed(0)} KB), measured in this run = 1`);
-console.log(`gas-exchange analysis of the same file: ${ratio(analysis)} × floor (target ≤ 1.5) ${analysis / floor <= 1.5 ? "OK" : "ABOVE TARGET"}`);
+console.log(
+  `floor: papaparse parsing a 60-minute 1 Hz CSV (${(csv.length / 1024).toFixed(0)} KB), measured in this run = 1`,
+);
+console.log(
+  `gas-exchange analysis of the same file: ${ratio(analysis)} × floor (target ≤ 1.5) ${analysis / floor <= 1.5 ? "OK" : "ABOVE TARGET"}`,
+);
 console.log(`expanding a 6 × (3 × (1 min, 1 min), 5 min) session: ${ratio(expansion)} × floor`);
 console.log(`checking a ${season.length}-week season's budgets: ${ratio(seasonCheck)} × floor`);
-console.log(`summarising the same season's weeks, all over budget, with the search for a fix: ${ratio(summaries)} × floor`);
+console.log(
+  `summarising the same season's weeks, all over budget, with the search for a fix: ${ratio(summaries)} × floor`,
+);
 
 // Activity import: a 3-hour 1 Hz FIT file to time in zone, against the FIT SDK's decode of the same file alone.
 const threeHours = encodeFit({
   start: new Date("2026-11-29T08:00:00Z"),
   sport: "cycling",
-  seconds: Array.from({ length: 3 * 3600 }, (_, i) => ({ hrBpm: 120 + Math.round(30 * Math.sin(i / 600)) + (i % 7), powerW: 180 + Math.round(60 * Math.sin(i / 300)) + (i % 11), speedKmh: 30 + (i % 5) })),
+  seconds: Array.from({ length: 3 * 3600 }, (_, i) => ({
+    hrBpm: 120 + Math.round(30 * Math.sin(i / 600)) + (i % 7),
+    powerW: 180 + Math.round(60 * Math.sin(i / 300)) + (i % 11),
+    speedKmh: 30 + (i % 5),
+  })),
 });
 const sdkDecode = timeIt(() => {
-  const { messages } = new Decoder(Stream.fromByteArray(threeHours)).read({ applyScaleAndOffset: true, expandComponents: true, convertTypesToStrings: true, convertDateTimesToDates: true, mergeHeartRates: true });
+  const { messages } = new Decoder(Stream.fromByteArray(threeHours)).read({
+    applyScaleAndOffset: true,
+    expandComponents: true,
+    convertTypesToStrings: true,
+    convertDateTimesToDates: true,
+    mergeHeartRates: true,
+  });
   if (!messages.recordMesgs?.length) throw new Error("no records");
 }, 1500);
 const fitImport = timeIt(() => {
@@ -97,13 +158,21 @@ const fitImport = timeIt(() => {
   const measure = chooseMeasure(summary.channels, { powerW: 200, hrBpm: 140 }, { powerW: 280, hrBpm: 165 })!;
   zoneTime(streams, measure, 200, 280);
 }, 1500);
-console.log(`floor: @garmin/fitsdk decoding a 3-hour 1 Hz FIT file (${(threeHours.length / 1024).toFixed(0)} KB), measured in this run = 1`);
-console.log(`importing the same file to time in zone: ${(fitImport / sdkDecode).toFixed(3)} × floor (target ≤ 1.3) ${fitImport / sdkDecode <= 1.3 ? "OK" : "ABOVE TARGET"}`);
+console.log(
+  `floor: @garmin/fitsdk decoding a 3-hour 1 Hz FIT file (${(threeHours.length / 1024).toFixed(0)} KB), measured in this run = 1`,
+);
+console.log(
+  `importing the same file to time in zone: ${(fitImport / sdkDecode).toFixed(3)} × floor (target ≤ 1.3) ${fitImport / sdkDecode <= 1.3 ? "OK" : "ABOVE TARGET"}`,
+);
 
 // The roster needs PostgreSQL and the server modules: a child process with the react-server condition.
 const { spawnSync } = await import("node:child_process");
 for (const script of ["./bench-roster.ts", "./bench-weeks.ts", "./bench-planner-js.ts"]) {
-  const child = spawnSync(process.execPath, ["--conditions=react-server", "--import", "tsx", new URL(script, import.meta.url).pathname], { stdio: "inherit" });
+  const child = spawnSync(
+    process.execPath,
+    ["--conditions=react-server", "--import", "tsx", new URL(script, import.meta.url).pathname],
+    { stdio: "inherit" },
+  );
   if (child.status !== 0) process.exitCode = child.status ?? 1;
 }
 
@@ -127,18 +196,29 @@ for (const script of ["./bench-roster.ts", "./bench-weeks.ts", "./bench-planner-
     return (performance.now() - start) / runs;
   };
   // Interleaved rounds, median of three, so a slow moment of the machine does not fall on one side only.
-  const floors: number[] = [], paths: number[] = [];
+  const floors: number[] = [],
+    paths: number[] = [];
   for (let round = 0; round < 3; round++) {
-    floors.push(await timeAsync(async () => {
-      await new ExcelJS.Workbook().xlsx.load(book.buffer.slice(book.byteOffset, book.byteOffset + book.byteLength) as ArrayBuffer);
-    }));
-    paths.push(await timeAsync(async () => {
-      const a = analyzeRead(await readGasExchangeFile(book));
-      if (!a.ok) throw new Error(a.error);
-    }));
+    floors.push(
+      await timeAsync(async () => {
+        await new ExcelJS.Workbook().xlsx.load(
+          book.buffer.slice(book.byteOffset, book.byteOffset + book.byteLength) as ArrayBuffer,
+        );
+      }),
+    );
+    paths.push(
+      await timeAsync(async () => {
+        const a = analyzeRead(await readGasExchangeFile(book));
+        if (!a.ok) throw new Error(a.error);
+      }),
+    );
   }
   const med = (v: number[]) => [...v].sort((x, y) => x - y)[1]!;
   const r = med(paths) / med(floors);
-  console.log(`floor: exceljs opening the same test as a ${(book.length / 1024).toFixed(0)} KB .xlsx workbook, measured in this run = 1`);
-  console.log(`reading and analysing the workbook: ${r.toFixed(2)} × floor (target ≤ 1.5) ${r <= 1.5 ? "OK" : "ABOVE TARGET"}`);
+  console.log(
+    `floor: exceljs opening the same test as a ${(book.length / 1024).toFixed(0)} KB .xlsx workbook, measured in this run = 1`,
+  );
+  console.log(
+    `reading and analysing the workbook: ${r.toFixed(2)} × floor (target ≤ 1.5) ${r <= 1.5 ? "OK" : "ABOVE TARGET"}`,
+  );
 }

@@ -32,7 +32,11 @@ export function sourceHash(): string {
 export function ensureBuild(distDir: string, env: NodeJS.ProcessEnv, log: (l: string) => void = console.log): void {
   const marker = path.join(ROOT, distDir, "tidemark-source-hash");
   const hash = sourceHash();
-  if (fs.existsSync(marker) && fs.readFileSync(marker, "utf8") === hash && fs.existsSync(path.join(ROOT, distDir, "BUILD_ID"))) {
+  if (
+    fs.existsSync(marker) &&
+    fs.readFileSync(marker, "utf8") === hash &&
+    fs.existsSync(path.join(ROOT, distDir, "BUILD_ID"))
+  ) {
     log("The production build is up to date.");
     return;
   }

@@ -18,7 +18,8 @@ function tool(name: "pg_dump" | "pg_restore"): string {
 
 function run(cmd: string, args: string[]): void {
   const r = spawnSync(cmd, args, { stdio: ["ignore", "inherit", "pipe"], encoding: "utf8" });
-  if (r.error) throw new Error(`${path.basename(cmd)} could not run (${r.error.message}). Install Debian's postgresql-client.`);
+  if (r.error)
+    throw new Error(`${path.basename(cmd)} could not run (${r.error.message}). Install Debian's postgresql-client.`);
   if (r.status !== 0) throw new Error(`${path.basename(cmd)} failed: ${r.stderr.trim() || `exit ${r.status}`}`);
 }
 
@@ -30,7 +31,16 @@ export function backupDatabase(url: string, file: string): string {
 
 export function restoreDatabase(url: string, file: string): void {
   if (!fs.existsSync(file)) throw new Error(`No backup file at ${file}.`);
-  run(tool("pg_restore"), ["--clean", "--if-exists", "--no-owner", "--single-transaction", "--exit-on-error", "--dbname", url, file]);
+  run(tool("pg_restore"), [
+    "--clean",
+    "--if-exists",
+    "--no-owner",
+    "--single-transaction",
+    "--exit-on-error",
+    "--dbname",
+    url,
+    file,
+  ]);
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) {
@@ -38,7 +48,8 @@ if (import.meta.url === `file://${process.argv[1]}`) {
   const url = databaseUrlFromEnvOrLocal();
   try {
     if (mode === "backup") {
-      const target = file ?? path.join(DATA_DIR, "backups", `tidemark-${new Date().toISOString().replace(/[:.]/g, "-")}.dump`);
+      const target =
+        file ?? path.join(DATA_DIR, "backups", `tidemark-${new Date().toISOString().replace(/[:.]/g, "-")}.dump`);
       console.log(`Backed up to ${backupDatabase(url, target)}`);
     } else if (mode === "restore" && file) {
       restoreDatabase(url, file);

@@ -18,7 +18,12 @@ try {
   await createDatabase(cluster, "tidemark_mail");
   const url = cluster.url("tidemark_mail");
   await applyMigrations(url);
-  Object.assign(process.env, { DATABASE_URL: url, RESEND_BASE_URL: fake.url, BETTER_AUTH_SECRET: "tidemark-outage-secret-0123456789-abcdef", BETTER_AUTH_URL: "http://127.0.0.1:3000" });
+  Object.assign(process.env, {
+    DATABASE_URL: url,
+    RESEND_BASE_URL: fake.url,
+    BETTER_AUTH_SECRET: "tidemark-outage-secret-0123456789-abcdef",
+    BETTER_AUTH_URL: "http://127.0.0.1:3000",
+  });
   delete process.env.RESEND_API_KEY;
   delete process.env.TIDEMARK_EMAIL_TRANSPORT;
   const { getDb, schema, closeDb } = await import("../db/client");
@@ -33,22 +38,41 @@ try {
     const id = randomUUID();
     await db.insert(schema.user).values({ id, name: `Athlete ${a}`, email: `athlete${a}@outage.test` });
     // Evening-before reminders at 00:00 UTC: due at once, for tomorrow's session.
-    await db.insert(schema.athleteProfile).values({ userId: id, timeZone: "UTC", reminderTiming: "evening_before", reminderTime: "00:00" });
-    await db.insert(schema.plannedSession).values({ id: randomUUID(), athleteId: id, date: tomorrow, sport: "running", title: "Easy run", structure: [{ type: "step", kind: "work", durationS: 2400, zone: 1 }], totalS: 2400, minutesByZone: [40, 0, 0], createdBy: coachId });
+    await db
+      .insert(schema.athleteProfile)
+      .values({ userId: id, timeZone: "UTC", reminderTiming: "evening_before", reminderTime: "00:00" });
+    await db.insert(schema.plannedSession).values({
+      id: randomUUID(),
+      athleteId: id,
+      date: tomorrow,
+      sport: "running",
+      title: "Easy run",
+      structure: [{ type: "step", kind: "work", durationS: 2400, zone: 1 }],
+      totalS: 2400,
+      minutesByZone: [40, 0, 0],
+      createdBy: coachId,
+    });
   }
   await fetch(`${fake.url}/_fake/fail`, { method: "POST", body: JSON.stringify({ status: 503, forMs: OUTAGE_MS }) });
   const started = Date.now();
   log(`e-mail service down for ${OUTAGE_MS / 1000} s; reminder run…`);
   const queued = await queueSessionReminders(now);
   log(`${queued} reminders queued; delivering every 3 s as the worker does…`);
-  let attempts = 0, lastSentAt = 0;
+  let attempts = 0,
+    lastSentAt = 0;
   while (Date.now() - started < 8 * 60_000) {
     // The job also runs again now and then, as the schedule would: it must not queue anything twice.
-    if (attempts % 20 === 0 && (await queueSessionReminders(new Date())) !== 0) throw new Error("a reminder was queued twice");
+    if (attempts % 20 === 0 && (await queueSessionReminders(new Date())) !== 0)
+      throw new Error("a reminder was queued twice");
     const r = await deliverPending(new Date());
     attempts++;
     if (r.sent) lastSentAt = Date.now();
-    const pending = (await db.select({ id: schema.outbox.id }).from(schema.outbox).where((await import("drizzle-orm")).eq(schema.outbox.status, "pending"))).length;
+    const pending = (
+      await db
+        .select({ id: schema.outbox.id })
+        .from(schema.outbox)
+        .where((await import("drizzle-orm")).eq(schema.outbox.status, "pending"))
+    ).length;
     if (!pending) break;
     await new Promise((res) => setTimeout(res, 3000));
   }
@@ -58,8 +82,12 @@ try {
   const twice = [...perRecipient.values()].filter((n) => n > 1).length;
   const rows = await db.select({ status: schema.outbox.status, attempts: schema.outbox.attempts }).from(schema.outbox);
   const maxAttempts = Math.max(...rows.map((r) => r.attempts));
-  log(`delivered ${received.length} of ${queued} reminders to ${perRecipient.size} athletes; sent twice: ${twice}; outbox: ${rows.filter((r) => r.status === "sent").length} sent, ${rows.filter((r) => r.status !== "sent").length} not; at most ${maxAttempts} attempts per message`);
-  log(`the last one arrived ${((lastSentAt - started) / 1000).toFixed(0)} s after the outage began (it lasted ${OUTAGE_MS / 1000} s; retries back off 5 s doubling to 5 min)`);
+  log(
+    `delivered ${received.length} of ${queued} reminders to ${perRecipient.size} athletes; sent twice: ${twice}; outbox: ${rows.filter((r) => r.status === "sent").length} sent, ${rows.filter((r) => r.status !== "sent").length} not; at most ${maxAttempts} attempts per message`,
+  );
+  log(
+    `the last one arrived ${((lastSentAt - started) / 1000).toFixed(0)} s after the outage began (it lasted ${OUTAGE_MS / 1000} s; retries back off 5 s doubling to 5 min)`,
+  );
   await closeDb();
   process.exitCode = received.length === queued && queued === ATHLETES && twice === 0 ? 0 : 1;
 } finally {

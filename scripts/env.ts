@@ -37,7 +37,9 @@ export function localMailEnv(): Record<string, string> {
     BETTER_AUTH_SECRET: localAuthSecret(),
     BETTER_AUTH_URL: process.env.BETTER_AUTH_URL ?? `http://127.0.0.1:${intFromEnv("PORT", 3000)}`,
     // Without a real API key the SDK talks to the local fake; with RESEND_API_KEY and no RESEND_BASE_URL, to the service.
-    ...(process.env.RESEND_API_KEY && !process.env.RESEND_BASE_URL ? {} : { RESEND_BASE_URL: process.env.RESEND_BASE_URL ?? `http://127.0.0.1:${fakePort}` }),
+    ...(process.env.RESEND_API_KEY && !process.env.RESEND_BASE_URL
+      ? {}
+      : { RESEND_BASE_URL: process.env.RESEND_BASE_URL ?? `http://127.0.0.1:${fakePort}` }),
     SMTP_PORT: process.env.SMTP_PORT ?? String(intFromEnv("FAKE_SMTP_PORT", 2525)),
   };
 }

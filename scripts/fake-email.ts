@@ -32,7 +32,8 @@ export interface FakeEmail {
   stop(): Promise<void>;
 }
 
-const esc = (s: string) => s.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c]!);
+const esc = (s: string) =>
+  s.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c]!);
 
 function page(title: string, body: string): string {
   return `<!DOCTYPE html><html lang="en"><head><meta charset="utf-8"><title>${esc(title)} · local e-mail outbox</title>
@@ -58,21 +59,43 @@ async function readBody(req: http.IncomingMessage, limit = 2_000_000): Promise<s
   return Buffer.concat(chunks).toString("utf8");
 }
 
-type Payload = { from?: unknown; to?: unknown; subject?: unknown; html?: unknown; text?: unknown; headers?: unknown; tags?: unknown };
+type Payload = {
+  from?: unknown;
+  to?: unknown;
+  subject?: unknown;
+  html?: unknown;
+  text?: unknown;
+  headers?: unknown;
+  tags?: unknown;
+};
 
 /** The service's validation, in its error shape ({statusCode, name, message}). */
 function validate(p: Payload): { statusCode: number; name: string; message: string } | null {
-  if (typeof p.from !== "string" || !p.from) return { statusCode: 422, name: "missing_required_field", message: "Missing `from` field." };
+  if (typeof p.from !== "string" || !p.from)
+    return { statusCode: 422, name: "missing_required_field", message: "Missing `from` field." };
   const to = typeof p.to === "string" ? [p.to] : p.to;
-  if (!Array.isArray(to) || to.length === 0 || !to.every((x) => typeof x === "string" && /^[^@\s<>]+@[^@\s<>]+$/.test(x.replace(/^.*<|>$/g, "")))) {
-    return { statusCode: 422, name: "validation_error", message: "Invalid `to` field. The email address needs to follow the `email@example.com` or `Name <email@example.com>` format." };
+  if (
+    !Array.isArray(to) ||
+    to.length === 0 ||
+    !to.every((x) => typeof x === "string" && /^[^@\s<>]+@[^@\s<>]+$/.test(x.replace(/^.*<|>$/g, "")))
+  ) {
+    return {
+      statusCode: 422,
+      name: "validation_error",
+      message:
+        "Invalid `to` field. The email address needs to follow the `email@example.com` or `Name <email@example.com>` format.",
+    };
   }
-  if (typeof p.subject !== "string" || !p.subject) return { statusCode: 422, name: "missing_required_field", message: "Missing `subject` field." };
-  if (typeof p.html !== "string" && typeof p.text !== "string") return { statusCode: 422, name: "validation_error", message: "Either `html` or `text` must be provided." };
+  if (typeof p.subject !== "string" || !p.subject)
+    return { statusCode: 422, name: "missing_required_field", message: "Missing `subject` field." };
+  if (typeof p.html !== "string" && typeof p.text !== "string")
+    return { statusCode: 422, name: "validation_error", message: "Either `html` or `text` must be provided." };
   return null;
 }
 
-export async function startFakeEmail(opts: { port?: number; smtpPort?: number; quiet?: boolean } = {}): Promise<FakeEmail> {
+export async function startFakeEmail(
+  opts: { port?: number; smtpPort?: number; quiet?: boolean } = {},
+): Promise<FakeEmail> {
   const messages: FakeMessage[] = [];
   const byKey = new Map<string, { body: string; id: string }>();
   let failure: { status: number; count: number | null; until: number | null } | null = null;
@@ -130,43 +153,96 @@ export async function startFakeEmail(opts: { port?: number; smtpPort?: number; q
       }
       if (path === "/favicon.ico") return void res.writeHead(204).end();
       if (req.method === "GET" && path === "/outbox.json") {
-        return json(res, 200, [...messages].reverse().map((m) => ({ id: m.id, to: m.to, subject: m.subject, kind: m.kind, createdAt: m.createdAt })));
+        return json(
+          res,
+          200,
+          [...messages]
+            .reverse()
+            .map((m) => ({ id: m.id, to: m.to, subject: m.subject, kind: m.kind, createdAt: m.createdAt })),
+        );
       }
       if (req.method === "GET" && (path === "/" || path === "/outbox")) {
-        const rows = [...messages].reverse().map((m) => `<tr><td>${esc(m.createdAt.replace("T", " ").slice(0, 19))} UTC</td><td>${esc(m.kind || "–")}</td><td>${esc(m.to.join(", "))}</td><td><a href="/outbox/${m.id}">${esc(m.subject)}</a></td><td>${m.via}</td></tr>`);
+        const rows = [...messages]
+          .reverse()
+          .map(
+            (m) =>
+              `<tr><td>${esc(m.createdAt.replace("T", " ").slice(0, 19))} UTC</td><td>${esc(m.kind || "–")}</td><td>${esc(m.to.join(", "))}</td><td><a href="/outbox/${m.id}">${esc(m.subject)}</a></td><td>${m.via}</td></tr>`,
+          );
         return void res.writeHead(200, { "content-type": "text/html; charset=utf-8" }).end(
-          page("Outbox", `<h1>Local e-mail outbox</h1><p class="note">Messages Tidemark sent to the local fake of the e-mail service (nothing leaves this machine). Newest first.</p>
-${rows.length ? `<table><thead><tr><th>Received</th><th>Kind</th><th>To</th><th>Subject</th><th>Via</th></tr></thead><tbody>${rows.join("")}</tbody></table>` : "<p>No messages yet.</p>"}`),
+          page(
+            "Outbox",
+            `<h1>Local e-mail outbox</h1><p class="note">Messages Tidemark sent to the local fake of the e-mail service (nothing leaves this machine). Newest first.</p>
+${rows.length ? `<table><thead><tr><th>Received</th><th>Kind</th><th>To</th><th>Subject</th><th>Via</th></tr></thead><tbody>${rows.join("")}</tbody></table>` : "<p>No messages yet.</p>"}`,
+          ),
         );
       }
       const view = /^\/outbox\/([\w-]+)$/.exec(path);
       if (req.method === "GET" && view) {
         const m = messages.find((x) => x.id === view[1]);
-        if (!m) return void res.writeHead(404, { "content-type": "text/html; charset=utf-8" }).end(page("Not found", `<p>No such message. <a href="/outbox">Back to the outbox</a></p>`));
-        const headers = Object.entries(m.headers).map(([k, v]) => `<tr><th>${esc(k)}</th><td>${esc(v)}</td></tr>`).join("");
+        if (!m)
+          return void res
+            .writeHead(404, { "content-type": "text/html; charset=utf-8" })
+            .end(page("Not found", `<p>No such message. <a href="/outbox">Back to the outbox</a></p>`));
+        const headers = Object.entries(m.headers)
+          .map(([k, v]) => `<tr><th>${esc(k)}</th><td>${esc(v)}</td></tr>`)
+          .join("");
         return void res.writeHead(200, { "content-type": "text/html; charset=utf-8" }).end(
-          page(m.subject, `<p><a href="/outbox">← Outbox</a></p><h1>${esc(m.subject)}</h1><table><tbody><tr><th>From</th><td>${esc(m.from)}</td></tr><tr><th>To</th><td>${esc(m.to.join(", "))}</td></tr><tr><th>Kind</th><td>${esc(m.kind || "–")}</td></tr>${headers}</tbody></table>
-<h2>HTML part</h2><iframe sandbox="" title="HTML part" srcdoc="${esc(m.html)}"></iframe><h2>Text part</h2><pre>${esc(m.text)}</pre>`),
+          page(
+            m.subject,
+            `<p><a href="/outbox">← Outbox</a></p><h1>${esc(m.subject)}</h1><table><tbody><tr><th>From</th><td>${esc(m.from)}</td></tr><tr><th>To</th><td>${esc(m.to.join(", "))}</td></tr><tr><th>Kind</th><td>${esc(m.kind || "–")}</td></tr>${headers}</tbody></table>
+<h2>HTML part</h2><iframe sandbox="" title="HTML part" srcdoc="${esc(m.html)}"></iframe><h2>Text part</h2><pre>${esc(m.text)}</pre>`,
+          ),
         );
       }
       // The service's API.
       if (path.startsWith("/emails")) {
-        if (!/^Bearer \S+/.test(req.headers.authorization ?? "")) return json(res, 401, { statusCode: 401, name: "missing_api_key", message: "Missing API key in the authorization header." });
+        if (!/^Bearer \S+/.test(req.headers.authorization ?? ""))
+          return json(res, 401, {
+            statusCode: 401,
+            name: "missing_api_key",
+            message: "Missing API key in the authorization header.",
+          });
         const fail = req.method === "POST" ? failing() : null;
-        if (fail === 429) return json(res, 429, { statusCode: 429, name: "rate_limit_exceeded", message: "Too many requests. You can only make 2 requests per second." }, { "retry-after": "1" });
-        if (fail) return json(res, fail, { statusCode: fail, name: "application_error", message: "The service is unavailable." });
+        if (fail === 429)
+          return json(
+            res,
+            429,
+            {
+              statusCode: 429,
+              name: "rate_limit_exceeded",
+              message: "Too many requests. You can only make 2 requests per second.",
+            },
+            { "retry-after": "1" },
+          );
+        if (fail)
+          return json(res, fail, {
+            statusCode: fail,
+            name: "application_error",
+            message: "The service is unavailable.",
+          });
         if (req.method === "POST" && path === "/emails") {
           const raw = await readBody(req);
           let p: Payload;
           try {
             p = JSON.parse(raw) as Payload;
           } catch {
-            return json(res, 422, { statusCode: 422, name: "validation_error", message: "The body is not valid JSON." });
+            return json(res, 422, {
+              statusCode: 422,
+              name: "validation_error",
+              message: "The body is not valid JSON.",
+            });
           }
           const key = req.headers["idempotency-key"];
           if (typeof key === "string" && key) {
             const seen = byKey.get(key);
-            if (seen) return seen.body === raw ? json(res, 200, { id: seen.id }) : json(res, 409, { statusCode: 409, name: "invalid_idempotent_request", message: "Same idempotency key used with a different request payload." });
+            if (seen)
+              return seen.body === raw
+                ? json(res, 200, { id: seen.id })
+                : json(res, 409, {
+                    statusCode: 409,
+                    name: "invalid_idempotent_request",
+                    message: "Same idempotency key used with a different request payload.",
+                  });
           }
           const invalid = validate(p);
           if (invalid) return json(res, invalid.statusCode, invalid);
@@ -176,7 +252,12 @@ ${rows.length ? `<table><thead><tr><th>Received</th><th>Kind</th><th>To</th><th>
         }
         if (req.method === "POST" && path === "/emails/batch") {
           const list = JSON.parse((await readBody(req)) || "[]") as Payload[];
-          if (!Array.isArray(list) || list.length > 100) return json(res, 422, { statusCode: 422, name: "validation_error", message: "A batch holds 1 to 100 e-mails." });
+          if (!Array.isArray(list) || list.length > 100)
+            return json(res, 422, {
+              statusCode: 422,
+              name: "validation_error",
+              message: "A batch holds 1 to 100 e-mails.",
+            });
           const invalid = list.map(validate).find(Boolean);
           if (invalid) return json(res, invalid.statusCode, invalid);
           return json(res, 200, { data: list.map((p) => ({ id: store(p, "api").id })) });
@@ -185,11 +266,27 @@ ${rows.length ? `<table><thead><tr><th>Received</th><th>Kind</th><th>To</th><th>
         if (req.method === "GET" && one) {
           const m = messages.find((x) => x.id === one[1]);
           if (!m) return json(res, 404, { statusCode: 404, name: "not_found", message: "Email not found" });
-          return json(res, 200, { object: "email", id: m.id, to: m.to, from: m.from, subject: m.subject, html: m.html, text: m.text, created_at: m.createdAt, last_event: "delivered" });
+          return json(res, 200, {
+            object: "email",
+            id: m.id,
+            to: m.to,
+            from: m.from,
+            subject: m.subject,
+            html: m.html,
+            text: m.text,
+            created_at: m.createdAt,
+            last_event: "delivered",
+          });
         }
       }
       json(res, 404, { statusCode: 404, name: "not_found", message: "Not found." });
-    })().catch((e: { status?: number; message?: string }) => json(res, e.status ?? 500, { statusCode: e.status ?? 500, name: "application_error", message: e.message ?? "error" }));
+    })().catch((e: { status?: number; message?: string }) =>
+      json(res, e.status ?? 500, {
+        statusCode: e.status ?? 500,
+        name: "application_error",
+        message: e.message ?? "error",
+      }),
+    );
   });
   await new Promise<void>((r) => server.listen(opts.port ?? 0, "127.0.0.1", r));
 
@@ -205,14 +302,28 @@ ${rows.length ? `<table><thead><tr><th>Received</th><th>Kind</th><th>To</th><th>
         const email = await PostalMime.parse(Buffer.concat(chunks));
         const headers: Record<string, string> = {};
         for (const h of email.headers) headers[h.originalKey ?? h.key] = h.value;
-        store({ from: email.from?.address ?? "", to: (email.to ?? []).map((a) => a.address ?? ""), subject: email.subject ?? "", html: email.html ?? "", text: email.text ?? "", headers }, "smtp");
-      })().then(() => done(), (e) => done(e as Error));
+        store(
+          {
+            from: email.from?.address ?? "",
+            to: (email.to ?? []).map((a) => a.address ?? ""),
+            subject: email.subject ?? "",
+            html: email.html ?? "",
+            text: email.text ?? "",
+            headers,
+          },
+          "smtp",
+        );
+      })().then(
+        () => done(),
+        (e) => done(e as Error),
+      );
     },
   });
   await new Promise<void>((r) => smtp.listen(opts.smtpPort ?? 0, "127.0.0.1", r));
   const url = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
   const smtpPort = (smtp.server.address() as AddressInfo).port;
-  if (!opts.quiet) console.log(`[fake-email] API and outbox on ${url} (outbox: ${url}/outbox), SMTP on 127.0.0.1:${smtpPort}`);
+  if (!opts.quiet)
+    console.log(`[fake-email] API and outbox on ${url} (outbox: ${url}/outbox), SMTP on 127.0.0.1:${smtpPort}`);
   return {
     url,
     smtpPort,
@@ -226,7 +337,10 @@ ${rows.length ? `<table><thead><tr><th>Received</th><th>Kind</th><th>To</th><th>
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) {
-  const fake = await startFakeEmail({ port: Number(process.env.FAKE_EMAIL_PORT ?? 4010), smtpPort: Number(process.env.FAKE_SMTP_PORT ?? 2525) });
+  const fake = await startFakeEmail({
+    port: Number(process.env.FAKE_EMAIL_PORT ?? 4010),
+    smtpPort: Number(process.env.FAKE_SMTP_PORT ?? 2525),
+  });
   const stop = () => void fake.stop().then(() => process.exit(0));
   process.on("SIGINT", stop);
   process.on("SIGTERM", stop);

@@ -55,8 +55,10 @@ export interface Violation {
 }
 
 export function violation(fromFile: string, toFile: string): Violation | null {
-  const from = path.relative(ROOT, fromFile), to = path.relative(ROOT, toFile);
-  const f = from.split(path.sep), t = to.split(path.sep);
+  const from = path.relative(ROOT, fromFile),
+    to = path.relative(ROOT, toFile);
+  const f = from.split(path.sep),
+    t = to.split(path.sep);
   const v = (rule: string) => ({ from, to, rule });
   if (t[0] === "app" && f[0] !== "app" && f[0] !== "scripts") return v("only app/ and scripts/ import app/");
   if (f[0] === "features" && f[2] === "lib") {
@@ -64,9 +66,17 @@ export function violation(fromFile: string, toFile: string): Violation | null {
     const lib = t[0] === "features" && t[2] === "lib";
     if (!lib && !sharedLib) return v("lib/ imports only lib/ and the shared layer");
   }
-  if (f[0] === "features" && f[2] === "components" && t[0] === "features" && t[2] === "server") return v("components never import server/");
+  if (f[0] === "features" && f[2] === "components" && t[0] === "features" && t[2] === "server")
+    return v("components never import server/");
   // The shared layer (features/platform) is open to everyone.
-  if (f[0] === "features" && t[0] === "features" && t[1] !== "platform" && t[2] === "server" && f[1] !== t[1] && t[3] !== "index.ts") {
+  if (
+    f[0] === "features" &&
+    t[0] === "features" &&
+    t[1] !== "platform" &&
+    t[2] === "server" &&
+    f[1] !== t[1] &&
+    t[3] !== "index.ts"
+  ) {
     return v("another feature's server/ only through its server/index.ts");
   }
   return null;
@@ -75,7 +85,9 @@ export function violation(fromFile: string, toFile: string): Violation | null {
 function importsOf(file: string): string[] {
   const text = fs.readFileSync(file, "utf8");
   const specs = new Set<string>();
-  for (const m of text.matchAll(/(?:import|export)\s[^'"]*?from\s*["']([^"']+)["']|import\(\s*["']([^"']+)["']\s*\)|^import\s*["']([^"']+)["']/gm)) {
+  for (const m of text.matchAll(
+    /(?:import|export)\s[^'"]*?from\s*["']([^"']+)["']|import\(\s*["']([^"']+)["']\s*\)|^import\s*["']([^"']+)["']/gm,
+  )) {
     specs.add(m[1] ?? m[2] ?? m[3]!);
   }
   return [...specs];
@@ -84,7 +96,11 @@ function importsOf(file: string): string[] {
 /** Strongly connected components with more than one node (Tarjan). */
 function cycles(graph: Map<string, Set<string>>): string[][] {
   let index = 0;
-  const idx = new Map<string, number>(), low = new Map<string, number>(), on = new Set<string>(), stack: string[] = [], out: string[][] = [];
+  const idx = new Map<string, number>(),
+    low = new Map<string, number>(),
+    on = new Set<string>(),
+    stack: string[] = [],
+    out: string[][] = [];
   const visit = (v: string) => {
     idx.set(v, index);
     low.set(v, index++);
@@ -120,7 +136,8 @@ export function analyse() {
     for (const spec of importsOf(file)) {
       const target = resolveImport(file, spec);
       if (!target) continue;
-      const a = nodeOf(file), b = nodeOf(target);
+      const a = nodeOf(file),
+        b = nodeOf(target);
       if (a !== b) {
         if (!graph.has(a)) graph.set(a, new Set());
         graph.get(a)!.add(b);

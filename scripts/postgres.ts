@@ -141,7 +141,15 @@ export async function startCluster(opts: StartOptions): Promise<Cluster> {
     log(`Initialising a PostgreSQL cluster in ${dataDir}…`);
     fs.mkdirSync(dataDir, { recursive: true, mode: 0o700 });
     giveToPostgresUser(dataDir);
-    runServerCommand(binDir, "initdb", ["-D", dataDir, "-U", "postgres", "--auth=trust", "--encoding=UTF8", "--no-locale"]);
+    runServerCommand(binDir, "initdb", [
+      "-D",
+      dataDir,
+      "-U",
+      "postgres",
+      "--auth=trust",
+      "--encoding=UTF8",
+      "--no-locale",
+    ]);
     const conf = [
       "listen_addresses = '127.0.0.1'",
       "unix_socket_directories = ''",
@@ -153,7 +161,18 @@ export async function startCluster(opts: StartOptions): Promise<Cluster> {
   giveToPostgresUser(dataDir);
   const logFile = path.join(dataDir, "server.log");
   try {
-    runServerCommand(binDir, "pg_ctl", ["-D", dataDir, "-l", logFile, "-o", `-p ${opts.port}`, "-w", "-t", "60", "start"]);
+    runServerCommand(binDir, "pg_ctl", [
+      "-D",
+      dataDir,
+      "-l",
+      logFile,
+      "-o",
+      `-p ${opts.port}`,
+      "-w",
+      "-t",
+      "60",
+      "start",
+    ]);
   } catch (e) {
     const tail = fs.existsSync(logFile) ? fs.readFileSync(logFile, "utf8").split("\n").slice(-15).join("\n") : "";
     throw new Error(`PostgreSQL failed to start on port ${opts.port}: ${String(e)}\n${tail}`);

@@ -14,11 +14,17 @@ import { ensureBuild } from "./build";
 import { createDatabase, freePort, startCluster, type Cluster } from "./postgres";
 
 const args = process.argv.slice(2);
-const SECONDS = Number(args[args.indexOf("--seconds") + 1]) > 0 && args.includes("--seconds") ? Number(args[args.indexOf("--seconds") + 1]) : 60;
+const SECONDS =
+  Number(args[args.indexOf("--seconds") + 1]) > 0 && args.includes("--seconds")
+    ? Number(args[args.indexOf("--seconds") + 1])
+    : 60;
 const RESTART = args.includes("--restart-db");
-const ATHLETES = 100, COACHES = 10, SESSIONS_PER_ATHLETE = 400;
+const ATHLETES = 100,
+  COACHES = 10,
+  SESSIONS_PER_ATHLETE = 400;
 
-const pct = (xs: number[], p: number) => (xs.length ? [...xs].sort((a, b) => a - b)[Math.min(xs.length - 1, Math.floor(p * xs.length))]! : NaN);
+const pct = (xs: number[], p: number) =>
+  xs.length ? [...xs].sort((a, b) => a - b)[Math.min(xs.length - 1, Math.floor(p * xs.length))]! : NaN;
 const log = (l: string) => console.log(`[soak] ${l}`);
 
 const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), "tidemark-soak-"));
@@ -32,23 +38,48 @@ try {
   await applyMigrations(url);
   const port = await freePort();
   const origin = `http://127.0.0.1:${port}`;
-  const env: NodeJS.ProcessEnv = { ...process.env, NODE_ENV: "production", NEXT_TELEMETRY_DISABLED: "1", DATABASE_URL: url, BETTER_AUTH_URL: origin, BETTER_AUTH_SECRET: "tidemark-soak-secret-0123456789-abcdefghij", TIDEMARK_DIST_DIR: ".next-test", TIDEMARK_LOCAL_OUTBOX: "1", TIDEMARK_SIGN_IN_LIMIT_PER_MIN: "100000", DATABASE_POOL_SIZE: "20" };
+  const env: NodeJS.ProcessEnv = {
+    ...process.env,
+    NODE_ENV: "production",
+    NEXT_TELEMETRY_DISABLED: "1",
+    DATABASE_URL: url,
+    BETTER_AUTH_URL: origin,
+    BETTER_AUTH_SECRET: "tidemark-soak-secret-0123456789-abcdefghij",
+    TIDEMARK_DIST_DIR: ".next-test",
+    TIDEMARK_LOCAL_OUTBOX: "1",
+    TIDEMARK_SIGN_IN_LIMIT_PER_MIN: "100000",
+    DATABASE_POOL_SIZE: "20",
+  };
   ensureBuild(".next-test", env, log);
   app = await startAppServer({ mode: "start", port, env, quiet: true });
 
   // People: sign-ups through the app (each from its own address, as in life), squads through the API, memberships and
   // planned sessions written directly (they are not what is measured).
   const signUp = async (name: string, email: string, i: number) => {
-    const r = await fetch(`${origin}/api/auth/sign-up/email`, { method: "POST", headers: { "content-type": "application/json", origin, "x-forwarded-for": `10.1.${i >> 8}.${i & 255}` }, body: JSON.stringify({ name, email, password: "soak-password-123" }) });
+    const r = await fetch(`${origin}/api/auth/sign-up/email`, {
+      method: "POST",
+      headers: { "content-type": "application/json", origin, "x-forwarded-for": `10.1.${i >> 8}.${i & 255}` },
+      body: JSON.stringify({ name, email, password: "soak-password-123" }),
+    });
     if (!r.ok) throw new Error(`sign-up ${email}: ${r.status} ${await r.text()}`);
     const user = ((await r.json()) as { user: { id: string } }).user;
-    return { id: user.id, cookie: r.headers.getSetCookie().map((c) => c.split(";")[0]).join("; ") };
+    return {
+      id: user.id,
+      cookie: r.headers
+        .getSetCookie()
+        .map((c) => c.split(";")[0])
+        .join("; "),
+    };
   };
   const sql = postgres(url, { max: 2, onnotice: () => {} });
   const coaches: { id: string; cookie: string; squadId: string }[] = [];
   for (let c = 0; c < COACHES; c++) {
     const u = await signUp(`Coach ${c}`, `coach${c}@soak.test`, c);
-    const sq = await fetch(`${origin}/api/squads`, { method: "POST", headers: { "content-type": "application/json", origin, cookie: u.cookie }, body: JSON.stringify({ name: `Squad ${c}` }) });
+    const sq = await fetch(`${origin}/api/squads`, {
+      method: "POST",
+      headers: { "content-type": "application/json", origin, cookie: u.cookie },
+      body: JSON.stringify({ name: `Squad ${c}` }),
+    });
     coaches.push({ ...u, squadId: ((await sq.json()) as { id: string }).id });
   }
   const athletes: { id: string; cookie: string; coach: (typeof coaches)[number]; sessions: string[] }[] = [];
@@ -60,15 +91,25 @@ try {
       select gen_random_uuid()::text, ${u.id}, to_char(date '2027-01-01' + (g % 365), 'YYYY-MM-DD'), 'running', 'Soak run ' || g, 'training',
         '[{"type":"step","kind":"work","durationS":2700,"zone":1}]'::jsonb, 2700, '[45,0,0]'::jsonb, ${coach.id}
       from generate_series(1, ${SESSIONS_PER_ATHLETE}) g`;
-    athletes.push({ ...u, coach, sessions: (await sql<{ id: string }[]>`select id from planned_session where athlete_id = ${u.id} order by date, id`).map((r) => r.id) });
+    athletes.push({
+      ...u,
+      coach,
+      sessions: (
+        await sql<{ id: string }[]>`select id from planned_session where athlete_id = ${u.id} order by date, id`
+      ).map((r) => r.id),
+    });
   }
-  log(`${COACHES} coaches, ${ATHLETES} athletes, ${ATHLETES * SESSIONS_PER_ATHLETE} planned sessions; load for ${SECONDS} s${RESTART ? ", restarting PostgreSQL at 20 s" : ""}…`);
+  log(
+    `${COACHES} coaches, ${ATHLETES} athletes, ${ATHLETES * SESSIONS_PER_ATHLETE} planned sessions; load for ${SECONDS} s${RESTART ? ", restarting PostgreSQL at 20 s" : ""}…`,
+  );
 
   const latency = { log: [] as number[], move: [] as number[] };
   const status: Record<string, number> = {};
   const acknowledgedLogs = new Set<string>();
   const acknowledgedMoves = new Map<string, string>();
-  let networkErrors = 0, unavailable = 0, unavailableWithRetryAfter = 0;
+  let networkErrors = 0,
+    unavailable = 0,
+    unavailableWithRetryAfter = 0;
   let down: { at: number; upAt: number | null; firstSuccessAfterUp: number | null } | null = null;
   const end = Date.now() + SECONDS * 1000;
   const call = async (kind: "log" | "move", input: string, init: RequestInit) => {
@@ -93,11 +134,16 @@ try {
     let next = 0;
     while (Date.now() < end && next < a.sessions.length) {
       const id = a.sessions[next]!;
-      const s = await call("log", `${origin}/api/sessions/${id}/log`, { method: "POST", headers: { "content-type": "application/json", origin, cookie: a.cookie }, body: JSON.stringify({ status: "done", durationMin: 40 + (next % 10), rpe: 3 + (next % 5) }) });
+      const s = await call("log", `${origin}/api/sessions/${id}/log`, {
+        method: "POST",
+        headers: { "content-type": "application/json", origin, cookie: a.cookie },
+        body: JSON.stringify({ status: "done", durationMin: 40 + (next % 10), rpe: 3 + (next % 5) }),
+      });
       if (s === 201 || s === 200) {
         acknowledgedLogs.add(id);
         next++;
-      } else if (s === 409) next++; // already logged by an earlier, unacknowledged attempt
+      } else if (s === 409)
+        next++; // already logged by an earlier, unacknowledged attempt
       else await new Promise((r) => setTimeout(r, 200));
     }
   };
@@ -107,7 +153,11 @@ try {
     while (Date.now() < end) {
       const id = own[(i * 7 + k) % own.length]!;
       const date = `2028-0${1 + (i % 9)}-${String(1 + (i % 27)).padStart(2, "0")}`;
-      const s = await call("move", `${origin}/api/sessions/${id}`, { method: "PATCH", headers: { "content-type": "application/json", origin, cookie: c.cookie }, body: JSON.stringify({ date }) });
+      const s = await call("move", `${origin}/api/sessions/${id}`, {
+        method: "PATCH",
+        headers: { "content-type": "application/json", origin, cookie: c.cookie },
+        body: JSON.stringify({ date }),
+      });
       if (s === 200) acknowledgedMoves.set(id, date);
       else if (s !== 0) await new Promise((r) => setTimeout(r, 200));
       i++;
@@ -131,23 +181,40 @@ try {
 
   const check = postgres(cluster.url("tidemark_soak"), { max: 1, onnotice: () => {} });
   const n = (await check<{ n: number }[]>`select count(*)::int as n from session_log`)[0]!.n;
-  const logged = new Set((await check<{ id: string }[]>`select planned_session_id as id from session_log`).map((r) => r.id));
+  const logged = new Set(
+    (await check<{ id: string }[]>`select planned_session_id as id from session_log`).map((r) => r.id),
+  );
   const lostLogs = [...acknowledgedLogs].filter((id) => !logged.has(id)).length;
-  const moved = await check<{ id: string; date: string }[]>`select id, date from planned_session where id in ${check([...acknowledgedMoves.keys()])}`;
+  const moved = await check<
+    { id: string; date: string }[]
+  >`select id, date from planned_session where id in ${check([...acknowledgedMoves.keys()])}`;
   const lostMoves = moved.filter((m) => acknowledgedMoves.get(m.id) !== m.date).length;
   await check.end();
   await sql.end({ timeout: 1 }).catch(() => undefined);
   const total = Object.values(status).reduce((a, b) => a + b, 0) + networkErrors;
-  const errors = Object.entries(status).filter(([k]) => Number(k) >= 500 && Number(k) !== 503).reduce((a, [, v]) => a + v, 0) + networkErrors;
+  const errors =
+    Object.entries(status)
+      .filter(([k]) => Number(k) >= 500 && Number(k) !== 503)
+      .reduce((a, [, v]) => a + v, 0) + networkErrors;
   console.log("");
-  log(`requests: ${total} in ${elapsed.toFixed(0)} s (${(total / elapsed).toFixed(0)}/s); answers ${JSON.stringify(status)}; network errors ${networkErrors}`);
-  log(`session logs (POST /api/sessions/:id/log): ${latency.log.length} answered, p50 ${pct(latency.log, 0.5).toFixed(0)} ms, p95 ${pct(latency.log, 0.95).toFixed(0)} ms`);
-  log(`session moves (PATCH /api/sessions/:id): ${latency.move.length} answered, p50 ${pct(latency.move, 0.5).toFixed(0)} ms, p95 ${pct(latency.move, 0.95).toFixed(0)} ms`);
+  log(
+    `requests: ${total} in ${elapsed.toFixed(0)} s (${(total / elapsed).toFixed(0)}/s); answers ${JSON.stringify(status)}; network errors ${networkErrors}`,
+  );
+  log(
+    `session logs (POST /api/sessions/:id/log): ${latency.log.length} answered, p50 ${pct(latency.log, 0.5).toFixed(0)} ms, p95 ${pct(latency.log, 0.95).toFixed(0)} ms`,
+  );
+  log(
+    `session moves (PATCH /api/sessions/:id): ${latency.move.length} answered, p50 ${pct(latency.move, 0.5).toFixed(0)} ms, p95 ${pct(latency.move, 0.95).toFixed(0)} ms`,
+  );
   log(`errors (5xx other than 503, or no answer): ${errors}`);
-  log(`acknowledged writes: ${acknowledgedLogs.size} logs (database holds ${n}, missing ${lostLogs}), ${acknowledgedMoves.size} sessions moved (missing or different ${lostMoves})`);
+  log(
+    `acknowledged writes: ${acknowledgedLogs.size} logs (database holds ${n}, missing ${lostLogs}), ${acknowledgedMoves.size} sessions moved (missing or different ${lostMoves})`,
+  );
   const d = down as { at: number; upAt: number | null; firstSuccessAfterUp: number | null } | null;
   if (d) {
-    log(`database restart: ${unavailable} answers 503 while it was down (${unavailableWithRetryAfter} with Retry-After); first success ${d.firstSuccessAfterUp && d.upAt ? `${((d.firstSuccessAfterUp - d.upAt) / 1000).toFixed(1)} s` : "never"} after it was back`);
+    log(
+      `database restart: ${unavailable} answers 503 while it was down (${unavailableWithRetryAfter} with Retry-After); first success ${d.firstSuccessAfterUp && d.upAt ? `${((d.firstSuccessAfterUp - d.upAt) / 1000).toFixed(1)} s` : "never"} after it was back`,
+    );
   }
   process.exitCode = lostLogs || lostMoves || (!RESTART && errors) ? 1 : 0;
 } finally {

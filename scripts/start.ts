@@ -69,7 +69,9 @@ async function main() {
   takeLock(appPort);
   if (!(await portIsFree(appPort))) {
     releaseLock();
-    console.error(`Port ${appPort} on 127.0.0.1 is in use by another program. Stop it, or start with PORT=<other port> npm start.`);
+    console.error(
+      `Port ${appPort} on 127.0.0.1 is in use by another program. Stop it, or start with PORT=<other port> npm start.`,
+    );
     process.exit(1);
   }
 
@@ -117,14 +119,22 @@ async function main() {
       NEXT_TELEMETRY_DISABLED: "1",
     };
     if (env.RESEND_BASE_URL?.startsWith("http://127.0.0.1:")) {
-      fake = await startFakeEmail({ port: intFromEnv("FAKE_EMAIL_PORT", 4010), smtpPort: intFromEnv("FAKE_SMTP_PORT", 2525), quiet: true });
+      fake = await startFakeEmail({
+        port: intFromEnv("FAKE_EMAIL_PORT", 4010),
+        smtpPort: intFromEnv("FAKE_SMTP_PORT", 2525),
+        quiet: true,
+      });
       // The outbox page (site operators only) exists only while the local fake is the transport, never with real e-mail.
       env.TIDEMARK_LOCAL_OUTBOX = "1";
       env.FAKE_EMAIL_URL = fake.url;
       log(`Local e-mail fake on ${fake.url} (SMTP on 127.0.0.1:${fake.smtpPort}); what was sent: ${fake.url}/outbox`);
     }
     log("Starting the background worker (reminders, digests, e-mail delivery)…");
-    worker = spawn(process.execPath, ["--import", "tsx", "--import", "./scripts/register-server.mjs", "scripts/worker.ts"], { cwd: path.resolve(import.meta.dirname, ".."), env, stdio: "inherit" });
+    worker = spawn(
+      process.execPath,
+      ["--import", "tsx", "--import", "./scripts/register-server.mjs", "scripts/worker.ts"],
+      { cwd: path.resolve(import.meta.dirname, ".."), env, stdio: "inherit" },
+    );
     worker.on("exit", (code) => {
       if (!stopping) {
         console.error(`The background worker exited (code ${code}).`);
@@ -146,7 +156,11 @@ async function main() {
     log(`Demo sign-ins (password "${DEMO_PASSWORD}"):`);
     for (const p of DEMO_PEOPLE) log(`  ${p.email.padEnd(28)} ${p.role.replace("_", " ")}`);
     log(`  ${DEMO_ADMIN.email.padEnd(28)} site operator (the outbox page; no squad)`);
-    log(fake ? `Messages the app queues appear at ${origin}/outbox (sign in as ${DEMO_ADMIN.email}); what the e-mail fake received, links included, at ${fake.url}/outbox. Press Ctrl-C to stop.` : "Press Ctrl-C to stop.");
+    log(
+      fake
+        ? `Messages the app queues appear at ${origin}/outbox (sign in as ${DEMO_ADMIN.email}); what the e-mail fake received, links included, at ${fake.url}/outbox. Press Ctrl-C to stop.`
+        : "Press Ctrl-C to stop.",
+    );
   } catch (e) {
     console.error(e instanceof Error ? e.message : String(e));
     await stop(1);

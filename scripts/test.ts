@@ -37,7 +37,13 @@ function ensureChromium(): void {
 
 /** Runs vitest without blocking this process, which serves the e-mail fake the tests talk to. */
 function vitest(projects: string[], env: NodeJS.ProcessEnv, extra: string[]): Promise<number> {
-  const args = [path.join(ROOT, "node_modules/vitest/vitest.mjs"), "run", "--passWithNoTests", ...projects.flatMap((p) => ["--project", p]), ...extra];
+  const args = [
+    path.join(ROOT, "node_modules/vitest/vitest.mjs"),
+    "run",
+    "--passWithNoTests",
+    ...projects.flatMap((p) => ["--project", p]),
+    ...extra,
+  ];
   const child = spawn(process.execPath, args, { cwd: ROOT, stdio: "inherit", env });
   return new Promise((resolve) => child.on("exit", (code) => resolve(code ?? 1)));
 }
@@ -62,7 +68,11 @@ async function main(): Promise<number> {
     const integrationUrl = cluster.url("tidemark_test");
     await applyMigrations(integrationUrl);
     // The local fake of the e-mail API, on a free port unless FAKE_EMAIL_PORT is set (a running `npm start` holds 4010).
-    fake = await startFakeEmail({ port: process.env.FAKE_EMAIL_PORT ? Number(process.env.FAKE_EMAIL_PORT) : 0, smtpPort: 0, quiet: true });
+    fake = await startFakeEmail({
+      port: process.env.FAKE_EMAIL_PORT ? Number(process.env.FAKE_EMAIL_PORT) : 0,
+      smtpPort: 0,
+      quiet: true,
+    });
     log(`E-mail fake on ${fake.url}`);
     const baseEnv: NodeJS.ProcessEnv = {
       ...process.env,
@@ -74,14 +84,18 @@ async function main(): Promise<number> {
     };
 
     log("Unit and integration tests…");
-    const first = await vitest(["unit", "integration"], {
-      ...baseEnv,
-      DATABASE_URL: integrationUrl,
-      BETTER_AUTH_URL: "http://127.0.0.1:3999",
-      // The in-process requests carry X-Forwarded-For as a trusted proxy would set it (one address per test browser).
-      TIDEMARK_CLIENT_IP_HEADER: "x-forwarded-for",
-      TIDEMARK_LOCAL_OUTBOX: "1",
-    }, extra);
+    const first = await vitest(
+      ["unit", "integration"],
+      {
+        ...baseEnv,
+        DATABASE_URL: integrationUrl,
+        BETTER_AUTH_URL: "http://127.0.0.1:3999",
+        // The in-process requests carry X-Forwarded-For as a trusted proxy would set it (one address per test browser).
+        TIDEMARK_CLIENT_IP_HEADER: "x-forwarded-for",
+        TIDEMARK_LOCAL_OUTBOX: "1",
+      },
+      extra,
+    );
     if (first !== 0) return first;
     if (process.env.TIDEMARK_SKIP_BROWSER === "1") {
       log("TIDEMARK_SKIP_BROWSER=1: skipping the build and the browser tests.");
@@ -108,7 +122,17 @@ async function main(): Promise<number> {
     ensureBuild(".next-test", appEnv, log);
     app = await startAppServer({ mode: "start", port, env: appEnv, quiet: true });
     // The browser tests also run jobs in-process (the worker's functions), so they share the app's origin and secret.
-    return await vitest(["browser"], { ...baseEnv, TIDEMARK_BASE_URL: origin, BETTER_AUTH_URL: origin, CHROMIUM_PATH: CHROMIUM, DATABASE_URL: browserUrl }, extra);
+    return await vitest(
+      ["browser"],
+      {
+        ...baseEnv,
+        TIDEMARK_BASE_URL: origin,
+        BETTER_AUTH_URL: origin,
+        CHROMIUM_PATH: CHROMIUM,
+        DATABASE_URL: browserUrl,
+      },
+      extra,
+    );
   } finally {
     await cleanup();
   }

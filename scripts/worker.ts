@@ -26,7 +26,8 @@ for (const [name, job] of Object.entries(JOBS)) {
   await boss.work(name, async () => {
     const result = await job.run(new Date());
     // Reminder jobs answer how many messages they queued; say so only when there were some.
-    if (name !== "deliver-outbox" && typeof result === "number" && result > 0) log(`${name}: ${result} message(s) queued`);
+    if (name !== "deliver-outbox" && typeof result === "number" && result > 0)
+      log(`${name}: ${result} message(s) queued`);
   });
 }
 
@@ -36,7 +37,8 @@ const tick = setInterval(() => {
   delivering = true;
   deliverPending(new Date())
     .then((r) => {
-      if (r.sent || r.retrying || r.failed) log(`delivered ${r.sent}, waiting to retry ${r.retrying}, refused ${r.failed}`);
+      if (r.sent || r.retrying || r.failed)
+        log(`delivered ${r.sent}, waiting to retry ${r.retrying}, refused ${r.failed}`);
     })
     .catch((e) => log(`delivery failed: ${e instanceof Error ? e.message : String(e)}`))
     .finally(() => (delivering = false));

@@ -1,7 +1,14 @@
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { currentActor } from "@/features/access/server/current";
-import { ACCOUNT_MESSAGE_KINDS, fakeEmailOutboxUrl, getOutboxMessage, listOutbox, localOutboxEnabled, maskLinks } from "@/features/messages/server/list";
+import {
+  ACCOUNT_MESSAGE_KINDS,
+  fakeEmailOutboxUrl,
+  getOutboxMessage,
+  listOutbox,
+  localOutboxEnabled,
+  maskLinks,
+} from "@/features/messages/server/list";
 
 export const metadata = { title: "Outbox" };
 export const dynamic = "force-dynamic";
@@ -23,10 +30,10 @@ export default async function OutboxPage({ searchParams }: { searchParams: Promi
       <div>
         <h1 className="text-2xl font-bold">Outbox</h1>
         <p className="text-sm text-ink-soft">
-          Messages Tidemark queued on this local installation, newest first, and whether the worker has sent them yet. They go
-          to the local e-mail fake (its own outbox is at {fakeEmailOutboxUrl()}); nothing leaves the machine.
-          Links that open an account (password resets, invitations, address confirmations) are hidden here; the recipient
-          reads them in the e-mail fake&apos;s inbox.
+          Messages Tidemark queued on this local installation, newest first, and whether the worker has sent them yet.
+          They go to the local e-mail fake (its own outbox is at {fakeEmailOutboxUrl()}); nothing leaves the machine.
+          Links that open an account (password resets, invitations, address confirmations) are hidden here; the
+          recipient reads them in the e-mail fake&apos;s inbox.
         </p>
       </div>
       <div className="grid gap-6 lg:grid-cols-[2fr_3fr]">
@@ -37,9 +44,13 @@ export default async function OutboxPage({ searchParams }: { searchParams: Promi
             <ul className="divide-y divide-rule">
               {messages.map((m) => (
                 <li key={m.id} className="py-2">
-                  <Link href={`/outbox?id=${m.id}`} className="font-semibold text-tide hover:underline">{m.subject}</Link>
+                  <Link href={`/outbox?id=${m.id}`} className="font-semibold text-tide hover:underline">
+                    {m.subject}
+                  </Link>
                   <p className="text-xs text-ink-soft">
-                    to {m.to} · {m.kind.replaceAll("_", " ")} · <time dateTime={m.createdAt.toISOString()}>{formatter.format(m.createdAt)} UTC</time> · {STATUS[m.status]}
+                    to {m.to} · {m.kind.replaceAll("_", " ")} ·{" "}
+                    <time dateTime={m.createdAt.toISOString()}>{formatter.format(m.createdAt)} UTC</time> ·{" "}
+                    {STATUS[m.status]}
                   </p>
                 </li>
               ))}
@@ -50,12 +61,17 @@ export default async function OutboxPage({ searchParams }: { searchParams: Promi
           {message ? (
             <article className="space-y-3">
               <h2 className="text-lg font-bold">{message.subject}</h2>
-              <p className="text-sm text-ink-soft">To {message.to} · {STATUS[message.status]}{message.lastError ? ` (last attempt: ${message.lastError})` : ""}</p>
+              <p className="text-sm text-ink-soft">
+                To {message.to} · {STATUS[message.status]}
+                {message.lastError ? ` (last attempt: ${message.lastError})` : ""}
+              </p>
               <pre className="whitespace-pre-wrap font-sans text-sm" data-testid="outbox-text">
                 {ACCOUNT_MESSAGE_KINDS.has(message.kind) ? maskLinks(message.text) : message.text}
               </pre>
               {typeof message.meta.url === "string" && !ACCOUNT_MESSAGE_KINDS.has(message.kind) ? (
-                <a href={message.meta.url} className="btn-quiet">Open the link in this message</a>
+                <a href={message.meta.url} className="btn-quiet">
+                  Open the link in this message
+                </a>
               ) : null}
             </article>
           ) : (

@@ -3,7 +3,11 @@ import { ResetPasswordForm } from "@/features/auth/components/PasswordResetForms
 
 export const metadata = { title: "Choose a new password" };
 
-export default async function ResetPasswordPage({ searchParams }: { searchParams: Promise<{ token?: string; error?: string }> }) {
+export default async function ResetPasswordPage({
+  searchParams,
+}: {
+  searchParams: Promise<{ token?: string; error?: string }>;
+}) {
   const { token, error } = await searchParams;
   return (
     <div className="mx-auto max-w-sm">
@@ -14,7 +18,10 @@ export default async function ResetPasswordPage({ searchParams }: { searchParams
         ) : (
           <p role="alert" className="text-sm">
             This reset link has expired or was already used.{" "}
-            <Link href="/forgot-password" className="font-semibold text-tide hover:underline">Ask for a new link</Link>.
+            <Link href="/forgot-password" className="font-semibold text-tide hover:underline">
+              Ask for a new link
+            </Link>
+            .
           </p>
         )}
       </div>

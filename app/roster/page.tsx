@@ -19,8 +19,14 @@ export default async function RosterPage({ searchParams }: { searchParams: Promi
         <h1 className="text-xl font-bold">The roster is for coaches</h1>
         <p>Your account is not a coach of any squad, so there is no roster to show.</p>
         <p className="flex gap-3">
-          {actor.memberships.some((m) => m.role === "athlete") ? <Link href="/today" className="btn">Go to today</Link> : null}
-          <Link href="/squads/new" className="btn-quiet">Start a squad of your own</Link>
+          {actor.memberships.some((m) => m.role === "athlete") ? (
+            <Link href="/today" className="btn">
+              Go to today
+            </Link>
+          ) : null}
+          <Link href="/squads/new" className="btn-quiet">
+            Start a squad of your own
+          </Link>
         </p>
       </div>
     );
@@ -34,12 +40,21 @@ export default async function RosterPage({ searchParams }: { searchParams: Promi
         <div>
           <p className="text-sm font-semibold uppercase tracking-widest text-tide">Roster</p>
           <h1 className="text-3xl font-bold">{squad.name}</h1>
-          <p className="mt-1 text-sm"><Link href={`/roster/week?squad=${squad.id}`} className="text-tide underline">The squad&apos;s week: every athlete&apos;s plan side by side</Link></p>
+          <p className="mt-1 text-sm">
+            <Link href={`/roster/week?squad=${squad.id}`} className="text-tide underline">
+              The squad&apos;s week: every athlete&apos;s plan side by side
+            </Link>
+          </p>
         </div>
         {squads.length > 1 ? (
           <nav aria-label="Squads" className="flex gap-2 text-sm">
             {squads.map((s) => (
-              <Link key={s.id} href={`/roster?squad=${s.id}`} aria-current={s.id === squad.id ? "page" : undefined} className={s.id === squad.id ? "btn" : "btn-quiet"}>
+              <Link
+                key={s.id}
+                href={`/roster?squad=${s.id}`}
+                aria-current={s.id === squad.id ? "page" : undefined}
+                className={s.id === squad.id ? "btn" : "btn-quiet"}
+              >
                 {s.name}
               </Link>
             ))}
@@ -50,7 +65,11 @@ export default async function RosterPage({ searchParams }: { searchParams: Promi
         <section className="card" aria-label="Athletes">
           <RosterTable squadId={squad.id} />
         </section>
-        {manages ? <div className="max-w-xl"><InvitePanel squadId={squad.id} fakeInbox={localOutboxEnabled() ? fakeEmailOutboxUrl() : null} /></div> : null}
+        {manages ? (
+          <div className="max-w-xl">
+            <InvitePanel squadId={squad.id} fakeInbox={localOutboxEnabled() ? fakeEmailOutboxUrl() : null} />
+          </div>
+        ) : null}
       </div>
     </div>
   );

@@ -13,28 +13,45 @@ export default async function SettingsPage({ searchParams }: { searchParams: Pro
   const { welcome } = await searchParams;
   const isAthlete = actor.memberships.some((m) => m.role === "athlete");
   const isCoach = actor.memberships.some((m) => m.role !== "athlete");
-  const [settings, profile] = await Promise.all([getNotificationSettings(actor), isAthlete ? getAthleteProfile(actor, actor.userId).then((p) => p.profile) : Promise.resolve(null)]);
+  const [settings, profile] = await Promise.all([
+    getNotificationSettings(actor),
+    isAthlete ? getAthleteProfile(actor, actor.userId).then((p) => p.profile) : Promise.resolve(null),
+  ]);
   return (
     <div className="mx-auto max-w-2xl space-y-4">
       <h1 className="text-2xl font-bold">Settings</h1>
-      {welcome ? <FormNotice>Welcome to your squad. Set your time zone and when you want session reminders, then save.</FormNotice> : null}
+      {welcome ? (
+        <FormNotice>
+          Welcome to your squad. Set your time zone and when you want session reminders, then save.
+        </FormNotice>
+      ) : null}
       {profile ? (
         <section className="card space-y-2" aria-labelledby="profile-h">
-          <h2 id="profile-h" className="text-lg font-bold">Your profile and reminders</h2>
-          <p className="text-sm text-ink-soft">Session and retest reminders come by e-mail at the time you choose here, in your time zone.</p>
+          <h2 id="profile-h" className="text-lg font-bold">
+            Your profile and reminders
+          </h2>
+          <p className="text-sm text-ink-soft">
+            Session and retest reminders come by e-mail at the time you choose here, in your time zone.
+          </p>
           <ProfileForm athleteId={actor.userId} initial={profile} isSelf />
         </section>
       ) : null}
       {isCoach ? (
         <section className="card space-y-2" aria-labelledby="digest-h">
-          <h2 id="digest-h" className="text-lg font-bold">Coach e-mail</h2>
+          <h2 id="digest-h" className="text-lg font-bold">
+            Coach e-mail
+          </h2>
           <CoachDigestSettings initial={{ timeZone: settings.timeZone, coachDigest: settings.coachDigest }} />
         </section>
       ) : null}
       {isAthlete ? (
         <section className="card space-y-2" aria-labelledby="feed-h">
-          <h2 id="feed-h" className="text-lg font-bold">Calendar feed</h2>
-          <CalendarFeedSettings initialUrl={settings.calendarToken ? `${publicOrigin()}/api/calendar/${settings.calendarToken}.ics` : null} />
+          <h2 id="feed-h" className="text-lg font-bold">
+            Calendar feed
+          </h2>
+          <CalendarFeedSettings
+            initialUrl={settings.calendarToken ? `${publicOrigin()}/api/calendar/${settings.calendarToken}.ics` : null}
+          />
         </section>
       ) : null}
       {!isAthlete && !isCoach ? <p className="card">Join a squad to set up reminders and e-mail.</p> : null}

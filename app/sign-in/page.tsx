@@ -12,8 +12,11 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
         <SignInForm next={typeof next === "string" ? next : undefined} />
       </div>
       <p className="mt-4 text-sm text-ink-soft">
-        New coach? <Link href="/sign-up" className="font-semibold text-tide hover:underline">Create an account</Link>. Athletes join
-        through their coach&apos;s invitation.
+        New coach?{" "}
+        <Link href="/sign-up" className="font-semibold text-tide hover:underline">
+          Create an account
+        </Link>
+        . Athletes join through their coach&apos;s invitation.
       </p>
     </div>
   );

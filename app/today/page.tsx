@@ -17,7 +17,10 @@ import { ReadinessBanner } from "@/features/athlete-tests/components/ReadinessBa
 export const metadata = { title: "Today" };
 
 // A calendar day is already local to the athlete: format it as a plain date.
-const dayName = (iso: string) => new Intl.DateTimeFormat("en-GB", { timeZone: "UTC", weekday: "long", day: "numeric", month: "short" }).format(new Date(`${iso}T12:00:00Z`));
+const dayName = (iso: string) =>
+  new Intl.DateTimeFormat("en-GB", { timeZone: "UTC", weekday: "long", day: "numeric", month: "short" }).format(
+    new Date(`${iso}T12:00:00Z`),
+  );
 
 export default async function TodayPage() {
   const actor = await requirePageActor("/today");
@@ -28,13 +31,19 @@ export default async function TodayPage() {
       <div className="mx-auto max-w-lg card space-y-3">
         <h1 className="text-xl font-bold">Today is for athletes</h1>
         <p>You are not an athlete of any squad. Athletes join through an invitation from their coach.</p>
-        <Link href="/home" className="btn-quiet">Go to your home</Link>
+        <Link href="/home" className="btn-quiet">
+          Go to your home
+        </Link>
       </div>
     );
   }
   const { profile } = await getAthleteProfile(actor, actor.userId);
   const today = localDate(new Date(), profile.timeZone);
-  const [{ cards, unplanned }, retest, ready] = await Promise.all([sessionCards(actor, actor.userId, today, addDays(today, 6)), nextRetestOf(actor, actor.userId, today), readinessOf(actor.userId)]);
+  const [{ cards, unplanned }, retest, ready] = await Promise.all([
+    sessionCards(actor, actor.userId, today, addDays(today, 6)),
+    nextRetestOf(actor, actor.userId, today),
+    readinessOf(actor.userId),
+  ]);
   const todays = cards.filter((c) => c.date === today);
   const ahead = cards.filter((c) => c.date > today);
   const retestIn = retest ? Math.round((Date.parse(retest.date) - Date.parse(today)) / 86_400_000) : null;
@@ -46,43 +55,85 @@ export default async function TodayPage() {
       </div>
       <ReadinessBanner readiness={ready} athleteId={actor.userId} context="today" />
       <section aria-labelledby="sessions-heading" className="space-y-3">
-        <h2 id="sessions-heading" className="text-lg font-bold">Today&apos;s sessions</h2>
-        {todays.length === 0 ? <p className="card text-ink-soft">Nothing is planned for today: a rest day, or log something you did below.</p> : todays.map((c) => <SessionCard key={c.id} s={c} canLog />)}
+        <h2 id="sessions-heading" className="text-lg font-bold">
+          Today&apos;s sessions
+        </h2>
+        {todays.length === 0 ? (
+          <p className="card text-ink-soft">
+            Nothing is planned for today: a rest day, or log something you did below.
+          </p>
+        ) : (
+          todays.map((c) => <SessionCard key={c.id} s={c} canLog />)
+        )}
       </section>
       <div className="grid gap-6 md:grid-cols-2">
         <section className="card" aria-labelledby="week-heading">
-          <h2 id="week-heading" className="text-lg font-bold">The week ahead</h2>
-          {ahead.length === 0 ? <p className="mt-2 text-ink-soft">Nothing planned in the next six days yet.</p> : (
+          <h2 id="week-heading" className="text-lg font-bold">
+            The week ahead
+          </h2>
+          {ahead.length === 0 ? (
+            <p className="mt-2 text-ink-soft">Nothing planned in the next six days yet.</p>
+          ) : (
             <ul className="mt-2 divide-y divide-rule/70">
               {ahead.map((c) => (
                 <li key={c.id} className="flex flex-wrap items-baseline justify-between gap-2 py-2 text-sm">
-                  <span><span className="font-semibold">{dayName(c.date)}</span> · {c.kind === "retest" ? "⟳ " : ""}{c.title}</span>
-                  <span className="num text-ink-soft">{Math.round(c.totalS / 60)} min{c.log ? ` · ${LOG_STATUS_LABELS[c.log.status]}` : ""}</span>
+                  <span>
+                    <span className="font-semibold">{dayName(c.date)}</span> · {c.kind === "retest" ? "⟳ " : ""}
+                    {c.title}
+                  </span>
+                  <span className="num text-ink-soft">
+                    {Math.round(c.totalS / 60)} min{c.log ? ` · ${LOG_STATUS_LABELS[c.log.status]}` : ""}
+                  </span>
                 </li>
               ))}
             </ul>
           )}
-          <Link href={`/athletes/${actor.userId}/plan`} className="btn-quiet mt-3">My plan and calendar</Link>
+          <Link href={`/athletes/${actor.userId}/plan`} className="btn-quiet mt-3">
+            My plan and calendar
+          </Link>
         </section>
         <section className="card" aria-labelledby="retest-heading">
-          <h2 id="retest-heading" className="text-lg font-bold">Next retest</h2>
+          <h2 id="retest-heading" className="text-lg font-bold">
+            Next retest
+          </h2>
           {retest ? (
             <>
-              <p className="mt-2"><span className="font-semibold">{dayName(retest.date)}</span> <span className="num text-ink-soft">({retestIn === 0 ? "today" : `in ${retestIn} day${retestIn === 1 ? "" : "s"}`})</span></p>
-              <p className="mt-1 text-sm text-ink-soft">Come rested: an easy day before, no hard training in the last 48 hours, your usual meal 2–3 hours ahead. Answer the readiness questions before the test.</p>
-              <Link href={`/athletes/${actor.userId}/screening`} className="btn-quiet mt-3">Readiness questions</Link>
+              <p className="mt-2">
+                <span className="font-semibold">{dayName(retest.date)}</span>{" "}
+                <span className="num text-ink-soft">
+                  ({retestIn === 0 ? "today" : `in ${retestIn} day${retestIn === 1 ? "" : "s"}`})
+                </span>
+              </p>
+              <p className="mt-1 text-sm text-ink-soft">
+                Come rested: an easy day before, no hard training in the last 48 hours, your usual meal 2–3 hours ahead.
+                Answer the readiness questions before the test.
+              </p>
+              <Link href={`/athletes/${actor.userId}/screening`} className="btn-quiet mt-3">
+                Readiness questions
+              </Link>
             </>
-          ) : <p className="mt-2 text-ink-soft">No retest is planned yet; your coach places one every 12–16 weeks.</p>}
+          ) : (
+            <p className="mt-2 text-ink-soft">No retest is planned yet; your coach places one every 12–16 weeks.</p>
+          )}
         </section>
       </div>
       <section className="card space-y-3" aria-labelledby="unplanned-heading">
-        <h2 id="unplanned-heading" className="text-lg font-bold">Log an unplanned session</h2>
-        {unplanned.length ? <p className="text-sm text-ink-soft">Logged this week without a plan: {unplanned.map((u) => `${u.title} (${Math.round(u.durationMin ?? 0)} min)`).join(", ")}.</p> : null}
+        <h2 id="unplanned-heading" className="text-lg font-bold">
+          Log an unplanned session
+        </h2>
+        {unplanned.length ? (
+          <p className="text-sm text-ink-soft">
+            Logged this week without a plan:{" "}
+            {unplanned.map((u) => `${u.title} (${Math.round(u.durationMin ?? 0)} min)`).join(", ")}.
+          </p>
+        ) : null}
         <UnplannedLogForm athleteId={actor.userId} today={today} defaultSport={profile.sports[0] ?? "running"} />
       </section>
       <div className="grid gap-6 md:grid-cols-2">
         <section className="card" aria-labelledby="squad-heading">
-          <h2 id="squad-heading" className="text-lg font-bold">Your squad</h2>
+          <h2 id="squad-heading" className="text-lg font-bold">
+            Your squad
+          </h2>
           <ul className="mt-2 space-y-1">
             {athleteSquads.map((s) => (
               <li key={s.id}>
@@ -90,10 +141,14 @@ export default async function TodayPage() {
               </li>
             ))}
           </ul>
-          <Link href={`/athletes/${actor.userId}`} className="btn-quiet mt-3">My zones, tests and load</Link>
+          <Link href={`/athletes/${actor.userId}`} className="btn-quiet mt-3">
+            My zones, tests and load
+          </Link>
         </section>
         <section className="card" aria-labelledby="profile-heading">
-          <h2 id="profile-heading" className="text-lg font-bold">Your profile</h2>
+          <h2 id="profile-heading" className="text-lg font-bold">
+            Your profile
+          </h2>
           <dl className="mt-2 grid grid-cols-2 gap-x-4 gap-y-1 text-sm">
             <dt className="text-ink-soft">Sports</dt>
             <dd>{profile.sports.length ? profile.sports.map((s) => SPORT_LABELS[s]).join(", ") : "not set"}</dd>
@@ -104,9 +159,15 @@ export default async function TodayPage() {
             <dt className="text-ink-soft">Time zone</dt>
             <dd>{profile.timeZone}</dd>
             <dt className="text-ink-soft">Session reminders</dt>
-            <dd className="num">{profile.reminderTiming === "off" ? "off" : `${profile.reminderTiming === "evening_before" ? "evening before" : "morning of"}, ${profile.reminderTime}`}</dd>
+            <dd className="num">
+              {profile.reminderTiming === "off"
+                ? "off"
+                : `${profile.reminderTiming === "evening_before" ? "evening before" : "morning of"}, ${profile.reminderTime}`}
+            </dd>
           </dl>
-          <Link href="/settings" className="btn-quiet mt-4">Edit profile and reminders</Link>
+          <Link href="/settings" className="btn-quiet mt-4">
+            Edit profile and reminders
+          </Link>
         </section>
       </div>
     </div>

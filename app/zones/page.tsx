@@ -10,7 +10,12 @@ export const metadata = { title: "My zones" };
 export default async function MyZonesPage() {
   const actor = await requirePageActor("/zones");
   if (!actor.memberships.some((m) => m.role === "athlete")) {
-    return <div className="mx-auto max-w-lg card"><h1 className="text-xl font-bold">Zones belong to athletes</h1><p className="mt-2">Open an athlete from the roster to see their zones.</p></div>;
+    return (
+      <div className="mx-auto max-w-lg card">
+        <h1 className="text-xl font-bold">Zones belong to athletes</h1>
+        <p className="mt-2">Open an athlete from the roster to see their zones.</p>
+      </div>
+    );
   }
   const [zones, tests] = await Promise.all([getZones(actor, actor.userId), listTests(actor, actor.userId)]);
   return (
@@ -21,13 +26,27 @@ export default async function MyZonesPage() {
         <ZoneSetList history={zones.history} />
       </section>
       <section className="card" aria-labelledby="my-tests">
-        <h2 id="my-tests" className="mb-2 text-lg font-bold">My tests</h2>
+        <h2 id="my-tests" className="mb-2 text-lg font-bold">
+          My tests
+        </h2>
         {tests.length ? (
           <ul className="space-y-1">
-            {tests.map((t) => <li key={t.id}><Link href={`/tests/${t.id}`} className="text-tide underline">{KIND_LABELS[t.kind]} · {t.date}</Link></li>)}
+            {tests.map((t) => (
+              <li key={t.id}>
+                <Link href={`/tests/${t.id}`} className="text-tide underline">
+                  {KIND_LABELS[t.kind]} · {t.date}
+                </Link>
+              </li>
+            ))}
           </ul>
-        ) : <p className="text-ink-soft">No tests yet.</p>}
-        <p className="mt-3 text-sm"><Link href={`/athletes/${actor.userId}/screening`} className="font-semibold text-tide underline">Readiness questions before a test</Link></p>
+        ) : (
+          <p className="text-ink-soft">No tests yet.</p>
+        )}
+        <p className="mt-3 text-sm">
+          <Link href={`/athletes/${actor.userId}/screening`} className="font-semibold text-tide underline">
+            Readiness questions before a test
+          </Link>
+        </p>
       </section>
     </div>
   );

@@ -8,9 +8,12 @@ import type { ProfileInput } from "./schemas";
 export function useSaveProfile(athleteId: string) {
   return useMutation({
     mutationFn: (profile: ProfileInput & { version?: number }) =>
-      apiFetch<{ profile: ProfileInput & { version: number } }>(`/api/athletes/${encodeURIComponent(athleteId)}/profile`, {
-        method: "PATCH",
-        body: JSON.stringify(profile),
-      }),
+      apiFetch<{ profile: ProfileInput & { version: number } }>(
+        `/api/athletes/${encodeURIComponent(athleteId)}/profile`,
+        {
+          method: "PATCH",
+          body: JSON.stringify(profile),
+        },
+      ),
   });
 }

@@ -8,13 +8,15 @@ export const signInSchema = z.object({
   password: z.string().min(1, "Enter your password."),
 });
 
-export const passwordSchema = z
-  .string()
-  .min(10, "Use at least 10 characters.")
-  .max(128, "Use at most 128 characters.");
+export const passwordSchema = z.string().min(10, "Use at least 10 characters.").max(128, "Use at most 128 characters.");
 
 /** A person's name: also checked on the server for sign-up and profile changes (auth.ts). */
-export const personNameSchema = z.string().trim().min(2, "Enter your name (at least 2 characters).").max(80, "Keep your name under 80 characters.").refine(isSingleLine, SINGLE_LINE_MESSAGE);
+export const personNameSchema = z
+  .string()
+  .trim()
+  .min(2, "Enter your name (at least 2 characters).")
+  .max(80, "Keep your name under 80 characters.")
+  .refine(isSingleLine, SINGLE_LINE_MESSAGE);
 
 export const signUpSchema = z.object({
   name: personNameSchema,

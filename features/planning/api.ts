@@ -18,7 +18,14 @@ export interface SessionDto {
   version: number;
   structure: Block[];
   notes: string;
-  log: { id: string; status: "done" | "partial" | "skipped"; durationMin: number | null; rpe: number | null; measuredMinByZone: [number, number, number] | null; compliance: number } | null;
+  log: {
+    id: string;
+    status: "done" | "partial" | "skipped";
+    durationMin: number | null;
+    rpe: number | null;
+    measuredMinByZone: [number, number, number] | null;
+    compliance: number;
+  } | null;
 }
 
 /** The planner's queries: one factory per query, so keys are written once (TanStack Query's `queryOptions`). */
@@ -28,14 +35,25 @@ export const planQueries = {
   /** Every cached range of an athlete's weekly summaries (for invalidation). */
   weeksOf: (athleteId: string) => ["weeks", athleteId] as const,
   sessions: (athleteId: string, from: string, to: string) =>
-    queryOptions({ queryKey: [...planQueries.sessionsOf(athleteId), from, to], queryFn: () => apiFetch<SessionDto[]>(`/api/athletes/${athleteId}/sessions?from=${from}&to=${to}`), enabled: !!from }),
+    queryOptions({
+      queryKey: [...planQueries.sessionsOf(athleteId), from, to],
+      queryFn: () => apiFetch<SessionDto[]>(`/api/athletes/${athleteId}/sessions?from=${from}&to=${to}`),
+      enabled: !!from,
+    }),
   weeks: (athleteId: string, from: string, to: string) =>
-    queryOptions({ queryKey: [...planQueries.weeksOf(athleteId), from, to], queryFn: () => apiFetch<WeekSummary[]>(`/api/athletes/${athleteId}/weeks?from=${from}&to=${to}`), enabled: !!from }),
+    queryOptions({
+      queryKey: [...planQueries.weeksOf(athleteId), from, to],
+      queryFn: () => apiFetch<WeekSummary[]>(`/api/athletes/${athleteId}/weeks?from=${from}&to=${to}`),
+      enabled: !!from,
+    }),
 };
 
 /** After any change to an athlete's plan: their sessions and weekly summaries are fetched again. */
 export function invalidatePlan(qc: QueryClient, athleteId: string) {
-  return Promise.all([qc.invalidateQueries({ queryKey: planQueries.sessionsOf(athleteId) }), qc.invalidateQueries({ queryKey: planQueries.weeksOf(athleteId) })]);
+  return Promise.all([
+    qc.invalidateQueries({ queryKey: planQueries.sessionsOf(athleteId) }),
+    qc.invalidateQueries({ queryKey: planQueries.weeksOf(athleteId) }),
+  ]);
 }
 
 export function useSessions(athleteId: string, from: string, to: string) {
@@ -52,7 +70,14 @@ export function useMoveSession(athleteId: string, from: string, to: string) {
   const key = planQueries.sessions(athleteId, from, to).queryKey;
   return useMutation({
     mutationFn: (v: { id: string; date: string; scope?: "one" | "series"; version?: number }) =>
-      apiFetch(`/api/sessions/${v.id}`, { method: "PATCH", body: JSON.stringify({ date: v.date, scope: v.scope ?? "one", version: v.version ?? qc.getQueryData<SessionDto[]>(key)?.find((s) => s.id === v.id)?.version }) }),
+      apiFetch(`/api/sessions/${v.id}`, {
+        method: "PATCH",
+        body: JSON.stringify({
+          date: v.date,
+          scope: v.scope ?? "one",
+          version: v.version ?? qc.getQueryData<SessionDto[]>(key)?.find((s) => s.id === v.id)?.version,
+        }),
+      }),
     onMutate: async (v) => {
       await qc.cancelQueries({ queryKey: key });
       const previous = qc.getQueryData<SessionDto[]>(key);
@@ -69,7 +94,8 @@ export function useMoveSession(athleteId: string, from: string, to: string) {
 export function useCreateSession(athleteId: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (body: unknown) => apiFetch<{ id: string }>(`/api/athletes/${athleteId}/sessions`, { method: "POST", body: JSON.stringify(body) }),
+    mutationFn: (body: unknown) =>
+      apiFetch<{ id: string }>(`/api/athletes/${athleteId}/sessions`, { method: "POST", body: JSON.stringify(body) }),
     onSettled: () => invalidatePlan(qc, athleteId),
   });
 }
@@ -77,7 +103,8 @@ export function useCreateSession(athleteId: string) {
 export function useDeleteSession(athleteId: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (v: { id: string; scope: "one" | "series" }) => apiFetch(`/api/sessions/${v.id}?scope=${v.scope}`, { method: "DELETE" }),
+    mutationFn: (v: { id: string; scope: "one" | "series" }) =>
+      apiFetch(`/api/sessions/${v.id}?scope=${v.scope}`, { method: "DELETE" }),
     onSettled: () => invalidatePlan(qc, athleteId),
   });
 }

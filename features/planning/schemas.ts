@@ -10,28 +10,41 @@ export { isoDate };
 
 export const templateSchema = z.object({
   squadId: z.string().min(1, "Choose the squad."),
-  name: z.string().trim().min(2, "Name the template (at least 2 characters).").max(80, "Keep the name under 80 characters.").refine(isSingleLine, SINGLE_LINE_MESSAGE),
+  name: z
+    .string()
+    .trim()
+    .min(2, "Name the template (at least 2 characters).")
+    .max(80, "Keep the name under 80 characters.")
+    .refine(isSingleLine, SINGLE_LINE_MESSAGE),
   sport: z.enum(SPORTS, { error: "Choose a sport." }),
-  description: z.string().trim().max(500, "Keep the description under 500 characters.").refine(isPlainText, PLAIN_TEXT_MESSAGE).default(""),
+  description: z
+    .string()
+    .trim()
+    .max(500, "Keep the description under 500 characters.")
+    .refine(isPlainText, PLAIN_TEXT_MESSAGE)
+    .default(""),
   structure: structureSchema,
 });
 
 export const templatePatchSchema = templateSchema.omit({ squadId: true }).partial().extend({ version: versionField });
 
-export const createSessionSchema = z.union([
-  z.object({ date: isoDate, templateId: z.string().min(1), repeat: repeatSchema.optional() }).strict(),
-  z
-    .object({
-      date: isoDate,
-      title: z.string().trim().min(1, "Give the session a title.").max(80).refine(isSingleLine, SINGLE_LINE_MESSAGE),
-      sport: z.enum(SPORTS, { error: "Choose a sport." }),
-      kind: z.enum(["training", "retest"]).default("training"),
-      structure: structureSchema,
-      notes: z.string().max(1000).refine(isPlainText, PLAIN_TEXT_MESSAGE).optional(),
-      repeat: repeatSchema.optional(),
-    })
-    .strict(),
-], { error: "Send {date, templateId} or a full session {date, title, sport, structure}." });
+export const createSessionSchema = z.union(
+  [
+    z.object({ date: isoDate, templateId: z.string().min(1), repeat: repeatSchema.optional() }).strict(),
+    z
+      .object({
+        date: isoDate,
+        title: z.string().trim().min(1, "Give the session a title.").max(80).refine(isSingleLine, SINGLE_LINE_MESSAGE),
+        sport: z.enum(SPORTS, { error: "Choose a sport." }),
+        kind: z.enum(["training", "retest"]).default("training"),
+        structure: structureSchema,
+        notes: z.string().max(1000).refine(isPlainText, PLAIN_TEXT_MESSAGE).optional(),
+        repeat: repeatSchema.optional(),
+      })
+      .strict(),
+  ],
+  { error: "Send {date, templateId} or a full session {date, title, sport, structure}." },
+);
 
 export const patchSessionSchema = z
   .object({
@@ -43,28 +56,63 @@ export const patchSessionSchema = z
     /** The session's version as the client read it; an older one answers 409. */
     version: versionField,
   })
-  .refine((p) => p.date !== undefined || p.title !== undefined || p.structure !== undefined || p.notes !== undefined, { message: "Nothing to change." });
+  .refine((p) => p.date !== undefined || p.title !== undefined || p.structure !== undefined || p.notes !== undefined, {
+    message: "Nothing to change.",
+  });
 
-export const rangeQuery = z.object({ from: isoDate, to: isoDate }).refine((q) => q.from <= q.to, { message: "from must not be after to." }).refine((q) => Date.parse(q.to) - Date.parse(q.from) <= 400 * 86_400_000, { message: "Ask for at most 400 days at a time." });
+export const rangeQuery = z
+  .object({ from: isoDate, to: isoDate })
+  .refine((q) => q.from <= q.to, { message: "from must not be after to." })
+  .refine((q) => Date.parse(q.to) - Date.parse(q.from) <= 400 * 86_400_000, {
+    message: "Ask for at most 400 days at a time.",
+  });
 
 export const seasonSchema = z.object({
   name: z.string().trim().min(2, "Name the season.").max(80).refine(isSingleLine, SINGLE_LINE_MESSAGE),
   sport: z.enum(SPORTS, { error: "Choose a sport." }),
   startDate: isoDate,
-  events: z.array(z.object({ date: isoDate, name: z.string().trim().min(1, "Name the event.").max(80).refine(isSingleLine, SINGLE_LINE_MESSAGE) })).min(1, "Give at least one event.").max(8),
-  weeklyHours: z.number({ error: "Give weekly hours." }).positive("Weekly hours must be above 0.").max(40, "At most 40 hours a week."),
+  events: z
+    .array(
+      z.object({
+        date: isoDate,
+        name: z.string().trim().min(1, "Name the event.").max(80).refine(isSingleLine, SINGLE_LINE_MESSAGE),
+      }),
+    )
+    .min(1, "Give at least one event.")
+    .max(8),
+  weeklyHours: z
+    .number({ error: "Give weekly hours." })
+    .positive("Weekly hours must be above 0.")
+    .max(40, "At most 40 hours a week."),
   level: z.enum(["trained", "beginner"]).default("trained"),
   loadingWeeks: z.union([z.literal(2), z.literal(3)]).default(3),
-  retestEveryWeeks: z.number().int().min(12, "Retests come every 12 to 16 weeks.").max(16, "Retests come every 12 to 16 weeks.").default(12),
+  retestEveryWeeks: z
+    .number()
+    .int()
+    .min(12, "Retests come every 12 to 16 weeks.")
+    .max(16, "Retests come every 12 to 16 weeks.")
+    .default(12),
 });
 
 /** A coach's edit of one generated season week; the retest flag adds or removes that week's retest session. */
 export const seasonWeekPatchSchema = z
   .object({
-    block: z.enum(["general_preparation", "specific_preparation", "pre_competition", "taper", "competition", "transition"], { error: "Choose a block." }).optional(),
-    role: z.enum(["loading", "unloading", "taper", "event", "recovery"], { error: "Choose the week's role." }).optional(),
-    volumeHours: z.number({ error: "Give the week's volume in hours." }).min(0, "Volume cannot be negative.").max(40, "At most 40 hours a week.").optional(),
-    budget: z.enum(["polarised", "pyramidal", "beginner", "recovery"], { error: "Choose an intensity budget." }).optional(),
+    block: z
+      .enum(["general_preparation", "specific_preparation", "pre_competition", "taper", "competition", "transition"], {
+        error: "Choose a block.",
+      })
+      .optional(),
+    role: z
+      .enum(["loading", "unloading", "taper", "event", "recovery"], { error: "Choose the week's role." })
+      .optional(),
+    volumeHours: z
+      .number({ error: "Give the week's volume in hours." })
+      .min(0, "Volume cannot be negative.")
+      .max(40, "At most 40 hours a week.")
+      .optional(),
+    budget: z
+      .enum(["polarised", "pyramidal", "beginner", "recovery"], { error: "Choose an intensity budget." })
+      .optional(),
     retest: z.boolean().optional(),
     /** The season's version as the client read it; an older one answers 409. */
     version: versionField,

@@ -16,9 +16,16 @@ export async function acceptInvitationRequest(token: string): Promise<{ ok: true
 /** The squad's queries, one factory each (TanStack Query's `queryOptions`). */
 export const squadQueries = {
   roster: (squadId: string) =>
-    queryOptions({ queryKey: ["roster", squadId] as const, queryFn: () => apiFetch<{ squadId: string | null; rows: RosterRow[] }>(`/api/roster?squad=${encodeURIComponent(squadId)}`) }),
+    queryOptions({
+      queryKey: ["roster", squadId] as const,
+      queryFn: () =>
+        apiFetch<{ squadId: string | null; rows: RosterRow[] }>(`/api/roster?squad=${encodeURIComponent(squadId)}`),
+    }),
   invitations: (squadId: string) =>
-    queryOptions({ queryKey: ["invitations", squadId] as const, queryFn: () => apiFetch<OpenInvitation[]>(`/api/squads/${encodeURIComponent(squadId)}/invitations`) }),
+    queryOptions({
+      queryKey: ["invitations", squadId] as const,
+      queryFn: () => apiFetch<OpenInvitation[]>(`/api/squads/${encodeURIComponent(squadId)}/invitations`),
+    }),
 };
 
 export function useRoster(squadId: string) {
@@ -40,7 +47,9 @@ export function useWithdrawInvitation(squadId: string) {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: (invitationId: string) =>
-      apiFetch<void>(`/api/squads/${encodeURIComponent(squadId)}/invitations/${encodeURIComponent(invitationId)}`, { method: "DELETE" }),
+      apiFetch<void>(`/api/squads/${encodeURIComponent(squadId)}/invitations/${encodeURIComponent(invitationId)}`, {
+        method: "DELETE",
+      }),
     onSuccess: () => qc.invalidateQueries({ queryKey: squadQueries.invitations(squadId).queryKey }),
   });
 }

@@ -8,7 +8,12 @@ export const squadRoleSchema = z.enum(["head_coach", "coach", "athlete"], {
 export const ROLE_LABELS = { head_coach: "head coach", coach: "coach", athlete: "athlete" } as const;
 
 export const createSquadSchema = z.object({
-  name: z.string().trim().min(2, "Give the squad a name of at least 2 characters.").max(80, "Keep the name under 80 characters.").refine(isSingleLine, SINGLE_LINE_MESSAGE),
+  name: z
+    .string()
+    .trim()
+    .min(2, "Give the squad a name of at least 2 characters.")
+    .max(80, "Keep the name under 80 characters.")
+    .refine(isSingleLine, SINGLE_LINE_MESSAGE),
 });
 
 export const inviteSchema = z.object({
@@ -17,5 +22,3 @@ export const inviteSchema = z.object({
 });
 
 export type InviteInput = z.infer<typeof inviteSchema>;
-
-

@@ -15,9 +15,12 @@ afterAll(async () => {
 function mondayInWeeks(weeks: number): string {
   const now = new Date();
   const dow = (now.getUTCDay() + 6) % 7;
-  return new Date(Date.UTC(now.getUTCFullYear(), now.getUTCMonth(), now.getUTCDate() - dow + weeks * 7)).toISOString().slice(0, 10);
+  return new Date(Date.UTC(now.getUTCFullYear(), now.getUTCMonth(), now.getUTCDate() - dow + weeks * 7))
+    .toISOString()
+    .slice(0, 10);
 }
-const plus = (iso: string, n: number) => new Date(Date.parse(`${iso}T00:00:00Z`) + n * 86_400_000).toISOString().slice(0, 10);
+const plus = (iso: string, n: number) =>
+  new Date(Date.parse(`${iso}T00:00:00Z`) + n * 86_400_000).toISOString().slice(0, 10);
 
 /** Drags a calendar event with the mouse from its day to another day's cell, as a coach does. */
 async function dragEvent(page: Page, title: string, fromDate: string, toDate: string) {
@@ -46,10 +49,15 @@ describe("planning in the browser", () => {
     // A week beyond the demo season, different on each run so that runs against one database do not meet.
     const week = mondayInWeeks(110 + (Math.floor(Date.now() / 1000) % 400));
     // Two easy long runs in the week and the next, through the API with the coach's session.
-    const templates = (await (await page.request.get(`${BASE}/api/templates`)).json()) as { id: string; name: string }[];
+    const templates = (await (await page.request.get(`${BASE}/api/templates`)).json()) as {
+      id: string;
+      name: string;
+    }[];
     const long = templates.find((t) => t.name === "Long run 90 min")!;
     for (const d of [plus(week, 5), plus(week, 6), plus(week, 12), plus(week, 13)]) {
-      const r = await page.request.post(`${BASE}/api/athletes/${athleteId}/sessions`, { data: { date: d, templateId: long.id } });
+      const r = await page.request.post(`${BASE}/api/athletes/${athleteId}/sessions`, {
+        data: { date: d, templateId: long.id },
+      });
       expect(r.status()).toBe(201);
     }
     await page.goto(`${BASE}/athletes/${athleteId}/plan?week=${week}`);
@@ -59,11 +67,15 @@ describe("planning in the browser", () => {
     // Three sessions of 4 × 8 min above VT2 (51 min zone 1, 32 min zone 3 each): 333 min zone 1, 96 min zone 3 → 22.4 %.
     for (const d of [1, 2, 3]) {
       await dragTemplate(page, "4 × 8 min above VT2", plus(week, d));
-      await page.locator(`td.fc-day[data-date="${plus(week, d)}"] .fc-event`, { hasText: "4 × 8 min above VT2" }).waitFor();
+      await page
+        .locator(`td.fc-day[data-date="${plus(week, d)}"] .fc-event`, { hasText: "4 × 8 min above VT2" })
+        .waitFor();
     }
     await page.getByText(`Planned "4 × 8 min above VT2" on ${plus(week, 3)}.`).waitFor();
     await page.locator(`[data-testid="band-${week}"][data-over="yes"]`).waitFor();
-    await expect(band.textContent()).resolves.toMatch(/Zone 3 is 22\.4 % of the week; the polarised budget allows 20 %/);
+    await expect(band.textContent()).resolves.toMatch(
+      /Zone 3 is 22\.4 % of the week; the polarised budget allows 20 %/,
+    );
     await shot(page, "plan-over-budget");
     await band.getByRole("button", { name: "Apply the fix" }).click();
     await page.locator(`[data-testid="band-${week}"][data-over="no"]`).waitFor();
@@ -80,7 +92,14 @@ describe("planning in the browser", () => {
     await page.waitForURL(/\/athletes\/[0-9a-f-]+$/);
     const athleteId = page.url().split("/athletes/")[1]!;
     const week = mondayInWeeks(110 + (Math.floor(Date.now() / 1000) % 400));
-    const made = await page.request.post(`${BASE}/api/athletes/${athleteId}/sessions`, { data: { date: plus(week, 1), title: "Tempo ride", sport: "cycling", structure: [{ type: "step", kind: "work", durationS: 3600, zone: 2 }] } });
+    const made = await page.request.post(`${BASE}/api/athletes/${athleteId}/sessions`, {
+      data: {
+        date: plus(week, 1),
+        title: "Tempo ride",
+        sport: "cycling",
+        structure: [{ type: "step", kind: "work", durationS: 3600, zone: 2 }],
+      },
+    });
     expect(made.status()).toBe(201);
     const { id } = (await made.json()) as { id: string };
     await page.goto(`${BASE}/athletes/${athleteId}/plan?week=${week}`);
@@ -88,17 +107,23 @@ describe("planning in the browser", () => {
     // Meanwhile the assistant coach renames it (version 1 → 2).
     const assistant = await newPage(browser);
     await signIn(assistant.page, "assistant@northfold.test");
-    const renamed = await assistant.page.request.patch(`${BASE}/api/sessions/${id}`, { data: { title: "Tempo ride (shorter)", version: 1 } });
+    const renamed = await assistant.page.request.patch(`${BASE}/api/sessions/${id}`, {
+      data: { title: "Tempo ride (shorter)", version: 1 },
+    });
     expect(renamed.status()).toBe(200);
     // The head coach, still looking at version 1, moves it.
     await page.getByLabel("New day for Tempo ride").fill(plus(week, 3));
     await page.getByRole("button", { name: "Move to this day" }).click();
     await page.getByText(/Someone else changed this session since you opened it/).waitFor();
     await page.locator(".fc-event", { hasText: "Tempo ride (shorter)" }).first().waitFor();
-    await expect(page.locator(`td.fc-day[data-date="${plus(week, 1)}"] .fc-event`, { hasText: "Tempo ride (shorter)" }).count()).resolves.toBe(1);
+    await expect(
+      page.locator(`td.fc-day[data-date="${plus(week, 1)}"] .fc-event`, { hasText: "Tempo ride (shorter)" }).count(),
+    ).resolves.toBe(1);
     await shot(page, "plan-edit-conflict");
     // The refused move is the only failed request.
-    expect(problems.filter((p) => !/HTTP 409: PATCH .*\/api\/sessions\//.test(p) && !/status of 409 \(Conflict\)/.test(p))).toEqual([]);
+    expect(
+      problems.filter((p) => !/HTTP 409: PATCH .*\/api\/sessions\//.test(p) && !/status of 409 \(Conflict\)/.test(p)),
+    ).toEqual([]);
     await page.context().close();
     await assistant.page.context().close();
   });
@@ -110,12 +135,21 @@ describe("planning in the browser", () => {
     await page.waitForURL(/\/athletes\/[0-9a-f-]+$/);
     const athleteId = page.url().split("/athletes/")[1]!;
     const week = mondayInWeeks(111 + (Math.floor(Date.now() / 1000) % 400));
-    const made = await page.request.post(`${BASE}/api/athletes/${athleteId}/sessions`, { data: { date: plus(week, 1), title: "Drag me", sport: "cycling", structure: [{ type: "step", kind: "work", durationS: 3600, zone: 1 }] } });
+    const made = await page.request.post(`${BASE}/api/athletes/${athleteId}/sessions`, {
+      data: {
+        date: plus(week, 1),
+        title: "Drag me",
+        sport: "cycling",
+        structure: [{ type: "step", kind: "work", durationS: 3600, zone: 1 }],
+      },
+    });
     const { id } = (await made.json()) as { id: string };
     await page.goto(`${BASE}/athletes/${athleteId}/plan?week=${week}`);
     await dragEvent(page, "Drag me", plus(week, 1), plus(week, 4));
     await page.getByText(`Moved "Drag me" to ${plus(week, 4)}.`).waitFor();
-    const after = (await (await page.request.get(`${BASE}/api/athletes/${athleteId}/sessions?from=${week}&to=${plus(week, 6)}`)).json()) as { id: string; date: string }[];
+    const after = (await (
+      await page.request.get(`${BASE}/api/athletes/${athleteId}/sessions?from=${week}&to=${plus(week, 6)}`)
+    ).json()) as { id: string; date: string }[];
     expect(after.find((s) => s.id === id)?.date).toBe(plus(week, 4));
     expect(problems).toEqual([]);
     await page.context().close();
@@ -128,10 +162,22 @@ describe("planning in the browser", () => {
     await page.waitForURL(/\/athletes\/[0-9a-f-]+$/);
     const athleteId = page.url().split("/athletes/")[1]!;
     const week = mondayInWeeks(112 + (Math.floor(Date.now() / 1000) % 400));
-    const made = await page.request.post(`${BASE}/api/athletes/${athleteId}/sessions`, { data: { date: plus(week, 1), title: "Weekly spin", sport: "cycling", structure: [{ type: "step", kind: "work", durationS: 2700, zone: 1 }], repeat: { byWeekday: ["TU"], count: 3 } } });
+    const made = await page.request.post(`${BASE}/api/athletes/${athleteId}/sessions`, {
+      data: {
+        date: plus(week, 1),
+        title: "Weekly spin",
+        sport: "cycling",
+        structure: [{ type: "step", kind: "work", durationS: 2700, zone: 1 }],
+        repeat: { byWeekday: ["TU"], count: 3 },
+      },
+    });
     expect(made.status()).toBe(201);
     const datesOf = async () =>
-      ((await (await page.request.get(`${BASE}/api/athletes/${athleteId}/sessions?from=${week}&to=${plus(week, 27)}`)).json()) as { title: string; date: string }[])
+      (
+        (await (
+          await page.request.get(`${BASE}/api/athletes/${athleteId}/sessions?from=${week}&to=${plus(week, 27)}`)
+        ).json()) as { title: string; date: string }[]
+      )
         .filter((x) => x.title === "Weekly spin")
         .map((x) => x.date)
         .sort();

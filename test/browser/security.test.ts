@@ -16,7 +16,10 @@ afterAll(async () => {
 /** Opens the outbox page; whether it showed the "Nothing here" page (the app streams pages, so that page may come with 200). */
 async function outboxRefused(page: Page, query = ""): Promise<boolean> {
   await page.goto(`${BASE}/outbox${query}`);
-  await page.getByRole("heading", { name: /Nothing here|Outbox/ }).first().waitFor();
+  await page
+    .getByRole("heading", { name: /Nothing here|Outbox/ })
+    .first()
+    .waitFor();
   return (await page.getByRole("heading", { name: "Nothing here" }).count()) === 1;
 }
 
@@ -29,7 +32,9 @@ describe("the local outbox page", () => {
       body: JSON.stringify({ email: "walker@northfold.test", redirectTo: "/reset-password" }),
     });
     expect(reset.status).toBe(200);
-    const [row] = await query<{ id: string; meta: { url: string } }>(`select id, meta from outbox where kind = 'password_reset' and to_address = 'walker@northfold.test' order by created_at desc limit 1`);
+    const [row] = await query<{ id: string; meta: { url: string } }>(
+      `select id, meta from outbox where kind = 'password_reset' and to_address = 'walker@northfold.test' order by created_at desc limit 1`,
+    );
     const secret = row!.meta.url.split("/reset-password/")[1]!.split("?")[0]!;
     expect(secret.length).toBeGreaterThan(10);
 
@@ -88,7 +93,10 @@ describe("the content security policy", () => {
     const { page, problems } = await newPage(browser);
     const first = await page.goto(`${BASE}/sign-in`);
     const policy = first!.headers()["content-security-policy"]!;
-    const script = policy.split(";").map((d) => d.trim()).find((d) => d.startsWith("script-src"))!;
+    const script = policy
+      .split(";")
+      .map((d) => d.trim())
+      .find((d) => d.startsWith("script-src"))!;
     expect(script).toMatch(/'nonce-[A-Za-z0-9+/=]{16,}'/);
     expect(script).not.toContain("'unsafe-inline'");
     const nonce = /'nonce-([^']+)'/.exec(script)![1]!;
@@ -125,7 +133,10 @@ describe("CSV downloads from the athlete page", () => {
     await signIn(page, "runner@northfold.test");
     await page.getByRole("link", { name: "My zones, tests and load" }).click();
     await page.waitForURL(/\/athletes\/[0-9a-f-]+$/);
-    const [download] = await Promise.all([page.waitForEvent("download"), page.getByRole("link", { name: "logs, last year" }).click()]);
+    const [download] = await Promise.all([
+      page.waitForEvent("download"),
+      page.getByRole("link", { name: "logs, last year" }).click(),
+    ]);
     expect(download.suggestedFilename()).toMatch(/^tidemark-logs-\d{4}-\d{2}-\d{2}-to-\d{4}-\d{2}-\d{2}\.csv$/);
     const text = fs.readFileSync((await download.path())!, "utf8").replace(/^\uFEFF/, "");
     expect(text.split("\r\n")[0]).toMatch(/^date,title,sport,status,duration_min/);
@@ -145,7 +156,11 @@ describe("readiness hold and clearance in the browser", () => {
     await page.goto(`${BASE}/athletes/${athleteId}/screening`);
     const questions = page.locator("fieldset");
     await questions.first().waitFor();
-    for (let i = 0; i < (await questions.count()); i++) await questions.nth(i).getByRole("radio", { name: i === 0 ? "Yes" : "No" }).check();
+    for (let i = 0; i < (await questions.count()); i++)
+      await questions
+        .nth(i)
+        .getByRole("radio", { name: i === 0 ? "Yes" : "No" })
+        .check();
     await page.getByRole("button", { name: "Save the answers" }).click();
     await page.getByRole("heading", { name: "Record a clearance" }).waitFor();
     await page.goto(`${BASE}/athletes/${athleteId}/plan`);
@@ -155,7 +170,10 @@ describe("readiness hold and clearance in the browser", () => {
     await page.getByLabel("Cleared by (name)").fill("Dr Lena Berg");
     await page.getByLabel("Their role (as they gave it)").fill("sports physician");
     await page.getByRole("button", { name: "Record the clearance" }).click();
-    await page.getByText(/Dr Lena Berg \(sports physician\)/).first().waitFor();
+    await page
+      .getByText(/Dr Lena Berg \(sports physician\)/)
+      .first()
+      .waitFor();
     await page.goto(`${BASE}/athletes/${athleteId}/plan`);
     await page.getByRole("heading", { name: "Plan" }).waitFor();
     await expect(page.getByText("Hold hard sessions and testing").count()).resolves.toBe(0);

@@ -37,7 +37,12 @@ async function bareNumbers(page: Page): Promise<string[]> {
     const out: string[] = [];
     for (const el of Array.from(document.querySelectorAll("body *"))) {
       if (el.children.length || !(el instanceof HTMLElement) || !el.offsetParent) continue;
-      if (el.closest("option, select, input, textarea, script, style, svg, [aria-hidden='true'], .fc-daygrid-day-number, .fc-col-header-cell, .fc-toolbar-title")) continue;
+      if (
+        el.closest(
+          "option, select, input, textarea, script, style, svg, [aria-hidden='true'], .fc-daygrid-day-number, .fc-col-header-cell, .fc-toolbar-title",
+        )
+      )
+        continue;
       const text = (el.textContent ?? "").trim();
       if (!/^[−-]?\d+([.,]\d+)?$/.test(text)) continue;
       if (el.getAttribute("aria-label") || el.getAttribute("title")) continue;
@@ -63,7 +68,11 @@ async function outbox(): Promise<{ id: string; to: string[]; subject: string; ki
   return (await fetch(`${FAKE}/outbox.json`)).json();
 }
 async function messageText(id: string): Promise<string> {
-  return ((await (await fetch(`${FAKE}/emails/${id}`, { headers: { authorization: "Bearer story" } })).json()) as { text: string }).text;
+  return (
+    (await (await fetch(`${FAKE}/emails/${id}`, { headers: { authorization: "Bearer story" } })).json()) as {
+      text: string;
+    }
+  ).text;
 }
 
 /** Delivers what is queued, then reads the newest address-confirmation link sent to `email` from the e-mail fake. */
@@ -117,7 +126,10 @@ describe("the everyday story", () => {
     await visit(a, "04-invitation", athlete.problems);
     await a.getByLabel("Your name").fill(ATHLETE.name);
     await a.getByLabel(/^Password/).fill(ATHLETE.password);
-    await a.getByRole("button", { name: /Create account|Join/ }).first().click();
+    await a
+      .getByRole("button", { name: /Create account|Join/ })
+      .first()
+      .click();
     await a.getByRole("heading", { name: "Check your inbox" }).waitFor();
     // The confirmation link signs the athlete in and brings them back to the invitation.
     await a.goto(await verificationLink(ATHLETE.email));
@@ -196,13 +208,30 @@ describe("the everyday story", () => {
     await c.getByText("Harbour intervals 6 × 4 min").first().waitFor();
     // Two easy long runs in the target week and the next (through the API, as the coach). The target week is a loading
     // week followed by another, so that a fix may move a session there (never into an unloading, taper or race week).
-    const seasons = (await (await c.request.get(`${BASE}/api/athletes/${athleteId}/seasons`)).json()) as { weeks: { weekStart: string; role: string; budget: string }[] }[];
+    const seasons = (await (await c.request.get(`${BASE}/api/athletes/${athleteId}/seasons`)).json()) as {
+      weeks: { weekStart: string; role: string; budget: string }[];
+    }[];
     const sw = seasons[0]!.weeks;
-    const at = sw.findIndex((w, i) => i >= 1 && w.weekStart > plus(today, 7) && w.role === "loading" && w.budget === "pyramidal" && sw[i + 1]?.role === "loading" && sw[i + 1]?.budget === "pyramidal");
+    const at = sw.findIndex(
+      (w, i) =>
+        i >= 1 &&
+        w.weekStart > plus(today, 7) &&
+        w.role === "loading" &&
+        w.budget === "pyramidal" &&
+        sw[i + 1]?.role === "loading" &&
+        sw[i + 1]?.budget === "pyramidal",
+    );
     expect(at).toBeGreaterThan(0);
     const week = sw[at]!.weekStart;
     for (const d of [plus(week, 5), plus(week, 6), plus(week, 12), plus(week, 13)]) {
-      const r = await c.request.post(`${BASE}/api/athletes/${athleteId}/sessions`, { data: { date: d, title: "Easy long run", sport: "running", structure: [{ type: "step", kind: "work", durationS: 90 * 60, zone: 1 }] } });
+      const r = await c.request.post(`${BASE}/api/athletes/${athleteId}/sessions`, {
+        data: {
+          date: d,
+          title: "Easy long run",
+          sport: "running",
+          structure: [{ type: "step", kind: "work", durationS: 90 * 60, zone: 1 }],
+        },
+      });
       expect(r.status()).toBe(201);
     }
     await c.goto(`${BASE}/athletes/${athleteId}/plan?week=${week}`);
@@ -214,12 +243,16 @@ describe("the everyday story", () => {
     while ((await band.getAttribute("data-over")) !== "yes" && dragged < 4) {
       dragged++;
       await dragTemplate(c, "Harbour intervals 6 × 4 min", plus(week, dragged - 1));
-      await c.locator(`td.fc-day[data-date="${plus(week, dragged - 1)}"] .fc-event`, { hasText: "Harbour intervals" }).waitFor();
+      await c
+        .locator(`td.fc-day[data-date="${plus(week, dragged - 1)}"] .fc-event`, { hasText: "Harbour intervals" })
+        .waitFor();
       await c.getByText(`Planned "Harbour intervals 6 × 4 min" on ${plus(week, dragged - 1)}.`).waitFor();
     }
     await c.locator(`[data-testid="band-${week}"][data-over="yes"]`).waitFor();
     expect(dragged).toBe(2);
-    await expect(band.textContent()).resolves.toMatch(/Zone 3 is 15\.3 % of the week; the pyramidal budget allows 15 %/);
+    await expect(band.textContent()).resolves.toMatch(
+      /Zone 3 is 15\.3 % of the week; the pyramidal budget allows 15 %/,
+    );
     await visit(c, "12-week-over-budget", coach.problems);
     await band.getByRole("button", { name: "Apply the fix" }).click();
     await c.locator(`[data-testid="band-${week}"][data-over="no"]`).waitFor();
@@ -245,10 +278,18 @@ describe("the everyday story", () => {
     await card.getByRole("button", { name: "Save the log" }).click();
     await card.getByTestId("log-summary").filter({ hasText: "RPE 6" }).waitFor();
     const start = new Date(`${today}T06:30:00Z`);
-    const seconds = Array.from({ length: 67 * 60 }, (_, i) => ({ hrBpm: i < 15 * 60 || i > 57 * 60 ? 128 : (i - 15 * 60) % 420 < 240 ? vt2After + 4 : 135, speedKmh: 11 }));
+    const seconds = Array.from({ length: 67 * 60 }, (_, i) => ({
+      hrBpm: i < 15 * 60 || i > 57 * 60 ? 128 : (i - 15 * 60) % 420 < 240 ? vt2After + 4 : 135,
+      speedKmh: 11,
+    }));
     const fit = encodeFit({ start, sport: "running", seconds });
-    await card.locator('input[type="file"]').setInputFiles({ name: "bo-intervals.fit", mimeType: "application/octet-stream", buffer: Buffer.from(fit) });
-    await card.getByText(/measured/i).first().waitFor();
+    await card
+      .locator('input[type="file"]')
+      .setInputFiles({ name: "bo-intervals.fit", mimeType: "application/octet-stream", buffer: Buffer.from(fit) });
+    await card
+      .getByText(/measured/i)
+      .first()
+      .waitFor();
     await visit(a, "15-today-logged", athlete.problems);
 
     // The coach sees it done with measured time in zone on the calendar and in the roster.
@@ -265,7 +306,10 @@ describe("the everyday story", () => {
 
     step("5");
     // 5. Seven days before the retest the job runs; the reminder goes to the athlete with the date and a working link.
-    const [retest] = await query<{ date: string }>(`select min(date) as date from planned_session where athlete_id = $1 and kind = 'retest' and date > $2`, [athleteId, today]);
+    const [retest] = await query<{ date: string }>(
+      `select min(date) as date from planned_session where athlete_id = $1 and kind = 'retest' and date > $2`,
+      [athleteId, today],
+    );
     expect(retest?.date).toBeTruthy();
     const clock = new Date(`${plus(retest!.date, -7)}T12:00:00Z`); // 13:00 in Oslo, after the 07:00 reminder time
     expect(await queueRetestReminders(clock)).toBeGreaterThanOrEqual(1);
@@ -274,19 +318,29 @@ describe("the everyday story", () => {
     expect(reminder?.subject).toMatch(/^Retest in a week: /);
     const text = await messageText(reminder!.id);
     const [y, mo, d] = retest!.date.split("-").map(Number) as [number, number, number];
-    expect(text).toContain(new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "long", year: "numeric", timeZone: "UTC" }).format(new Date(Date.UTC(y, mo - 1, d))));
+    expect(text).toContain(
+      new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "long", year: "numeric", timeZone: "UTC" }).format(
+        new Date(Date.UTC(y, mo - 1, d)),
+      ),
+    );
     const unsubscribe = /https?:\/\/\S+\/unsubscribe\/\S+/.exec(text)![0];
     const reader = await newPage(browser);
     await reader.page.goto(unsubscribe);
     // Opening the link only asks: a mail scanner following it changes nothing.
     await reader.page.getByRole("heading", { name: "Stop retest reminders?" }).waitFor();
     await visit(reader.page, "18a-unsubscribe-asks", reader.problems);
-    const [before] = await query<{ remind_retests: boolean }>(`select remind_retests from athlete_profile where user_id = $1`, [athleteId]);
+    const [before] = await query<{ remind_retests: boolean }>(
+      `select remind_retests from athlete_profile where user_id = $1`,
+      [athleteId],
+    );
     expect(before?.remind_retests).toBe(true);
     await reader.page.getByRole("button", { name: "Turn off retest reminders" }).click();
     await reader.page.getByRole("heading", { name: "Turned off: retest reminders" }).waitFor();
     await visit(reader.page, "18-unsubscribed", reader.problems);
-    const [profile] = await query<{ remind_retests: boolean }>(`select remind_retests from athlete_profile where user_id = $1`, [athleteId]);
+    const [profile] = await query<{ remind_retests: boolean }>(
+      `select remind_retests from athlete_profile where user_id = $1`,
+      [athleteId],
+    );
     expect(profile?.remind_retests).toBe(false);
 
     expect(coach.problems).toEqual([]);

@@ -22,8 +22,16 @@ describe("gas-exchange test in the browser", () => {
     await page.getByRole("link", { name: "Upload a gas-exchange test" }).click();
     await page.getByRole("heading", { name: "Upload a gas-exchange test" }).waitFor();
     // Common header variants and L/min, so the mapping step has something to show.
-    const csv = syntheticRamp({ seed: 8, massKg: 56, peakW: 300, headers: ["Time", "VO2", "VCO2", "VE", "HR", "Load", "BF"], litres: true }).csv;
-    await page.locator("#gas-file").setInputFiles({ name: "ines-ramp.csv", mimeType: "text/csv", buffer: Buffer.from(csv) });
+    const csv = syntheticRamp({
+      seed: 8,
+      massKg: 56,
+      peakW: 300,
+      headers: ["Time", "VO2", "VCO2", "VE", "HR", "Load", "BF"],
+      litres: true,
+    }).csv;
+    await page
+      .locator("#gas-file")
+      .setInputFiles({ name: "ines-ramp.csv", mimeType: "text/csv", buffer: Buffer.from(csv) });
     await page.getByRole("heading", { name: "2. Check the columns" }).waitFor();
     await expect(page.getByLabel("Column for VO2").inputValue()).resolves.toBe("VO2");
     await expect(page.getByLabel("Column for power").inputValue()).resolves.toBe("Load");

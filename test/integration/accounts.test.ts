@@ -20,7 +20,10 @@ async function latestInvitationToken(to: string): Promise<string> {
 }
 
 async function invite(head: Browser, squadId: string, email: string, role: "athlete" | "coach") {
-  const r = await head.call(invitationsRoute, "POST", `/api/squads/${squadId}/invitations`, { params: { id: squadId }, body: { email, role } });
+  const r = await head.call(invitationsRoute, "POST", `/api/squads/${squadId}/invitations`, {
+    params: { id: squadId },
+    body: { email, role },
+  });
   expect(r.status).toBe(201);
   return latestInvitationToken(email);
 }
@@ -38,7 +41,8 @@ describe("accounts, squads and invitations", () => {
   let squadId = "";
   let otherSquadId = "";
   let athleteA: Browser, athleteB: Browser, coach: Browser;
-  let athleteAId = "", athleteBId = "";
+  let athleteAId = "",
+    athleteBId = "";
 
   beforeAll(async () => {
     await resetDatabase();
@@ -48,9 +52,14 @@ describe("accounts, squads and invitations", () => {
     squadId = s.json.id;
 
     await otherHead.signUp("Olaf Other", "olaf@example.test");
-    otherSquadId = (await otherHead.call(squadsRoute, "POST", "/api/squads", { body: { name: "Other Squad" } })).json.id;
+    otherSquadId = (await otherHead.call(squadsRoute, "POST", "/api/squads", { body: { name: "Other Squad" } })).json
+      .id;
 
-    const a = await joinAs("Ada Athlete", "ada@example.test", await invite(head, squadId, "ada@example.test", "athlete"));
+    const a = await joinAs(
+      "Ada Athlete",
+      "ada@example.test",
+      await invite(head, squadId, "ada@example.test", "athlete"),
+    );
     expect(a.response.status).toBe(200);
     athleteA = a.browser;
     athleteAId = (await athleteA.call(meRoute, "GET", "/api/me")).json.user.id;
@@ -69,7 +78,11 @@ describe("accounts, squads and invitations", () => {
     expect((await fresh.signIn("hana@example.test")).status).toBe(200);
     const me = await fresh.call(meRoute, "GET", "/api/me");
     expect(me.status).toBe(200);
-    expect(me.json).toMatchObject({ user: { email: "hana@example.test" }, roles: ["head_coach"], squads: [{ name: "Harbour Squad", role: "head_coach" }] });
+    expect(me.json).toMatchObject({
+      user: { email: "hana@example.test" },
+      roles: ["head_coach"],
+      squads: [{ name: "Harbour Squad", role: "head_coach" }],
+    });
   });
 
   it("an invitation joins with the invited role, and works once", async () => {
@@ -87,7 +100,9 @@ describe("accounts, squads and invitations", () => {
     await stranger.signUp("Sam Stranger", "sam@example.test");
     const r = await stranger.call(acceptRoute, "POST", `/api/invitations/${token}/accept`, { params: { token } });
     expect(r.status).toBe(403);
-    const rows = await query(`select 1 from membership m join "user" u on u.id = m.user_id where u.email = 'sam@example.test'`);
+    const rows = await query(
+      `select 1 from membership m join "user" u on u.id = m.user_id where u.email = 'sam@example.test'`,
+    );
     expect(rows).toHaveLength(0);
   });
 
@@ -100,14 +115,21 @@ describe("accounts, squads and invitations", () => {
   });
 
   it("only the head coach invites", async () => {
-    const r = await coach.call(invitationsRoute, "POST", `/api/squads/${squadId}/invitations`, { params: { id: squadId }, body: { email: "x@example.test", role: "athlete" } });
+    const r = await coach.call(invitationsRoute, "POST", `/api/squads/${squadId}/invitations`, {
+      params: { id: squadId },
+      body: { email: "x@example.test", role: "athlete" },
+    });
     expect(r.status).toBe(403);
-    const outsider = await otherHead.call(invitationsRoute, "POST", `/api/squads/${squadId}/invitations`, { params: { id: squadId }, body: { email: "x@example.test", role: "athlete" } });
+    const outsider = await otherHead.call(invitationsRoute, "POST", `/api/squads/${squadId}/invitations`, {
+      params: { id: squadId },
+      body: { email: "x@example.test", role: "athlete" },
+    });
     expect(outsider.status).toBe(404);
   });
 
   it("roster visibility: head coach and coach see the squad's athletes; an athlete sees only self; another squad's coach sees none", async () => {
-    const names = async (b: Browser) => ((await b.call(athletesRoute, "GET", "/api/athletes")).json as { name: string }[]).map((a) => a.name);
+    const names = async (b: Browser) =>
+      ((await b.call(athletesRoute, "GET", "/api/athletes")).json as { name: string }[]).map((a) => a.name);
     expect(await names(head)).toEqual(["Ada Athlete", "Bo Athlete"]);
     expect(await names(coach)).toEqual(["Ada Athlete", "Bo Athlete"]);
     expect(await names(athleteA)).toEqual(["Ada Athlete"]);
@@ -122,24 +144,48 @@ describe("accounts, squads and invitations", () => {
   });
 
   it("an athlete cannot read or change another athlete's profile", async () => {
-    const read = await athleteA.call(profileRoute, "GET", `/api/athletes/${athleteBId}/profile`, { params: { id: athleteBId } });
+    const read = await athleteA.call(profileRoute, "GET", `/api/athletes/${athleteBId}/profile`, {
+      params: { id: athleteBId },
+    });
     expect(read.status).toBe(404);
     expect(JSON.stringify(read.json)).not.toContain("bo@example.test");
-    const write = await athleteA.call(profileRoute, "PATCH", `/api/athletes/${athleteBId}/profile`, { params: { id: athleteBId }, body: { bodyMassKg: 99 } });
+    const write = await athleteA.call(profileRoute, "PATCH", `/api/athletes/${athleteBId}/profile`, {
+      params: { id: athleteBId },
+      body: { bodyMassKg: 99 },
+    });
     expect(write.status).toBe(404);
-    const outsider = await otherHead.call(profileRoute, "GET", `/api/athletes/${athleteAId}/profile`, { params: { id: athleteAId } });
+    const outsider = await otherHead.call(profileRoute, "GET", `/api/athletes/${athleteAId}/profile`, {
+      params: { id: athleteAId },
+    });
     expect(outsider.status).toBe(404);
   });
 
   it("the athlete and their coaches read and update the profile", async () => {
     const own = await athleteA.call(profileRoute, "PATCH", `/api/athletes/${athleteAId}/profile`, {
       params: { id: athleteAId },
-      body: { timeZone: "Europe/Oslo", reminderTime: "06:15", reminderTiming: "morning_of", sports: ["running"], restingHrBpm: 50, maxHrBpm: 190 },
+      body: {
+        timeZone: "Europe/Oslo",
+        reminderTime: "06:15",
+        reminderTiming: "morning_of",
+        sports: ["running"],
+        restingHrBpm: 50,
+        maxHrBpm: 190,
+      },
     });
     expect(own.status).toBe(200);
-    const seen = await coach.call(profileRoute, "GET", `/api/athletes/${athleteAId}/profile`, { params: { id: athleteAId } });
-    expect(seen.json.profile).toMatchObject({ timeZone: "Europe/Oslo", reminderTime: "06:15", sports: ["running"], restingHrBpm: 50 });
-    const byCoach = await head.call(profileRoute, "PATCH", `/api/athletes/${athleteAId}/profile`, { params: { id: athleteAId }, body: { bodyMassKg: 61.5 } });
+    const seen = await coach.call(profileRoute, "GET", `/api/athletes/${athleteAId}/profile`, {
+      params: { id: athleteAId },
+    });
+    expect(seen.json.profile).toMatchObject({
+      timeZone: "Europe/Oslo",
+      reminderTime: "06:15",
+      sports: ["running"],
+      restingHrBpm: 50,
+    });
+    const byCoach = await head.call(profileRoute, "PATCH", `/api/athletes/${athleteAId}/profile`, {
+      params: { id: athleteAId },
+      body: { bodyMassKg: 61.5 },
+    });
     expect(byCoach.status).toBe(200);
     expect(byCoach.json.profile).toMatchObject({ bodyMassKg: 61.5, timeZone: "Europe/Oslo" });
   });
@@ -153,18 +199,30 @@ describe("accounts, squads and invitations", () => {
     expect(bad.status).toBe(400);
     expect(Object.keys(bad.json.fieldErrors).sort()).toEqual(["bodyMassKg", "reminderTime", "timeZone"]);
     expect(bad.json.fieldErrors.timeZone[0]).toMatch(/time zone/i);
-    const unknown = await athleteA.call(profileRoute, "PATCH", `/api/athletes/${athleteAId}/profile`, { params: { id: athleteAId }, body: { shoeSize: 42 } });
+    const unknown = await athleteA.call(profileRoute, "PATCH", `/api/athletes/${athleteAId}/profile`, {
+      params: { id: athleteAId },
+      body: { shoeSize: 42 },
+    });
     expect(unknown.status).toBe(400);
-    const notJson = await athleteA.call(profileRoute, "PATCH", `/api/athletes/${athleteAId}/profile`, { params: { id: athleteAId }, rawBody: "{not json" });
+    const notJson = await athleteA.call(profileRoute, "PATCH", `/api/athletes/${athleteAId}/profile`, {
+      params: { id: athleteAId },
+      rawBody: "{not json",
+    });
     expect(notJson.status).toBe(400);
     expect(notJson.json.error).toMatch(/not valid JSON/);
-    const hrOrder = await athleteA.call(profileRoute, "PATCH", `/api/athletes/${athleteAId}/profile`, { params: { id: athleteAId }, body: { restingHrBpm: 100, maxHrBpm: 100 } });
+    const hrOrder = await athleteA.call(profileRoute, "PATCH", `/api/athletes/${athleteAId}/profile`, {
+      params: { id: athleteAId },
+      body: { restingHrBpm: 100, maxHrBpm: 100 },
+    });
     expect(hrOrder.status).toBe(400);
     expect(hrOrder.json.fieldErrors.maxHrBpm).toBeDefined();
     const after = await query(`select * from athlete_profile where user_id = $1`, [athleteAId]);
     expect(after).toEqual(before);
 
-    const badInvite = await head.call(invitationsRoute, "POST", `/api/squads/${squadId}/invitations`, { params: { id: squadId }, body: { email: "not-an-address", role: "king" } });
+    const badInvite = await head.call(invitationsRoute, "POST", `/api/squads/${squadId}/invitations`, {
+      params: { id: squadId },
+      body: { email: "not-an-address", role: "king" },
+    });
     expect(badInvite.status).toBe(400);
     expect(Object.keys(badInvite.json.fieldErrors).sort()).toEqual(["email", "role"]);
     const badSquad = await head.call(squadsRoute, "POST", "/api/squads", { body: { name: "" } });
@@ -176,9 +234,16 @@ describe("accounts, squads and invitations", () => {
 
   it("sign-up refuses a short password; a duplicate address creates nothing (the answer does not say it exists)", async () => {
     const b = new Browser();
-    expect((await b.auth("POST", "/sign-up/email", { name: "Short", email: "short@example.test", password: "short" })).status).toBe(400);
+    expect(
+      (await b.auth("POST", "/sign-up/email", { name: "Short", email: "short@example.test", password: "short" }))
+        .status,
+    ).toBe(400);
     const before = await query(`select id from "user" where email = 'hana@example.test'`);
-    await b.auth("POST", "/sign-up/email", { name: "Dup", email: "hana@example.test", password: "long-enough-password" });
+    await b.auth("POST", "/sign-up/email", {
+      name: "Dup",
+      email: "hana@example.test",
+      password: "long-enough-password",
+    });
     expect(await query(`select id from "user" where email = 'hana@example.test'`)).toEqual(before);
     expect((await new Browser("203.0.113.78").signIn("hana@example.test", "long-enough-password")).status).toBe(401);
   });
@@ -189,9 +254,14 @@ describe("accounts, squads and invitations", () => {
     expect((await other.signIn("ada@example.test")).status).toBe(200);
     expect((await other.call(meRoute, "GET", "/api/me")).status).toBe(200);
     const b = new Browser("198.51.100.30");
-    const r = await b.auth("POST", "/request-password-reset", { email: "ada@example.test", redirectTo: "/reset-password" });
+    const r = await b.auth("POST", "/request-password-reset", {
+      email: "ada@example.test",
+      redirectTo: "/reset-password",
+    });
     expect(r.status).toBe(200);
-    const [msg] = await query<{ meta: { url: string } }>(`select meta from outbox where kind = 'password_reset' and to_address = 'ada@example.test'`);
+    const [msg] = await query<{ meta: { url: string } }>(
+      `select meta from outbox where kind = 'password_reset' and to_address = 'ada@example.test'`,
+    );
     expect(msg?.meta.url).toMatch(/\/api\/auth\/reset-password\//);
     const token = msg!.meta.url.split("/reset-password/")[1]!.split("?")[0]!;
     const reset = await b.auth("POST", "/reset-password", { newPassword: "a-brand-new-password", token });
@@ -216,7 +286,8 @@ describe("accounts, squads and invitations", () => {
     const b = new Browser("203.0.113.77");
     const statuses: number[] = [];
     // Different addresses each time, so that the per-account pause (security.test.ts) does not answer first.
-    for (let i = 0; i < 10; i++) statuses.push((await b.signIn(`nobody-${i}@example.test`, "wrong-password-123")).status);
+    for (let i = 0; i < 10; i++)
+      statuses.push((await b.signIn(`nobody-${i}@example.test`, "wrong-password-123")).status);
     expect(statuses.slice(0, 8).every((s) => s === 401)).toBe(true);
     expect(statuses.slice(8)).toEqual([429, 429]);
   });

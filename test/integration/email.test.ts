@@ -21,8 +21,18 @@ let fake: FakeEmail;
 
 const step = (kind: string, min: number, zone: number) => ({ type: "step", kind, durationS: min * 60, zone });
 const plan = (date: string, title: string, kind: "training" | "retest" = "training") =>
-  s.coach.browser.call(sessionsRoute, "POST", `/api/athletes/${s.athleteA.id}/sessions`, { params: { id: s.athleteA.id }, body: { date, title, sport: "running", kind, structure: [step("warmup", 10, 1), step("work", 30, 2), step("cooldown", 10, 1)] } });
-const received = (kind: string, to = s.athleteA.email) => fake.messages.filter((m) => m.kind === kind && m.to.includes(to));
+  s.coach.browser.call(sessionsRoute, "POST", `/api/athletes/${s.athleteA.id}/sessions`, {
+    params: { id: s.athleteA.id },
+    body: {
+      date,
+      title,
+      sport: "running",
+      kind,
+      structure: [step("warmup", 10, 1), step("work", 30, 2), step("cooldown", 10, 1)],
+    },
+  });
+const received = (kind: string, to = s.athleteA.email) =>
+  fake.messages.filter((m) => m.kind === kind && m.to.includes(to));
 
 beforeAll(async () => {
   await resetDatabase();
@@ -37,7 +47,12 @@ beforeAll(async () => {
      on conflict (user_id) do update set time_zone = 'Europe/Oslo', reminder_timing = 'morning_of', reminder_time = '07:00', remind_sessions = true, remind_retests = true`,
     [s.athleteA.id],
   );
-  for (const [d, t] of [["2027-01-15", "Winter tempo"], ["2027-01-16", "Winter long run"], ["2027-06-15", "Summer tempo"]] as const) expect((await plan(d, t)).status).toBe(201);
+  for (const [d, t] of [
+    ["2027-01-15", "Winter tempo"],
+    ["2027-01-16", "Winter long run"],
+    ["2027-06-15", "Summer tempo"],
+  ] as const)
+    expect((await plan(d, t)).status).toBe(201);
   await deliverPending(new Date()); // the invitations of the squad
 });
 
@@ -58,7 +73,11 @@ describe("session reminders", () => {
     expect(await queueSessionReminders(new Date("2027-06-15T04:59:00Z"))).toBe(0);
     expect(await queueSessionReminders(new Date("2027-06-15T05:00:00Z"))).toBe(1);
     await deliverPending(new Date("2027-06-15T05:00:00Z"));
-    expect(received("session_reminder").map((m) => m.subject).sort()).toEqual(["Summer tempo", "Winter tempo"].map((t) => `Today: ${t}`).sort());
+    expect(
+      received("session_reminder")
+        .map((m) => m.subject)
+        .sort(),
+    ).toEqual(["Summer tempo", "Winter tempo"].map((t) => `Today: ${t}`).sort());
   });
 
   it("running the job twice sends once", async () => {
@@ -83,7 +102,10 @@ describe("session reminders", () => {
     expect(await deliverPending(new Date(t0.getTime() + 60 * 60_000))).toMatchObject({ sent: 0, retrying: 0 });
     expect(await queueSessionReminders(new Date(t0.getTime() + 60 * 60_000))).toBe(0);
     expect(received("session_reminder").filter((m) => m.subject === "Today: Winter long run")).toHaveLength(1);
-    const [row] = await query<{ attempts: number; status: string }>(`select attempts, status from outbox where idempotency_key = $1`, [`session_reminder:${s.athleteA.id}:2027-01-16`]);
+    const [row] = await query<{ attempts: number; status: string }>(
+      `select attempts, status from outbox where idempotency_key = $1`,
+      [`session_reminder:${s.athleteA.id}:2027-01-16`],
+    );
     expect(row).toEqual({ attempts: 4, status: "sent" });
   });
 
@@ -93,7 +115,10 @@ describe("session reminders", () => {
     const r = await new Browser().call(unsubscribeRoute, "POST", `/api/unsubscribe/${token}`, { params: { token } });
     expect(r.status).toBe(200);
     expect(r.json.message).toMatch(/Turned off session reminders/);
-    expect((await new Browser().call(unsubscribeRoute, "POST", `/api/unsubscribe/x`, { params: { token: `${token}x` } })).status).toBe(404);
+    expect(
+      (await new Browser().call(unsubscribeRoute, "POST", `/api/unsubscribe/x`, { params: { token: `${token}x` } }))
+        .status,
+    ).toBe(404);
     await plan("2027-01-18", "After unsubscribing");
     expect(await queueSessionReminders(new Date("2027-01-18T06:00:00Z"))).toBe(0);
     await deliverPending(new Date("2027-01-18T06:00:00Z"));
@@ -109,14 +134,27 @@ describe("retest reminders, the coach digest and the calendar feed", () => {
     expect(await queueRetestReminders(new Date("2027-02-09T06:00:00Z"))).toBe(1);
     await deliverPending(new Date("2027-02-09T06:00:00Z"));
     const subjects = received("retest_reminder").map((m) => m.subject);
-    expect(subjects).toEqual(expect.arrayContaining(["Retest in a week: Wednesday 10 February 2027", "Retest tomorrow, Wednesday 10 February 2027"]));
+    expect(subjects).toEqual(
+      expect.arrayContaining([
+        "Retest in a week: Wednesday 10 February 2027",
+        "Retest tomorrow, Wednesday 10 February 2027",
+      ]),
+    );
     expect(received("retest_reminder")[0]!.text).toMatch(/heart condition/);
   });
 
   it("the coach digest comes on Monday from 07:00 in the coach's time zone, once", async () => {
-    const set = await s.coach.browser.call(notificationsRoute, "PATCH", "/api/me/notifications", { body: { timeZone: "Europe/Oslo" } });
+    const set = await s.coach.browser.call(notificationsRoute, "PATCH", "/api/me/notifications", {
+      body: { timeZone: "Europe/Oslo" },
+    });
     expect(set.status).toBe(200);
-    expect((await s.coach.browser.call(notificationsRoute, "PATCH", "/api/me/notifications", { body: { timeZone: "Mars/Olympus" } })).status).toBe(400);
+    expect(
+      (
+        await s.coach.browser.call(notificationsRoute, "PATCH", "/api/me/notifications", {
+          body: { timeZone: "Mars/Olympus" },
+        })
+      ).status,
+    ).toBe(400);
     // The coach is in Oslo (07:00 = 06:00 UTC); the head coach kept the default UTC (07:00 UTC).
     expect(await queueCoachDigests(new Date("2027-01-04T05:59:00Z"))).toBe(0);
     expect(await queueCoachDigests(new Date("2027-01-04T06:00:00Z"))).toBe(1);
@@ -134,14 +172,21 @@ describe("retest reminders, the coach digest and the calendar feed", () => {
     expect(on.status).toBe(201);
     const file = (on.json.url as string).split("/api/calendar/")[1]!;
     const get = async (f: string) => {
-      const res = await calendarRoute.GET(new Request(`http://127.0.0.1:3999/api/calendar/${f}`), { params: Promise.resolve({ feed: f }) });
+      const res = await calendarRoute.GET(new Request(`http://127.0.0.1:3999/api/calendar/${f}`), {
+        params: Promise.resolve({ feed: f }),
+      });
       return { status: res.status, text: await res.text(), type: res.headers.get("content-type") };
     };
     const feed = await get(file);
     expect(feed.status).toBe(200);
     expect(feed.type).toMatch(/text\/calendar/);
-    const events = new ICAL.Component(ICAL.parse(feed.text)).getAllSubcomponents("vevent").map((e) => new ICAL.Event(e));
-    const planned = await query<{ date: string }>(`select date from planned_session where athlete_id = $1 and date >= $2 order by date`, [s.athleteA.id, "2026-10-01"]);
+    const events = new ICAL.Component(ICAL.parse(feed.text))
+      .getAllSubcomponents("vevent")
+      .map((e) => new ICAL.Event(e));
+    const planned = await query<{ date: string }>(
+      `select date from planned_session where athlete_id = $1 and date >= $2 order by date`,
+      [s.athleteA.id, "2026-10-01"],
+    );
     expect(events.map((e) => e.startDate.toString()).sort()).toEqual(planned.map((p) => p.date).sort());
     expect(events.some((e) => e.summary.startsWith("Retest: "))).toBe(true);
     const renewed = await s.athleteA.browser.call(feedRoute, "POST", "/api/me/calendar-feed");
@@ -166,10 +211,15 @@ describe("retest reminders, the coach digest and the calendar feed", () => {
       expect(await queueRetestReminders(new Date("2027-03-03T07:00:00Z"))).toBe(0);
       expect(await deliverPending(new Date("2027-03-03T06:00:00Z"))).toMatchObject({ sent: 2 });
       const viaSmtp = fake.messages.filter((m) => m.via === "smtp").sort((a, b) => a.subject.localeCompare(b.subject));
-      expect(viaSmtp.map((m) => m.subject)).toEqual(["Retest in a week: Wednesday 10 March 2027", "Your retest of Wednesday 10 February 2027 is still to do"]);
+      expect(viaSmtp.map((m) => m.subject)).toEqual([
+        "Retest in a week: Wednesday 10 March 2027",
+        "Your retest of Wednesday 10 February 2027 is still to do",
+      ]);
       expect(viaSmtp[0]!.kind).toBe("retest_reminder");
       expect(viaSmtp[0]!.text).toMatch(/readiness questions/);
-      expect(viaSmtp[0]!.headers["list-unsubscribe"] ?? viaSmtp[0]!.headers["List-Unsubscribe"]).toMatch(/\/api\/unsubscribe\//);
+      expect(viaSmtp[0]!.headers["list-unsubscribe"] ?? viaSmtp[0]!.headers["List-Unsubscribe"]).toMatch(
+        /\/api\/unsubscribe\//,
+      );
     } finally {
       delete process.env.TIDEMARK_EMAIL_TRANSPORT;
       resetConfig();

@@ -28,20 +28,41 @@ beforeAll(async () => {
   s = await makeSquad("p");
   other = await makeSquad("q");
   const t1 = await s.coach.browser.call(templatesRoute, "POST", "/api/templates", {
-    body: { squadId: s.squadId, name: "5 × 4 min", sport: "running", structure: [step("warmup", 15, 1), { type: "repeat", times: 5, steps: [step("work", 4, 3), step("recovery", 3, 1)] }, step("cooldown", 10, 1)] },
+    body: {
+      squadId: s.squadId,
+      name: "5 × 4 min",
+      sport: "running",
+      structure: [
+        step("warmup", 15, 1),
+        { type: "repeat", times: 5, steps: [step("work", 4, 3), step("recovery", 3, 1)] },
+        step("cooldown", 10, 1),
+      ],
+    },
   });
   expect(t1.status).toBe(201);
   expect(t1.json.minutesByZone).toEqual([40, 0, 20]);
   intervalsId = t1.json.id;
-  easyId = (await s.coach.browser.call(templatesRoute, "POST", "/api/templates", { body: { squadId: s.squadId, name: "Easy 60", sport: "running", structure: [step("work", 60, 1)] } })).json.id;
+  easyId = (
+    await s.coach.browser.call(templatesRoute, "POST", "/api/templates", {
+      body: { squadId: s.squadId, name: "Easy 60", sport: "running", structure: [step("work", 60, 1)] },
+    })
+  ).json.id;
 });
 
-const weeks = async (from: string, to: string) => (await s.coach.browser.call(weeksRoute, "GET", `/api/athletes/${s.athleteA.id}/weeks`, { params: { id: s.athleteA.id }, query: `?from=${from}&to=${to}` })).json;
-const plan = (body: unknown, who = s.coach.browser) => who.call(sessionsRoute, "POST", `/api/athletes/${s.athleteA.id}/sessions`, { params: { id: s.athleteA.id }, body });
+const weeks = async (from: string, to: string) =>
+  (
+    await s.coach.browser.call(weeksRoute, "GET", `/api/athletes/${s.athleteA.id}/weeks`, {
+      params: { id: s.athleteA.id },
+      query: `?from=${from}&to=${to}`,
+    })
+  ).json;
+const plan = (body: unknown, who = s.coach.browser) =>
+  who.call(sessionsRoute, "POST", `/api/athletes/${s.athleteA.id}/sessions`, { params: { id: s.athleteA.id }, body });
 
 describe("sessions and weekly budgets", () => {
   it("moving a session into another week changes both weeks' planned minutes and flags", async () => {
-    for (const d of ["2027-03-01", "2027-03-03", "2027-03-05"]) expect((await plan({ date: d, templateId: easyId })).status).toBe(201);
+    for (const d of ["2027-03-01", "2027-03-03", "2027-03-05"])
+      expect((await plan({ date: d, templateId: easyId })).status).toBe(201);
     const a = await plan({ date: "2027-03-02", templateId: intervalsId });
     const b = await plan({ date: "2027-03-04", templateId: intervalsId });
     for (const d of ["2027-03-08", "2027-03-10", "2027-03-12"]) await plan({ date: d, templateId: easyId });
@@ -61,7 +82,10 @@ describe("sessions and weekly budgets", () => {
     expect(w[0].overBudget).toBe(true);
     expect(w[0].flags.map((f: { code: string }) => f.code)).toContain("too_much_high");
     expect(w[0].fix).toBeTruthy();
-    const moved = await s.coach.browser.call(sessionRoute, "PATCH", `/api/sessions/${e.json.id}`, { params: { id: e.json.id }, body: { date: "2027-03-09" } });
+    const moved = await s.coach.browser.call(sessionRoute, "PATCH", `/api/sessions/${e.json.id}`, {
+      params: { id: e.json.id },
+      body: { date: "2027-03-09" },
+    });
     expect(moved.status).toBe(200);
     w = await weeks("2027-03-01", "2027-03-08");
     expect(w[0].plannedMinByZone).toEqual([340, 0, 80]);
@@ -72,10 +96,17 @@ describe("sessions and weekly budgets", () => {
 
   it("each session reads the zone set in force on its own date: before a retest the old one, from it on the new one", async () => {
     const meta = (date: string) => ({ sport: "running", protocol: "lab report", date, endedBy: "plan" });
-    const manual = (date: string, hr: number) => s.coach.browser.call(testsRoute, "POST", `/api/athletes/${s.athleteA.id}/tests`, { params: { id: s.athleteA.id }, body: { kind: "manual", meta: meta(date), vt1: { hrBpm: hr }, vt2: { hrBpm: hr + 20 } } });
+    const manual = (date: string, hr: number) =>
+      s.coach.browser.call(testsRoute, "POST", `/api/athletes/${s.athleteA.id}/tests`, {
+        params: { id: s.athleteA.id },
+        body: { kind: "manual", meta: meta(date), vt1: { hrBpm: hr }, vt2: { hrBpm: hr + 20 } },
+      });
     expect((await manual("2027-02-01", 140)).status).toBe(201);
     expect((await manual("2027-03-05", 146)).status).toBe(201);
-    const r = await s.athleteA.browser.call(sessionsRoute, "GET", `/api/athletes/${s.athleteA.id}/sessions`, { params: { id: s.athleteA.id }, query: "?from=2027-03-01&to=2027-03-12" });
+    const r = await s.athleteA.browser.call(sessionsRoute, "GET", `/api/athletes/${s.athleteA.id}/sessions`, {
+      params: { id: s.athleteA.id },
+      query: "?from=2027-03-01&to=2027-03-12",
+    });
     expect(r.status).toBe(200);
     const byDate = (d: string) => r.json.find((x: { date: string }) => x.date === d);
     expect(byDate("2027-03-04").zoneSet.effectiveFrom).toBe("2027-02-01");
@@ -87,25 +118,49 @@ describe("sessions and weekly budgets", () => {
   it("a coach of another squad cannot create, move or read sessions for this athlete; the athlete cannot plan", async () => {
     const r = await plan({ date: "2027-03-20", templateId: easyId }, other.head.browser);
     expect(r.status).toBe(404);
-    const [row] = await query<{ id: string }>(`select id from planned_session where athlete_id = $1 limit 1`, [s.athleteA.id]);
-    const move = await other.head.browser.call(sessionRoute, "PATCH", `/api/sessions/${row!.id}`, { params: { id: row!.id }, body: { date: "2027-03-21" } });
+    const [row] = await query<{ id: string }>(`select id from planned_session where athlete_id = $1 limit 1`, [
+      s.athleteA.id,
+    ]);
+    const move = await other.head.browser.call(sessionRoute, "PATCH", `/api/sessions/${row!.id}`, {
+      params: { id: row!.id },
+      body: { date: "2027-03-21" },
+    });
     expect(move.status).toBe(404);
-    const read = await other.head.browser.call(sessionsRoute, "GET", `/api/athletes/${s.athleteA.id}/sessions`, { params: { id: s.athleteA.id }, query: "?from=2027-03-01&to=2027-03-31" });
+    const read = await other.head.browser.call(sessionsRoute, "GET", `/api/athletes/${s.athleteA.id}/sessions`, {
+      params: { id: s.athleteA.id },
+      query: "?from=2027-03-01&to=2027-03-31",
+    });
     expect(read.status).toBe(404);
     const own = await plan({ date: "2027-03-20", templateId: easyId }, s.athleteA.browser);
     expect(own.status).toBe(403);
-    const othersTemplate = await plan({ date: "2027-03-20", templateId: (await other.head.browser.call(templatesRoute, "POST", "/api/templates", { body: { squadId: other.squadId, name: "Theirs", sport: "running", structure: [step("work", 30, 1)] } })).json.id });
+    const othersTemplate = await plan({
+      date: "2027-03-20",
+      templateId: (
+        await other.head.browser.call(templatesRoute, "POST", "/api/templates", {
+          body: { squadId: other.squadId, name: "Theirs", sport: "running", structure: [step("work", 30, 1)] },
+        })
+      ).json.id,
+    });
     expect(othersTemplate.status).toBe(400);
   });
 
   it("bad dates and unknown templates answer 400 and write nothing", async () => {
     const before = (await query<{ n: number }>(`select count(*)::int as n from planned_session`))[0]!.n;
-    for (const body of [{ date: "2027-02-30", templateId: easyId }, { date: "next tuesday", templateId: easyId }, { date: "2027-03-20", templateId: "nope" }, { date: "2027-03-20" }, { date: "2027-03-20", templateId: easyId, repeat: { byWeekday: ["XX"], count: 3 } }]) {
+    for (const body of [
+      { date: "2027-02-30", templateId: easyId },
+      { date: "next tuesday", templateId: easyId },
+      { date: "2027-03-20", templateId: "nope" },
+      { date: "2027-03-20" },
+      { date: "2027-03-20", templateId: easyId, repeat: { byWeekday: ["XX"], count: 3 } },
+    ]) {
       const r = await plan(body);
       expect(r.status, JSON.stringify(body)).toBe(400);
       expect(r.json.error).toBeTruthy();
     }
-    const bad = await s.coach.browser.call(weeksRoute, "GET", `/api/athletes/${s.athleteA.id}/weeks`, { params: { id: s.athleteA.id }, query: "?from=2027-03-10&to=2027-03-01" });
+    const bad = await s.coach.browser.call(weeksRoute, "GET", `/api/athletes/${s.athleteA.id}/weeks`, {
+      params: { id: s.athleteA.id },
+      query: "?from=2027-03-10&to=2027-03-01",
+    });
     expect(bad.status).toBe(400);
     expect((await query<{ n: number }>(`select count(*)::int as n from planned_session`))[0]!.n).toBe(before);
   });
@@ -115,13 +170,24 @@ describe("sessions and weekly budgets", () => {
     expect(r.status).toBe(201);
     expect(r.json.dates).toEqual(["2027-05-04", "2027-05-11", "2027-05-18", "2027-05-25"]);
     const [, second, third] = r.json.ids as string[];
-    await s.coach.browser.call(sessionRoute, "PATCH", `/api/sessions/${second}`, { params: { id: second! }, body: { title: "Easy 60 on grass" } });
-    const series = await s.coach.browser.call(sessionRoute, "PATCH", `/api/sessions/${r.json.id}`, { params: { id: r.json.id }, body: { date: "2027-05-05", scope: "series" } });
+    await s.coach.browser.call(sessionRoute, "PATCH", `/api/sessions/${second}`, {
+      params: { id: second! },
+      body: { title: "Easy 60 on grass" },
+    });
+    const series = await s.coach.browser.call(sessionRoute, "PATCH", `/api/sessions/${r.json.id}`, {
+      params: { id: r.json.id },
+      body: { date: "2027-05-05", scope: "series" },
+    });
     expect(series.status).toBe(200);
-    const rows = await query<{ id: string; date: string; title: string }>(`select id, date, title from planned_session where series_id is not null order by date`);
+    const rows = await query<{ id: string; date: string; title: string }>(
+      `select id, date, title from planned_session where series_id is not null order by date`,
+    );
     expect(rows.map((x) => x.date)).toEqual(["2027-05-05", "2027-05-11", "2027-05-19", "2027-05-26"]);
     expect(rows.find((x) => x.id === second)!.title).toBe("Easy 60 on grass");
-    const del = await s.coach.browser.call(sessionRoute, "DELETE", `/api/sessions/${third}`, { params: { id: third! }, query: "?scope=series" });
+    const del = await s.coach.browser.call(sessionRoute, "DELETE", `/api/sessions/${third}`, {
+      params: { id: third! },
+      query: "?scope=series",
+    });
     expect(del.status).toBe(204);
     expect((await query(`select 1 from planned_session where series_id is not null`)).length).toBe(2);
   });
@@ -129,36 +195,79 @@ describe("sessions and weekly budgets", () => {
   it("a season places retest sessions in unloading weeks and an overdue retest is flagged", async () => {
     const r = await s.coach.browser.call(seasonsRoute, "POST", `/api/athletes/${s.athleteB.id}/seasons`, {
       params: { id: s.athleteB.id },
-      body: { name: "Autumn marathon", sport: "running", startDate: "2026-01-05", events: [{ date: "2026-10-04", name: "Autumn marathon" }], weeklyHours: 7 },
+      body: {
+        name: "Autumn marathon",
+        sport: "running",
+        startDate: "2026-01-05",
+        events: [{ date: "2026-10-04", name: "Autumn marathon" }],
+        weeklyHours: 7,
+      },
     });
     expect(r.status).toBe(201);
-    const retests = await query<{ date: string }>(`select date from planned_session where athlete_id = $1 and kind = 'retest' order by date`, [s.athleteB.id]);
+    const retests = await query<{ date: string }>(
+      `select date from planned_session where athlete_id = $1 and kind = 'retest' order by date`,
+      [s.athleteB.id],
+    );
     expect(retests.length).toBeGreaterThanOrEqual(2);
     const retestWeek = r.json.weeks.find((w: { retest: boolean }) => w.retest);
     expect(["unloading", "recovery"]).toContain(retestWeek.role);
-    const w = await s.coach.browser.call(weeksRoute, "GET", `/api/athletes/${s.athleteB.id}/weeks`, { params: { id: s.athleteB.id }, query: `?from=2026-05-04&to=2026-05-04` });
+    const w = await s.coach.browser.call(weeksRoute, "GET", `/api/athletes/${s.athleteB.id}/weeks`, {
+      params: { id: s.athleteB.id },
+      query: `?from=2026-05-04&to=2026-05-04`,
+    });
     expect(w.json[0].flags.map((f: { code: string }) => f.code)).toContain("retest_overdue");
-    const bad = await s.coach.browser.call(seasonsRoute, "POST", `/api/athletes/${s.athleteB.id}/seasons`, { params: { id: s.athleteB.id }, body: { name: "x", sport: "running", startDate: "2026-01-05", events: [{ date: "2026-01-08", name: "too soon" }], weeklyHours: 7 } });
+    const bad = await s.coach.browser.call(seasonsRoute, "POST", `/api/athletes/${s.athleteB.id}/seasons`, {
+      params: { id: s.athleteB.id },
+      body: {
+        name: "x",
+        sport: "running",
+        startDate: "2026-01-05",
+        events: [{ date: "2026-01-08", name: "too soon" }],
+        weeklyHours: 7,
+      },
+    });
     expect(bad.status).toBe(400);
   });
 
   it("a coach edits a generated season week: volume, budget and the retest, which adds or removes that week's retest session", async () => {
     const r = await s.coach.browser.call(seasonsRoute, "POST", `/api/athletes/${s.athleteA.id}/seasons`, {
       params: { id: s.athleteA.id },
-      body: { name: "Spring 10k", sport: "running", startDate: "2028-01-03", events: [{ date: "2028-06-04", name: "Spring 10k" }], weeklyHours: 6 },
+      body: {
+        name: "Spring 10k",
+        sport: "running",
+        startDate: "2028-01-03",
+        events: [{ date: "2028-06-04", name: "Spring 10k" }],
+        weeklyHours: 6,
+      },
     });
     expect(r.status).toBe(201);
     const seasonId = r.json.id as string;
-    const plain = r.json.weeks.find((w: { retest: boolean; weekStart: string }) => !w.retest && w.weekStart > "2028-01-10")!.weekStart as string;
-    const retestsIn = async (monday: string) => (await query<{ n: number }>(`select count(*)::int as n from planned_session where athlete_id = $1 and kind = 'retest' and date between $2 and $3`, [s.athleteA.id, monday, addDays(monday, 6)]))[0]!.n;
+    const plain = r.json.weeks.find(
+      (w: { retest: boolean; weekStart: string }) => !w.retest && w.weekStart > "2028-01-10",
+    )!.weekStart as string;
+    const retestsIn = async (monday: string) =>
+      (
+        await query<{ n: number }>(
+          `select count(*)::int as n from planned_session where athlete_id = $1 and kind = 'retest' and date between $2 and $3`,
+          [s.athleteA.id, monday, addDays(monday, 6)],
+        )
+      )[0]!.n;
     expect(await retestsIn(plain)).toBe(0);
-    const edit = (body: unknown, week = plain, who = s.coach.browser) => who.call(seasonWeekRoute, "PATCH", `/api/seasons/${seasonId}/weeks/${week}`, { params: { id: seasonId, weekStart: week }, body });
+    const edit = (body: unknown, week = plain, who = s.coach.browser) =>
+      who.call(seasonWeekRoute, "PATCH", `/api/seasons/${seasonId}/weeks/${week}`, {
+        params: { id: seasonId, weekStart: week },
+        body,
+      });
     const on = await edit({ retest: true, volumeHours: 4.5, budget: "recovery" });
     expect(on.status).toBe(200);
     expect(on.json.week).toMatchObject({ retest: true, volumeHours: 4.5, budget: "recovery" });
     expect(await retestsIn(plain)).toBe(1);
     // The saved week keeps the chosen budget preset.
-    const stored = (await query<{ weeks: { weekStart: string; budget: string }[] }>(`select weeks from season where id = $1`, [seasonId]))[0]!.weeks.find((w) => w.weekStart === plain)!;
+    const stored = (
+      await query<{ weeks: { weekStart: string; budget: string }[] }>(`select weeks from season where id = $1`, [
+        seasonId,
+      ])
+    )[0]!.weeks.find((w) => w.weekStart === plain)!;
     expect(stored.budget).toBe("recovery");
     expect((await edit({ retest: true })).status).toBe(200);
     expect(await retestsIn(plain)).toBe(1); // turning it on twice places one session
@@ -175,10 +284,16 @@ describe("sessions and weekly budgets", () => {
 
   it("the squad week shows every athlete's sessions and budget state; only the squad's coaches see it", async () => {
     await plan({ date: "2028-09-05", templateId: intervalsId });
-    const get = (who = s.coach.browser, week = "2028-09-07") => who.call(squadWeekRoute, "GET", `/api/squads/${s.squadId}/week`, { params: { id: s.squadId }, query: `?week=${week}` });
+    const get = (who = s.coach.browser, week = "2028-09-07") =>
+      who.call(squadWeekRoute, "GET", `/api/squads/${s.squadId}/week`, {
+        params: { id: s.squadId },
+        query: `?week=${week}`,
+      });
     const r = await get();
     expect(r.status).toBe(200);
-    expect(r.json.map((x: { athlete: { id: string } }) => x.athlete.id).sort()).toEqual([s.athleteA.id, s.athleteB.id].sort());
+    expect(r.json.map((x: { athlete: { id: string } }) => x.athlete.id).sort()).toEqual(
+      [s.athleteA.id, s.athleteB.id].sort(),
+    );
     const a = r.json.find((x: { athlete: { id: string } }) => x.athlete.id === s.athleteA.id);
     expect(a.week.weekStart).toBe("2028-09-04");
     expect(a.sessions.map((x: { date: string }) => x.date)).toEqual(["2028-09-05"]);
@@ -191,11 +306,29 @@ describe("sessions and weekly budgets", () => {
 
   it("editing a session's steps recomputes its minutes per zone", async () => {
     const r = await plan({ date: "2028-10-03", templateId: easyId });
-    const patched = await s.coach.browser.call(sessionRoute, "PATCH", `/api/sessions/${r.json.id}`, { params: { id: r.json.id }, body: { title: "Hills", notes: "Short and sharp", structure: [step("warmup", 20, 1), { type: "repeat", times: 6, steps: [step("work", 1, 3), step("recovery", 2, 1)] }] } });
+    const patched = await s.coach.browser.call(sessionRoute, "PATCH", `/api/sessions/${r.json.id}`, {
+      params: { id: r.json.id },
+      body: {
+        title: "Hills",
+        notes: "Short and sharp",
+        structure: [
+          step("warmup", 20, 1),
+          { type: "repeat", times: 6, steps: [step("work", 1, 3), step("recovery", 2, 1)] },
+        ],
+      },
+    });
     expect(patched.status).toBe(200);
     // 20 + 6 × 2 = 32 min zone 1, 6 × 1 = 6 min zone 3 (hand sum).
-    expect(patched.json).toMatchObject({ title: "Hills", notes: "Short and sharp", totalS: 38 * 60, minutesByZone: [32, 0, 6] });
-    const bad = await s.coach.browser.call(sessionRoute, "PATCH", `/api/sessions/${r.json.id}`, { params: { id: r.json.id }, body: { structure: [{ type: "repeat", times: 1, steps: [] }] } });
+    expect(patched.json).toMatchObject({
+      title: "Hills",
+      notes: "Short and sharp",
+      totalS: 38 * 60,
+      minutesByZone: [32, 0, 6],
+    });
+    const bad = await s.coach.browser.call(sessionRoute, "PATCH", `/api/sessions/${r.json.id}`, {
+      params: { id: r.json.id },
+      body: { structure: [{ type: "repeat", times: 1, steps: [] }] },
+    });
     expect(bad.status).toBe(400);
   });
 
@@ -204,7 +337,11 @@ describe("sessions and weekly budgets", () => {
     const athlete = other.athleteA;
     const get = (who = other.coach.browser, range = "?from=2029-01-01&to=2029-01-08") =>
       who.call(weeksRoute, "GET", `/api/athletes/${athlete.id}/weeks`, { params: { id: athlete.id }, query: range });
-    const planFor = (date: string) => other.coach.browser.call(sessionsRoute, "POST", `/api/athletes/${athlete.id}/sessions`, { params: { id: athlete.id }, body: { date, structure: [step("work", 50, 1)], title: "Easy", sport: "running" } });
+    const planFor = (date: string) =>
+      other.coach.browser.call(sessionsRoute, "POST", `/api/athletes/${athlete.id}/sessions`, {
+        params: { id: athlete.id },
+        body: { date, structure: [step("work", 50, 1)], title: "Easy", sport: "running" },
+      });
     // The athlete's change counter exists from sign-up on, so that no change goes uncounted before anyone asked.
     expect(await query(`select 1 from roster_cache where athlete_id = $1`, [athlete.id])).toHaveLength(1);
     expect((await get()).json[0].plannedMinByZone).toEqual([0, 0, 0]);
@@ -226,23 +363,42 @@ describe("sessions and weekly budgets", () => {
     // An overdue retest clears once a test is recorded (the season's first retest week lies in the past).
     const season = await other.coach.browser.call(seasonsRoute, "POST", `/api/athletes/${athlete.id}/seasons`, {
       params: { id: athlete.id },
-      body: { name: "Spring", sport: "running", startDate: "2026-01-05", events: [{ date: "2026-10-04", name: "Race" }], weeklyHours: 6 },
+      body: {
+        name: "Spring",
+        sport: "running",
+        startDate: "2026-01-05",
+        events: [{ date: "2026-10-04", name: "Race" }],
+        weeklyHours: 6,
+      },
     });
     expect(season.status).toBe(201);
     const retestWeek = (season.json.weeks as { weekStart: string; retest: boolean }[]).find((x) => x.retest)!.weekStart;
     const range = `?from=${retestWeek}&to=${retestWeek}`;
-    expect((await get(other.coach.browser, range)).json[0].flags.map((f: { code: string }) => f.code)).toContain("retest_overdue");
+    expect((await get(other.coach.browser, range)).json[0].flags.map((f: { code: string }) => f.code)).toContain(
+      "retest_overdue",
+    );
     const test = await other.coach.browser.call(testsRoute, "POST", `/api/athletes/${athlete.id}/tests`, {
       params: { id: athlete.id },
-      body: { kind: "manual", meta: { sport: "running", protocol: "lab report", date: addDays(retestWeek, 2), endedBy: "plan" }, vt1: { hrBpm: 142 }, vt2: { hrBpm: 165 } },
+      body: {
+        kind: "manual",
+        meta: { sport: "running", protocol: "lab report", date: addDays(retestWeek, 2), endedBy: "plan" },
+        vt1: { hrBpm: 142 },
+        vt2: { hrBpm: 165 },
+      },
     });
     expect(test.status).toBe(201);
-    expect((await get(other.coach.browser, range)).json[0].flags.map((f: { code: string }) => f.code)).not.toContain("retest_overdue");
+    expect((await get(other.coach.browser, range)).json[0].flags.map((f: { code: string }) => f.code)).not.toContain(
+      "retest_overdue",
+    );
     // A counter row deleted and made again starts beyond every value the old one had, so no stored answer comes back to life.
-    const [before] = await query<{ generation: string }>(`select generation from roster_cache where athlete_id = $1`, [athlete.id]);
+    const [before] = await query<{ generation: string }>(`select generation from roster_cache where athlete_id = $1`, [
+      athlete.id,
+    ]);
     await query(`delete from roster_cache where athlete_id = $1`, [athlete.id]);
     await query(`insert into roster_cache (athlete_id) values ($1)`, [athlete.id]);
-    const [after] = await query<{ generation: string }>(`select generation from roster_cache where athlete_id = $1`, [athlete.id]);
+    const [after] = await query<{ generation: string }>(`select generation from roster_cache where athlete_id = $1`, [
+      athlete.id,
+    ]);
     expect(BigInt(after!.generation) > BigInt(before!.generation)).toBe(true);
     // Access is checked on every request, the stored answer notwithstanding: a coach of another squad, a squad mate,
     // and the coach once removed from the squad.
@@ -257,10 +413,23 @@ describe("sessions and weekly budgets", () => {
   it("\"today\" is the athlete's own day: a retest week counts as overdue from the athlete's Monday, whatever the day in UTC", async () => {
     const z = { athleteA: other.athleteB, head: other.head };
     const id = z.athleteA.id;
-    expect((await z.athleteA.browser.call(profileRoute, "PATCH", `/api/athletes/${id}/profile`, { params: { id }, body: { timeZone: "Pacific/Auckland" } })).status).toBe(200);
+    expect(
+      (
+        await z.athleteA.browser.call(profileRoute, "PATCH", `/api/athletes/${id}/profile`, {
+          params: { id },
+          body: { timeZone: "Pacific/Auckland" },
+        })
+      ).status,
+    ).toBe(200);
     const season = await z.head.browser.call(seasonsRoute, "POST", `/api/athletes/${id}/seasons`, {
       params: { id },
-      body: { name: "Tz", sport: "running", startDate: "2026-03-02", events: [{ date: "2026-09-06", name: "Race" }], weeklyHours: 6 },
+      body: {
+        name: "Tz",
+        sport: "running",
+        startDate: "2026-03-02",
+        events: [{ date: "2026-09-06", name: "Race" }],
+        weeklyHours: 6,
+      },
     });
     expect(season.status).toBe(201);
     const retestWeek = (season.json.weeks as { weekStart: string; retest: boolean }[]).find((x) => x.retest)!.weekStart;
@@ -268,7 +437,10 @@ describe("sessions and weekly budgets", () => {
     // Sunday 13:00 UTC of the retest week is already Monday in Auckland (UTC+12 or +13), the first day it can be overdue.
     const now = new Date(`${addDays(retestWeek, 6)}T13:00:00Z`);
     const coach = await actorForUser(z.head.id);
-    const codes = async (at: Date) => (JSON.parse(await weekSummariesJson(coach, id, next, next, at))[0].flags as { code: string }[]).map((f) => f.code);
+    const codes = async (at: Date) =>
+      (JSON.parse(await weekSummariesJson(coach, id, next, next, at))[0].flags as { code: string }[]).map(
+        (f) => f.code,
+      );
     expect(await codes(now)).toContain("retest_overdue");
     // Twelve hours earlier it is Sunday in Auckland as well: not overdue yet.
     expect(await codes(new Date(now.getTime() - 12 * 3_600_000))).not.toContain("retest_overdue");

@@ -19,28 +19,55 @@ beforeAll(async () => {
 
 const allNo = () => Object.fromEntries(SCREENING_QUESTIONS.map((q) => [q.id, false])) as Record<string, boolean>;
 const answer = (who: Browser, id: string, yes: string[] = []) =>
-  who.call(screeningRoute, "PUT", `/api/athletes/${id}/screening`, { params: { id }, body: { answers: { ...allNo(), ...Object.fromEntries(yes.map((k) => [k, true])) } } });
+  who.call(screeningRoute, "PUT", `/api/athletes/${id}/screening`, {
+    params: { id },
+    body: { answers: { ...allNo(), ...Object.fromEntries(yes.map((k) => [k, true])) } },
+  });
 const meta = (date: string) => ({ sport: "running", protocol: "track talk test", date, endedBy: "plan" });
 const talk = (who: Browser, id: string, date = "2026-11-20") =>
   who.call(testsRoute, "POST", `/api/athletes/${id}/tests`, {
     params: { id },
-    body: { kind: "talk", meta: meta(date), talk: { workloadUnit: "km/h", stages: ["comfortable", "comfortable", "not_fully_comfortable", "not_fully_comfortable", "cannot_speak"].map((speech, i) => ({ workload: 9 + i, durationS: 180, hrBpm: 130 + 8 * i, speech })) } },
+    body: {
+      kind: "talk",
+      meta: meta(date),
+      talk: {
+        workloadUnit: "km/h",
+        stages: ["comfortable", "comfortable", "not_fully_comfortable", "not_fully_comfortable", "cannot_speak"].map(
+          (speech, i) => ({ workload: 9 + i, durationS: 180, hrBpm: 130 + 8 * i, speech }),
+        ),
+      },
+    },
   });
 const gas = (who: Browser, id: string) => {
   const f = new FormData();
   f.set("file", new File([syntheticRamp({ seed: 5 }).csv], "ramp.csv", { type: "text/csv" }));
-  for (const [k, v] of Object.entries({ sport: "cycling", protocol: "ramp 25 W/min", date: "2026-11-21", endedBy: "exhaustion", bodyMassKg: "70" })) f.set(k, v);
+  for (const [k, v] of Object.entries({
+    sport: "cycling",
+    protocol: "ramp 25 W/min",
+    date: "2026-11-21",
+    endedBy: "exhaustion",
+    bodyMassKg: "70",
+  }))
+    f.set(k, v);
   return who.call(testsRoute, "POST", `/api/athletes/${id}/tests`, { params: { id }, form: f });
 };
-const testCount = async (id: string) => Number((await query<{ n: string }>(`select count(*) as n from athlete_test where athlete_id = $1`, [id]))[0]!.n);
-const rosterRow = async (id: string) => (await s.head.browser.call(rosterRoute, "GET", "/api/roster", { query: `?squad=${s.squadId}` })).json.rows.find((r: { id: string }) => r.id === id);
+const testCount = async (id: string) =>
+  Number((await query<{ n: string }>(`select count(*) as n from athlete_test where athlete_id = $1`, [id]))[0]!.n);
+const rosterRow = async (id: string) =>
+  (await s.head.browser.call(rosterRoute, "GET", "/api/roster", { query: `?squad=${s.squadId}` })).json.rows.find(
+    (r: { id: string }) => r.id === id,
+  );
 
 describe("readiness screening", () => {
   it("a condition (here a recent injury) holds maximal tests until a clearance; field tests are at the coach's judgement", async () => {
     const a = s.athleteA;
     const put = await answer(a.browser, a.id, ["injury"]);
     expect(put.status).toBe(200);
-    expect(put.json.readiness).toMatchObject({ status: "maximal_needs_clearance", tests: "submaximal", holdHardSessions: false });
+    expect(put.json.readiness).toMatchObject({
+      status: "maximal_needs_clearance",
+      tests: "submaximal",
+      holdHardSessions: false,
+    });
     const before = await testCount(a.id);
     const refused = await gas(s.head.browser, a.id);
     expect(refused.status).toBe(409);
@@ -59,16 +86,32 @@ describe("readiness screening", () => {
     expect(refused.status).toBe(409);
     expect(refused.json.readiness.status).toBe("hold");
     expect(await testCount(b.id)).toBe(before);
-    expect((await rosterRow(b.id)).readiness).toMatchObject({ holdHardSessions: true, label: "Hold hard sessions: symptom reported" });
+    expect((await rosterRow(b.id)).readiness).toMatchObject({
+      holdHardSessions: true,
+      label: "Hold hard sessions: symptom reported",
+    });
 
     // The athlete cannot clear themselves; a clearance in the future is refused; a coach records one.
-    const clear = (who: Browser, body: unknown) => who.call(clearanceRoute, "POST", `/api/athletes/${b.id}/screening/clearance`, { params: { id: b.id }, body });
-    expect([403, 404]).toContain((await clear(b.browser, { clearedBy: "Dr Self", role: "physician", clearedOn: "2026-11-30" })).status);
+    const clear = (who: Browser, body: unknown) =>
+      who.call(clearanceRoute, "POST", `/api/athletes/${b.id}/screening/clearance`, { params: { id: b.id }, body });
+    expect([403, 404]).toContain(
+      (await clear(b.browser, { clearedBy: "Dr Self", role: "physician", clearedOn: "2026-11-30" })).status,
+    );
     const future = await clear(s.head.browser, { clearedBy: "Dr Ahead", role: "physician", clearedOn: "2099-01-01" });
     expect(future.status).toBe(400);
-    const ok = await clear(s.head.browser, { clearedBy: "Dr Lena Berg", role: "sports physician", clearedOn: "2026-11-30", note: "Exercise ECG normal." });
+    const ok = await clear(s.head.browser, {
+      clearedBy: "Dr Lena Berg",
+      role: "sports physician",
+      clearedOn: "2026-11-30",
+      note: "Exercise ECG normal.",
+    });
     expect(ok.status).toBe(201);
-    expect(ok.json.readiness).toMatchObject({ status: "ready", holdHardSessions: false, tests: "all", clearance: { clearedBy: "Dr Lena Berg", role: "sports physician" } });
+    expect(ok.json.readiness).toMatchObject({
+      status: "ready",
+      holdHardSessions: false,
+      tests: "all",
+      clearance: { clearedBy: "Dr Lena Berg", role: "sports physician" },
+    });
     expect((await talk(s.head.browser, b.id, "2026-11-22")).status).toBe(201);
     expect((await rosterRow(b.id)).readiness.holdHardSessions).toBe(false);
 
@@ -92,7 +135,10 @@ describe("readiness screening", () => {
     expect(expired.status).toBe(409);
     expect(expired.json.readiness.status).toBe("expired");
     expect((await rosterRow(a.id)).readiness.label).toMatch(/Screening expired/);
-    await query(`insert into screening (id, athlete_id, answers, any_yes, recorded_by) values (gen_random_uuid()::text, $1, '{"heart": false}', false, $1)`, [a.id]);
+    await query(
+      `insert into screening (id, athlete_id, answers, any_yes, recorded_by) values (gen_random_uuid()::text, $1, '{"heart": false}', false, $1)`,
+      [a.id],
+    );
     expect((await talk(s.head.browser, a.id, "2026-11-24")).json.readiness.status).toBe("incomplete");
     await query(`delete from screening where athlete_id = $1`, [a.id]);
     expect((await talk(s.head.browser, a.id, "2026-11-25")).json.readiness.status).toBe("missing");
@@ -100,7 +146,20 @@ describe("readiness screening", () => {
   });
 
   it("refuses partial answers and other people's screenings", async () => {
-    expect((await s.athleteA.browser.call(screeningRoute, "PUT", `/api/athletes/${s.athleteA.id}/screening`, { params: { id: s.athleteA.id }, body: { answers: { heart: false } } })).status).toBe(400);
-    expect((await s.athleteB.browser.call(screeningRoute, "GET", `/api/athletes/${s.athleteA.id}/screening`, { params: { id: s.athleteA.id } })).status).toBe(404);
+    expect(
+      (
+        await s.athleteA.browser.call(screeningRoute, "PUT", `/api/athletes/${s.athleteA.id}/screening`, {
+          params: { id: s.athleteA.id },
+          body: { answers: { heart: false } },
+        })
+      ).status,
+    ).toBe(400);
+    expect(
+      (
+        await s.athleteB.browser.call(screeningRoute, "GET", `/api/athletes/${s.athleteA.id}/screening`, {
+          params: { id: s.athleteA.id },
+        })
+      ).status,
+    ).toBe(404);
   });
 });

@@ -27,8 +27,10 @@ import { Browser, ORIGIN } from "../support/api";
 import { makeSquad } from "../support/squad";
 import { query } from "../support/db";
 
-const unique = (label: string) => `${label}-${Date.now().toString(36)}${Math.random().toString(36).slice(2, 6)}@security.test`;
-const count = async (sql: string, params: (string | number)[] = []) => Number((await query<{ n: string }>(sql, params))[0]!.n);
+const unique = (label: string) =>
+  `${label}-${Date.now().toString(36)}${Math.random().toString(36).slice(2, 6)}@security.test`;
+const count = async (sql: string, params: (string | number)[] = []) =>
+  Number((await query<{ n: string }>(sql, params))[0]!.n);
 
 describe("e-mail verification", () => {
   it("an account whose address is not confirmed cannot sign in, and a fresh link is sent", async () => {
@@ -36,12 +38,17 @@ describe("e-mail verification", () => {
     const b = new Browser("198.51.100.201");
     await b.signUp("Not Yet", email, "correct-horse-battery", { verify: false });
     expect((await b.call(meRoute, "GET", "/api/me")).status).toBe(401);
-    const before = await count(`select count(*) as n from outbox where kind = 'email_verification' and to_address = $1`, [email]);
+    const before = await count(
+      `select count(*) as n from outbox where kind = 'email_verification' and to_address = $1`,
+      [email],
+    );
     const r = await b.signIn(email);
     expect(r.status).toBe(403);
     expect(r.json.code).toBe("EMAIL_NOT_VERIFIED");
     expect(b.cookie).not.toMatch(/session_token=/);
-    expect(await count(`select count(*) as n from outbox where kind = 'email_verification' and to_address = $1`, [email])).toBe(before + 1);
+    expect(
+      await count(`select count(*) as n from outbox where kind = 'email_verification' and to_address = $1`, [email]),
+    ).toBe(before + 1);
     // Nor can it act: creating a squad needs a session.
     expect((await b.call(squadsRoute, "POST", "/api/squads", { body: { name: "Squat squad" } })).status).toBe(401);
     expect(await count(`select count(*) as n from squad where name = 'Squat squad'`)).toBe(0);
@@ -55,7 +62,10 @@ describe("e-mail verification", () => {
     const b = new Browser("198.51.100.202");
     await b.signUp("Was Confirmed", email);
     expect((await b.call(meRoute, "GET", "/api/me")).status).toBe(200);
-    const [row] = await query<{ id: string }>(`update "user" set email_verified = false where email = $1 returning id`, [email]);
+    const [row] = await query<{ id: string }>(
+      `update "user" set email_verified = false where email = $1 returning id`,
+      [email],
+    );
     // As after a restart: the process's memory of verified sessions starts empty.
     forgetUserSessions(row!.id);
     expect((await b.call(meRoute, "GET", "/api/me")).status).toBe(401);
@@ -65,12 +75,22 @@ describe("e-mail verification", () => {
     const email = unique("owner");
     await new Browser("198.51.100.204").signUp("Real Owner", email);
     const users = await count(`select count(*) as n from "user" where lower(email) = lower($1)`, [email]);
-    const fresh = await new Browser("198.51.100.205").auth("POST", "/sign-up/email", { name: "Imposter", email: unique("fresh"), password: "long-enough-password" });
-    const taken = await new Browser("198.51.100.205").auth("POST", "/sign-up/email", { name: "Imposter", email, password: "long-enough-password" });
+    const fresh = await new Browser("198.51.100.205").auth("POST", "/sign-up/email", {
+      name: "Imposter",
+      email: unique("fresh"),
+      password: "long-enough-password",
+    });
+    const taken = await new Browser("198.51.100.205").auth("POST", "/sign-up/email", {
+      name: "Imposter",
+      email,
+      password: "long-enough-password",
+    });
     expect(taken.status).toBe(fresh.status);
     expect(Object.keys(taken.json).sort()).toEqual(Object.keys(fresh.json).sort());
     expect(await count(`select count(*) as n from "user" where lower(email) = lower($1)`, [email])).toBe(users);
-    expect(await count(`select count(*) as n from outbox where kind = 'existing_account' and to_address = $1`, [email])).toBe(1);
+    expect(
+      await count(`select count(*) as n from outbox where kind = 'existing_account' and to_address = $1`, [email]),
+    ).toBe(1);
     // The imposter's password does not open the account.
     expect((await new Browser("198.51.100.206").signIn(email, "long-enough-password")).status).toBe(401);
   });
@@ -119,7 +139,9 @@ describe("rate limits and the per-account pause", () => {
     expect(paused.json.code).toBe("SIGN_IN_PAUSED");
     expect(paused.json.message).toMatch(/paused for 15 more minutes/);
     expect(b.cookie).not.toMatch(/session_token=/);
-    expect(await count(`select count(*) as n from outbox where kind = 'sign_in_paused' and to_address = $1`, [email])).toBe(1);
+    expect(
+      await count(`select count(*) as n from outbox where kind = 'sign_in_paused' and to_address = $1`, [email]),
+    ).toBe(1);
     // Other accounts on the same addresses are not affected.
     const other = unique("neighbour");
     await new Browser("198.51.100.211").signUp("Neighbour", other);
@@ -141,7 +163,10 @@ describe("cross-site requests to the app's own API", () => {
   it("a text/plain POST from a foreign origin is refused and writes nothing", async () => {
     const b = await signedIn();
     const name = `Forged ${Date.now()}`;
-    const r = await b.call(squadsRoute, "POST", "/api/squads", { rawBody: JSON.stringify({ name }), headers: { origin: "https://evil.test", "content-type": "text/plain" } });
+    const r = await b.call(squadsRoute, "POST", "/api/squads", {
+      rawBody: JSON.stringify({ name }),
+      headers: { origin: "https://evil.test", "content-type": "text/plain" },
+    });
     expect([403, 415]).toContain(r.status);
     expect(await count(`select count(*) as n from squad where name = $1`, [name])).toBe(0);
   });
@@ -149,7 +174,10 @@ describe("cross-site requests to the app's own API", () => {
   it("a text/plain POST from the app's own origin answers 415 (only JSON or multipart bodies)", async () => {
     const b = await signedIn();
     const name = `Plain ${Date.now()}`;
-    const r = await b.call(squadsRoute, "POST", "/api/squads", { rawBody: JSON.stringify({ name }), headers: { "content-type": "text/plain" } });
+    const r = await b.call(squadsRoute, "POST", "/api/squads", {
+      rawBody: JSON.stringify({ name }),
+      headers: { "content-type": "text/plain" },
+    });
     expect(r.status).toBe(415);
     expect(r.json.error).toMatch(/JSON/);
     expect(await count(`select count(*) as n from squad where name = $1`, [name])).toBe(0);
@@ -158,22 +186,37 @@ describe("cross-site requests to the app's own API", () => {
   it("a JSON POST with a foreign Origin, or a cross-site Sec-Fetch-Site without one, answers 403", async () => {
     const b = await signedIn();
     const name = `Foreign ${Date.now()}`;
-    const foreign = await b.call(squadsRoute, "POST", "/api/squads", { body: { name }, headers: { origin: "https://evil.test" } });
+    const foreign = await b.call(squadsRoute, "POST", "/api/squads", {
+      body: { name },
+      headers: { origin: "https://evil.test" },
+    });
     expect(foreign.status).toBe(403);
-    const fetchSite = await b.call(squadsRoute, "POST", "/api/squads", { body: { name }, headers: { origin: "", "sec-fetch-site": "cross-site" } });
+    const fetchSite = await b.call(squadsRoute, "POST", "/api/squads", {
+      body: { name },
+      headers: { origin: "", "sec-fetch-site": "cross-site" },
+    });
     expect(fetchSite.status).toBe(403);
     expect(await count(`select count(*) as n from squad where name = $1`, [name])).toBe(0);
     // The same request from the app's own pages works.
-    const own = await b.call(squadsRoute, "POST", "/api/squads", { body: { name }, headers: { "sec-fetch-site": "same-origin" } });
+    const own = await b.call(squadsRoute, "POST", "/api/squads", {
+      body: { name },
+      headers: { "sec-fetch-site": "same-origin" },
+    });
     expect(own.status).toBe(201);
   });
 
   it("a cross-site DELETE and a cross-site POST elsewhere are refused before anything is looked up", async () => {
     const b = await signedIn();
     const id = "00000000-0000-4000-8000-000000000000";
-    const del = await b.call(logRoute, "DELETE", `/api/logs/${id}`, { params: { id }, headers: { origin: "https://evil.test" } });
+    const del = await b.call(logRoute, "DELETE", `/api/logs/${id}`, {
+      params: { id },
+      headers: { origin: "https://evil.test" },
+    });
     expect(del.status).toBe(403);
-    const post = await b.call(templatesRoute, "POST", "/api/templates", { body: {}, headers: { origin: "https://evil.test" } });
+    const post = await b.call(templatesRoute, "POST", "/api/templates", {
+      body: {},
+      headers: { origin: "https://evil.test" },
+    });
     expect(post.status).toBe(403);
   });
 });
@@ -182,21 +225,31 @@ describe("invitations", () => {
   it("a withdrawn invitation cannot be accepted, and only the head coach can withdraw one", async () => {
     const { squadId, head, coach } = await makeSquad("withdraw");
     const email = unique("invitee");
-    const sent = await head.browser.call(invitationsRoute, "POST", `/api/squads/${squadId}/invitations`, { params: { id: squadId }, body: { email, role: "athlete" } });
+    const sent = await head.browser.call(invitationsRoute, "POST", `/api/squads/${squadId}/invitations`, {
+      params: { id: squadId },
+      body: { email, role: "athlete" },
+    });
     expect(sent.status).toBe(201);
     const path = `/api/squads/${squadId}/invitations/${sent.json.id}`;
     const params = { id: squadId, invitationId: sent.json.id };
     expect((await coach.browser.call(invitationRoute, "DELETE", path, { params })).status).toBe(403);
     expect((await head.browser.call(invitationRoute, "DELETE", path, { params })).status).toBe(204);
     expect((await head.browser.call(invitationRoute, "DELETE", path, { params })).status).toBe(404);
-    const [row] = await query<{ meta: { url: string } }>(`select meta from outbox where kind = 'invitation' and to_address = $1`, [email]);
+    const [row] = await query<{ meta: { url: string } }>(
+      `select meta from outbox where kind = 'invitation' and to_address = $1`,
+      [email],
+    );
     const token = row!.meta.url.split("/invite/")[1]!;
     const invitee = new Browser("198.51.100.240");
     await invitee.signUp("Late Invitee", email);
     const accept = await invitee.call(acceptRoute, "POST", `/api/invitations/${token}/accept`, { params: { token } });
     expect(accept.status).toBe(410);
     expect(accept.json.error).toMatch(/withdrawn/);
-    expect(await count(`select count(*) as n from membership m join "user" u on u.id = m.user_id where u.email = $1`, [email])).toBe(0);
+    expect(
+      await count(`select count(*) as n from membership m join "user" u on u.id = m.user_id where u.email = $1`, [
+        email,
+      ]),
+    ).toBe(0);
   });
 });
 
@@ -204,40 +257,99 @@ describe("two coaches editing the same thing", () => {
   it("a change that names an older version answers 409 with the current state and writes nothing", async () => {
     const { squadId, head, coach, athleteA } = await makeSquad("versions");
     // A session: the head coach moves it; the coach, still looking at version 1, tries to rename it.
-    const created = await head.browser.call(sessionsRoute, "POST", `/api/athletes/${athleteA.id}/sessions`, { params: { id: athleteA.id }, body: { date: "2027-05-03", title: "Steady", sport: "running", structure: [{ type: "step", kind: "work", durationS: 3600, zone: 1 }] } });
+    const created = await head.browser.call(sessionsRoute, "POST", `/api/athletes/${athleteA.id}/sessions`, {
+      params: { id: athleteA.id },
+      body: {
+        date: "2027-05-03",
+        title: "Steady",
+        sport: "running",
+        structure: [{ type: "step", kind: "work", durationS: 3600, zone: 1 }],
+      },
+    });
     const id = created.json.id as string;
-    const moved = await head.browser.call(sessionRoute, "PATCH", `/api/sessions/${id}`, { params: { id }, body: { date: "2027-05-04", version: 1 } });
+    const moved = await head.browser.call(sessionRoute, "PATCH", `/api/sessions/${id}`, {
+      params: { id },
+      body: { date: "2027-05-04", version: 1 },
+    });
     expect(moved.status).toBe(200);
     expect(moved.json.version).toBe(2);
-    const stale = await coach.browser.call(sessionRoute, "PATCH", `/api/sessions/${id}`, { params: { id }, body: { title: "Renamed", version: 1 } });
+    const stale = await coach.browser.call(sessionRoute, "PATCH", `/api/sessions/${id}`, {
+      params: { id },
+      body: { title: "Renamed", version: 1 },
+    });
     expect(stale.status).toBe(409);
     expect(stale.json.current).toMatchObject({ id, date: "2027-05-04", title: "Steady", version: 2 });
-    expect((await query<{ title: string }>(`select title from planned_session where id = $1`, [id]))[0]!.title).toBe("Steady");
-    expect((await coach.browser.call(sessionRoute, "PATCH", `/api/sessions/${id}`, { params: { id }, body: { title: "Renamed", version: 2 } })).status).toBe(200);
+    expect((await query<{ title: string }>(`select title from planned_session where id = $1`, [id]))[0]!.title).toBe(
+      "Steady",
+    );
+    expect(
+      (
+        await coach.browser.call(sessionRoute, "PATCH", `/api/sessions/${id}`, {
+          params: { id },
+          body: { title: "Renamed", version: 2 },
+        })
+      ).status,
+    ).toBe(200);
 
     // A template.
-    const t = await head.browser.call(templatesRoute, "POST", "/api/templates", { body: { squadId, name: "Easy hour", sport: "running", structure: [{ type: "step", kind: "work", durationS: 3600, zone: 1 }] } });
+    const t = await head.browser.call(templatesRoute, "POST", "/api/templates", {
+      body: {
+        squadId,
+        name: "Easy hour",
+        sport: "running",
+        structure: [{ type: "step", kind: "work", durationS: 3600, zone: 1 }],
+      },
+    });
     const tid = t.json.id as string;
-    expect((await head.browser.call(templateRoute, "PATCH", `/api/templates/${tid}`, { params: { id: tid }, body: { name: "Easy hour (long)", version: 1 } })).status).toBe(200);
-    const staleTemplate = await coach.browser.call(templateRoute, "PATCH", `/api/templates/${tid}`, { params: { id: tid }, body: { name: "Recovery hour", version: 1 } });
+    expect(
+      (
+        await head.browser.call(templateRoute, "PATCH", `/api/templates/${tid}`, {
+          params: { id: tid },
+          body: { name: "Easy hour (long)", version: 1 },
+        })
+      ).status,
+    ).toBe(200);
+    const staleTemplate = await coach.browser.call(templateRoute, "PATCH", `/api/templates/${tid}`, {
+      params: { id: tid },
+      body: { name: "Recovery hour", version: 1 },
+    });
     expect(staleTemplate.status).toBe(409);
     expect(staleTemplate.json.current).toMatchObject({ name: "Easy hour (long)", version: 2 });
 
     // A season week.
-    const season = await head.browser.call(seasonsRoute, "POST", `/api/athletes/${athleteA.id}/seasons`, { params: { id: athleteA.id }, body: { name: "Summer", sport: "running", startDate: "2027-01-04", events: [{ date: "2027-06-06", name: "Summer 10k" }], weeklyHours: 6 } });
+    const season = await head.browser.call(seasonsRoute, "POST", `/api/athletes/${athleteA.id}/seasons`, {
+      params: { id: athleteA.id },
+      body: {
+        name: "Summer",
+        sport: "running",
+        startDate: "2027-01-04",
+        events: [{ date: "2027-06-06", name: "Summer 10k" }],
+        weeklyHours: 6,
+      },
+    });
     const seasonId = season.json.id as string;
     const weekStart = season.json.weeks[2].weekStart as string;
-    const weekCall = (who: Browser, body: unknown) => who.call(seasonWeekRoute, "PATCH", `/api/seasons/${seasonId}/weeks/${weekStart}`, { params: { id: seasonId, weekStart }, body });
+    const weekCall = (who: Browser, body: unknown) =>
+      who.call(seasonWeekRoute, "PATCH", `/api/seasons/${seasonId}/weeks/${weekStart}`, {
+        params: { id: seasonId, weekStart },
+        body,
+      });
     expect((await weekCall(head.browser, { volumeHours: 5, version: 1 })).status).toBe(200);
     const staleWeek = await weekCall(coach.browser, { volumeHours: 9, version: 1 });
     expect(staleWeek.status).toBe(409);
     expect(staleWeek.json.current.version).toBe(2);
-    const [stored] = await query<{ weeks: { weekStart: string; volumeHours: number }[] }>(`select weeks from season where id = $1`, [seasonId]);
+    const [stored] = await query<{ weeks: { weekStart: string; volumeHours: number }[] }>(
+      `select weeks from season where id = $1`,
+      [seasonId],
+    );
     expect(stored!.weeks.find((w) => w.weekStart === weekStart)!.volumeHours).toBe(5);
 
     // A profile: the athlete and the coach at once.
-    const profile = (who: Browser, body: unknown) => who.call(profileRoute, "PATCH", `/api/athletes/${athleteA.id}/profile`, { params: { id: athleteA.id }, body });
-    const read = await head.browser.call(profileRoute, "GET", `/api/athletes/${athleteA.id}/profile`, { params: { id: athleteA.id } });
+    const profile = (who: Browser, body: unknown) =>
+      who.call(profileRoute, "PATCH", `/api/athletes/${athleteA.id}/profile`, { params: { id: athleteA.id }, body });
+    const read = await head.browser.call(profileRoute, "GET", `/api/athletes/${athleteA.id}/profile`, {
+      params: { id: athleteA.id },
+    });
     const v = read.json.profile.version as number;
     expect((await profile(athleteA.browser, { bodyMassKg: 61, version: v })).status).toBe(200);
     const staleProfile = await profile(head.browser, { bodyMassKg: 70, version: v });
@@ -252,16 +364,32 @@ describe("CSV downloads", () => {
   it("the athlete and their coaches download the plan, logs and zone history; formula cells are neutralised; others get 404", async () => {
     const { head, athleteA } = await makeSquad("export");
     const other = await makeSquad("export-other");
-    const made = await head.browser.call(sessionsRoute, "POST", `/api/athletes/${athleteA.id}/sessions`, { params: { id: athleteA.id }, body: { date: "2027-03-02", title: '=HYPERLINK("http://evil.test","x")', sport: "running", structure: [{ type: "step", kind: "work", durationS: 2700, zone: 1 }] } });
+    const made = await head.browser.call(sessionsRoute, "POST", `/api/athletes/${athleteA.id}/sessions`, {
+      params: { id: athleteA.id },
+      body: {
+        date: "2027-03-02",
+        title: '=HYPERLINK("http://evil.test","x")',
+        sport: "running",
+        structure: [{ type: "step", kind: "work", durationS: 2700, zone: 1 }],
+      },
+    });
     expect(made.status).toBe(201);
-    const get = (who: Browser, file: string, query = "?from=2027-03-01&to=2027-03-31") => who.call(exportRoute, "GET", `/api/athletes/${athleteA.id}/export/${file}`, { params: { id: athleteA.id, file }, query });
+    const get = (who: Browser, file: string, query = "?from=2027-03-01&to=2027-03-31") =>
+      who.call(exportRoute, "GET", `/api/athletes/${athleteA.id}/export/${file}`, {
+        params: { id: athleteA.id, file },
+        query,
+      });
     for (const who of [athleteA.browser, head.browser]) {
       const r = await get(who, "plan.csv");
       expect(r.status).toBe(200);
       expect(r.headers.get("content-type")).toMatch(/text\/csv/);
-      expect(r.headers.get("content-disposition")).toMatch(/attachment; filename="tidemark-plan-2027-03-01-to-2027-03-31.csv"/);
+      expect(r.headers.get("content-disposition")).toMatch(
+        /attachment; filename="tidemark-plan-2027-03-01-to-2027-03-31.csv"/,
+      );
       const text = String(r.json).replace(/^\uFEFF/, "");
-      expect(text.split("\r\n")[0]).toBe("date,title,sport,kind,planned_min,zone1_min,zone2_min,zone3_min,notes,logged,done_min,rpe");
+      expect(text.split("\r\n")[0]).toBe(
+        "date,title,sport,kind,planned_min,zone1_min,zone2_min,zone3_min,notes,logged,done_min,rpe",
+      );
       expect(text).toContain(`2027-03-02,"'=HYPERLINK(""http://evil.test"",""x"")",running,training,45,45,0,0`);
     }
     expect((await get(head.browser, "logs.csv")).status).toBe(200);
@@ -275,11 +403,20 @@ describe("CSV downloads", () => {
 describe("edge inputs", () => {
   it("years 0000 and 9999, impossible dates and absurd sessions answer 400 with a reason and write nothing", async () => {
     const { squadId, head, athleteA } = await makeSquad("edge");
-    const weeks = await head.browser.call(weeksRoute, "GET", `/api/athletes/${athleteA.id}/weeks`, { params: { id: athleteA.id }, query: "?from=0000-01-01&to=0000-02-01" });
+    const weeks = await head.browser.call(weeksRoute, "GET", `/api/athletes/${athleteA.id}/weeks`, {
+      params: { id: athleteA.id },
+      query: "?from=0000-01-01&to=0000-02-01",
+    });
     expect(weeks.status).toBe(400);
-    const far = await head.browser.call(weeksRoute, "GET", `/api/athletes/${athleteA.id}/weeks`, { params: { id: athleteA.id }, query: "?from=9999-12-01&to=9999-12-31" });
+    const far = await head.browser.call(weeksRoute, "GET", `/api/athletes/${athleteA.id}/weeks`, {
+      params: { id: athleteA.id },
+      query: "?from=9999-12-01&to=9999-12-31",
+    });
     expect(far.status).toBe(400);
-    const squadWeek = await head.browser.call(squadWeekRoute, "GET", `/api/squads/${squadId}/week`, { params: { id: squadId }, query: "?week=9999-12-27" });
+    const squadWeek = await head.browser.call(squadWeekRoute, "GET", `/api/squads/${squadId}/week`, {
+      params: { id: squadId },
+      query: "?week=9999-12-27",
+    });
     expect(squadWeek.status).toBe(400);
     expect(squadWeek.json.fieldErrors.week[0]).toMatch(/between 1900 and 2200/);
 
@@ -289,7 +426,11 @@ describe("edge inputs", () => {
       sport: "running",
       structure: [{ type: "repeat", times, steps: [{ type: "step", kind: "work", durationS, zone: 1 }] }],
     });
-    const sessionsCall = (body: unknown) => head.browser.call(sessionsRoute, "POST", `/api/athletes/${athleteA.id}/sessions`, { params: { id: athleteA.id }, body });
+    const sessionsCall = (body: unknown) =>
+      head.browser.call(sessionsRoute, "POST", `/api/athletes/${athleteA.id}/sessions`, {
+        params: { id: athleteA.id },
+        body,
+      });
     expect((await sessionsCall(session("9999-01-04"))).status).toBe(400);
     const huge = await sessionsCall(session("2027-01-04", 12 * 3600, 50));
     expect(huge.status).toBe(400);
@@ -298,7 +439,12 @@ describe("edge inputs", () => {
 
     const test = await head.browser.call(testsRoute, "POST", `/api/athletes/${athleteA.id}/tests`, {
       params: { id: athleteA.id },
-      body: { kind: "manual", meta: { sport: "running", protocol: "field estimate", date: "2026-02-30", endedBy: "plan" }, vt1: { hrBpm: 140 }, vt2: { hrBpm: 165 } },
+      body: {
+        kind: "manual",
+        meta: { sport: "running", protocol: "field estimate", date: "2026-02-30", endedBy: "plan" },
+        vt1: { hrBpm: 140 },
+        vt2: { hrBpm: 165 },
+      },
     });
     expect(test.status).toBe(400);
     expect(JSON.stringify(test.json)).toMatch(/real calendar date/);
@@ -307,7 +453,11 @@ describe("edge inputs", () => {
 
   it("names and titles with line breaks or control characters are refused, sign-up included", async () => {
     const b = new Browser("198.51.100.230");
-    const r = await b.auth("POST", "/sign-up/email", { name: "Eve\r\nBcc: all@example.test", email: unique("crlf"), password: "long-enough-password" });
+    const r = await b.auth("POST", "/sign-up/email", {
+      name: "Eve\r\nBcc: all@example.test",
+      email: unique("crlf"),
+      password: "long-enough-password",
+    });
     expect(r.status).toBe(400);
     expect(r.json.message).toMatch(/one line/);
     await b.signUp("Plain Name", unique("plain"));
@@ -319,7 +469,9 @@ describe("edge inputs", () => {
   });
 
   it("an unsubscribe token with broken percent-encoding answers 404, not 500", async () => {
-    const r = await new Browser().call(unsubscribeRoute, "POST", "/api/unsubscribe/%E0%A4%A", { params: { token: "%E0%A4%A" } });
+    const r = await new Browser().call(unsubscribeRoute, "POST", "/api/unsubscribe/%E0%A4%A", {
+      params: { token: "%E0%A4%A" },
+    });
     expect(r.status).toBe(404);
   });
 });

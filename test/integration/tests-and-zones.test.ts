@@ -38,7 +38,10 @@ describe("gas-exchange tests", () => {
   const ramp = syntheticRamp({ seed: 1 });
 
   it("stores the upload, analyses it and creates a zone set effective from the test date", async () => {
-    const r = await s.coach.browser.call(testsRoute, "POST", `/api/athletes/${s.athleteA.id}/tests`, { params: { id: s.athleteA.id }, form: upload(ramp.csv, { bodyMassKg: "72" }) });
+    const r = await s.coach.browser.call(testsRoute, "POST", `/api/athletes/${s.athleteA.id}/tests`, {
+      params: { id: s.athleteA.id },
+      form: upload(ramp.csv, { bodyMassKg: "72" }),
+    });
     expect(r.status).toBe(201);
     testId = r.json.id;
     // Detected thresholds near the model's (VT1 within 10 %, VT2 within 8 %: the engine's stated tolerances).
@@ -46,13 +49,19 @@ describe("gas-exchange tests", () => {
     expect(Math.abs(r.json.detected.vt2.vo2MlMin / ramp.truth.vt2Vo2MlMin - 1)).toBeLessThan(0.08);
     const file = await query<{ size_bytes: number }>(`select size_bytes from test_file where test_id = $1`, [testId]);
     expect(file[0]!.size_bytes).toBe(Buffer.byteLength(ramp.csv));
-    const zones = await s.athleteA.browser.call(zonesRoute, "GET", `/api/athletes/${s.athleteA.id}/zones`, { params: { id: s.athleteA.id }, query: "?date=2026-09-01" });
+    const zones = await s.athleteA.browser.call(zonesRoute, "GET", `/api/athletes/${s.athleteA.id}/zones`, {
+      params: { id: s.athleteA.id },
+      query: "?date=2026-09-01",
+    });
     expect(zones.status).toBe(200);
     const set = zones.json.inForce.cycling;
     expect(set.effectiveFrom).toBe("2026-09-01");
     expect(set.zones[0].ranges.hrBpm.max).toBe(r.json.detected.vt1.hrBpm);
     expect(set.zones[2].ranges.powerW.min).toBe(r.json.detected.vt2.powerW);
-    const before = await s.athleteA.browser.call(zonesRoute, "GET", `/api/athletes/${s.athleteA.id}/zones`, { params: { id: s.athleteA.id }, query: "?date=2026-08-31" });
+    const before = await s.athleteA.browser.call(zonesRoute, "GET", `/api/athletes/${s.athleteA.id}/zones`, {
+      params: { id: s.athleteA.id },
+      query: "?date=2026-08-31",
+    });
     expect(before.json.inForce.cycling).toBeUndefined();
   });
 
@@ -68,7 +77,8 @@ describe("gas-exchange tests", () => {
   });
 
   it("adjusting a threshold changes the zones and keeps the detected values, with who and when", async () => {
-    const before = (await s.coach.browser.call(testRoute, "GET", `/api/tests/${testId}`, { params: { id: testId } })).json;
+    const before = (await s.coach.browser.call(testRoute, "GET", `/api/tests/${testId}`, { params: { id: testId } }))
+      .json;
     const newVt2Time = before.detected.vt2.timeS - 60;
     const r = await s.coach.browser.call(thresholdsRoute, "PATCH", `/api/tests/${testId}/thresholds`, {
       params: { id: testId },
@@ -80,16 +90,24 @@ describe("gas-exchange tests", () => {
     expect(r.json.adjusted.vt2.hrBpm).toBeLessThan(before.detected.vt2.hrBpm);
     expect(r.json.adjustedBy).toMatch(/^Coach/);
     expect(r.json.adjustedAt).toBeTruthy();
-    const zones = await s.athleteA.browser.call(zonesRoute, "GET", `/api/athletes/${s.athleteA.id}/zones`, { params: { id: s.athleteA.id }, query: "?date=2026-09-02" });
+    const zones = await s.athleteA.browser.call(zonesRoute, "GET", `/api/athletes/${s.athleteA.id}/zones`, {
+      params: { id: s.athleteA.id },
+      query: "?date=2026-09-02",
+    });
     expect(zones.json.inForce.cycling.zones[2].ranges.hrBpm.min).toBe(r.json.adjusted.vt2.hrBpm);
-    const wrongOrder = await s.coach.browser.call(thresholdsRoute, "PATCH", `/api/tests/${testId}/thresholds`, { params: { id: testId }, body: { vt1: { timeS: 800 }, vt2: { timeS: 700 } } });
+    const wrongOrder = await s.coach.browser.call(thresholdsRoute, "PATCH", `/api/tests/${testId}/thresholds`, {
+      params: { id: testId },
+      body: { vt1: { timeS: 800 }, vt2: { timeS: 700 } },
+    });
     expect(wrongOrder.status).toBe(400);
   });
 
   it("a coach sets the test segment by hand: the file is analysed again inside it, adjustments are cleared, the zones follow", async () => {
-    const before = (await s.coach.browser.call(testRoute, "GET", `/api/tests/${testId}`, { params: { id: testId } })).json;
+    const before = (await s.coach.browser.call(testRoute, "GET", `/api/tests/${testId}`, { params: { id: testId } }))
+      .json;
     expect(before.adjusted).not.toBeNull(); // from the test above
-    const put = (body: unknown, who = s.coach) => who.browser.call(segmentRoute, "PUT", `/api/tests/${testId}/segment`, { params: { id: testId }, body });
+    const put = (body: unknown, who = s.coach) =>
+      who.browser.call(segmentRoute, "PUT", `/api/tests/${testId}/segment`, { params: { id: testId }, body });
     // End the segment half-way between the detected VT1 and VT2: VT2 can no longer be found there, VT1 still can.
     const cut = Math.round((before.detected.vt1.timeS + before.detected.vt2.timeS) / 2);
     const r = await put({ fromS: before.result.onsetS, toS: cut });
@@ -120,33 +138,66 @@ describe("gas-exchange tests", () => {
   it("an athlete cannot read another athlete's test or zones, and cannot adjust their own", async () => {
     const r = await s.athleteB.browser.call(testRoute, "GET", `/api/tests/${testId}`, { params: { id: testId } });
     expect(r.status).toBe(404);
-    const z = await s.athleteB.browser.call(zonesRoute, "GET", `/api/athletes/${s.athleteA.id}/zones`, { params: { id: s.athleteA.id } });
+    const z = await s.athleteB.browser.call(zonesRoute, "GET", `/api/athletes/${s.athleteA.id}/zones`, {
+      params: { id: s.athleteA.id },
+    });
     expect(z.status).toBe(404);
-    const outsider = await other.head.browser.call(testRoute, "GET", `/api/tests/${testId}`, { params: { id: testId } });
+    const outsider = await other.head.browser.call(testRoute, "GET", `/api/tests/${testId}`, {
+      params: { id: testId },
+    });
     expect(outsider.status).toBe(404);
-    const own = await s.athleteA.browser.call(thresholdsRoute, "PATCH", `/api/tests/${testId}/thresholds`, { params: { id: testId }, body: { vt1: { timeS: 500 }, vt2: { timeS: 700 } } });
+    const own = await s.athleteA.browser.call(thresholdsRoute, "PATCH", `/api/tests/${testId}/thresholds`, {
+      params: { id: testId },
+      body: { vt1: { timeS: 500 }, vt2: { timeS: 700 } },
+    });
     expect(own.status).toBe(403);
-    const create = await s.athleteA.browser.call(testsRoute, "POST", `/api/athletes/${s.athleteA.id}/tests`, { params: { id: s.athleteA.id }, form: upload(ramp.csv) });
+    const create = await s.athleteA.browser.call(testsRoute, "POST", `/api/athletes/${s.athleteA.id}/tests`, {
+      params: { id: s.athleteA.id },
+      form: upload(ramp.csv),
+    });
     expect(create.status).toBe(403);
   });
 
   it("takes an explicit column mapping for files with other headers", async () => {
-    const csv = syntheticRamp({ seed: 4, headers: ["secs", "oxygen", "carbon", "vent", "pulse", "watts", "breaths"] }).csv;
-    const mapping = JSON.stringify({ time: "secs", vo2: "oxygen", vco2: "carbon", ve: "vent", hr: "pulse", power: "watts" });
-    const ok = await s.coach.browser.call(testsRoute, "POST", `/api/athletes/${s.athleteA.id}/tests`, { params: { id: s.athleteA.id }, form: upload(csv, { mapping, date: "2026-10-01" }) });
+    const csv = syntheticRamp({
+      seed: 4,
+      headers: ["secs", "oxygen", "carbon", "vent", "pulse", "watts", "breaths"],
+    }).csv;
+    const mapping = JSON.stringify({
+      time: "secs",
+      vo2: "oxygen",
+      vco2: "carbon",
+      ve: "vent",
+      hr: "pulse",
+      power: "watts",
+    });
+    const ok = await s.coach.browser.call(testsRoute, "POST", `/api/athletes/${s.athleteA.id}/tests`, {
+      params: { id: s.athleteA.id },
+      form: upload(csv, { mapping, date: "2026-10-01" }),
+    });
     expect(ok.status).toBe(201);
     expect(ok.json.detected.vt1.hrBpm).toBeGreaterThan(100);
-    const unmapped = await s.coach.browser.call(testsRoute, "POST", `/api/athletes/${s.athleteA.id}/tests`, { params: { id: s.athleteA.id }, form: upload(csv, { date: "2026-10-02" }) });
+    const unmapped = await s.coach.browser.call(testsRoute, "POST", `/api/athletes/${s.athleteA.id}/tests`, {
+      params: { id: s.athleteA.id },
+      form: upload(csv, { date: "2026-10-02" }),
+    });
     expect(unmapped.status).toBe(422);
     expect(unmapped.json.error).toMatch(/no column for time, VO2, VCO2\./); // "vent" is a known alias of VE
-    const wrong = await s.coach.browser.call(testsRoute, "POST", `/api/athletes/${s.athleteA.id}/tests`, { params: { id: s.athleteA.id }, form: upload(csv, { mapping: JSON.stringify({ vo2: "nope" }) }) });
+    const wrong = await s.coach.browser.call(testsRoute, "POST", `/api/athletes/${s.athleteA.id}/tests`, {
+      params: { id: s.athleteA.id },
+      form: upload(csv, { mapping: JSON.stringify({ vo2: "nope" }) }),
+    });
     expect(wrong.status).toBe(422);
     expect(wrong.json.error).toMatch(/no such column/);
   });
 
   it("bad uploads answer 4xx with the reason and store nothing", async () => {
     const before = await testRows();
-    const post = (form: FormData) => s.coach.browser.call(testsRoute, "POST", `/api/athletes/${s.athleteA.id}/tests`, { params: { id: s.athleteA.id }, form });
+    const post = (form: FormData) =>
+      s.coach.browser.call(testsRoute, "POST", `/api/athletes/${s.athleteA.id}/tests`, {
+        params: { id: s.athleteA.id },
+        form,
+      });
     const cases: [FormData, number, RegExp][] = [
       [upload(new Uint8Array([0x89, 0x50, 0x4e, 0x47, 0, 0, 1, 2]), {}, "photo.png"), 415, /not a text CSV/],
       [upload(""), 400, /empty/],
@@ -175,19 +226,47 @@ describe("gas-exchange tests", () => {
 
 describe("talk tests, hand-entered thresholds and zones on a date", () => {
   it("a talk test creates zones; a later retest replaces them from its date on", async () => {
-    const meta = (date: string) => ({ sport: "running", protocol: "talk test, 1 km/h steps of 3 min", date, endedBy: "plan" });
-    const stages = (base: number) => ["comfortable", "comfortable", "not_fully_comfortable", "not_fully_comfortable", "cannot_speak"].map((speech, i) => ({ workload: base + i, durationS: 180, hrBpm: 130 + 8 * i, speech }));
-    const first = await s.coach.browser.call(testsRoute, "POST", `/api/athletes/${s.athleteB.id}/tests`, { params: { id: s.athleteB.id }, body: { kind: "talk", meta: meta("2026-03-01"), talk: { workloadUnit: "km/h", stages: stages(9) } } });
+    const meta = (date: string) => ({
+      sport: "running",
+      protocol: "talk test, 1 km/h steps of 3 min",
+      date,
+      endedBy: "plan",
+    });
+    const stages = (base: number) =>
+      ["comfortable", "comfortable", "not_fully_comfortable", "not_fully_comfortable", "cannot_speak"].map(
+        (speech, i) => ({ workload: base + i, durationS: 180, hrBpm: 130 + 8 * i, speech }),
+      );
+    const first = await s.coach.browser.call(testsRoute, "POST", `/api/athletes/${s.athleteB.id}/tests`, {
+      params: { id: s.athleteB.id },
+      body: { kind: "talk", meta: meta("2026-03-01"), talk: { workloadUnit: "km/h", stages: stages(9) } },
+    });
     expect(first.status).toBe(201);
     expect(first.json.detected).toEqual({ vt1: { hrBpm: 146, speedKmh: 11 }, vt2: { hrBpm: 162, speedKmh: 13 } });
-    const retest = await s.coach.browser.call(testsRoute, "POST", `/api/athletes/${s.athleteB.id}/tests`, { params: { id: s.athleteB.id }, body: { kind: "manual", meta: meta("2026-06-01"), vt1: { hrBpm: 150, speedKmh: 12 }, vt2: { hrBpm: 166, speedKmh: 14 } } });
+    const retest = await s.coach.browser.call(testsRoute, "POST", `/api/athletes/${s.athleteB.id}/tests`, {
+      params: { id: s.athleteB.id },
+      body: {
+        kind: "manual",
+        meta: meta("2026-06-01"),
+        vt1: { hrBpm: 150, speedKmh: 12 },
+        vt2: { hrBpm: 166, speedKmh: 14 },
+      },
+    });
     expect(retest.status).toBe(201);
-    const on = async (date: string) => (await s.athleteB.browser.call(zonesRoute, "GET", `/api/athletes/${s.athleteB.id}/zones`, { params: { id: s.athleteB.id }, query: `?date=${date}` })).json.inForce.running;
+    const on = async (date: string) =>
+      (
+        await s.athleteB.browser.call(zonesRoute, "GET", `/api/athletes/${s.athleteB.id}/zones`, {
+          params: { id: s.athleteB.id },
+          query: `?date=${date}`,
+        })
+      ).json.inForce.running;
     // A session dated before the retest reads the old zone set, on and after it the new one.
     expect((await on("2026-05-31")).vt1.hrBpm).toBe(146);
     expect((await on("2026-06-01")).vt1.hrBpm).toBe(150);
-    expect((await on("2026-02-28"))).toBeUndefined();
-    const bad = await s.coach.browser.call(testsRoute, "POST", `/api/athletes/${s.athleteB.id}/tests`, { params: { id: s.athleteB.id }, body: { kind: "manual", meta: meta("2026-07-01"), vt1: { hrBpm: 170 }, vt2: { hrBpm: 160 } } });
+    expect(await on("2026-02-28")).toBeUndefined();
+    const bad = await s.coach.browser.call(testsRoute, "POST", `/api/athletes/${s.athleteB.id}/tests`, {
+      params: { id: s.athleteB.id },
+      body: { kind: "manual", meta: meta("2026-07-01"), vt1: { hrBpm: 170 }, vt2: { hrBpm: 160 } },
+    });
     expect(bad.status).toBe(400);
     expect(bad.json.error).toMatch(/VT1 must lie below VT2/);
   });
@@ -195,12 +274,29 @@ describe("talk tests, hand-entered thresholds and zones on a date", () => {
   it("a submaximal estimate is stored with its error band and makes no zones", async () => {
     const r = await s.coach.browser.call(testsRoute, "POST", `/api/athletes/${s.athleteB.id}/tests`, {
       params: { id: s.athleteB.id },
-      body: { kind: "submax", meta: { sport: "cycling", protocol: "three 4-min stages", date: "2026-07-10", endedBy: "plan" }, submax: { modality: "cycling", massKg: 70, age: 40, measuredHrMaxBpm: null, stages: [{ powerW: 50, hrBpm: 100 }, { powerW: 100, hrBpm: 120 }, { powerW: 150, hrBpm: 140 }] } },
+      body: {
+        kind: "submax",
+        meta: { sport: "cycling", protocol: "three 4-min stages", date: "2026-07-10", endedBy: "plan" },
+        submax: {
+          modality: "cycling",
+          massKg: 70,
+          age: 40,
+          measuredHrMaxBpm: null,
+          stages: [
+            { powerW: 50, hrBpm: 100 },
+            { powerW: 100, hrBpm: 120 },
+            { powerW: 150, hrBpm: 140 },
+          ],
+        },
+      },
     });
     expect(r.status).toBe(201);
     expect(r.json.result.vo2MaxMlKgMin).toBeCloseTo(46.3, 1);
     expect(r.json.result.band).toHaveLength(2);
-    const zones = await s.coach.browser.call(zonesRoute, "GET", `/api/athletes/${s.athleteB.id}/zones`, { params: { id: s.athleteB.id }, query: "?date=2026-12-01" });
+    const zones = await s.coach.browser.call(zonesRoute, "GET", `/api/athletes/${s.athleteB.id}/zones`, {
+      params: { id: s.athleteB.id },
+      query: "?date=2026-12-01",
+    });
     expect(zones.json.inForce.cycling).toBeUndefined();
   });
 });

@@ -63,7 +63,9 @@ export class Browser {
     if (!pair) return;
     const [name, ...rest] = pair.split("=");
     const value = rest.join("=");
-    const jar = new Map(this.cookie ? this.cookie.split("; ").map((c) => [c.split("=")[0]!, c.slice(c.indexOf("=") + 1)]) : []);
+    const jar = new Map(
+      this.cookie ? this.cookie.split("; ").map((c) => [c.split("=")[0]!, c.slice(c.indexOf("=") + 1)]) : [],
+    );
     if (value === "" || /max-age=0/i.test(setCookie)) jar.delete(name!.trim());
     else jar.set(name!.trim(), value);
     this.cookie = [...jar].map(([k, v]) => `${k}=${v}`).join("; ");

@@ -11,7 +11,14 @@ export async function launch(): Promise<Browser> {
   fs.mkdirSync(SHOTS, { recursive: true });
   return chromium.launch({
     executablePath: process.env.CHROMIUM_PATH ?? "/usr/bin/chromium",
-    args: ["--headless", "--no-sandbox", "--disable-gpu", "--disable-background-networking", "--disable-component-update", "--disable-sync"],
+    args: [
+      "--headless",
+      "--no-sandbox",
+      "--disable-gpu",
+      "--disable-background-networking",
+      "--disable-component-update",
+      "--disable-sync",
+    ],
   });
 }
 
@@ -27,7 +34,8 @@ export async function newPage(browser: Browser): Promise<{ page: Page; problems:
   page.goto = async (url, options) => {
     const response = await goto(url, options);
     const early = options?.waitUntil === "commit" || options?.waitUntil === "domcontentloaded";
-    if (!early && response?.headers()["content-type"]?.includes("text/html")) await page.locator("html[data-hydrated]").waitFor({ state: "attached" });
+    if (!early && response?.headers()["content-type"]?.includes("text/html"))
+      await page.locator("html[data-hydrated]").waitFor({ state: "attached" });
     return response;
   };
   const problems: string[] = [];
@@ -53,7 +61,9 @@ export async function newPage(browser: Browser): Promise<{ page: Page; problems:
       if (new URL(r.url()).searchParams.has("_rsc")) return;
       if (navigating && !(r.isNavigationRequest() && r.frame() === page.mainFrame())) return;
     }
-    problems.push(`request failed: ${r.method()} ${r.resourceType()} nav=${r.isNavigationRequest()} ${r.url()} ${r.failure()?.errorText}`);
+    problems.push(
+      `request failed: ${r.method()} ${r.resourceType()} nav=${r.isNavigationRequest()} ${r.url()} ${r.failure()?.errorText}`,
+    );
   });
   return { page, problems };
 }

@@ -11,7 +11,10 @@ import { query } from "./db";
 let counter = 0;
 
 async function tokenFor(email: string): Promise<string> {
-  const rows = await query<{ meta: { url: string } }>(`select meta from outbox where kind = 'invitation' and to_address = $1 order by created_at desc limit 1`, [email]);
+  const rows = await query<{ meta: { url: string } }>(
+    `select meta from outbox where kind = 'invitation' and to_address = $1 order by created_at desc limit 1`,
+    [email],
+  );
   return rows[0]!.meta.url.split("/invite/")[1]!;
 }
 
@@ -21,8 +24,17 @@ export interface Member {
   email: string;
 }
 
-async function join(head: Browser, squadId: string, name: string, email: string, role: "athlete" | "coach"): Promise<Member> {
-  const r = await head.call(invitationsRoute, "POST", `/api/squads/${squadId}/invitations`, { params: { id: squadId }, body: { email, role } });
+async function join(
+  head: Browser,
+  squadId: string,
+  name: string,
+  email: string,
+  role: "athlete" | "coach",
+): Promise<Member> {
+  const r = await head.call(invitationsRoute, "POST", `/api/squads/${squadId}/invitations`, {
+    params: { id: squadId },
+    body: { email, role },
+  });
   if (r.status !== 201) throw new Error(`invite failed ${r.status}`);
   const token = await tokenFor(email);
   const b = new Browser();
@@ -34,7 +46,10 @@ async function join(head: Browser, squadId: string, name: string, email: string,
   if (role === "athlete") {
     // Readiness answered, all no: tests may be recorded (test/integration/screening tests the other answers).
     const answers = Object.fromEntries(SCREENING_QUESTIONS.map((q) => [q.id, false]));
-    const put = await b.call(screeningRoute, "PUT", `/api/athletes/${id}/screening`, { params: { id }, body: { answers } });
+    const put = await b.call(screeningRoute, "PUT", `/api/athletes/${id}/screening`, {
+      params: { id },
+      body: { answers },
+    });
     if (put.status !== 200) throw new Error(`screening failed ${put.status}`);
   }
   return { browser: b, id, email };

@@ -74,7 +74,14 @@ describe("squad rules", () => {
   });
 
   it("coached squads leave out squads where the actor is an athlete", () => {
-    const both: Actor = { userId: "m", isAdmin: false, memberships: [{ squadId: "s1", role: "coach" }, { squadId: "s3", role: "athlete" }] };
+    const both: Actor = {
+      userId: "m",
+      isAdmin: false,
+      memberships: [
+        { squadId: "s1", role: "coach" },
+        { squadId: "s3", role: "athlete" },
+      ],
+    };
     expect(coachedSquadIds(both)).toEqual(["s1"]);
   });
 });

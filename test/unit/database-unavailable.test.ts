@@ -11,7 +11,11 @@ describe("database unavailable", () => {
     const auth = Object.assign(new Error("Failed to get session"), { cause: query });
     expect(isDatabaseUnavailable(driver)).toBe(true);
     expect(isDatabaseUnavailable(auth)).toBe(true);
-    expect(isDatabaseUnavailable(Object.assign(new Error("terminating connection due to administrator command"), { code: "57P01" }))).toBe(true);
+    expect(
+      isDatabaseUnavailable(
+        Object.assign(new Error("terminating connection due to administrator command"), { code: "57P01" }),
+      ),
+    ).toBe(true);
     expect(isDatabaseUnavailable(Object.assign(new Error("duplicate key"), { code: "23505" }))).toBe(false);
     expect(isDatabaseUnavailable(new Error("plain"))).toBe(false);
     expect(isDatabaseUnavailable(undefined)).toBe(false);
@@ -19,7 +23,9 @@ describe("database unavailable", () => {
 
   it("a route handler answers 503 with Retry-After", async () => {
     const handler = route(async () => {
-      throw Object.assign(new Error("Failed query"), { cause: Object.assign(new Error("connect ECONNREFUSED"), { code: "ECONNREFUSED" }) });
+      throw Object.assign(new Error("Failed query"), {
+        cause: Object.assign(new Error("connect ECONNREFUSED"), { code: "ECONNREFUSED" }),
+      });
     });
     const res = await handler(new Request("http://x.test/api"), {});
     expect(res.status).toBe(503);

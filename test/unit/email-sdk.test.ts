@@ -38,22 +38,53 @@ afterEach(() => {
 afterAll(() => server.close());
 
 const unsub = { unsubscribeUrl: "http://app.test/unsubscribe/tok", settingsUrl: "http://app.test/settings" };
-const listHeaders = { "List-Unsubscribe": "<http://app.test/api/unsubscribe/tok>", "List-Unsubscribe-Post": "List-Unsubscribe=One-Click" };
+const listHeaders = {
+  "List-Unsubscribe": "<http://app.test/api/unsubscribe/tok>",
+  "List-Unsubscribe-Post": "List-Unsubscribe=One-Click",
+};
 
 const templates = [
   {
     kind: "invitation",
-    props: { inviterName: "Maren Holt", squadName: "Harbour Squad", roleLabel: "athlete", url: "http://app.test/invite/abc", expiresOn: "9 December 2026" },
+    props: {
+      inviterName: "Maren Holt",
+      squadName: "Harbour Squad",
+      roleLabel: "athlete",
+      url: "http://app.test/invite/abc",
+      expiresOn: "9 December 2026",
+    },
     render: (p: never) => createElement(InvitationEmail, p),
     subject: (p: never) => invitationSubject(p),
     text: (p: never) => invitationText(p),
     must: ["http://app.test/invite/abc", "Harbour Squad"],
     unsubscribable: false,
   },
-  { kind: "password_reset", props: { name: "Ines", url: "http://app.test/reset?t=1" }, render: (p: never) => createElement(PasswordResetEmail, p), subject: () => passwordResetSubject, text: (p: never) => passwordResetText(p), must: ["http://app.test/reset?t=1"], unsubscribable: false },
+  {
+    kind: "password_reset",
+    props: { name: "Ines", url: "http://app.test/reset?t=1" },
+    render: (p: never) => createElement(PasswordResetEmail, p),
+    subject: () => passwordResetSubject,
+    text: (p: never) => passwordResetText(p),
+    must: ["http://app.test/reset?t=1"],
+    unsubscribable: false,
+  },
   {
     kind: "session_reminder",
-    props: { name: "Ines", dayLabel: "Tuesday 5 January 2027", when: "today", sessions: [{ title: "Hill repeats", minutes: 60, notes: "", steps: [{ label: "5 × Work 4 min", target: "zone 3, 172–184 bpm" }] }], todayUrl: "http://app.test/today", ...unsub },
+    props: {
+      name: "Ines",
+      dayLabel: "Tuesday 5 January 2027",
+      when: "today",
+      sessions: [
+        {
+          title: "Hill repeats",
+          minutes: 60,
+          notes: "",
+          steps: [{ label: "5 × Work 4 min", target: "zone 3, 172–184 bpm" }],
+        },
+      ],
+      todayUrl: "http://app.test/today",
+      ...unsub,
+    },
     render: (p: never) => createElement(SessionReminderEmail, p),
     subject: (p: never) => sessionReminderSubject(p),
     text: (p: never) => sessionReminderText(p),
@@ -62,7 +93,16 @@ const templates = [
   },
   {
     kind: "retest_reminder",
-    props: { name: "Ines", stage: "week", date: "2027-01-13", dateLabel: "Wednesday 13 January 2027", protocol: "Retest: threshold test (running)", questions: ["Do you get chest pain?"], screeningUrl: "http://app.test/s", ...unsub },
+    props: {
+      name: "Ines",
+      stage: "week",
+      date: "2027-01-13",
+      dateLabel: "Wednesday 13 January 2027",
+      protocol: "Retest: threshold test (running)",
+      questions: ["Do you get chest pain?"],
+      screeningUrl: "http://app.test/s",
+      ...unsub,
+    },
     render: (p: never) => createElement(RetestReminderEmail, p),
     subject: (p: never) => retestReminderSubject(p),
     text: (p: never) => retestReminderText(p),
@@ -71,7 +111,17 @@ const templates = [
   },
   {
     kind: "coach_digest",
-    props: { name: "Maren", squad: "Harbour Squad", weekLabel: "Monday 4 January 2027", overBudget: [{ athlete: "Ines", detail: "Zone 3 is 21 % of the week." }], overdueRetests: [], loadFlags: [], missed: [], rosterUrl: "http://app.test/roster", ...unsub },
+    props: {
+      name: "Maren",
+      squad: "Harbour Squad",
+      weekLabel: "Monday 4 January 2027",
+      overBudget: [{ athlete: "Ines", detail: "Zone 3 is 21 % of the week." }],
+      overdueRetests: [],
+      loadFlags: [],
+      missed: [],
+      rosterUrl: "http://app.test/roster",
+      ...unsub,
+    },
     render: (p: never) => createElement(CoachDigestEmail, p),
     subject: (p: never) => coachDigestSubject(p),
     text: (p: never) => coachDigestText(p),
@@ -87,7 +137,15 @@ describe("messages through the Resend SDK (intercepted with msw)", () => {
       const html = await renderEmailHtml(t.render(props));
       const text = t.text(props);
       const key = `${t.kind}:user-1:2027-01-05`;
-      const r = await sendEmail({ to: "ines@example.test", subject: t.subject(props), html, text, kind: t.kind, headers: t.unsubscribable ? listHeaders : {}, idempotencyKey: key });
+      const r = await sendEmail({
+        to: "ines@example.test",
+        subject: t.subject(props),
+        html,
+        text,
+        kind: t.kind,
+        headers: t.unsubscribable ? listHeaders : {},
+        idempotencyKey: key,
+      });
       expect(r).toEqual({ ok: true, providerId: "msg-1" });
       expect(seen).toHaveLength(1);
       const { body, headers } = seen[0]!;
@@ -108,12 +166,34 @@ describe("messages through the Resend SDK (intercepted with msw)", () => {
   }
 
   it("a 429 or an unreachable service is retried later; a refused message is not", async () => {
-    server.use(http.post(`${BASE}/emails`, () => HttpResponse.json({ statusCode: 429, name: "rate_limit_exceeded", message: "Too many requests." }, { status: 429 })));
-    const base = { to: "a@example.test", subject: "s", html: "<p>x</p>", text: "x", kind: "k", headers: {}, idempotencyKey: "k1" };
+    server.use(
+      http.post(`${BASE}/emails`, () =>
+        HttpResponse.json(
+          { statusCode: 429, name: "rate_limit_exceeded", message: "Too many requests." },
+          { status: 429 },
+        ),
+      ),
+    );
+    const base = {
+      to: "a@example.test",
+      subject: "s",
+      html: "<p>x</p>",
+      text: "x",
+      kind: "k",
+      headers: {},
+      idempotencyKey: "k1",
+    };
     expect(await sendEmail(base)).toMatchObject({ ok: false, retry: true });
     server.use(http.post(`${BASE}/emails`, () => HttpResponse.error()));
     expect(await sendEmail(base)).toMatchObject({ ok: false, retry: true });
-    server.use(http.post(`${BASE}/emails`, () => HttpResponse.json({ statusCode: 422, name: "validation_error", message: "Invalid `to` field." }, { status: 422 })));
+    server.use(
+      http.post(`${BASE}/emails`, () =>
+        HttpResponse.json(
+          { statusCode: 422, name: "validation_error", message: "Invalid `to` field." },
+          { status: 422 },
+        ),
+      ),
+    );
     expect(await sendEmail(base)).toMatchObject({ ok: false, retry: false });
   });
 
@@ -123,7 +203,9 @@ describe("messages through the Resend SDK (intercepted with msw)", () => {
     expect(readUnsubscribeToken("secret-2", t)).toBeNull();
     expect(readUnsubscribeToken("secret-1", t.replace("retest_reminder", "coach_digest"))).toBeNull();
     const [, kind, sig] = t.split(".");
-    expect(readUnsubscribeToken("secret-1", `${Buffer.from("user-43").toString("base64url")}.${kind}.${sig}`)).toBeNull();
+    expect(
+      readUnsubscribeToken("secret-1", `${Buffer.from("user-43").toString("base64url")}.${kind}.${sig}`),
+    ).toBeNull();
     expect(readUnsubscribeToken("secret-1", "junk")).toBeNull();
   });
 });

@@ -1,7 +1,14 @@
 // The in-process memory of verified sessions: what it keys on, how long it trusts, what forgets. Limits are our own
 // choice (30 s, never past the session's expiry); "common practice" for short-lived server-side session caches.
 import { describe, expect, it } from "vitest";
-import { forgetSessionToken, forgetUserSessions, recallSession, rememberSession, SESSION_MEMO_MS, sessionCookieKey } from "@/features/auth/server/session-memo";
+import {
+  forgetSessionToken,
+  forgetUserSessions,
+  recallSession,
+  rememberSession,
+  SESSION_MEMO_MS,
+  sessionCookieKey,
+} from "@/features/auth/server/session-memo";
 
 const h = (cookie?: string) => new Headers(cookie ? { cookie } : {});
 const far = (now: number) => new Date(now + 3_600_000);
@@ -12,7 +19,9 @@ describe("session memory", () => {
     expect(a).toBe("better-auth.session_token=abc.sig");
     // Other cookies, even ones named like better-auth's, neither change the key nor grow it.
     expect(sessionCookieKey(h(`better-auth.pad=${"x".repeat(4000)}; better-auth.session_token=abc.sig`))).toBe(a);
-    expect(sessionCookieKey(h("__Secure-better-auth.session_token=abc.sig"))).toBe("__Secure-better-auth.session_token=abc.sig");
+    expect(sessionCookieKey(h("__Secure-better-auth.session_token=abc.sig"))).toBe(
+      "__Secure-better-auth.session_token=abc.sig",
+    );
     expect(sessionCookieKey(h("better-auth.session_token=abc.sig2"))).not.toBe(a);
   });
 

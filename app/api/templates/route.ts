@@ -16,6 +16,11 @@ const duplicate = z.object({ copyOf: z.string().min(1).max(100) }).strict();
 
 export const POST = route(async (req) => {
   const actor = await requireActor(req.headers);
-  const body = await readJson(req, z.union([duplicate, templateSchema], { error: "Send a template, or {copyOf: id} to duplicate one." }));
-  return json("copyOf" in body ? await duplicateTemplate(actor, body.copyOf) : await createTemplate(actor, body), { status: 201 });
+  const body = await readJson(
+    req,
+    z.union([duplicate, templateSchema], { error: "Send a template, or {copyOf: id} to duplicate one." }),
+  );
+  return json("copyOf" in body ? await duplicateTemplate(actor, body.copyOf) : await createTemplate(actor, body), {
+    status: 201,
+  });
 });

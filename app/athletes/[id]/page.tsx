@@ -18,7 +18,12 @@ import { ReadinessBanner } from "@/features/athlete-tests/components/ReadinessBa
 
 export const metadata = { title: "Athlete" };
 
-const KIND_LABELS = { gas_exchange: "Gas-exchange test", talk: "Talk test", submax: "Submaximal estimate", manual: "Thresholds entered by hand" } as const;
+const KIND_LABELS = {
+  gas_exchange: "Gas-exchange test",
+  talk: "Talk test",
+  submax: "Submaximal estimate",
+  manual: "Thresholds entered by hand",
+} as const;
 
 export default async function AthletePage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
@@ -28,7 +33,14 @@ export default async function AthletePage({ params }: { params: Promise<{ id: st
     throw e;
   });
   const today = localDate(new Date(), data.profile.timeZone);
-  const [tests, zones, screening, memberships, load, drift] = await Promise.all([listTests(actor, id), getZones(actor, id), getScreening(actor, id), membershipsOfAthlete(id), athleteLoad(actor, id, addDays(today, -83), today), athleteDrift(actor, id, today)]);
+  const [tests, zones, screening, memberships, load, drift] = await Promise.all([
+    listTests(actor, id),
+    getZones(actor, id),
+    getScreening(actor, id),
+    membershipsOfAthlete(id),
+    athleteLoad(actor, id, addDays(today, -83), today),
+    athleteDrift(actor, id, today),
+  ]);
   const coaches = canCoachAthlete(actor, { userId: id, memberships });
   return (
     <div className="space-y-6">
@@ -36,52 +48,95 @@ export default async function AthletePage({ params }: { params: Promise<{ id: st
         <p className="text-sm font-semibold uppercase tracking-widest text-tide">Athlete</p>
         <h1 className="text-2xl font-bold">{data.athlete.name}</h1>
         <p className="text-sm text-ink-soft">{data.athlete.email}</p>
-        <Link className="btn mt-3" href={`/athletes/${id}/plan`}>Plan and calendar</Link>
+        <Link className="btn mt-3" href={`/athletes/${id}/plan`}>
+          Plan and calendar
+        </Link>
       </div>
       <section className="card space-y-3" aria-labelledby="load-heading">
-        <h2 id="load-heading" className="text-lg font-bold">Load, last 12 weeks</h2>
+        <h2 id="load-heading" className="text-lg font-bold">
+          Load, last 12 weeks
+        </h2>
         {drift?.drifted ? (
-          <p role="alert" className="rounded-md border border-alert/40 bg-alert-wash p-3 text-sm text-alert" data-testid="drift">
-            <strong>Zone drift ({drift.sport.replaceAll("_", " ")}):</strong> {drift.message} Based on {drift.baselineSessions} sessions after the zones were set and {drift.recentSessions} recent ones.
+          <p
+            role="alert"
+            className="rounded-md border border-alert/40 bg-alert-wash p-3 text-sm text-alert"
+            data-testid="drift"
+          >
+            <strong>Zone drift ({drift.sport.replaceAll("_", " ")}):</strong> {drift.message} Based on{" "}
+            {drift.baselineSessions} sessions after the zones were set and {drift.recentSessions} recent ones.
           </p>
         ) : null}
-        {load.weeks.some((w) => w.load > 0 || w.doneMin > 0) ? <LoadChart report={load} /> : <p className="text-ink-soft">No logged sessions in the last 12 weeks yet.</p>}
+        {load.weeks.some((w) => w.load > 0 || w.doneMin > 0) ? (
+          <LoadChart report={load} />
+        ) : (
+          <p className="text-ink-soft">No logged sessions in the last 12 weeks yet.</p>
+        )}
         {load.trimpMethod ? (
           <p className="text-xs text-ink-soft">
-            TRIMP: {load.trimpMethod === "banister" ? "Banister's (average heart rate between resting and maximal, weighted by sex)" : "Edwards' (minutes in five heart-rate bands)"}, the one method this athlete&apos;s files are scored with.
-            {load.trimpOtherMethod ? ` ${load.trimpOtherMethod} log(s) scored otherwise are left out of the weekly TRIMP.` : ""}
+            TRIMP:{" "}
+            {load.trimpMethod === "banister"
+              ? "Banister's (average heart rate between resting and maximal, weighted by sex)"
+              : "Edwards' (minutes in five heart-rate bands)"}
+            , the one method this athlete&apos;s files are scored with.
+            {load.trimpOtherMethod
+              ? ` ${load.trimpOtherMethod} log(s) scored otherwise are left out of the weekly TRIMP.`
+              : ""}
           </p>
         ) : null}
         <p className="text-sm">
           Download as CSV (opens in any spreadsheet):{" "}
-          <a className="font-semibold text-tide underline" href={`/api/athletes/${id}/export/plan.csv`} download>plan, a year back and ahead</a>
+          <a className="font-semibold text-tide underline" href={`/api/athletes/${id}/export/plan.csv`} download>
+            plan, a year back and ahead
+          </a>
           {" · "}
-          <a className="font-semibold text-tide underline" href={`/api/athletes/${id}/export/logs.csv`} download>logs, last year</a>
+          <a className="font-semibold text-tide underline" href={`/api/athletes/${id}/export/logs.csv`} download>
+            logs, last year
+          </a>
           {" · "}
-          <a className="font-semibold text-tide underline" href={`/api/athletes/${id}/export/zones.csv`} download>zone history</a>
+          <a className="font-semibold text-tide underline" href={`/api/athletes/${id}/export/zones.csv`} download>
+            zone history
+          </a>
         </p>
       </section>
       <section className="card space-y-4" aria-labelledby="zones-heading">
-        <h2 id="zones-heading" className="text-lg font-bold">Zones in force today</h2>
+        <h2 id="zones-heading" className="text-lg font-bold">
+          Zones in force today
+        </h2>
         <ZonesInForce inForce={zones.inForce} emptyText="No zones yet. Record a test to derive them." />
         <ZoneSetList history={zones.history} />
       </section>
       <section className="card space-y-3" aria-labelledby="tests-heading">
         <div className="flex flex-wrap items-center justify-between gap-3">
-          <h2 id="tests-heading" className="text-lg font-bold">Tests</h2>
+          <h2 id="tests-heading" className="text-lg font-bold">
+            Tests
+          </h2>
           {coaches ? (
             <nav aria-label="Record a test" className="flex flex-wrap gap-2 text-sm">
-              <Link className="btn" href={`/athletes/${id}/tests/new?kind=gas`}>Upload a gas-exchange test</Link>
-              <Link className="btn-quiet" href={`/athletes/${id}/tests/new?kind=talk`}>Talk test</Link>
-              <Link className="btn-quiet" href={`/athletes/${id}/tests/new?kind=submax`}>Submaximal estimate</Link>
-              <Link className="btn-quiet" href={`/athletes/${id}/tests/new?kind=manual`}>Enter thresholds</Link>
+              <Link className="btn" href={`/athletes/${id}/tests/new?kind=gas`}>
+                Upload a gas-exchange test
+              </Link>
+              <Link className="btn-quiet" href={`/athletes/${id}/tests/new?kind=talk`}>
+                Talk test
+              </Link>
+              <Link className="btn-quiet" href={`/athletes/${id}/tests/new?kind=submax`}>
+                Submaximal estimate
+              </Link>
+              <Link className="btn-quiet" href={`/athletes/${id}/tests/new?kind=manual`}>
+                Enter thresholds
+              </Link>
             </nav>
           ) : null}
         </div>
         <ReadinessBanner readiness={screening.readiness} athleteId={id} context="athlete" />
         <p className="text-sm">
-          Readiness screening: {screening.latest ? `answered on ${new Date(screening.latest.date).toISOString().slice(0, 10)}${screening.latest.anyYes ? " — at least one yes" : " — all no"}` : "not answered yet"}.{" "}
-          <Link href={`/athletes/${id}/screening`} className="font-semibold text-tide underline">{screening.latest ? "Review or update" : "Answer the questions"}</Link>
+          Readiness screening:{" "}
+          {screening.latest
+            ? `answered on ${new Date(screening.latest.date).toISOString().slice(0, 10)}${screening.latest.anyYes ? " — at least one yes" : " — all no"}`
+            : "not answered yet"}
+          .{" "}
+          <Link href={`/athletes/${id}/screening`} className="font-semibold text-tide underline">
+            {screening.latest ? "Review or update" : "Answer the questions"}
+          </Link>
         </p>
         {tests.length === 0 ? (
           <p className="text-ink-soft">No tests recorded yet.</p>
@@ -89,15 +144,22 @@ export default async function AthletePage({ params }: { params: Promise<{ id: st
           <ul className="divide-y divide-rule">
             {tests.map((t) => (
               <li key={t.id} className="flex flex-wrap items-baseline justify-between gap-2 py-2">
-                <Link href={`/tests/${t.id}`} className="font-semibold text-tide hover:underline">{KIND_LABELS[t.kind]} · {t.date}</Link>
-                <span className="text-sm text-ink-soft">{t.protocol}{t.adjustedAt ? " · thresholds adjusted" : ""}</span>
+                <Link href={`/tests/${t.id}`} className="font-semibold text-tide hover:underline">
+                  {KIND_LABELS[t.kind]} · {t.date}
+                </Link>
+                <span className="text-sm text-ink-soft">
+                  {t.protocol}
+                  {t.adjustedAt ? " · thresholds adjusted" : ""}
+                </span>
               </li>
             ))}
           </ul>
         )}
       </section>
       <section className="card" aria-labelledby="profile-heading">
-        <h2 id="profile-heading" className="mb-4 text-lg font-bold">Profile</h2>
+        <h2 id="profile-heading" className="mb-4 text-lg font-bold">
+          Profile
+        </h2>
         <ProfileForm athleteId={data.athlete.id} initial={data.profile} isSelf={actor.userId === id} />
       </section>
     </div>

@@ -37,15 +37,17 @@ export default async function InvitePage({ params }: { params: Promise<{ token: 
     return (
       <Frame title="This invitation can no longer be used">
         <p>{text}</p>
-        <Link href="/sign-in" className="btn-quiet">Go to sign-in</Link>
+        <Link href="/sign-in" className="btn-quiet">
+          Go to sign-in
+        </Link>
       </Frame>
     );
   }
   const role = ROLE_LABELS[invitation.role];
   const intro = (
     <p>
-      You are invited to join <strong>{invitation.squadName}</strong> as {role === "athlete" ? "an" : "a"} {role}, with the
-      address <strong>{invitation.email}</strong>.
+      You are invited to join <strong>{invitation.squadName}</strong> as {role === "athlete" ? "an" : "a"} {role}, with
+      the address <strong>{invitation.email}</strong>.
     </p>
   );
   const actor = await currentActor();
@@ -73,7 +75,9 @@ export default async function InvitePage({ params }: { params: Promise<{ token: 
       <Frame title="Join a squad">
         {intro}
         <p>You already have a Tidemark account. Sign in, and you will come back here to join.</p>
-        <Link href={`/sign-in?next=${encodeURIComponent(`/invite/${token}`)}`} className="btn">Sign in to join</Link>
+        <Link href={`/sign-in?next=${encodeURIComponent(`/invite/${token}`)}`} className="btn">
+          Sign in to join
+        </Link>
       </Frame>
     );
   }
@@ -81,8 +85,8 @@ export default async function InvitePage({ params }: { params: Promise<{ token: 
     <Frame title="Join a squad">
       {intro}
       <p className="text-sm text-ink-soft">
-        Create your account: choose a password, then open the link we send to {invitation.email} to confirm it is yours. It
-        brings you back here to join.
+        Create your account: choose a password, then open the link we send to {invitation.email} to confirm it is yours.
+        It brings you back here to join.
       </p>
       <SignUpAndAccept token={token} email={invitation.email} />
     </Frame>

@@ -15,7 +15,11 @@ const DAY_NAMES = ["Mon", "Tue", "Wed", "Thu", "Fri", "Sat", "Sun"];
 const LOG_MARK = { done: "✓ done", partial: "◐ partly done", skipped: "✗ skipped" } as const;
 
 /** One week for every athlete of a squad: sessions day by day and each athlete's budget band. */
-export default async function SquadWeekPage({ searchParams }: { searchParams: Promise<{ squad?: string; week?: string }> }) {
+export default async function SquadWeekPage({
+  searchParams,
+}: {
+  searchParams: Promise<{ squad?: string; week?: string }>;
+}) {
   const actor = await requirePageActor("/roster/week");
   const q = await searchParams;
   const coached = new Set(coachedSquadIds(actor));
@@ -38,14 +42,26 @@ export default async function SquadWeekPage({ searchParams }: { searchParams: Pr
     <div className="space-y-6">
       <div className="flex flex-wrap items-end justify-between gap-4">
         <div>
-          <p className="text-sm font-semibold uppercase tracking-widest text-tide"><Link href={`/roster?squad=${squad.id}`} className="hover:underline">{squad.name}</Link></p>
+          <p className="text-sm font-semibold uppercase tracking-widest text-tide">
+            <Link href={`/roster?squad=${squad.id}`} className="hover:underline">
+              {squad.name}
+            </Link>
+          </p>
           <h1 className="text-3xl font-bold">Week of {monday}</h1>
-          <p className="num text-sm text-ink-soft">{rows.length} athlete{rows.length === 1 ? "" : "s"} · {over} over budget</p>
+          <p className="num text-sm text-ink-soft">
+            {rows.length} athlete{rows.length === 1 ? "" : "s"} · {over} over budget
+          </p>
         </div>
         <nav aria-label="Weeks" className="flex gap-2 text-sm">
-          <Link href={link(addDays(monday, -7))} className="btn-quiet">← Previous week</Link>
-          <Link href={link(mondayOf(new Date().toISOString().slice(0, 10)))} className="btn-quiet">This week</Link>
-          <Link href={link(addDays(monday, 7))} className="btn-quiet">Next week →</Link>
+          <Link href={link(addDays(monday, -7))} className="btn-quiet">
+            ← Previous week
+          </Link>
+          <Link href={link(mondayOf(new Date().toISOString().slice(0, 10)))} className="btn-quiet">
+            This week
+          </Link>
+          <Link href={link(addDays(monday, 7))} className="btn-quiet">
+            Next week →
+          </Link>
         </nav>
       </div>
       {rows.length === 0 ? (
@@ -55,39 +71,59 @@ export default async function SquadWeekPage({ searchParams }: { searchParams: Pr
           <table className="w-full min-w-[56rem] table-fixed border-separate border-spacing-y-2 text-sm">
             <thead>
               <tr className="text-left text-ink-soft">
-                <th scope="col" className="w-32 px-2">Athlete</th>
+                <th scope="col" className="w-32 px-2">
+                  Athlete
+                </th>
                 {days.map((d, i) => (
-                  <th key={d} scope="col" className="px-2 font-semibold"><span className="block">{DAY_NAMES[i]}</span><span className="num text-xs font-normal">{d.slice(5)}</span></th>
+                  <th key={d} scope="col" className="px-2 font-semibold">
+                    <span className="block">{DAY_NAMES[i]}</span>
+                    <span className="num text-xs font-normal">{d.slice(5)}</span>
+                  </th>
                 ))}
               </tr>
             </thead>
             <tbody>
               {rows.map((r) => (
                 <Fragment key={r.athlete.id}>
-                <tr className="align-top" data-testid="squad-week-row">
-                  <th scope="row" className="px-2 text-left">
-                    <Link href={`/athletes/${r.athlete.id}/plan?week=${monday}`} className="font-semibold text-tide hover:underline">{r.athlete.name}</Link>
-                  </th>
-                  {days.map((d) => (
-                    <td key={d} className="px-1">
-                      <ul className="space-y-1">
-                        {r.sessions.filter((x) => x.date === d).map((x) => (
-                          <li key={x.id} className={`rounded border px-1.5 py-1 ${x.minutesByZone[2] > 0 ? "border-zone-3" : "border-rule"} bg-paper`}>
-                            <p className="truncate font-semibold" title={x.title}>{x.kind === "retest" ? "⟳ " : ""}{x.title}</p>
-                            <p className="num text-xs text-ink-soft">{Math.round(x.totalS / 60)} min · z3 {Math.round(x.minutesByZone[2])} min</p>
-                            {x.log ? <p className="text-xs">{LOG_MARK[x.log]}</p> : null}
-                          </li>
-                        ))}
-                      </ul>
+                  <tr className="align-top" data-testid="squad-week-row">
+                    <th scope="row" className="px-2 text-left">
+                      <Link
+                        href={`/athletes/${r.athlete.id}/plan?week=${monday}`}
+                        className="font-semibold text-tide hover:underline"
+                      >
+                        {r.athlete.name}
+                      </Link>
+                    </th>
+                    {days.map((d) => (
+                      <td key={d} className="px-1">
+                        <ul className="space-y-1">
+                          {r.sessions
+                            .filter((x) => x.date === d)
+                            .map((x) => (
+                              <li
+                                key={x.id}
+                                className={`rounded border px-1.5 py-1 ${x.minutesByZone[2] > 0 ? "border-zone-3" : "border-rule"} bg-paper`}
+                              >
+                                <p className="truncate font-semibold" title={x.title}>
+                                  {x.kind === "retest" ? "⟳ " : ""}
+                                  {x.title}
+                                </p>
+                                <p className="num text-xs text-ink-soft">
+                                  {Math.round(x.totalS / 60)} min · z3 {Math.round(x.minutesByZone[2])} min
+                                </p>
+                                {x.log ? <p className="text-xs">{LOG_MARK[x.log]}</p> : null}
+                              </li>
+                            ))}
+                        </ul>
+                      </td>
+                    ))}
+                  </tr>
+                  <tr>
+                    <td />
+                    <td colSpan={7} className="px-1 pb-3">
+                      <BudgetBand week={r.week} />
                     </td>
-                  ))}
-                </tr>
-                <tr>
-                  <td />
-                  <td colSpan={7} className="px-1 pb-3">
-                    <BudgetBand week={r.week} />
-                  </td>
-                </tr>
+                  </tr>
                 </Fragment>
               ))}
             </tbody>

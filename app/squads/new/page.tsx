@@ -9,8 +9,8 @@ export default async function NewSquadPage() {
     <div className="mx-auto max-w-md">
       <h1 className="text-2xl font-bold">Start a squad</h1>
       <p className="mt-2 text-sm text-ink-soft">
-        A squad is your group of athletes and coaches. You become its head coach; then invite athletes and coaches by e-mail.
-        Joining someone else&apos;s squad? Open the invitation link from their e-mail instead.
+        A squad is your group of athletes and coaches. You become its head coach; then invite athletes and coaches by
+        e-mail. Joining someone else&apos;s squad? Open the invitation link from their e-mail instead.
       </p>
       <div className="card mt-6">
         <CreateSquadForm />

@@ -17,14 +17,23 @@ export default async function TestPage({ params }: { params: Promise<{ id: strin
     if (e instanceof HttpError && e.status === 404) notFound();
     throw e;
   });
-  const canEdit = canCoachAthlete(actor, { userId: test.athleteId, memberships: await membershipsOfAthlete(test.athleteId) });
+  const canEdit = canCoachAthlete(actor, {
+    userId: test.athleteId,
+    memberships: await membershipsOfAthlete(test.athleteId),
+  });
   return (
     <div className="space-y-6">
       <div className="flex flex-wrap items-start justify-between gap-4">
         <TestHeader test={test} />
         <div className="flex gap-2 text-sm">
-          <Link href={`/tests/${id}/report`} className="btn-quiet">Printable report</Link>
-          {test.file ? <a href={`/api/tests/${id}/file`} className="btn-quiet">Original file</a> : null}
+          <Link href={`/tests/${id}/report`} className="btn-quiet">
+            Printable report
+          </Link>
+          {test.file ? (
+            <a href={`/api/tests/${id}/file`} className="btn-quiet">
+              Original file
+            </a>
+          ) : null}
         </div>
       </div>
       <TestCautions />

@@ -23,8 +23,15 @@ export default async function UnsubscribePage({ params }: { params: Promise<{ to
     return (
       <div className="mx-auto max-w-lg card space-y-3" role="alert">
         <h1 className="text-xl font-bold">This link does not work</h1>
-        <p>The unsubscribe link is damaged or not from Tidemark, so nothing was changed. Sign in and choose which e-mails you get in your settings.</p>
-        <p><Link href="/settings" className="btn-quiet">E-mail settings</Link></p>
+        <p>
+          The unsubscribe link is damaged or not from Tidemark, so nothing was changed. Sign in and choose which e-mails
+          you get in your settings.
+        </p>
+        <p>
+          <Link href="/settings" className="btn-quiet">
+            E-mail settings
+          </Link>
+        </p>
       </div>
     );
   }
@@ -32,19 +39,30 @@ export default async function UnsubscribePage({ params }: { params: Promise<{ to
     return (
       <div className="mx-auto max-w-lg card space-y-3" role="status">
         <h1 className="text-xl font-bold">Turned off: {link.label}</h1>
-        <p>Tidemark sends no more {link.label} to <strong>{link.email}</strong>. Other messages stay as they were.</p>
+        <p>
+          Tidemark sends no more {link.label} to <strong>{link.email}</strong>. Other messages stay as they were.
+        </p>
         <p className="text-sm text-ink-soft">Changed your mind? Turn them on again in your settings.</p>
-        <p><Link href="/settings" className="btn-quiet">E-mail settings</Link></p>
+        <p>
+          <Link href="/settings" className="btn-quiet">
+            E-mail settings
+          </Link>
+        </p>
       </div>
     );
   }
   return (
     <div className="mx-auto max-w-lg card space-y-3">
       <h1 className="text-xl font-bold">Stop {link.label}?</h1>
-      <p>Tidemark will send no more {link.label} to <strong>{link.email}</strong>. Other messages stay as they were, and you can turn these on again in your settings.</p>
+      <p>
+        Tidemark will send no more {link.label} to <strong>{link.email}</strong>. Other messages stay as they were, and
+        you can turn these on again in your settings.
+      </p>
       <div className="flex flex-wrap items-start gap-2">
         <TurnOffButton token={token!} label={link.label} />
-        <Link href="/settings" className="btn-quiet">E-mail settings</Link>
+        <Link href="/settings" className="btn-quiet">
+          E-mail settings
+        </Link>
       </div>
     </div>
   );

@@ -38,7 +38,13 @@ export async function findActor(headers: Headers): Promise<SignedInActor | null>
     const startedAt = Date.now();
     result = await getAuth().api.getSession({ headers });
     if (!result) return null;
-    if (key) rememberSession(key, result, { userId: result.user.id, token: result.session.token, expiresAt: result.session.expiresAt }, startedAt);
+    if (key)
+      rememberSession(
+        key,
+        result,
+        { userId: result.user.id, token: result.session.token, expiresAt: result.session.expiresAt },
+        startedAt,
+      );
   }
   const u = result.user as typeof result.user & { isAdmin?: boolean };
   // An account works only once its address is confirmed (a session from before confirmation was required counts as none).
@@ -56,7 +62,12 @@ export async function findActor(headers: Headers): Promise<SignedInActor | null>
  * Like requireAthleteAccess, but any refusal reads as "not found" (for resources reached by their own id, whose existence
  * must not leak). Other errors, such as the database being unavailable, pass through unchanged.
  */
-export async function requireAthleteAccessOrNotFound(actor: Actor, athleteId: string, action: "view" | "edit" | "coach", message?: string): Promise<void> {
+export async function requireAthleteAccessOrNotFound(
+  actor: Actor,
+  athleteId: string,
+  action: "view" | "edit" | "coach",
+  message?: string,
+): Promise<void> {
   try {
     await requireAthleteAccess(actor, athleteId, action);
   } catch (e) {
@@ -90,7 +101,11 @@ async function loadTarget(athleteId: string): Promise<AthleteTarget> {
  * May this actor see (or edit) this athlete? A forbidden athlete answers 404, so that the existence of athletes outside
  * the actor's squads is not revealed.
  */
-export async function requireAthleteAccess(actor: Actor, athleteId: string, action: "view" | "edit" | "coach"): Promise<void> {
+export async function requireAthleteAccess(
+  actor: Actor,
+  athleteId: string,
+  action: "view" | "edit" | "coach",
+): Promise<void> {
   checkAthleteAccess(actor, await loadTarget(athleteId), action);
 }
 
@@ -103,7 +118,8 @@ export function checkAthleteAccess(actor: Actor, target: AthleteTarget, action: 
 
 export function requireSquadManager(actor: Actor, squadId: string): void {
   if (!canManageSquad(actor, squadId)) {
-    if (actor.memberships.some((m) => m.squadId === squadId)) throw forbidden("Only the squad's head coach may do this.");
+    if (actor.memberships.some((m) => m.squadId === squadId))
+      throw forbidden("Only the squad's head coach may do this.");
     throw notFound("No such squad.");
   }
 }

@@ -55,7 +55,9 @@ describe("FIT import (fixtures encoded with @garmin/fitsdk's Encoder)", () => {
   });
 
   it("carries a value up to 5 s over a recording gap and leaves a longer gap empty", () => {
-    const seconds: (FitSecond | null)[] = Array.from({ length: 200 }, (_, i) => (i >= 100 && i < 160 ? null : { hrBpm: 120 }));
+    const seconds: (FitSecond | null)[] = Array.from({ length: 200 }, (_, i) =>
+      i >= 100 && i < 160 ? null : { hrBpm: 120 },
+    );
     const a = readActivity("gap.fit", encodeFit({ start: START, sport: "running", seconds }));
     const z = zoneTime(toStreams(a.samples), "hrBpm", 140, 165);
     // Records at 0–99 and 160–199: seconds 100–104 carry the value of 99, 105–159 (55 s) are a gap.
@@ -64,7 +66,9 @@ describe("FIT import (fixtures encoded with @garmin/fitsdk's Encoder)", () => {
   });
 
   it("refuses a truncated FIT file with a reason and reads nothing", () => {
-    expect(() => readActivity("ride.fit", bytes.slice(0, Math.floor(bytes.length / 2)))).toThrow(/damaged or cut short/);
+    expect(() => readActivity("ride.fit", bytes.slice(0, Math.floor(bytes.length / 2)))).toThrow(
+      /damaged or cut short/,
+    );
   });
 
   it("refuses a FIT file with a flipped byte (checksum)", () => {
@@ -93,7 +97,9 @@ const tp = (s: number, hr: number, dist: number) =>
 
 describe("TCX import (hand-written fixture, fast-xml-parser)", () => {
   // Points every 2 s for 10 min: heart rate 135 for the first 4 min, 155 for the next 4, 170 for the last 2; 3 m/s.
-  const points = Array.from({ length: 301 }, (_, k) => tp(2 * k, 2 * k < 240 ? 135 : 2 * k < 480 ? 155 : 170, 6 * k)).join("");
+  const points = Array.from({ length: 301 }, (_, k) =>
+    tp(2 * k, 2 * k < 240 ? 135 : 2 * k < 480 ? 155 : 170, 6 * k),
+  ).join("");
   const file = new TextEncoder().encode(tcx(points));
 
   it("reads sport, heart rate and distance; speed comes from the distance", () => {
@@ -112,7 +118,9 @@ describe("TCX import (hand-written fixture, fast-xml-parser)", () => {
 
   it("refuses broken XML and a TCX without an activity", () => {
     expect(() => readActivity("run.tcx", new TextEncoder().encode(tcx(points).slice(0, 500)))).toThrow(ActivityError);
-    expect(() => readActivity("run.tcx", new TextEncoder().encode("<TrainingCenterDatabase></TrainingCenterDatabase>"))).toThrow(/no activity/);
+    expect(() =>
+      readActivity("run.tcx", new TextEncoder().encode("<TrainingCenterDatabase></TrainingCenterDatabase>")),
+    ).toThrow(/no activity/);
   });
 });
 
@@ -122,7 +130,11 @@ describe("GPX import (hand-written fixture)", () => {
   });
 
   it("reads track points with heart rate from the TrackPointExtension and builds speed from positions", () => {
-    const pts = Array.from({ length: 61 }, (_, k) => `<trkpt lat="${(k * 0.00003).toFixed(5)}" lon="0"><time>${new Date(START.getTime() + k * 1000).toISOString()}</time><extensions><gpxtpx:TrackPointExtension><gpxtpx:hr>${140 + (k % 3)}</gpxtpx:hr></gpxtpx:TrackPointExtension></extensions></trkpt>`).join("");
+    const pts = Array.from(
+      { length: 61 },
+      (_, k) =>
+        `<trkpt lat="${(k * 0.00003).toFixed(5)}" lon="0"><time>${new Date(START.getTime() + k * 1000).toISOString()}</time><extensions><gpxtpx:TrackPointExtension><gpxtpx:hr>${140 + (k % 3)}</gpxtpx:hr></gpxtpx:TrackPointExtension></extensions></trkpt>`,
+    ).join("");
     const gpx = `<?xml version="1.0"?><gpx version="1.1" creator="test" xmlns:gpxtpx="http://www.garmin.com/xmlschemas/TrackPointExtension/v1"><trk><type>running</type><trkseg>${pts}</trkseg></trk></gpx>`;
     const a = readActivity("run.gpx", new TextEncoder().encode(gpx));
     expect(a.sport).toBe("running");
@@ -134,7 +146,12 @@ describe("GPX import (hand-written fixture)", () => {
   });
 
   it("refuses a GPX without time stamps", () => {
-    expect(() => readActivity("x.gpx", new TextEncoder().encode(`<gpx><trk><trkseg><trkpt lat="1" lon="1"></trkpt></trkseg></trk></gpx>`))).toThrow(/no samples/);
+    expect(() =>
+      readActivity(
+        "x.gpx",
+        new TextEncoder().encode(`<gpx><trk><trkseg><trkpt lat="1" lon="1"></trkpt></trkseg></trk></gpx>`),
+      ),
+    ).toThrow(/no samples/);
   });
 });
 
@@ -148,7 +165,9 @@ describe("CSV activity import", () => {
 
   it("refuses a CSV without time or without any measured column, naming what is missing", () => {
     expect(() => readActivity("x.csv", new TextEncoder().encode("hr,power\n1,2\n"))).toThrow(/no time column/);
-    expect(() => readActivity("x.csv", new TextEncoder().encode("time,cadence\n1,80\n"))).toThrow(/none of the columns/);
+    expect(() => readActivity("x.csv", new TextEncoder().encode("time,cadence\n1,80\n"))).toThrow(
+      /none of the columns/,
+    );
   });
 
   it("drops impossible values with a warning instead of counting them", () => {

@@ -12,12 +12,23 @@ export interface FitSecond {
   speedKmh?: number;
 }
 
-export function encodeFit(p: { start: Date; sport: "running" | "cycling" | "crossCountrySkiing" | "rowing" | "swimming" | "walking"; seconds: (FitSecond | null)[] }): Uint8Array {
+export function encodeFit(p: {
+  start: Date;
+  sport: "running" | "cycling" | "crossCountrySkiing" | "rowing" | "swimming" | "walking";
+  seconds: (FitSecond | null)[];
+}): Uint8Array {
   const encoder = new Encoder();
   const e = { onMesg: (num: number, m: Record<string, unknown>) => encoder.onMesg(num, m as unknown as Mesg) };
   const t0 = p.start.getTime();
-  e.onMesg(MESG.fileId, { type: "activity", manufacturer: "development", product: 1, timeCreated: p.start, serialNumber: 4242 });
-  let distance = 0, last = 0;
+  e.onMesg(MESG.fileId, {
+    type: "activity",
+    manufacturer: "development",
+    product: 1,
+    timeCreated: p.start,
+    serialNumber: 4242,
+  });
+  let distance = 0,
+    last = 0;
   p.seconds.forEach((s, i) => {
     if (!s) return;
     const metresPerS = s.speedKmh !== undefined ? s.speedKmh / 3.6 : 0;
@@ -31,6 +42,13 @@ export function encodeFit(p: { start: Date; sport: "running" | "cycling" | "cros
     });
   });
   const end = new Date(t0 + p.seconds.length * 1000);
-  e.onMesg(MESG.session, { timestamp: end, startTime: p.start, sport: p.sport, totalElapsedTime: p.seconds.length, totalTimerTime: p.seconds.length, messageIndex: 0 });
+  e.onMesg(MESG.session, {
+    timestamp: end,
+    startTime: p.start,
+    sport: p.sport,
+    totalElapsedTime: p.seconds.length,
+    totalTimerTime: p.seconds.length,
+    messageIndex: 0,
+  });
   return encoder.close();
 }

@@ -37,7 +37,14 @@ export interface Activity {
 }
 
 function newSamples(n: number): Samples {
-  return { timeS: new Float64Array(n), hrBpm: new Float64Array(n).fill(NaN), powerW: new Float64Array(n).fill(NaN), speedKmh: new Float64Array(n).fill(NaN), distanceM: new Float64Array(n).fill(NaN), length: 0 };
+  return {
+    timeS: new Float64Array(n),
+    hrBpm: new Float64Array(n).fill(NaN),
+    powerW: new Float64Array(n).fill(NaN),
+    speedKmh: new Float64Array(n).fill(NaN),
+    distanceM: new Float64Array(n).fill(NaN),
+    length: 0,
+  };
 }
 
 const num = (v: unknown): number => {
@@ -64,19 +71,35 @@ function sanitise(s: Samples, warnings: string[]): void {
         dropped++;
       }
     }
-    if (dropped) warnings.push(`${dropped} ${key === "hrBpm" ? "heart-rate" : key === "powerW" ? "power" : key === "speedKmh" ? "speed" : "distance"} value(s) outside the plausible range were dropped.`);
+    if (dropped)
+      warnings.push(
+        `${dropped} ${key === "hrBpm" ? "heart-rate" : key === "powerW" ? "power" : key === "speedKmh" ? "speed" : "distance"} value(s) outside the plausible range were dropped.`,
+      );
   }
 }
 
-function finish(format: ActivityFormat, sport: Sport | null, startTime: Date | null, s: Samples, warnings: string[]): Activity {
+function finish(
+  format: ActivityFormat,
+  sport: Sport | null,
+  startTime: Date | null,
+  s: Samples,
+  warnings: string[],
+): Activity {
   if (s.length === 0) throw new ActivityError("The file holds no samples with a time stamp.");
   for (let i = 1; i < s.length; i++) {
-    if (s.timeS[i]! < s.timeS[i - 1]!) throw new ActivityError("The samples are not in time order; the file looks damaged.");
+    if (s.timeS[i]! < s.timeS[i - 1]!)
+      throw new ActivityError("The samples are not in time order; the file looks damaged.");
   }
-  if (s.timeS[s.length - 1]! - s.timeS[0]! > MAX_SPAN_S) throw new ActivityError("The file spans more than 48 hours; it is not one session.");
+  if (s.timeS[s.length - 1]! - s.timeS[0]! > MAX_SPAN_S)
+    throw new ActivityError("The file spans more than 48 hours; it is not one session.");
   sanitise(s, warnings);
   let any = false;
-  for (let i = 0; i < s.length && !any; i++) any = !Number.isNaN(s.hrBpm[i]!) || !Number.isNaN(s.powerW[i]!) || !Number.isNaN(s.speedKmh[i]!) || !Number.isNaN(s.distanceM[i]!);
+  for (let i = 0; i < s.length && !any; i++)
+    any =
+      !Number.isNaN(s.hrBpm[i]!) ||
+      !Number.isNaN(s.powerW[i]!) ||
+      !Number.isNaN(s.speedKmh[i]!) ||
+      !Number.isNaN(s.distanceM[i]!);
   if (!any) throw new ActivityError("The file has time stamps but no heart rate, power, speed or distance.");
   return { format, sport, startTime, samples: s, warnings };
 }
@@ -104,10 +127,17 @@ export function readFit(bytes: Uint8Array): Activity {
   const stream = Stream.fromByteArray(bytes);
   if (!Decoder.isFIT(stream)) throw new ActivityError("This is not a FIT file (its header is missing).");
   const decoder = new Decoder(Stream.fromByteArray(bytes));
-  if (!decoder.checkIntegrity()) throw new ActivityError("The FIT file is damaged or cut short: its checksum does not match.");
+  if (!decoder.checkIntegrity())
+    throw new ActivityError("The FIT file is damaged or cut short: its checksum does not match.");
   let messages;
   try {
-    const read = new Decoder(Stream.fromByteArray(bytes)).read({ applyScaleAndOffset: true, expandComponents: true, convertTypesToStrings: true, convertDateTimesToDates: true, mergeHeartRates: true });
+    const read = new Decoder(Stream.fromByteArray(bytes)).read({
+      applyScaleAndOffset: true,
+      expandComponents: true,
+      convertTypesToStrings: true,
+      convertDateTimesToDates: true,
+      mergeHeartRates: true,
+    });
     if (read.errors.length) throw new ActivityError(`The FIT file could not be read: ${read.errors[0]!.message}`);
     messages = read.messages;
   } catch (e) {
@@ -117,7 +147,8 @@ export function readFit(bytes: Uint8Array): Activity {
   const records = (messages.recordMesgs ?? []) as Record<string, unknown>[];
   const warnings: string[] = [];
   const s = newSamples(records.length);
-  let t0 = NaN, n = 0;
+  let t0 = NaN,
+    n = 0;
   for (const r of records) {
     const ts = r.timestamp instanceof Date ? r.timestamp.getTime() / 1000 : NaN;
     if (Number.isNaN(ts)) continue;
@@ -133,7 +164,8 @@ export function readFit(bytes: Uint8Array): Activity {
   s.length = n;
   if (records.length > n) warnings.push(`${records.length - n} record(s) without a time stamp were skipped.`);
   const sessionMesg = ((messages.sessionMesgs ?? []) as Record<string, unknown>[])[0];
-  const sportName = (sessionMesg?.sport ?? ((messages.sportMesgs ?? []) as Record<string, unknown>[])[0]?.sport) as string | undefined;
+  const sportName = (sessionMesg?.sport ?? ((messages.sportMesgs ?? []) as Record<string, unknown>[])[0]?.sport) as
+    string | undefined;
   const sport = sportName ? (FIT_SPORTS[sportName] ?? null) : null;
   const start = Number.isNaN(t0) ? null : new Date(t0 * 1000);
   return finish("fit", sport, start, s, warnings);
@@ -161,7 +193,14 @@ function parseXml(text: string): Record<string, unknown> {
 }
 
 const asArray = <T>(v: T | T[] | undefined): T[] => (v === undefined ? [] : Array.isArray(v) ? v : [v]);
-const text = (v: unknown): string | undefined => (typeof v === "string" ? v : typeof v === "number" ? String(v) : v && typeof v === "object" && "#text" in v ? String((v as { "#text": unknown })["#text"]) : undefined);
+const text = (v: unknown): string | undefined =>
+  typeof v === "string"
+    ? v
+    : typeof v === "number"
+      ? String(v)
+      : v && typeof v === "object" && "#text" in v
+        ? String((v as { "#text": unknown })["#text"])
+        : undefined;
 
 function epochS(iso: string | undefined): number {
   if (!iso) return NaN;
@@ -173,15 +212,21 @@ const TCX_SPORTS: Record<string, Sport> = { Running: "running", Biking: "cycling
 
 export function readTcx(content: string): Activity {
   const doc = parseXml(content);
-  if (!("TrainingCenterDatabase" in doc)) throw new ActivityError("This XML file is not a TCX file (no TrainingCenterDatabase element).");
+  if (!("TrainingCenterDatabase" in doc))
+    throw new ActivityError("This XML file is not a TCX file (no TrainingCenterDatabase element).");
   const db = (doc.TrainingCenterDatabase || {}) as Record<string, unknown>;
-  const activity = asArray((db.Activities as Record<string, unknown> | undefined)?.Activity as Record<string, unknown>[])[0];
+  const activity = asArray(
+    (db.Activities as Record<string, unknown> | undefined)?.Activity as Record<string, unknown>[],
+  )[0];
   if (!activity) throw new ActivityError("The TCX file holds no activity.");
   const points: Record<string, unknown>[] = [];
-  for (const lap of asArray(activity.Lap as Record<string, unknown>[])) for (const track of asArray(lap.Track as Record<string, unknown>[])) points.push(...asArray(track.Trackpoint as Record<string, unknown>[]));
+  for (const lap of asArray(activity.Lap as Record<string, unknown>[]))
+    for (const track of asArray(lap.Track as Record<string, unknown>[]))
+      points.push(...asArray(track.Trackpoint as Record<string, unknown>[]));
   const s = newSamples(points.length);
   const warnings: string[] = [];
-  let t0 = NaN, n = 0;
+  let t0 = NaN,
+    n = 0;
   for (const p of points) {
     const ts = epochS(text(p.Time));
     if (Number.isNaN(ts)) continue;
@@ -207,7 +252,8 @@ const EARTH_RADIUS_M = 6_371_008.8; // mean Earth radius (IUGG)
 /** Great-circle distance by the haversine formula. */
 export function haversineM(lat1: number, lon1: number, lat2: number, lon2: number): number {
   const rad = Math.PI / 180;
-  const dLat = (lat2 - lat1) * rad, dLon = (lon2 - lon1) * rad;
+  const dLat = (lat2 - lat1) * rad,
+    dLon = (lon2 - lon1) * rad;
   const a = Math.sin(dLat / 2) ** 2 + Math.cos(lat1 * rad) * Math.cos(lat2 * rad) * Math.sin(dLon / 2) ** 2;
   return 2 * EARTH_RADIUS_M * Math.asin(Math.min(1, Math.sqrt(a)));
 }
@@ -218,16 +264,23 @@ export function readGpx(content: string): Activity {
   const gpx = (doc.gpx || {}) as Record<string, unknown>;
   const tracks = asArray(gpx.trk as Record<string, unknown>[]);
   const points: Record<string, unknown>[] = [];
-  for (const trk of tracks) for (const seg of asArray(trk.trkseg as Record<string, unknown>[])) points.push(...asArray(seg.trkpt as Record<string, unknown>[]));
+  for (const trk of tracks)
+    for (const seg of asArray(trk.trkseg as Record<string, unknown>[]))
+      points.push(...asArray(seg.trkpt as Record<string, unknown>[]));
   const s = newSamples(points.length);
   const warnings: string[] = [];
-  let t0 = NaN, n = 0, dist = 0, lastLat = NaN, lastLon = NaN;
+  let t0 = NaN,
+    n = 0,
+    dist = 0,
+    lastLat = NaN,
+    lastLon = NaN;
   for (const p of points) {
     const ts = epochS(text(p.time));
     if (Number.isNaN(ts)) continue;
     if (Number.isNaN(t0)) t0 = ts;
     s.timeS[n] = ts - t0;
-    const lat = num(p["@lat"]), lon = num(p["@lon"]);
+    const lat = num(p["@lat"]),
+      lon = num(p["@lon"]);
     if (!Number.isNaN(lat) && !Number.isNaN(lon) && Math.abs(lat) <= 90 && Math.abs(lon) <= 180) {
       if (!Number.isNaN(lastLat)) dist += haversineM(lastLat, lastLon, lat, lon);
       lastLat = lat;
@@ -244,7 +297,15 @@ export function readGpx(content: string): Activity {
   if (points.length > n) warnings.push(`${points.length - n} track point(s) without a valid time were skipped.`);
   fillSpeedFromDistance(s);
   const type = String(text(tracks[0]?.type) ?? "").toLowerCase();
-  const sport: Sport | null = type.includes("run") ? "running" : type.includes("cycl") || type.includes("bik") || type.includes("ride") ? "cycling" : type.includes("ski") ? "cross_country_skiing" : type.includes("walk") || type.includes("hik") ? "walking" : null;
+  const sport: Sport | null = type.includes("run")
+    ? "running"
+    : type.includes("cycl") || type.includes("bik") || type.includes("ride")
+      ? "cycling"
+      : type.includes("ski")
+        ? "cross_country_skiing"
+        : type.includes("walk") || type.includes("hik")
+          ? "walking"
+          : null;
   return finish("gpx", sport, Number.isNaN(t0) ? null : new Date(t0 * 1000), s, warnings);
 }
 
@@ -288,11 +349,17 @@ export function readActivityCsv(content: string): Activity {
   const col = (names: readonly string[]) => header.findIndex((h) => names.includes(h));
   const ti = col(CSV_COLUMNS.time);
   if (ti < 0) throw new ActivityError("The CSV file has no time column (time_s or time).");
-  const hi = col(CSV_COLUMNS.hr), pi = col(CSV_COLUMNS.power), si = col(CSV_COLUMNS.speed), di = col(CSV_COLUMNS.distance);
-  if (hi < 0 && pi < 0 && si < 0 && di < 0) throw new ActivityError("The CSV file has none of the columns hr_bpm, power_w, speed_kmh or distance_m.");
+  const hi = col(CSV_COLUMNS.hr),
+    pi = col(CSV_COLUMNS.power),
+    si = col(CSV_COLUMNS.speed),
+    di = col(CSV_COLUMNS.distance);
+  if (hi < 0 && pi < 0 && si < 0 && di < 0)
+    throw new ActivityError("The CSV file has none of the columns hr_bpm, power_w, speed_kmh or distance_m.");
   const s = newSamples(rows.length - 1);
   const warnings: string[] = [];
-  let n = 0, t0 = NaN, bad = 0;
+  let n = 0,
+    t0 = NaN,
+    bad = 0;
   for (let r = 1; r < rows.length; r++) {
     const row = rows[r]!;
     const t = clockToSeconds(row[ti] ?? "");
@@ -322,9 +389,12 @@ export function readActivity(filename: string, bytes: Uint8Array): Activity {
   if (bytes.length > MAX_ACTIVITY_BYTES) throw new ActivityError("The file is larger than 25 MB.");
   if (isFit(bytes)) return readFit(bytes);
   const lower = filename.toLowerCase();
-  if (lower.endsWith(".fit")) throw new ActivityError("This .fit file has no FIT header; it is damaged or not a FIT file.");
-  if (bytes[0] === 0x1f && bytes[1] === 0x8b) throw new ActivityError("Compressed files are not supported; upload the .fit, .tcx, .gpx or .csv file itself.");
-  if (bytes[0] === 0x50 && bytes[1] === 0x4b) throw new ActivityError("Zip archives are not supported; upload the .fit, .tcx, .gpx or .csv file itself.");
+  if (lower.endsWith(".fit"))
+    throw new ActivityError("This .fit file has no FIT header; it is damaged or not a FIT file.");
+  if (bytes[0] === 0x1f && bytes[1] === 0x8b)
+    throw new ActivityError("Compressed files are not supported; upload the .fit, .tcx, .gpx or .csv file itself.");
+  if (bytes[0] === 0x50 && bytes[1] === 0x4b)
+    throw new ActivityError("Zip archives are not supported; upload the .fit, .tcx, .gpx or .csv file itself.");
   let content: string;
   try {
     content = new TextDecoder("utf-8", { fatal: true }).decode(bytes);
@@ -336,6 +406,7 @@ export function readActivity(filename: string, bytes: Uint8Array): Activity {
   if (/<TrainingCenterDatabase[\s>]/.test(head) || lower.endsWith(".tcx")) return readTcx(content);
   if (/<gpx[\s>]/.test(head) || lower.endsWith(".gpx")) return readGpx(content);
   if (head.trimStart().startsWith("<")) throw new ActivityError("This XML file is neither TCX nor GPX.");
-  if (lower.endsWith(".csv") || lower.endsWith(".txt") || /[,;\t]/.test(head.split("\n")[0] ?? "")) return readActivityCsv(content);
+  if (lower.endsWith(".csv") || lower.endsWith(".txt") || /[,;\t]/.test(head.split("\n")[0] ?? ""))
+    return readActivityCsv(content);
   throw new ActivityError("Unsupported file: upload a FIT, TCX, GPX or CSV file.");
 }

@@ -21,10 +21,18 @@ export type StreamChannel = (typeof CHANNELS)[number];
  */
 export function toStreams(s: Samples, maxGapS = 5): Streams {
   const length = s.length ? Math.floor(s.timeS[s.length - 1]!) + 1 : 0;
-  const out: Streams = { length, hrBpm: new Float64Array(length).fill(NaN), powerW: new Float64Array(length).fill(NaN), speedKmh: new Float64Array(length).fill(NaN) };
+  const out: Streams = {
+    length,
+    hrBpm: new Float64Array(length).fill(NaN),
+    powerW: new Float64Array(length).fill(NaN),
+    speedKmh: new Float64Array(length).fill(NaN),
+  };
   for (const ch of CHANNELS) {
-    const src = s[ch], dst = out[ch];
-    let j = 0, lastT = -Infinity, lastV = NaN;
+    const src = s[ch],
+      dst = out[ch];
+    let j = 0,
+      lastT = -Infinity,
+      lastV = NaN;
     for (let t = 0; t < length; t++) {
       while (j < s.length && s.timeS[j]! <= t) {
         const v = src[j]!;
@@ -54,7 +62,9 @@ export interface ActivitySummary {
 }
 
 function mean(a: Float64Array): { mean: number | null; max: number | null; count: number } {
-  let sum = 0, n = 0, max = -Infinity;
+  let sum = 0,
+    n = 0,
+    max = -Infinity;
   for (let i = 0; i < a.length; i++) {
     const v = a[i]!;
     if (Number.isNaN(v)) continue;
@@ -67,16 +77,21 @@ function mean(a: Float64Array): { mean: number | null; max: number | null; count
 
 export function summarise(samples: Samples, streams: Streams): ActivitySummary {
   let recorded = 0;
-  for (let t = 0; t < streams.length; t++) if (!Number.isNaN(streams.hrBpm[t]!) || !Number.isNaN(streams.powerW[t]!) || !Number.isNaN(streams.speedKmh[t]!)) recorded++;
+  for (let t = 0; t < streams.length; t++)
+    if (!Number.isNaN(streams.hrBpm[t]!) || !Number.isNaN(streams.powerW[t]!) || !Number.isNaN(streams.speedKmh[t]!))
+      recorded++;
   let lastDistance = NaN;
   for (let i = samples.length - 1; i >= 0 && Number.isNaN(lastDistance); i--) lastDistance = samples.distanceM[i]!;
   let firstDistance = NaN;
   for (let i = 0; i < samples.length && Number.isNaN(firstDistance); i++) firstDistance = samples.distanceM[i]!;
-  const hr = mean(streams.hrBpm), power = mean(streams.powerW), speed = mean(streams.speedKmh);
+  const hr = mean(streams.hrBpm),
+    power = mean(streams.powerW),
+    speed = mean(streams.speedKmh);
   let distanceKm: number | null = Number.isNaN(lastDistance) ? null : Math.max(0, lastDistance - firstDistance) / 1000;
   if (distanceKm === null && speed.count) {
     let metres = 0;
-    for (let t = 0; t < streams.length; t++) if (!Number.isNaN(streams.speedKmh[t]!)) metres += streams.speedKmh[t]! / 3.6;
+    for (let t = 0; t < streams.length; t++)
+      if (!Number.isNaN(streams.speedKmh[t]!)) metres += streams.speedKmh[t]! / 3.6;
     distanceKm = metres / 1000;
   }
   return {
@@ -98,8 +113,13 @@ export interface ThresholdBounds {
 }
 
 /** Power first (it answers at once), then heart rate, then speed: the first channel both the file and the zone set have. */
-export function chooseMeasure(channels: StreamChannel[], vt1: ThresholdBounds, vt2: ThresholdBounds): StreamChannel | null {
-  for (const ch of ["powerW", "hrBpm", "speedKmh"] as const) if (channels.includes(ch) && vt1[ch] != null && vt2[ch] != null) return ch;
+export function chooseMeasure(
+  channels: StreamChannel[],
+  vt1: ThresholdBounds,
+  vt2: ThresholdBounds,
+): StreamChannel | null {
+  for (const ch of ["powerW", "hrBpm", "speedKmh"] as const)
+    if (channels.includes(ch) && vt1[ch] != null && vt2[ch] != null) return ch;
   return null;
 }
 
@@ -113,7 +133,10 @@ export interface ZoneTime {
 /** Seconds below VT1, from VT1 up to VT2, and at or above VT2 (the three-zone model). */
 export function zoneTime(streams: Streams, measure: StreamChannel, vt1: number, vt2: number): ZoneTime {
   const a = streams[measure];
-  let z1 = 0, z2 = 0, z3 = 0, gaps = 0;
+  let z1 = 0,
+    z2 = 0,
+    z3 = 0,
+    gaps = 0;
   for (let t = 0; t < a.length; t++) {
     const v = a[t]!;
     if (Number.isNaN(v)) gaps++;
@@ -122,7 +145,12 @@ export function zoneTime(streams: Streams, measure: StreamChannel, vt1: number, 
     else z3++;
   }
   const secondsByZone: [number, number, number] = [z1, z2, z3];
-  return { measure, secondsByZone, minutesByZone: secondsByZone.map((s) => Math.round((s / 60) * 10) / 10) as [number, number, number], secondsWithoutData: gaps };
+  return {
+    measure,
+    secondsByZone,
+    minutesByZone: secondsByZone.map((s) => Math.round((s / 60) * 10) / 10) as [number, number, number],
+    secondsWithoutData: gaps,
+  };
 }
 
 export interface MatchCandidate {
@@ -133,7 +161,11 @@ export interface MatchCandidate {
 
 /** The planned session an activity belongs to: same sport when the file names one, nearest planned duration. */
 export function matchPlanned(candidates: MatchCandidate[], sport: Sport | null, durationS: number): string | null {
-  const pool = sport ? candidates.filter((c) => c.sport === sport || (c.sport === "triathlon" && ["running", "cycling", "swimming"].includes(sport))) : candidates;
+  const pool = sport
+    ? candidates.filter(
+        (c) => c.sport === sport || (c.sport === "triathlon" && ["running", "cycling", "swimming"].includes(sport)),
+      )
+    : candidates;
   let best: MatchCandidate | null = null;
   for (const c of pool) if (!best || Math.abs(c.totalS - durationS) < Math.abs(best.totalS - durationS)) best = c;
   return best?.id ?? null;

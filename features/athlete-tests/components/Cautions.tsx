@@ -5,8 +5,8 @@ export function TestCautions() {
     <aside className="rounded-lg border border-alert/30 bg-alert-wash/60 p-4 text-sm" aria-label="Safety">
       <p className="font-semibold">Safety first</p>
       <p className="mt-1">
-        Tidemark is not a medical device. Maximal exercise testing carries risk: screen the athlete before the test, have
-        someone trained in first aid present, and follow local clinical practice and the advice of licensed health
+        Tidemark is not a medical device. Maximal exercise testing carries risk: screen the athlete before the test,
+        have someone trained in first aid present, and follow local clinical practice and the advice of licensed health
         professionals. Thresholds and zones are aids to judgement, not diagnoses.
       </p>
     </aside>
@@ -28,7 +28,9 @@ export function StopSignChecklist() {
           </li>
         ))}
       </ul>
-      <p id="stop-sign-help" className="mt-2 text-xs text-ink-soft">Tick a sign when you check for it during the test. If one ended the test, record it below.</p>
+      <p id="stop-sign-help" className="mt-2 text-xs text-ink-soft">
+        Tick a sign when you check for it during the test. If one ended the test, record it below.
+      </p>
     </fieldset>
   );
 }

@@ -16,9 +16,23 @@ export function ClearanceForm({ athleteId, today }: { athleteId: string; today: 
   const [busy, setBusy] = useState(false);
   const field = (name: keyof typeof v, label: string, type = "text") => (
     <div>
-      <label htmlFor={`clear-${name}`} className="field-label">{label}</label>
-      <input id={`clear-${name}`} type={type} className="field-input" value={v[name]} aria-invalid={!!errors[name]} aria-describedby={`clear-${name}-e`} onChange={(e) => setV({ ...v, [name]: e.target.value })} />
-      {errors[name] ? <p id={`clear-${name}-e`} className="mt-1 text-sm text-alert">{errors[name]![0]}</p> : null}
+      <label htmlFor={`clear-${name}`} className="field-label">
+        {label}
+      </label>
+      <input
+        id={`clear-${name}`}
+        type={type}
+        className="field-input"
+        value={v[name]}
+        aria-invalid={!!errors[name]}
+        aria-describedby={`clear-${name}-e`}
+        onChange={(e) => setV({ ...v, [name]: e.target.value })}
+      />
+      {errors[name] ? (
+        <p id={`clear-${name}-e`} className="mt-1 text-sm text-alert">
+          {errors[name]![0]}
+        </p>
+      ) : null}
     </div>
   );
   return (
@@ -33,7 +47,12 @@ export function ClearanceForm({ athleteId, today }: { athleteId: string; today: 
         setErrors({});
         setSaved(false);
         try {
-          await saveClearance(athleteId, { clearedBy: v.clearedBy, role: v.role, clearedOn: v.clearedOn, ...(v.note.trim() ? { note: v.note } : {}) });
+          await saveClearance(athleteId, {
+            clearedBy: v.clearedBy,
+            role: v.role,
+            clearedOn: v.clearedOn,
+            ...(v.note.trim() ? { note: v.note } : {}),
+          });
           setSaved(true);
           router.refresh();
         } catch (err) {
@@ -44,10 +63,12 @@ export function ClearanceForm({ athleteId, today }: { athleteId: string; today: 
         }
       }}
     >
-      <h2 id="clearance-h" className="text-lg font-bold">Record a clearance</h2>
+      <h2 id="clearance-h" className="text-lg font-bold">
+        Record a clearance
+      </h2>
       <p className="text-sm text-ink-soft">
-        When a physician or another licensed health professional has cleared the athlete after the answers above, record it
-        as they gave it. It lifts the hold for these answers; a new yes needs a new clearance.
+        When a physician or another licensed health professional has cleared the athlete after the answers above, record
+        it as they gave it. It lifts the hold for these answers; a new yes needs a new clearance.
       </p>
       <FormAlert>{error}</FormAlert>
       {saved ? <FormNotice>Clearance recorded.</FormNotice> : null}
@@ -57,7 +78,9 @@ export function ClearanceForm({ athleteId, today }: { athleteId: string; today: 
         {field("clearedOn", "Date of the clearance", "date")}
         {field("note", "Note (optional, e.g. conditions given)")}
       </div>
-      <SubmitButton className="btn" disabled={busy}>{busy ? "Saving…" : "Record the clearance"}</SubmitButton>
+      <SubmitButton className="btn" disabled={busy}>
+        {busy ? "Saving…" : "Record the clearance"}
+      </SubmitButton>
     </form>
   );
 }

@@ -47,7 +47,13 @@ export function FuelChart({ rows, crossover, maxFat, warnings }: FuelChartProps)
           yLabel="Oxidation (g/min)"
           series={[
             { label: "Fat (g/min)", kind: "line", points: rows.map((r) => [x(r), r.fatGMin]), color: "#0f5e63" },
-            { label: "Carbohydrate (g/min)", kind: "line", points: rows.map((r) => [x(r), r.choGMin]), color: "#c8942c", dash: true },
+            {
+              label: "Carbohydrate (g/min)",
+              kind: "line",
+              points: rows.map((r) => [x(r), r.choGMin]),
+              color: "#c8942c",
+              dash: true,
+            },
           ]}
           markers={markers}
           xFormat={(v) => v.toFixed(0)}
@@ -57,7 +63,14 @@ export function FuelChart({ rows, crossover, maxFat, warnings }: FuelChartProps)
           title="Share of energy from carbohydrate (non-protein RQ)"
           xLabel={xLabel}
           yLabel="Carbohydrate share (%)"
-          series={[{ label: "Carbohydrate share of energy (%)", kind: "line", points: rows.map((r) => [x(r), r.choShare * 100]), color: "#4a1d45" }]}
+          series={[
+            {
+              label: "Carbohydrate share of energy (%)",
+              kind: "line",
+              points: rows.map((r) => [x(r), r.choShare * 100]),
+              color: "#4a1d45",
+            },
+          ]}
           markers={markers}
           xFormat={(v) => v.toFixed(0)}
           yFormat={(v) => v.toFixed(0)}
@@ -66,19 +79,28 @@ export function FuelChart({ rows, crossover, maxFat, warnings }: FuelChartProps)
       <dl className="grid gap-2 text-sm sm:grid-cols-2">
         <div>
           <dt className="font-semibold">Crossover (carbohydrate supplies more energy than fat)</dt>
-          <dd className="num">{crossover ? `${intensity(crossover)} · RER ${crossover.rer.toFixed(2)}` : "not reached in this test"}</dd>
+          <dd className="num">
+            {crossover ? `${intensity(crossover)} · RER ${crossover.rer.toFixed(2)}` : "not reached in this test"}
+          </dd>
         </div>
         <div>
           <dt className="font-semibold">Maximal fat oxidation</dt>
           <dd className="num">
-            {maxFat ? `${maxFat.fatGMin.toFixed(2)} g/min at ${intensity(maxFat)}${maxFat.vo2PctPeak ? ` (${Math.round(maxFat.vo2PctPeak)} % of peak VO2)` : ""}` : "no fat oxidation measured"}
+            {maxFat
+              ? `${maxFat.fatGMin.toFixed(2)} g/min at ${intensity(maxFat)}${maxFat.vo2PctPeak ? ` (${Math.round(maxFat.vo2PctPeak)} % of peak VO2)` : ""}`
+              : "no fat oxidation measured"}
           </dd>
         </div>
       </dl>
       {warnings.map((w) => (
-        <p key={w} className="text-xs text-ink-soft">{w}</p>
+        <p key={w} className="text-xs text-ink-soft">
+          {w}
+        </p>
       ))}
-      <p className="text-xs text-ink-soft">Rates from Frayn 1983 (protein neglected), energy from Weir 1949, shares from the non-protein RQ table. A ramp test does not reach steady state, so these are estimates; a step test with 3–4-minute stages is more precise.</p>
+      <p className="text-xs text-ink-soft">
+        Rates from Frayn 1983 (protein neglected), energy from Weir 1949, shares from the non-protein RQ table. A ramp
+        test does not reach steady state, so these are estimates; a step test with 3–4-minute stages is more precise.
+      </p>
     </div>
   );
 }

@@ -45,12 +45,36 @@ const METHOD_NAMES: Record<string, string> = {
   "ve-vco2-ratio": "VE/VCO2 rise",
 };
 
-
 function toBreaths(rows: PointRow[]): Breath[] {
-  return rows.map(([timeS, vo2MlMin, vco2MlMin, veLMin, hrBpm, powerW, speedKmh]) => ({ timeS, vo2MlMin, vco2MlMin, veLMin, hrBpm, powerW, speedKmh, rfPerMin: null }));
+  return rows.map(([timeS, vo2MlMin, vco2MlMin, veLMin, hrBpm, powerW, speedKmh]) => ({
+    timeS,
+    vo2MlMin,
+    vco2MlMin,
+    veLMin,
+    hrBpm,
+    powerW,
+    speedKmh,
+    rfPerMin: null,
+  }));
 }
 
-function ThresholdCard({ label, color, v, mass, detail, reason, isAdjusted }: { label: string; color: string; v: ReturnType<typeof valuesAt> | null; mass: number | null; detail: Detail | null; reason: string | null; isAdjusted: boolean }) {
+function ThresholdCard({
+  label,
+  color,
+  v,
+  mass,
+  detail,
+  reason,
+  isAdjusted,
+}: {
+  label: string;
+  color: string;
+  v: ReturnType<typeof valuesAt> | null;
+  mass: number | null;
+  detail: Detail | null;
+  reason: string | null;
+  isAdjusted: boolean;
+}) {
   return (
     <section className="card space-y-2" aria-label={label} data-testid={`card-${label}`}>
       <h3 className="flex items-center gap-2 text-lg font-bold">
@@ -63,21 +87,35 @@ function ThresholdCard({ label, color, v, mass, detail, reason, isAdjusted }: { 
           <dt className="text-ink-soft">Time</dt>
           <dd className="num">{mmss(v.timeS)} min:s</dd>
           <dt className="text-ink-soft">VO2</dt>
-          <dd className="num" data-testid={`${label}-vo2`}>{v.vo2MlMin} mL/min{mass ? ` · ${(v.vo2MlMin / mass).toFixed(1)} mL/kg/min` : ""}</dd>
+          <dd className="num" data-testid={`${label}-vo2`}>
+            {v.vo2MlMin} mL/min{mass ? ` · ${(v.vo2MlMin / mass).toFixed(1)} mL/kg/min` : ""}
+          </dd>
           <dt className="text-ink-soft">Heart rate</dt>
-          <dd className="num" data-testid={`${label}-hr`}>{v.hrBpm !== null ? `${v.hrBpm} bpm` : "not recorded"}</dd>
+          <dd className="num" data-testid={`${label}-hr`}>
+            {v.hrBpm !== null ? `${v.hrBpm} bpm` : "not recorded"}
+          </dd>
           <dt className="text-ink-soft">VCO2 · RER</dt>
-          <dd className="num">{v.vco2MlMin} mL/min · {v.rer}</dd>
+          <dd className="num">
+            {v.vco2MlMin} mL/min · {v.rer}
+          </dd>
           {v.powerW !== null ? (
             <>
-              <dt className="text-ink-soft">Power <span className="font-normal">(steady state, used for zones)</span></dt>
-              <dd className="num" data-testid={`${label}-power`}>{v.steadyPowerW ?? v.powerW} W · {v.powerW} W on the ramp</dd>
+              <dt className="text-ink-soft">
+                Power <span className="font-normal">(steady state, used for zones)</span>
+              </dt>
+              <dd className="num" data-testid={`${label}-power`}>
+                {v.steadyPowerW ?? v.powerW} W · {v.powerW} W on the ramp
+              </dd>
             </>
           ) : null}
           {v.speedKmh !== null ? (
             <>
-              <dt className="text-ink-soft">Speed <span className="font-normal">(steady state, used for zones)</span></dt>
-              <dd className="num">{v.steadySpeedKmh ?? v.speedKmh} km/h · {v.speedKmh} km/h on the ramp</dd>
+              <dt className="text-ink-soft">
+                Speed <span className="font-normal">(steady state, used for zones)</span>
+              </dt>
+              <dd className="num">
+                {v.steadySpeedKmh ?? v.speedKmh} km/h · {v.speedKmh} km/h on the ramp
+              </dd>
             </>
           ) : null}
         </dl>
@@ -88,7 +126,10 @@ function ThresholdCard({ label, color, v, mass, detail, reason, isAdjusted }: { 
         <div className="text-xs text-ink-soft">
           <p>
             Methods: {detail.methods.map((m) => METHOD_NAMES[m] ?? m).join(" + ")}
-            {detail.agreement ? ` · ${detail.agreement.differencePct} % apart (${detail.agreement.differenceMlMin} mL/min)` : " · not cross-checked"} · confidence {detail.confidence.toFixed(2)} of 1
+            {detail.agreement
+              ? ` · ${detail.agreement.differencePct} % apart (${detail.agreement.differenceMlMin} mL/min)`
+              : " · not cross-checked"}{" "}
+            · confidence {detail.confidence.toFixed(2)} of 1
           </p>
           {detail.warnings.map((w) => (
             <p key={w}>{w}</p>
@@ -102,7 +143,10 @@ function ThresholdCard({ label, color, v, mass, detail, reason, isAdjusted }: { 
 export function GasExchangeResult(p: GasExchangeResultProps) {
   const router = useRouter();
   const points = useMemo(() => toBreaths(p.rows), [p.rows]);
-  const exercise = useMemo(() => points.filter((b) => b.timeS >= p.onsetS && b.timeS <= p.endS), [points, p.onsetS, p.endS]);
+  const exercise = useMemo(
+    () => points.filter((b) => b.timeS >= p.onsetS && b.timeS <= p.endS),
+    [points, p.onsetS, p.endS],
+  );
   const effective = p.adjusted ?? p.detected;
   const [t1, setT1] = useState<number | null>(effective.vt1?.timeS ?? null);
   const [t2, setT2] = useState<number | null>(effective.vt2?.timeS ?? null);
@@ -112,8 +156,10 @@ export function GasExchangeResult(p: GasExchangeResultProps) {
   const interactive = (p.interactive ?? true) && p.canEdit;
   const v1 = t1 !== null ? valuesAt(points, t1, p.bodyMassKg) : null;
   const v2 = t2 !== null ? valuesAt(points, t2, p.bodyMassKg) : null;
-  const snapTime = (t: number) => exercise.reduce((b, q) => (Math.abs(q.timeS - t) < Math.abs(b.timeS - t) ? q : b), exercise[0]!).timeS;
-  const snapBy = (key: "vo2MlMin" | "vco2MlMin", x: number) => exercise.reduce((b, q) => (Math.abs(q[key] - x) < Math.abs(b[key] - x) ? q : b), exercise[0]!).timeS;
+  const snapTime = (t: number) =>
+    exercise.reduce((b, q) => (Math.abs(q.timeS - t) < Math.abs(b.timeS - t) ? q : b), exercise[0]!).timeS;
+  const snapBy = (key: "vo2MlMin" | "vco2MlMin", x: number) =>
+    exercise.reduce((b, q) => (Math.abs(q[key] - x) < Math.abs(b[key] - x) ? q : b), exercise[0]!).timeS;
   const step = (t: number | null, dir: -1 | 1) => {
     const times = exercise.map((q) => q.timeS);
     const i = t === null ? 0 : times.findIndex((x) => x >= t - 0.01);
@@ -126,8 +172,22 @@ export function GasExchangeResult(p: GasExchangeResultProps) {
   };
   const mid = exercise[Math.floor(exercise.length / 2)]?.timeS ?? 0;
   const markers = (x: (t: number) => number, fromX: (x: number) => number): Marker[] => [
-    { id: "vt1", label: "VT1", x: x(t1 ?? mid), color: VT1_COLOR, onMove: interactive ? (v) => setter(1)(fromX(v)) : undefined, onStep: interactive ? (d) => setter(1)(step(t1 ?? mid, d)) : undefined },
-    { id: "vt2", label: "VT2", x: x(t2 ?? mid), color: VT2_COLOR, onMove: interactive ? (v) => setter(2)(fromX(v)) : undefined, onStep: interactive ? (d) => setter(2)(step(t2 ?? mid, d)) : undefined },
+    {
+      id: "vt1",
+      label: "VT1",
+      x: x(t1 ?? mid),
+      color: VT1_COLOR,
+      onMove: interactive ? (v) => setter(1)(fromX(v)) : undefined,
+      onStep: interactive ? (d) => setter(1)(step(t1 ?? mid, d)) : undefined,
+    },
+    {
+      id: "vt2",
+      label: "VT2",
+      x: x(t2 ?? mid),
+      color: VT2_COLOR,
+      onMove: interactive ? (v) => setter(2)(fromX(v)) : undefined,
+      onStep: interactive ? (d) => setter(2)(step(t2 ?? mid, d)) : undefined,
+    },
   ];
   const at = (t: number) => valuesAt(points, t, null);
   const vo2At = (t: number) => at(t).vo2MlMin;
@@ -138,7 +198,10 @@ export function GasExchangeResult(p: GasExchangeResultProps) {
     setBusy(true);
     setMessage(undefined);
     try {
-      await patchThresholds(p.testId, { vt1: t1 === null ? null : { timeS: t1 }, vt2: t2 === null ? null : { timeS: t2 } });
+      await patchThresholds(p.testId, {
+        vt1: t1 === null ? null : { timeS: t1 },
+        vt2: t2 === null ? null : { timeS: t2 },
+      });
       setMessage({ kind: "ok", text: "Saved. The zone set now uses these thresholds; the detected values are kept." });
       router.refresh();
     } catch (e) {
@@ -151,19 +214,55 @@ export function GasExchangeResult(p: GasExchangeResultProps) {
   return (
     <div className="space-y-6">
       <div className="grid gap-4 md:grid-cols-2">
-        <ThresholdCard label="VT1" color={VT1_COLOR} v={v1} mass={p.bodyMassKg} detail={p.details.vt1} reason={p.details.vt1Reason} isAdjusted={!!p.adjusted || dirty} />
-        <ThresholdCard label="VT2" color={VT2_COLOR} v={v2} mass={p.bodyMassKg} detail={p.details.vt2} reason={p.details.vt2Reason} isAdjusted={!!p.adjusted || dirty} />
+        <ThresholdCard
+          label="VT1"
+          color={VT1_COLOR}
+          v={v1}
+          mass={p.bodyMassKg}
+          detail={p.details.vt1}
+          reason={p.details.vt1Reason}
+          isAdjusted={!!p.adjusted || dirty}
+        />
+        <ThresholdCard
+          label="VT2"
+          color={VT2_COLOR}
+          v={v2}
+          mass={p.bodyMassKg}
+          detail={p.details.vt2}
+          reason={p.details.vt2Reason}
+          isAdjusted={!!p.adjusted || dirty}
+        />
       </div>
       {interactive ? (
         <div className="flex flex-wrap items-center gap-3" data-print="hide">
-          <button type="button" className="btn" onClick={save} disabled={busy || (!dirty && !!p.adjusted) || t1 === null || t2 === null}>
+          <button
+            type="button"
+            className="btn"
+            onClick={save}
+            disabled={busy || (!dirty && !!p.adjusted) || t1 === null || t2 === null}
+          >
             {busy ? "Saving…" : "Save thresholds and zones"}
           </button>
-          <button type="button" className="btn-quiet" onClick={() => { setT1(p.detected.vt1?.timeS ?? null); setT2(p.detected.vt2?.timeS ?? null); }}>
+          <button
+            type="button"
+            className="btn-quiet"
+            onClick={() => {
+              setT1(p.detected.vt1?.timeS ?? null);
+              setT2(p.detected.vt2?.timeS ?? null);
+            }}
+          >
             Back to the detected values
           </button>
-          <p className="text-sm text-ink-soft">Drag a marker on any chart, or focus it and use the arrow keys; the numbers follow.</p>
-          {message ? message.kind === "ok" ? <FormNotice>{message.text}</FormNotice> : <FormAlert>{message.text}</FormAlert> : null}
+          <p className="text-sm text-ink-soft">
+            Drag a marker on any chart, or focus it and use the arrow keys; the numbers follow.
+          </p>
+          {message ? (
+            message.kind === "ok" ? (
+              <FormNotice>{message.text}</FormNotice>
+            ) : (
+              <FormAlert>{message.text}</FormAlert>
+            )
+          ) : null}
         </div>
       ) : null}
       <div className="grid gap-6 lg:grid-cols-2">
@@ -171,7 +270,14 @@ export function GasExchangeResult(p: GasExchangeResultProps) {
           title="V-slope: VCO2 against VO2"
           xLabel="VO2 (mL/min)"
           yLabel="VCO2 (mL/min)"
-          series={[{ label: "VCO2 against VO2, averaged points", kind: "dots", points: exercise.map((q) => [q.vo2MlMin, q.vco2MlMin]), color: "#4e5b66" }]}
+          series={[
+            {
+              label: "VCO2 against VO2, averaged points",
+              kind: "dots",
+              points: exercise.map((q) => [q.vo2MlMin, q.vco2MlMin]),
+              color: "#4e5b66",
+            },
+          ]}
           markers={markers(vo2At, (x) => snapBy("vo2MlMin", x))}
           xFormat={(v) => v.toFixed(0)}
           yFormat={(v) => v.toFixed(0)}
@@ -181,8 +287,18 @@ export function GasExchangeResult(p: GasExchangeResultProps) {
           xLabel="Time (min:s)"
           yLabel="VE/VO2 and VE/VCO2 (L/L)"
           series={[
-            { label: "VE/VO2", kind: "line", points: exercise.map((q) => [q.timeS, (q.veLMin / q.vo2MlMin) * 1000]), color: "#0f5e63" },
-            { label: "VE/VCO2", kind: "line", points: exercise.map((q) => [q.timeS, (q.veLMin / q.vco2MlMin) * 1000]), color: "#c8942c" },
+            {
+              label: "VE/VO2",
+              kind: "line",
+              points: exercise.map((q) => [q.timeS, (q.veLMin / q.vo2MlMin) * 1000]),
+              color: "#0f5e63",
+            },
+            {
+              label: "VE/VCO2",
+              kind: "line",
+              points: exercise.map((q) => [q.timeS, (q.veLMin / q.vco2MlMin) * 1000]),
+              color: "#c8942c",
+            },
           ]}
           markers={markers((t) => t, snapTime)}
           xFormat={minutes}
@@ -192,7 +308,14 @@ export function GasExchangeResult(p: GasExchangeResultProps) {
           title="VE against VCO2"
           xLabel="VCO2 (mL/min)"
           yLabel="VE (L/min)"
-          series={[{ label: "VE against VCO2, averaged points", kind: "dots", points: exercise.map((q) => [q.vco2MlMin, q.veLMin]), color: "#4e5b66" }]}
+          series={[
+            {
+              label: "VE against VCO2, averaged points",
+              kind: "dots",
+              points: exercise.map((q) => [q.vco2MlMin, q.veLMin]),
+              color: "#4e5b66",
+            },
+          ]}
           markers={markers(vco2At, (x) => snapBy("vco2MlMin", x))}
           xFormat={(v) => v.toFixed(0)}
           yFormat={(v) => v.toFixed(0)}
@@ -202,7 +325,14 @@ export function GasExchangeResult(p: GasExchangeResultProps) {
             title="Heart rate over time"
             xLabel="Time (min:s)"
             yLabel="Heart rate (bpm)"
-            series={[{ label: "Heart rate", kind: "line", points: exercise.filter((q) => q.hrBpm !== null).map((q) => [q.timeS, q.hrBpm!]), color: "#8a2c1b" }]}
+            series={[
+              {
+                label: "Heart rate",
+                kind: "line",
+                points: exercise.filter((q) => q.hrBpm !== null).map((q) => [q.timeS, q.hrBpm!]),
+                color: "#8a2c1b",
+              },
+            ]}
             markers={markers((t) => t, snapTime)}
             xFormat={minutes}
             yFormat={(v) => v.toFixed(0)}

@@ -8,7 +8,15 @@ import { SubmitButton } from "@/features/platform/components/SubmitButton";
 
 type Answers = Partial<Record<string, boolean>>;
 
-export function ScreeningForm({ athleteId, initial, advice }: { athleteId: string; initial: Answers | null; advice: string | null }) {
+export function ScreeningForm({
+  athleteId,
+  initial,
+  advice,
+}: {
+  athleteId: string;
+  initial: Answers | null;
+  advice: string | null;
+}) {
   const router = useRouter();
   const [answers, setAnswers] = useState<Answers>(initial ?? {});
   const [error, setError] = useState<string>();
@@ -39,16 +47,27 @@ export function ScreeningForm({ athleteId, initial, advice }: { athleteId: strin
       }}
     >
       <FormAlert>{error}</FormAlert>
-      {result ? <FormAlert>{result}</FormAlert> : saved ? <FormNotice>Saved. No answer needs medical clearance.</FormNotice> : null}
+      {result ? (
+        <FormAlert>{result}</FormAlert>
+      ) : saved ? (
+        <FormNotice>Saved. No answer needs medical clearance.</FormNotice>
+      ) : null}
       <ol className="space-y-3">
         {SCREENING_QUESTIONS.map((q, i) => (
           <li key={q.id}>
             <fieldset>
-              <legend className="text-sm">{i + 1}. {q.text}</legend>
+              <legend className="text-sm">
+                {i + 1}. {q.text}
+              </legend>
               <div className="mt-1 flex gap-6 text-sm">
                 {[true, false].map((v) => (
                   <label key={String(v)} className="flex items-center gap-2">
-                    <input type="radio" name={`screen-${q.id}`} checked={answers[q.id] === v} onChange={() => setAnswers((prev) => ({ ...prev, [q.id]: v }))} />
+                    <input
+                      type="radio"
+                      name={`screen-${q.id}`}
+                      checked={answers[q.id] === v}
+                      onChange={() => setAnswers((prev) => ({ ...prev, [q.id]: v }))}
+                    />
                     {v ? "Yes" : "No"}
                   </label>
                 ))}
@@ -57,7 +76,9 @@ export function ScreeningForm({ athleteId, initial, advice }: { athleteId: strin
           </li>
         ))}
       </ol>
-      <SubmitButton className="btn" disabled={busy}>{busy ? "Saving…" : "Save the answers"}</SubmitButton>
+      <SubmitButton className="btn" disabled={busy}>
+        {busy ? "Saving…" : "Save the answers"}
+      </SubmitButton>
     </form>
   );
 }

@@ -55,8 +55,22 @@ export function SegmentEditor(p: SegmentEditorProps) {
     setTo(Math.max(snap(t), from + MIN_SPAN_S));
   };
   const markers: Marker[] = [
-    { id: "segment-start", label: "Start", x: from, color: START_COLOR, onMove: p.canEdit ? moveFrom : undefined, onStep: p.canEdit ? (d) => moveFrom(step(from, d)) : undefined },
-    { id: "segment-end", label: "End", x: to, color: END_COLOR, onMove: p.canEdit ? moveTo : undefined, onStep: p.canEdit ? (d) => moveTo(step(to, d)) : undefined },
+    {
+      id: "segment-start",
+      label: "Start",
+      x: from,
+      color: START_COLOR,
+      onMove: p.canEdit ? moveFrom : undefined,
+      onStep: p.canEdit ? (d) => moveFrom(step(from, d)) : undefined,
+    },
+    {
+      id: "segment-end",
+      label: "End",
+      x: to,
+      color: END_COLOR,
+      onMove: p.canEdit ? moveTo : undefined,
+      onStep: p.canEdit ? (d) => moveTo(step(to, d)) : undefined,
+    },
   ];
 
   async function search(segment: { fromS: number | null; toS: number | null }) {
@@ -75,16 +89,23 @@ export function SegmentEditor(p: SegmentEditorProps) {
 
   return (
     <section className="card space-y-3" aria-labelledby="segment-h">
-      <h2 id="segment-h" className="text-lg font-bold">Test segment</h2>
+      <h2 id="segment-h" className="text-lg font-bold">
+        Test segment
+      </h2>
       <p className="text-sm">
         {SOURCE_TEXT[p.source]} Thresholds are searched only between the start and the end:{" "}
-        <span className="num font-semibold" data-testid="segment-range">{mmss(from)}–{mmss(to)} min:s</span>.
+        <span className="num font-semibold" data-testid="segment-range">
+          {mmss(from)}–{mmss(to)} min:s
+        </span>
+        .
       </p>
       <ScatterChart
         title="VO2 over the whole file"
         xLabel="Time (min:s)"
         yLabel="VO2 (mL/min)"
-        series={[{ label: "VO2, averaged points", kind: "line", points: p.rows.map((r) => [r[0], r[1]]), color: "#4e5b66" }]}
+        series={[
+          { label: "VO2, averaged points", kind: "line", points: p.rows.map((r) => [r[0], r[1]]), color: "#4e5b66" },
+        ]}
         markers={markers}
         xFormat={(v) => mmss(v)}
         yFormat={(v) => v.toFixed(0)}
@@ -92,19 +113,35 @@ export function SegmentEditor(p: SegmentEditorProps) {
       />
       {p.canEdit ? (
         <div className="flex flex-wrap items-center gap-3" data-print="hide">
-          <button type="button" className="btn" disabled={busy || !dirty} onClick={() => search({ fromS: Math.round(from), toS: Math.round(to) })}>
+          <button
+            type="button"
+            className="btn"
+            disabled={busy || !dirty}
+            onClick={() => search({ fromS: Math.round(from), toS: Math.round(to) })}
+          >
             {busy ? "Analysing…" : "Find the thresholds in this segment"}
           </button>
           {p.source === "chosen" ? (
-            <button type="button" className="btn-quiet" disabled={busy} onClick={() => search({ fromS: null, toS: null })}>
+            <button
+              type="button"
+              className="btn-quiet"
+              disabled={busy}
+              onClick={() => search({ fromS: null, toS: null })}
+            >
               Let Tidemark find the segment again
             </button>
           ) : null}
           <p className="text-sm text-ink-soft">
-            Drag the start or end handle, or focus it and use the arrow keys. Leave out rest, the warm-up and recovery. A new search
-            replaces thresholds moved by hand.
+            Drag the start or end handle, or focus it and use the arrow keys. Leave out rest, the warm-up and recovery.
+            A new search replaces thresholds moved by hand.
           </p>
-          {message ? message.kind === "ok" ? <FormNotice>{message.text}</FormNotice> : <FormAlert>{message.text}</FormAlert> : null}
+          {message ? (
+            message.kind === "ok" ? (
+              <FormNotice>{message.text}</FormNotice>
+            ) : (
+              <FormAlert>{message.text}</FormAlert>
+            )
+          ) : null}
         </div>
       ) : null}
     </section>

@@ -23,19 +23,59 @@ import { addDays } from "@/features/platform/lib/days";
 export type QuestionKind = "symptom" | "illness" | "condition" | "hr_medication";
 
 export const SCREENING_QUESTIONS = [
-  { id: "chest_pain", kind: "symptom", text: "Do you get chest pain, pressure or tightness at rest, in daily life or when you exercise?" },
-  { id: "dizziness", kind: "symptom", text: "Have you fainted, lost consciousness, or lost your balance from dizziness in the past year?" },
-  { id: "breathless", kind: "symptom", text: "Do you get unusually short of breath, or feel your heart racing or skipping, at rest or on mild effort?" },
-  { id: "recent_illness", kind: "illness", text: "Have you had a fever, a chest infection or another illness in the past two weeks, or do you feel unwell today?" },
-  { id: "heart", kind: "condition", text: "Has a doctor ever said you have a heart condition, or that you should exercise only under medical supervision?" },
+  {
+    id: "chest_pain",
+    kind: "symptom",
+    text: "Do you get chest pain, pressure or tightness at rest, in daily life or when you exercise?",
+  },
+  {
+    id: "dizziness",
+    kind: "symptom",
+    text: "Have you fainted, lost consciousness, or lost your balance from dizziness in the past year?",
+  },
+  {
+    id: "breathless",
+    kind: "symptom",
+    text: "Do you get unusually short of breath, or feel your heart racing or skipping, at rest or on mild effort?",
+  },
+  {
+    id: "recent_illness",
+    kind: "illness",
+    text: "Have you had a fever, a chest infection or another illness in the past two weeks, or do you feel unwell today?",
+  },
+  {
+    id: "heart",
+    kind: "condition",
+    text: "Has a doctor ever said you have a heart condition, or that you should exercise only under medical supervision?",
+  },
   { id: "blood_pressure", kind: "condition", text: "Do you have high blood pressure, treated or not?" },
-  { id: "chronic_disease", kind: "condition", text: "Do you have diabetes, a lung disease (such as asthma or COPD), a kidney disease or another long-term illness?" },
-  { id: "family_history", kind: "condition", text: "Did a parent, brother or sister die suddenly of a heart problem before the age of 50?" },
+  {
+    id: "chronic_disease",
+    kind: "condition",
+    text: "Do you have diabetes, a lung disease (such as asthma or COPD), a kidney disease or another long-term illness?",
+  },
+  {
+    id: "family_history",
+    kind: "condition",
+    text: "Did a parent, brother or sister die suddenly of a heart problem before the age of 50?",
+  },
   { id: "pregnancy", kind: "condition", text: "Are you pregnant, or have you given birth in the past six months?" },
-  { id: "injury", kind: "condition", text: "Do you have a bone, joint or muscle problem that hard exercise could make worse, or have you been injured or operated on in the past six months?" },
+  {
+    id: "injury",
+    kind: "condition",
+    text: "Do you have a bone, joint or muscle problem that hard exercise could make worse, or have you been injured or operated on in the past six months?",
+  },
   { id: "medication", kind: "condition", text: "Do you take any medicine regularly (prescribed or not)?" },
-  { id: "hr_medication", kind: "hr_medication", text: "Do you take medicine that lowers the heart rate, such as a beta blocker (for blood pressure, the heart, migraine or anxiety)?" },
-  { id: "other", kind: "condition", text: "Is there any other reason you should not take part in a hard exercise test or hard training?" },
+  {
+    id: "hr_medication",
+    kind: "hr_medication",
+    text: "Do you take medicine that lowers the heart rate, such as a beta blocker (for blood pressure, the heart, migraine or anxiety)?",
+  },
+  {
+    id: "other",
+    kind: "condition",
+    text: "Is there any other reason you should not take part in a hard exercise test or hard training?",
+  },
 ] as const satisfies readonly { id: string; kind: QuestionKind; text: string }[];
 
 export type ScreeningQuestionId = (typeof SCREENING_QUESTIONS)[number]["id"];
@@ -75,7 +115,15 @@ const day = (iso: string) => iso.slice(0, 10);
 export function readiness(input: ReadinessInput): Readiness {
   const base = { hrMedication: false, answeredOn: null, expiresOn: null, clearance: null } as const;
   if (!input.latest) {
-    return { ...base, status: "missing", holdHardSessions: false, tests: "none", label: "Screening not answered", reasons: ["The readiness questions have not been answered yet."], whatToDo: "Answer the readiness questions before any test." };
+    return {
+      ...base,
+      status: "missing",
+      holdHardSessions: false,
+      tests: "none",
+      label: "Screening not answered",
+      reasons: ["The readiness questions have not been answered yet."],
+      whatToDo: "Answer the readiness questions before any test.",
+    };
   }
   const answeredOn = day(input.latest.answeredAt);
   const expiresOn = addDays(answeredOn, SCREENING_VALID_DAYS);
@@ -83,19 +131,45 @@ export function readiness(input: ReadinessInput): Readiness {
   const hrMedication = answers.hr_medication === true;
   const common = { hrMedication, answeredOn, expiresOn };
   if (SCREENING_QUESTIONS.some((q) => typeof answers[q.id] !== "boolean")) {
-    return { ...common, clearance: null, status: "incomplete", holdHardSessions: false, tests: "none", label: "Screening to answer again", reasons: ["The readiness questions have changed since they were last answered."], whatToDo: "Answer the readiness questions again before any test." };
+    return {
+      ...common,
+      clearance: null,
+      status: "incomplete",
+      holdHardSessions: false,
+      tests: "none",
+      label: "Screening to answer again",
+      reasons: ["The readiness questions have changed since they were last answered."],
+      whatToDo: "Answer the readiness questions again before any test.",
+    };
   }
   if (expiresOn <= input.today) {
-    return { ...common, clearance: null, status: "expired", holdHardSessions: false, tests: "none", label: `Screening expired ${expiresOn}`, reasons: [`The readiness answers are from ${answeredOn}, more than 12 months ago.`], whatToDo: "Answer the readiness questions again before any test." };
+    return {
+      ...common,
+      clearance: null,
+      status: "expired",
+      holdHardSessions: false,
+      tests: "none",
+      label: `Screening expired ${expiresOn}`,
+      reasons: [`The readiness answers are from ${answeredOn}, more than 12 months ago.`],
+      whatToDo: "Answer the readiness questions again before any test.",
+    };
   }
-  const clearance = input.clearances.filter((c) => c.recordedAt >= input.latest!.answeredAt).sort((a, b) => (a.recordedAt < b.recordedAt ? 1 : -1))[0] ?? null;
-  const cleared = clearance ? { clearedBy: clearance.clearedBy, role: clearance.role, clearedOn: clearance.clearedOn, note: clearance.note } : null;
+  const clearance =
+    input.clearances
+      .filter((c) => c.recordedAt >= input.latest!.answeredAt)
+      .sort((a, b) => (a.recordedAt < b.recordedAt ? 1 : -1))[0] ?? null;
+  const cleared = clearance
+    ? { clearedBy: clearance.clearedBy, role: clearance.role, clearedOn: clearance.clearedOn, note: clearance.note }
+    : null;
   const yes = SCREENING_QUESTIONS.filter((q) => answers[q.id] === true);
   const symptoms = yes.filter((q) => q.kind === "symptom");
   const illness = yes.filter((q) => q.kind === "illness");
   const conditions = yes.filter((q) => q.kind === "condition" || q.kind === "hr_medication");
   const reasons = yes.map((q) => `Yes: ${q.text}`);
-  if (hrMedication) reasons.push("Heart rate under heart-rate-lowering medicine does not track effort as usual: heart-rate zones and TRIMP are unreliable; use power, pace or RPE targets.");
+  if (hrMedication)
+    reasons.push(
+      "Heart rate under heart-rate-lowering medicine does not track effort as usual: heart-rate zones and TRIMP are unreliable; use power, pace or RPE targets.",
+    );
   if ((symptoms.length || illness.length) && !cleared) {
     return {
       ...common,
@@ -119,7 +193,8 @@ export function readiness(input: ReadinessInput): Readiness {
       tests: "submaximal",
       label: "Maximal tests need clearance",
       reasons,
-      whatToDo: "A maximal test waits for a clearance from a physician or another licensed health professional, recorded by a coach. A submaximal or field test is at the coach's judgement.",
+      whatToDo:
+        "A maximal test waits for a clearance from a physician or another licensed health professional, recorded by a coach. A submaximal or field test is at the coach's judgement.",
     };
   }
   return {

@@ -12,11 +12,28 @@ export type PointRow = [number, number, number, number, number | null, number | 
 
 export function toRows(points: Breath[]): PointRow[] {
   const r = (v: number | null, d = 0) => (v === null ? null : Math.round(v * 10 ** d) / 10 ** d);
-  return points.map((p) => [r(p.timeS, 1)!, r(p.vo2MlMin)!, r(p.vco2MlMin)!, r(p.veLMin, 1)!, r(p.hrBpm), r(p.powerW), r(p.speedKmh, 2)]);
+  return points.map((p) => [
+    r(p.timeS, 1)!,
+    r(p.vo2MlMin)!,
+    r(p.vco2MlMin)!,
+    r(p.veLMin, 1)!,
+    r(p.hrBpm),
+    r(p.powerW),
+    r(p.speedKmh, 2),
+  ]);
 }
 
 export function fromRows(rows: PointRow[]): Breath[] {
-  return rows.map(([timeS, vo2MlMin, vco2MlMin, veLMin, hrBpm, powerW, speedKmh]) => ({ timeS, vo2MlMin, vco2MlMin, veLMin, hrBpm, powerW, speedKmh, rfPerMin: null }));
+  return rows.map(([timeS, vo2MlMin, vco2MlMin, veLMin, hrBpm, powerW, speedKmh]) => ({
+    timeS,
+    vo2MlMin,
+    vco2MlMin,
+    veLMin,
+    hrBpm,
+    powerW,
+    speedKmh,
+    rfPerMin: null,
+  }));
 }
 
 function thresholdValues(t: Threshold | null): ThresholdValues | null {
@@ -35,10 +52,21 @@ function thresholdValues(t: Threshold | null): ThresholdValues | null {
 }
 
 function detail(t: Threshold | null) {
-  return t ? { methods: t.methods, methodResults: t.methodResults, agreement: t.agreement, confidence: t.confidence, warnings: t.warnings } : null;
+  return t
+    ? {
+        methods: t.methods,
+        methodResults: t.methodResults,
+        agreement: t.agreement,
+        confidence: t.confidence,
+        warnings: t.warnings,
+      }
+    : null;
 }
 
-export function gasExchangeRecord(a: Analysis, bodyMassKg: number | null): { detected: ThresholdPair; result: Record<string, unknown> } {
+export function gasExchangeRecord(
+  a: Analysis,
+  bodyMassKg: number | null,
+): { detected: ThresholdPair; result: Record<string, unknown> } {
   return {
     detected: { vt1: thresholdValues(a.vt1), vt2: thresholdValues(a.vt2) },
     result: {

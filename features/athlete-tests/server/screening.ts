@@ -13,24 +13,41 @@ import type { clearanceSchema, screeningSchema } from "../schemas";
 
 /** The readiness inputs of several athletes in two queries (latest screening each, and their clearances). */
 export async function readinessInputs(athleteIds: string[]): Promise<Map<string, Omit<ReadinessInput, "today">>> {
-  const out = new Map<string, Omit<ReadinessInput, "today">>(athleteIds.map((id) => [id, { latest: null, clearances: [] }]));
+  const out = new Map<string, Omit<ReadinessInput, "today">>(
+    athleteIds.map((id) => [id, { latest: null, clearances: [] }]),
+  );
   if (!athleteIds.length) return out;
   const db = getDb();
   const [screenings, clearances] = await Promise.all([
     db
-      .selectDistinctOn([schema.screening.athleteId], { athleteId: schema.screening.athleteId, answers: schema.screening.answers, createdAt: schema.screening.createdAt })
+      .selectDistinctOn([schema.screening.athleteId], {
+        athleteId: schema.screening.athleteId,
+        answers: schema.screening.answers,
+        createdAt: schema.screening.createdAt,
+      })
       .from(schema.screening)
       .where(inArray(schema.screening.athleteId, athleteIds))
       .orderBy(schema.screening.athleteId, desc(schema.screening.createdAt)),
     db.select().from(schema.screeningClearance).where(inArray(schema.screeningClearance.athleteId, athleteIds)),
   ]);
-  for (const s of screenings) out.get(s.athleteId)!.latest = { answeredAt: s.createdAt.toISOString(), answers: s.answers };
-  for (const c of clearances) out.get(c.athleteId)!.clearances.push({ recordedAt: c.createdAt.toISOString(), clearedBy: c.clearedBy, role: c.role, clearedOn: c.clearedOn, note: c.note });
+  for (const s of screenings)
+    out.get(s.athleteId)!.latest = { answeredAt: s.createdAt.toISOString(), answers: s.answers };
+  for (const c of clearances)
+    out.get(c.athleteId)!.clearances.push({
+      recordedAt: c.createdAt.toISOString(),
+      clearedBy: c.clearedBy,
+      role: c.role,
+      clearedOn: c.clearedOn,
+      note: c.note,
+    });
   return out;
 }
 
 async function athleteToday(athleteId: string, now = new Date()): Promise<string> {
-  const [p] = await getDb().select({ timeZone: schema.athleteProfile.timeZone }).from(schema.athleteProfile).where(eq(schema.athleteProfile.userId, athleteId));
+  const [p] = await getDb()
+    .select({ timeZone: schema.athleteProfile.timeZone })
+    .from(schema.athleteProfile)
+    .where(eq(schema.athleteProfile.userId, athleteId));
   return localDate(now, p?.timeZone ?? "UTC");
 }
 
@@ -44,8 +61,18 @@ export async function getScreening(actor: Actor, athleteId: string) {
   await requireAthleteAccess(actor, athleteId, "view");
   const db = getDb();
   const [rows, clearances, state] = await Promise.all([
-    db.select().from(schema.screening).where(eq(schema.screening.athleteId, athleteId)).orderBy(desc(schema.screening.createdAt)).limit(10),
-    db.select().from(schema.screeningClearance).where(eq(schema.screeningClearance.athleteId, athleteId)).orderBy(desc(schema.screeningClearance.createdAt)).limit(10),
+    db
+      .select()
+      .from(schema.screening)
+      .where(eq(schema.screening.athleteId, athleteId))
+      .orderBy(desc(schema.screening.createdAt))
+      .limit(10),
+    db
+      .select()
+      .from(schema.screeningClearance)
+      .where(eq(schema.screeningClearance.athleteId, athleteId))
+      .orderBy(desc(schema.screeningClearance.createdAt))
+      .limit(10),
     readinessOf(athleteId),
   ]);
   const latest = rows[0] ?? null;
@@ -55,7 +82,13 @@ export async function getScreening(actor: Actor, athleteId: string) {
     /** The one paragraph to show where a test or hard training is planned, or null when nothing stands in the way. */
     advice: state.whatToDo,
     history: rows.map((r) => ({ date: r.createdAt, anyYes: r.anyYes })),
-    clearances: clearances.map((c) => ({ clearedBy: c.clearedBy, role: c.role, clearedOn: c.clearedOn, note: c.note, recordedAt: c.createdAt })),
+    clearances: clearances.map((c) => ({
+      clearedBy: c.clearedBy,
+      role: c.role,
+      clearedOn: c.clearedOn,
+      note: c.note,
+      recordedAt: c.createdAt,
+    })),
   };
 }
 
@@ -63,7 +96,16 @@ export async function getScreening(actor: Actor, athleteId: string) {
 export async function saveScreening(actor: Actor, athleteId: string, input: z.infer<typeof screeningSchema>) {
   await requireAthleteAccess(actor, athleteId, "edit");
   const anyYes = Object.values(input.answers).some(Boolean);
-  await getDb().insert(schema.screening).values({ id: randomUUID(), athleteId, answers: input.answers, anyYes, notes: input.notes ?? null, recordedBy: actor.userId });
+  await getDb()
+    .insert(schema.screening)
+    .values({
+      id: randomUUID(),
+      athleteId,
+      answers: input.answers,
+      anyYes,
+      notes: input.notes ?? null,
+      recordedBy: actor.userId,
+    });
   return getScreening(actor, athleteId);
 }
 
@@ -71,17 +113,44 @@ export async function saveScreening(actor: Actor, athleteId: string, input: z.in
 export async function saveClearance(actor: Actor, athleteId: string, input: z.infer<typeof clearanceSchema>) {
   await requireAthleteAccess(actor, athleteId, "coach");
   const today = await athleteToday(athleteId);
-  if (input.clearedOn > addDays(today, 1)) throw new HttpError(400, "A clearance cannot be dated in the future.", { fieldErrors: { clearedOn: ["Give the date the clearance was given."] } });
-  const [latest] = await getDb().select({ createdAt: schema.screening.createdAt }).from(schema.screening).where(eq(schema.screening.athleteId, athleteId)).orderBy(desc(schema.screening.createdAt)).limit(1);
-  if (!latest) throw new HttpError(409, "There are no readiness answers to clear yet: the athlete answers the questions first.");
-  await getDb().insert(schema.screeningClearance).values({ id: randomUUID(), athleteId, clearedBy: input.clearedBy, role: input.role, clearedOn: input.clearedOn, note: input.note ?? null, recordedBy: actor.userId });
+  if (input.clearedOn > addDays(today, 1))
+    throw new HttpError(400, "A clearance cannot be dated in the future.", {
+      fieldErrors: { clearedOn: ["Give the date the clearance was given."] },
+    });
+  const [latest] = await getDb()
+    .select({ createdAt: schema.screening.createdAt })
+    .from(schema.screening)
+    .where(eq(schema.screening.athleteId, athleteId))
+    .orderBy(desc(schema.screening.createdAt))
+    .limit(1);
+  if (!latest)
+    throw new HttpError(409, "There are no readiness answers to clear yet: the athlete answers the questions first.");
+  await getDb()
+    .insert(schema.screeningClearance)
+    .values({
+      id: randomUUID(),
+      athleteId,
+      clearedBy: input.clearedBy,
+      role: input.role,
+      clearedOn: input.clearedOn,
+      note: input.note ?? null,
+      recordedBy: actor.userId,
+    });
   return getScreening(actor, athleteId);
 }
 
 /** Refuses a test the athlete's readiness does not allow (409 with the reason and what to do). */
-export async function requireTestAllowed(athleteId: string, kind: "gas_exchange" | "talk" | "submax" | "manual"): Promise<void> {
+export async function requireTestAllowed(
+  athleteId: string,
+  kind: "gas_exchange" | "talk" | "submax" | "manual",
+): Promise<void> {
   const r = await readinessOf(athleteId);
   if (testAllowed(r, kind)) return;
-  const what = r.tests === "submaximal" ? "A maximal test (a gas-exchange ramp to exhaustion) needs a recorded clearance." : "No test can be recorded now.";
-  throw new HttpError(409, `${what} ${r.whatToDo ?? ""}`.trim(), { readiness: { status: r.status, label: r.label, reasons: r.reasons } });
+  const what =
+    r.tests === "submaximal"
+      ? "A maximal test (a gas-exchange ramp to exhaustion) needs a recorded clearance."
+      : "No test can be recorded now.";
+  throw new HttpError(409, `${what} ${r.whatToDo ?? ""}`.trim(), {
+    readiness: { status: r.status, label: r.label, reasons: r.reasons },
+  });
 }

@@ -21,7 +21,10 @@ import { requireTestAllowed } from "./screening";
 type Meta = z.infer<typeof testMetaSchema>;
 
 async function profileMass(athleteId: string): Promise<number | null> {
-  const [p] = await getDb().select({ m: schema.athleteProfile.bodyMassKg }).from(schema.athleteProfile).where(eq(schema.athleteProfile.userId, athleteId));
+  const [p] = await getDb()
+    .select({ m: schema.athleteProfile.bodyMassKg })
+    .from(schema.athleteProfile)
+    .where(eq(schema.athleteProfile.userId, athleteId));
   return p?.m ?? null;
 }
 
@@ -46,7 +49,11 @@ export async function createGasExchangeTest(
   await requireTestAllowed(athleteId, "gas_exchange");
   if (file.bytes.length === 0) throw new HttpError(400, "The file is empty.");
   const mass = meta.bodyMassKg ?? (await profileMass(athleteId));
-  const read = await readGasExchangeFile(file.bytes, meta.mapping, { bodyMassKg: mass, units: meta.units, sheet: meta.sheet });
+  const read = await readGasExchangeFile(file.bytes, meta.mapping, {
+    bodyMassKg: mass,
+    units: meta.units,
+    sheet: meta.sheet,
+  });
   const a = analyzeRead(read, { bodyMassKg: mass, segment: meta.segment });
   if (!a.ok) throw new HttpError(/binary|\.xls\)/.test(a.error) ? 415 : 422, a.error, { headers: a.headers });
   const { detected, result } = gasExchangeRecord(a, mass);
@@ -62,7 +69,14 @@ export async function createGasExchangeTest(
       endedBy: meta.endedBy,
       stopSign: meta.stopSign ?? null,
       bodyMassKg: mass,
-      input: { mapping: meta.mapping ?? {}, units: meta.units ?? {}, segment: meta.segment ?? null, sheet: meta.sheet ?? null, filename: file.name, fiveZones: meta.fiveZones ?? false },
+      input: {
+        mapping: meta.mapping ?? {},
+        units: meta.units ?? {},
+        segment: meta.segment ?? null,
+        sheet: meta.sheet ?? null,
+        filename: file.name,
+        fiveZones: meta.fiveZones ?? false,
+      },
       result,
       detected,
       createdBy: actor.userId,
@@ -75,7 +89,17 @@ export async function createGasExchangeTest(
       data: Buffer.from(file.bytes),
     });
     if (hasBoth(detected)) {
-      await saveZoneSetForTest(tx, { athleteId, sport: meta.sport, testId: id, effectiveFrom: meta.date, vt1: detected.vt1!, vt2: detected.vt2!, five: meta.fiveZones ?? false, source: "gas-exchange test (detected)", createdBy: actor.userId });
+      await saveZoneSetForTest(tx, {
+        athleteId,
+        sport: meta.sport,
+        testId: id,
+        effectiveFrom: meta.date,
+        vt1: detected.vt1!,
+        vt2: detected.vt2!,
+        five: meta.fiveZones ?? false,
+        source: "gas-exchange test (detected)",
+        createdBy: actor.userId,
+      });
     }
   });
   return { id, detected, warnings: a.warnings, vt1Reason: a.vt1Reason, vt2Reason: a.vt2Reason };
@@ -147,21 +171,44 @@ async function loadTest(actor: Actor, testId: string) {
 export async function getTest(actor: Actor, testId: string): Promise<TestView> {
   const row = await loadTest(actor, testId);
   const db = getDb();
-  const [athlete] = await db.select({ name: schema.user.name }).from(schema.user).where(eq(schema.user.id, row.athleteId));
-  const [adjuster] = row.adjustedBy ? await db.select({ name: schema.user.name }).from(schema.user).where(eq(schema.user.id, row.adjustedBy)) : [];
+  const [athlete] = await db
+    .select({ name: schema.user.name })
+    .from(schema.user)
+    .where(eq(schema.user.id, row.athleteId));
+  const [adjuster] = row.adjustedBy
+    ? await db.select({ name: schema.user.name }).from(schema.user).where(eq(schema.user.id, row.adjustedBy))
+    : [];
   const [zs] = await db.select().from(schema.zoneSet).where(eq(schema.zoneSet.testId, row.id));
-  const [file] = await db.select({ filename: schema.testFile.filename, sizeBytes: schema.testFile.sizeBytes }).from(schema.testFile).where(eq(schema.testFile.testId, row.id));
+  const [file] = await db
+    .select({ filename: schema.testFile.filename, sizeBytes: schema.testFile.sizeBytes })
+    .from(schema.testFile)
+    .where(eq(schema.testFile.testId, row.id));
   let zoneSet: ZoneSetView | null = null;
   if (zs) {
     const z = zonesFor(zs.vt1, zs.vt2);
-    zoneSet = { id: zs.id, sport: zs.sport, effectiveFrom: zs.effectiveFrom, model: zs.model === "five" ? "five" : "three", source: zs.source, testId: zs.testId, vt1: zs.vt1, vt2: zs.vt2, zones: z.three, fiveZones: zs.model === "five" ? z.five : null };
+    zoneSet = {
+      id: zs.id,
+      sport: zs.sport,
+      effectiveFrom: zs.effectiveFrom,
+      model: zs.model === "five" ? "five" : "three",
+      source: zs.source,
+      testId: zs.testId,
+      vt1: zs.vt1,
+      vt2: zs.vt2,
+      zones: z.three,
+      fiveZones: zs.model === "five" ? z.five : null,
+    };
   }
   let fuel = null;
   if (row.kind === "gas_exchange") {
     const points = fromRows((row.result.points as PointRow[]) ?? []);
     const peak = row.result.peak as { vo2MlMin: number } | undefined;
-    const onset = Number(row.result.onsetS ?? 0), end = Number(row.result.endS ?? Infinity);
-    fuel = fuelProfile(points.filter((p) => p.timeS >= onset && p.timeS <= end), { vo2PeakMlMin: peak?.vo2MlMin });
+    const onset = Number(row.result.onsetS ?? 0),
+      end = Number(row.result.endS ?? Infinity);
+    fuel = fuelProfile(
+      points.filter((p) => p.timeS >= onset && p.timeS <= end),
+      { vo2PeakMlMin: peak?.vo2MlMin },
+    );
   }
   return {
     id: row.id,
@@ -192,7 +239,14 @@ export type { TestView };
 export async function listTests(actor: Actor, athleteId: string) {
   await requireAthleteAccess(actor, athleteId, "view");
   return getDb()
-    .select({ id: schema.athleteTest.id, kind: schema.athleteTest.kind, sport: schema.athleteTest.sport, protocol: schema.athleteTest.protocol, date: schema.athleteTest.testDate, adjustedAt: schema.athleteTest.adjustedAt })
+    .select({
+      id: schema.athleteTest.id,
+      kind: schema.athleteTest.kind,
+      sport: schema.athleteTest.sport,
+      protocol: schema.athleteTest.protocol,
+      date: schema.athleteTest.testDate,
+      adjustedAt: schema.athleteTest.adjustedAt,
+    })
     .from(schema.athleteTest)
     .where(eq(schema.athleteTest.athleteId, athleteId))
     .orderBy(desc(schema.athleteTest.testDate), desc(schema.athleteTest.createdAt));
@@ -206,9 +260,21 @@ export async function adjustThresholds(actor: Actor, testId: string, patch: Thre
   const resolve = (p: ThresholdPatch["vt1"]): ThresholdValues | null => {
     if (p === null) return null;
     if ("timeS" in p) {
-      if (!points.length) throw new HttpError(400, "Only gas-exchange tests take a threshold time; give heart rate, power or speed instead.");
+      if (!points.length)
+        throw new HttpError(
+          400,
+          "Only gas-exchange tests take a threshold time; give heart rate, power or speed instead.",
+        );
       const v = valuesAt(points, p.timeS, row.bodyMassKg, Number(row.result.meanResponseTimeS ?? DEFAULT_MRT_S));
-      return { timeS: v.timeS, vo2MlMin: v.vo2MlMin, hrBpm: v.hrBpm, powerW: v.steadyPowerW ?? v.powerW, speedKmh: v.steadySpeedKmh ?? v.speedKmh, rampPowerW: v.powerW, rampSpeedKmh: v.speedKmh };
+      return {
+        timeS: v.timeS,
+        vo2MlMin: v.vo2MlMin,
+        hrBpm: v.hrBpm,
+        powerW: v.steadyPowerW ?? v.powerW,
+        speedKmh: v.steadySpeedKmh ?? v.speedKmh,
+        rampPowerW: v.powerW,
+        rampSpeedKmh: v.speedKmh,
+      };
     }
     return { hrBpm: p.hrBpm ?? null, powerW: p.powerW ?? null, speedKmh: p.speedKmh ?? null };
   };
@@ -223,7 +289,17 @@ export async function adjustThresholds(actor: Actor, testId: string, patch: Thre
       .set({ adjusted, adjustedBy: actor.userId, adjustedAt: new Date(), input: { ...row.input, fiveZones: five } })
       .where(eq(schema.athleteTest.id, testId));
     if (hasBoth(adjusted)) {
-      await saveZoneSetForTest(tx, { athleteId: row.athleteId, sport: row.sport, testId, effectiveFrom: row.testDate, vt1: adjusted.vt1!, vt2: adjusted.vt2!, five, source: `${row.kind === "gas_exchange" ? "gas-exchange test" : row.kind === "talk" ? "talk test" : "thresholds by hand"} (adjusted)`, createdBy: actor.userId });
+      await saveZoneSetForTest(tx, {
+        athleteId: row.athleteId,
+        sport: row.sport,
+        testId,
+        effectiveFrom: row.testDate,
+        vt1: adjusted.vt1!,
+        vt2: adjusted.vt2!,
+        five,
+        source: `${row.kind === "gas_exchange" ? "gas-exchange test" : row.kind === "talk" ? "talk test" : "thresholds by hand"} (adjusted)`,
+        createdBy: actor.userId,
+      });
     }
   });
   return getTest(actor, testId);
@@ -240,10 +316,20 @@ export async function resegmentTest(actor: Actor, testId: string, segment: z.inf
   await requireAthleteAccess(actor, row.athleteId, "coach");
   if (row.kind !== "gas_exchange") throw new HttpError(400, "Only gas-exchange tests have a test segment.");
   const [file] = await getDb().select().from(schema.testFile).where(eq(schema.testFile.testId, row.id));
-  if (!file) throw new HttpError(409, "This test's file is not stored, so it cannot be analysed again; upload it once more.");
-  const input = row.input as { mapping?: ColumnMapping; units?: UnitChoices; sheet?: string | null; fiveZones?: boolean };
+  if (!file)
+    throw new HttpError(409, "This test's file is not stored, so it cannot be analysed again; upload it once more.");
+  const input = row.input as {
+    mapping?: ColumnMapping;
+    units?: UnitChoices;
+    sheet?: string | null;
+    fiveZones?: boolean;
+  };
   const mass = row.bodyMassKg ?? null;
-  const read = await readGasExchangeFile(new Uint8Array(file.data), input.mapping, { bodyMassKg: mass, units: input.units, sheet: input.sheet ?? null });
+  const read = await readGasExchangeFile(new Uint8Array(file.data), input.mapping, {
+    bodyMassKg: mass,
+    units: input.units,
+    sheet: input.sheet ?? null,
+  });
   const chosen = { fromS: segment.fromS ?? null, toS: segment.toS ?? null };
   const a = analyzeRead(read, { bodyMassKg: mass, segment: chosen });
   if (!a.ok) throw new HttpError(422, a.error);
@@ -252,10 +338,27 @@ export async function resegmentTest(actor: Actor, testId: string, segment: z.inf
   await getDb().transaction(async (tx) => {
     await tx
       .update(schema.athleteTest)
-      .set({ result, detected, adjusted: null, adjustedBy: null, adjustedAt: null, input: { ...row.input, segment: chosen.fromS === null && chosen.toS === null ? null : chosen } })
+      .set({
+        result,
+        detected,
+        adjusted: null,
+        adjustedBy: null,
+        adjustedAt: null,
+        input: { ...row.input, segment: chosen.fromS === null && chosen.toS === null ? null : chosen },
+      })
       .where(eq(schema.athleteTest.id, testId));
     if (hasBoth(detected)) {
-      await saveZoneSetForTest(tx, { athleteId: row.athleteId, sport: row.sport, testId, effectiveFrom: row.testDate, vt1: detected.vt1!, vt2: detected.vt2!, five, source: "gas-exchange test (detected in a segment set by a coach)", createdBy: actor.userId });
+      await saveZoneSetForTest(tx, {
+        athleteId: row.athleteId,
+        sport: row.sport,
+        testId,
+        effectiveFrom: row.testDate,
+        vt1: detected.vt1!,
+        vt2: detected.vt2!,
+        five,
+        source: "gas-exchange test (detected in a segment set by a coach)",
+        createdBy: actor.userId,
+      });
     } else {
       // Without both thresholds the old zone set would describe a segment the coach has just rejected.
       await tx.delete(schema.zoneSet).where(eq(schema.zoneSet.testId, testId));

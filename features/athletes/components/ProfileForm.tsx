@@ -12,7 +12,15 @@ import { SubmitButton } from "@/features/platform/components/SubmitButton";
 
 const toNumberOrNull = (v: unknown) => (v === "" || v == null ? null : Number(v));
 
-export function ProfileForm({ athleteId, initial, isSelf }: { athleteId: string; initial: ProfileInput & { version?: number }; isSelf: boolean }) {
+export function ProfileForm({
+  athleteId,
+  initial,
+  isSelf,
+}: {
+  athleteId: string;
+  initial: ProfileInput & { version?: number };
+  isSelf: boolean;
+}) {
   const router = useRouter();
   const save = useSaveProfile(athleteId);
   const [saved, setSaved] = useState(false);
@@ -35,7 +43,9 @@ export function ProfileForm({ athleteId, initial, isSelf }: { athleteId: string;
     } catch (e) {
       if (e instanceof ApiError && e.status === 409) {
         router.refresh();
-        return setError("root", { message: `${e.message} Reload the page to see it; your entries here are kept until then.` });
+        return setError("root", {
+          message: `${e.message} Reload the page to see it; your entries here are kept until then.`,
+        });
       }
       if (e instanceof ApiError && Object.keys(e.fieldErrors).length) {
         for (const [field, messages] of Object.entries(e.fieldErrors)) {
@@ -45,7 +55,12 @@ export function ProfileForm({ athleteId, initial, isSelf }: { athleteId: string;
     }
   });
 
-  const num = (name: "birthYear" | "bodyMassKg" | "restingHrBpm" | "maxHrBpm", label: string, unit: string, step = "1") => (
+  const num = (
+    name: "birthYear" | "bodyMassKg" | "restingHrBpm" | "maxHrBpm",
+    label: string,
+    unit: string,
+    step = "1",
+  ) => (
     <div>
       <label htmlFor={name} className="field-label">
         {label} <span className="font-normal text-ink-soft">({unit})</span>
@@ -101,17 +116,23 @@ export function ProfileForm({ athleteId, initial, isSelf }: { athleteId: string;
       <fieldset className="grid gap-4 sm:grid-cols-2">
         <legend className="mb-2 text-lg font-bold">Time zone and reminders</legend>
         <div className="sm:col-span-2">
-          <label htmlFor="timeZone" className="field-label">Time zone</label>
+          <label htmlFor="timeZone" className="field-label">
+            Time zone
+          </label>
           <select id="timeZone" className="field-input" aria-describedby="timeZone-error" {...register("timeZone")}>
             {timeZones.includes(initial.timeZone) ? null : <option value={initial.timeZone}>{initial.timeZone}</option>}
             {timeZones.map((tz) => (
-              <option key={tz} value={tz}>{tz.replaceAll("_", " ")}</option>
+              <option key={tz} value={tz}>
+                {tz.replaceAll("_", " ")}
+              </option>
             ))}
           </select>
           <FieldError id="timeZone-error" message={errors.timeZone?.message} />
         </div>
         <div>
-          <label htmlFor="reminderTiming" className="field-label">Session reminders</label>
+          <label htmlFor="reminderTiming" className="field-label">
+            Session reminders
+          </label>
           <select id="reminderTiming" className="field-input" {...register("reminderTiming")}>
             <option value="evening_before">The evening before</option>
             <option value="morning_of">The morning of the session</option>
@@ -122,7 +143,13 @@ export function ProfileForm({ athleteId, initial, isSelf }: { athleteId: string;
           <label htmlFor="reminderTime" className="field-label">
             At <span className="font-normal text-ink-soft">(local time, HH:MM)</span>
           </label>
-          <input id="reminderTime" type="time" className="field-input num" aria-describedby="reminderTime-error" {...register("reminderTime")} />
+          <input
+            id="reminderTime"
+            type="time"
+            className="field-input num"
+            aria-describedby="reminderTime-error"
+            {...register("reminderTime")}
+          />
           <FieldError id="reminderTime-error" message={errors.reminderTime?.message} />
         </div>
         <label className="flex items-center gap-2 text-sm">

@@ -50,21 +50,34 @@ export async function getAthleteProfile(actor: Actor, athleteId: string) {
 }
 
 /** Applies a partial update; the merged profile is validated as a whole and written in one statement. */
-export async function updateAthleteProfile(actor: Actor, athleteId: string, patch: Partial<Record<keyof ProfileInput, unknown>>) {
+export async function updateAthleteProfile(
+  actor: Actor,
+  athleteId: string,
+  patch: Partial<Record<keyof ProfileInput, unknown>>,
+) {
   await requireAthleteAccess(actor, athleteId, "edit");
   const { version, ...changes } = patch as typeof patch & { version?: number };
   return getDb().transaction(async (tx) => {
     // The profile as it is now, locked until the change is written: a change made on an older version is refused.
-    const [row] = await tx.select().from(schema.athleteProfile).where(eq(schema.athleteProfile.userId, athleteId)).for("update");
-    if (version !== undefined && (row?.version ?? 1) !== version) throw editConflict({ ...toProfile(row), version: row?.version ?? 1 }, "this profile");
+    const [row] = await tx
+      .select()
+      .from(schema.athleteProfile)
+      .where(eq(schema.athleteProfile.userId, athleteId))
+      .for("update");
+    if (version !== undefined && (row?.version ?? 1) !== version)
+      throw editConflict({ ...toProfile(row), version: row?.version ?? 1 }, "this profile");
     const merged = { ...toProfile(row), ...changes };
     const parsed = profileSchema.safeParse(merged);
-    if (!parsed.success) throw new HttpError(400, "Some fields are not valid.", { fieldErrors: fieldErrors(parsed.error) });
+    if (!parsed.success)
+      throw new HttpError(400, "Some fields are not valid.", { fieldErrors: fieldErrors(parsed.error) });
     const values = parsed.data;
     const [written] = await tx
       .insert(schema.athleteProfile)
       .values({ userId: athleteId, ...values })
-      .onConflictDoUpdate({ target: schema.athleteProfile.userId, set: { ...values, version: sql`${schema.athleteProfile.version} + 1` } })
+      .onConflictDoUpdate({
+        target: schema.athleteProfile.userId,
+        set: { ...values, version: sql`${schema.athleteProfile.version} + 1` },
+      })
       .returning({ version: schema.athleteProfile.version });
     return { ...values, version: written!.version };
   });

@@ -22,14 +22,27 @@ export function ForgotPasswordForm() {
     setSent(true);
   });
   if (sent) {
-    return <FormNotice>If an account uses that address, a link to choose a new password is on its way. It expires in one hour.</FormNotice>;
+    return (
+      <FormNotice>
+        If an account uses that address, a link to choose a new password is on its way. It expires in one hour.
+      </FormNotice>
+    );
   }
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4">
       <FormAlert>{serverError}</FormAlert>
       <div>
-        <label htmlFor="email" className="field-label">E-mail</label>
-        <input id="email" type="email" autoComplete="email" className="field-input" aria-describedby="email-error" {...register("email")} />
+        <label htmlFor="email" className="field-label">
+          E-mail
+        </label>
+        <input
+          id="email"
+          type="email"
+          autoComplete="email"
+          className="field-input"
+          aria-describedby="email-error"
+          {...register("email")}
+        />
         <FieldError id="email-error" message={formState.errors.email?.message} />
       </div>
       <SubmitButton className="btn w-full" disabled={formState.isSubmitting}>
@@ -50,7 +63,9 @@ export function ResetPasswordForm({ token }: { token: string }) {
     const { error } = await authClient.resetPassword({ newPassword: password, token });
     if (error) {
       return setServerError(
-        error.code === "INVALID_TOKEN" ? "This reset link has expired or was already used. Ask for a new one." : authErrorMessage(error),
+        error.code === "INVALID_TOKEN"
+          ? "This reset link has expired or was already used. Ask for a new one."
+          : authErrorMessage(error),
       );
     }
     setDone(true);
@@ -58,7 +73,11 @@ export function ResetPasswordForm({ token }: { token: string }) {
   if (done) {
     return (
       <FormNotice>
-        Your password is changed. <Link href="/sign-in" className="font-semibold underline">Sign in</Link> with the new one.
+        Your password is changed.{" "}
+        <Link href="/sign-in" className="font-semibold underline">
+          Sign in
+        </Link>{" "}
+        with the new one.
       </FormNotice>
     );
   }
@@ -66,13 +85,31 @@ export function ResetPasswordForm({ token }: { token: string }) {
     <form onSubmit={onSubmit} noValidate className="space-y-4">
       <FormAlert>{serverError}</FormAlert>
       <div>
-        <label htmlFor="password" className="field-label">New password <span className="font-normal text-ink-soft">(at least 10 characters)</span></label>
-        <input id="password" type="password" autoComplete="new-password" className="field-input" aria-describedby="password-error" {...register("password")} />
+        <label htmlFor="password" className="field-label">
+          New password <span className="font-normal text-ink-soft">(at least 10 characters)</span>
+        </label>
+        <input
+          id="password"
+          type="password"
+          autoComplete="new-password"
+          className="field-input"
+          aria-describedby="password-error"
+          {...register("password")}
+        />
         <FieldError id="password-error" message={formState.errors.password?.message} />
       </div>
       <div>
-        <label htmlFor="confirm" className="field-label">Repeat the new password</label>
-        <input id="confirm" type="password" autoComplete="new-password" className="field-input" aria-describedby="confirm-error" {...register("confirm")} />
+        <label htmlFor="confirm" className="field-label">
+          Repeat the new password
+        </label>
+        <input
+          id="confirm"
+          type="password"
+          autoComplete="new-password"
+          className="field-input"
+          aria-describedby="confirm-error"
+          {...register("confirm")}
+        />
         <FieldError id="confirm-error" message={formState.errors.confirm?.message} />
       </div>
       <SubmitButton className="btn w-full" disabled={formState.isSubmitting}>

@@ -13,7 +13,11 @@ export function SignOutButton() {
       onClick={async () => {
         setBusy(true);
         // better-auth's own sign-out endpoint; a plain request keeps its client library out of every page's first load.
-        await fetch("/api/auth/sign-out", { method: "POST", headers: { "content-type": "application/json" }, body: "{}" }).catch(() => undefined);
+        await fetch("/api/auth/sign-out", {
+          method: "POST",
+          headers: { "content-type": "application/json" },
+          body: "{}",
+        }).catch(() => undefined);
         router.push("/sign-in");
         router.refresh();
       }}

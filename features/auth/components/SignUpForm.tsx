@@ -26,7 +26,12 @@ export function SignUpForm({ fixedEmail, callbackURL = "/home" }: { fixedEmail?:
 
   const onSubmit = handleSubmit(async (values) => {
     setServerError(undefined);
-    const { error } = await authClient.signUp.email({ name: values.name, email: values.email, password: values.password, callbackURL });
+    const { error } = await authClient.signUp.email({
+      name: values.name,
+      email: values.email,
+      password: values.password,
+      callbackURL,
+    });
     if (error) return setServerError(authErrorMessage(error));
     setSentTo(values.email);
   });
@@ -37,18 +42,48 @@ export function SignUpForm({ fixedEmail, callbackURL = "/home" }: { fixedEmail?:
     <form onSubmit={onSubmit} noValidate className="space-y-4">
       <FormAlert>{serverError}</FormAlert>
       <div>
-        <label htmlFor="name" className="field-label">Your name</label>
-        <input id="name" autoComplete="name" className="field-input" aria-invalid={!!errors.name} aria-describedby="name-error" {...register("name")} />
+        <label htmlFor="name" className="field-label">
+          Your name
+        </label>
+        <input
+          id="name"
+          autoComplete="name"
+          className="field-input"
+          aria-invalid={!!errors.name}
+          aria-describedby="name-error"
+          {...register("name")}
+        />
         <FieldError id="name-error" message={errors.name?.message} />
       </div>
       <div>
-        <label htmlFor="email" className="field-label">E-mail</label>
-        <input id="email" type="email" autoComplete="email" readOnly={!!fixedEmail} className="field-input read-only:bg-ground" aria-invalid={!!errors.email} aria-describedby="email-error" {...register("email")} />
+        <label htmlFor="email" className="field-label">
+          E-mail
+        </label>
+        <input
+          id="email"
+          type="email"
+          autoComplete="email"
+          readOnly={!!fixedEmail}
+          className="field-input read-only:bg-ground"
+          aria-invalid={!!errors.email}
+          aria-describedby="email-error"
+          {...register("email")}
+        />
         <FieldError id="email-error" message={errors.email?.message} />
       </div>
       <div>
-        <label htmlFor="password" className="field-label">Password <span className="font-normal text-ink-soft">(at least 10 characters)</span></label>
-        <input id="password" type="password" autoComplete="new-password" className="field-input" aria-invalid={!!errors.password} aria-describedby="password-error" {...register("password")} />
+        <label htmlFor="password" className="field-label">
+          Password <span className="font-normal text-ink-soft">(at least 10 characters)</span>
+        </label>
+        <input
+          id="password"
+          type="password"
+          autoComplete="new-password"
+          className="field-input"
+          aria-invalid={!!errors.password}
+          aria-describedby="password-error"
+          {...register("password")}
+        />
         <FieldError id="password-error" message={errors.password?.message} />
       </div>
       <SubmitButton className="btn w-full" disabled={isSubmitting}>
@@ -65,8 +100,8 @@ export function CheckInbox({ email, callbackURL }: { email: string; callbackURL:
     <div className="space-y-3" role="status">
       <h2 className="text-lg font-bold">Check your inbox</h2>
       <p>
-        We sent a link to <strong>{email}</strong>. Open it to confirm that the address is yours: you are then signed in and
-        can carry on. The link works for 24 hours.
+        We sent a link to <strong>{email}</strong>. Open it to confirm that the address is yours: you are then signed in
+        and can carry on. The link works for 24 hours.
       </p>
       <p className="text-sm text-ink-soft">
         Nothing arrived after a few minutes? Look in the spam folder, or{" "}
@@ -85,7 +120,9 @@ export function CheckInbox({ email, callbackURL }: { email: string; callbackURL:
         .
       </p>
       {state === "sent" ? <p className="text-sm">A new link is on its way.</p> : null}
-      {state === "failed" ? <p className="text-sm text-alert">The link could not be sent just now. Wait a minute, then try again.</p> : null}
+      {state === "failed" ? (
+        <p className="text-sm text-alert">The link could not be sent just now. Wait a minute, then try again.</p>
+      ) : null}
     </div>
   );
 }

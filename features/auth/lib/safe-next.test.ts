@@ -13,7 +13,17 @@ describe("where sign-in goes next", () => {
   });
 
   it("refuses every way of naming another site", () => {
-    for (const next of ["/\\evil.test/x", "/\t/evil.test/x", "//evil.test/x", "https://evil.test/x", "\\\\evil.test", "/\\/evil.test", " //evil.test", "javascript:alert(1)", `${origin}//evil.test`]) {
+    for (const next of [
+      "/\\evil.test/x",
+      "/\t/evil.test/x",
+      "//evil.test/x",
+      "https://evil.test/x",
+      "\\\\evil.test",
+      "/\\/evil.test",
+      " //evil.test",
+      "javascript:alert(1)",
+      `${origin}//evil.test`,
+    ]) {
       expect(safeNext(next, origin), next).toBe("/home");
     }
   });

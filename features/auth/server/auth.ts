@@ -92,8 +92,12 @@ function createAuth() {
       },
       account: {
         // (A password reset updates accounts in bulk and passes no row here; its session deletions are what count.)
-        update: { after: async (account) => void (typeof account?.userId === "string" && forgetUserSessions(account.userId)) },
-        delete: { after: async (account) => void (typeof account?.userId === "string" && forgetUserSessions(account.userId)) },
+        update: {
+          after: async (account) => void (typeof account?.userId === "string" && forgetUserSessions(account.userId)),
+        },
+        delete: {
+          after: async (account) => void (typeof account?.userId === "string" && forgetUserSessions(account.userId)),
+        },
       },
       session: {
         delete: { after: async (session) => forgetSessionToken(session.token) },
@@ -115,9 +119,13 @@ function createAuth() {
       before: createAuthMiddleware(async (ctx) => {
         // Names reach e-mail subjects and calendar feeds: the same rules as every other name (one line, no control
         // characters, 2–80 characters), on the server.
-        if ((ctx.path === "/sign-up/email" || ctx.path === "/update-user") && (ctx.body as { name?: unknown } | undefined)?.name !== undefined) {
+        if (
+          (ctx.path === "/sign-up/email" || ctx.path === "/update-user") &&
+          (ctx.body as { name?: unknown } | undefined)?.name !== undefined
+        ) {
           const parsed = personNameSchema.safeParse((ctx.body as { name?: unknown }).name);
-          if (!parsed.success) throw new APIError("BAD_REQUEST", { code: "INVALID_NAME", message: parsed.error.issues[0]!.message });
+          if (!parsed.success)
+            throw new APIError("BAD_REQUEST", { code: "INVALID_NAME", message: parsed.error.issues[0]!.message });
         }
         if (ctx.path !== "/sign-in/email") return;
         const email = emailOf(ctx.body);
@@ -135,7 +143,12 @@ function createAuth() {
         const email = emailOf(ctx.body);
         if (!email) return;
         const returned = ctx.context.returned as unknown;
-        const status = returned instanceof Response ? returned.status : typeof (returned as { statusCode?: unknown })?.statusCode === "number" ? (returned as { statusCode: number }).statusCode : 200;
+        const status =
+          returned instanceof Response
+            ? returned.status
+            : typeof (returned as { statusCode?: unknown })?.statusCode === "number"
+              ? (returned as { statusCode: number }).statusCode
+              : 200;
         if (status === 401) await recordFailedSignIn(email);
         else if (status < 400) await clearFailedSignIns(email);
       }),

@@ -68,8 +68,17 @@ export function recallSession<T>(key: string, now = Date.now()): T | undefined {
  * Remembers a session verified by a lookup that began at `lookupStartedAt`, unless its user or token was forgotten since
  * (a sign-out that raced the lookup).
  */
-export function rememberSession<T>(key: string, value: T, who: { userId: string; token: string; expiresAt: Date | string | number }, lookupStartedAt: number, now = Date.now()): void {
-  const since = Math.max(memory.forgotten.get(`u:${who.userId}`) ?? -Infinity, memory.forgotten.get(`t:${who.token}`) ?? -Infinity);
+export function rememberSession<T>(
+  key: string,
+  value: T,
+  who: { userId: string; token: string; expiresAt: Date | string | number },
+  lookupStartedAt: number,
+  now = Date.now(),
+): void {
+  const since = Math.max(
+    memory.forgotten.get(`u:${who.userId}`) ?? -Infinity,
+    memory.forgotten.get(`t:${who.token}`) ?? -Infinity,
+  );
   if (since >= lookupStartedAt) return;
   const until = Math.min(now + SESSION_MEMO_MS, new Date(who.expiresAt).getTime());
   if (!(until > now)) return;

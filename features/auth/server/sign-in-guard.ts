@@ -19,7 +19,10 @@ const key = (email: string) => email.trim().toLowerCase();
 
 /** Minutes left of a pause on this address, or 0. */
 export async function signInPausedFor(email: string, now = new Date()): Promise<number> {
-  const [row] = await getDb().select({ lockedUntil: schema.signInGuard.lockedUntil }).from(schema.signInGuard).where(eq(schema.signInGuard.email, key(email)));
+  const [row] = await getDb()
+    .select({ lockedUntil: schema.signInGuard.lockedUntil })
+    .from(schema.signInGuard)
+    .where(eq(schema.signInGuard.email, key(email)));
   if (!row?.lockedUntil || row.lockedUntil <= now) return 0;
   return Math.max(1, Math.ceil((row.lockedUntil.getTime() - now.getTime()) / 60_000));
 }
@@ -42,12 +45,17 @@ export async function recordFailedSignIn(email: string): Promise<{ paused: boole
     .update(schema.signInGuard)
     .set({ lockedUntil: sql`now() + make_interval(mins => ${SIGN_IN_PAUSE_MIN})`, failures: 0 })
     .where(eq(schema.signInGuard.email, k));
-  const [owner] = await db.select({ email: schema.user.email, name: schema.user.name }).from(schema.user).where(eq(sql`lower(${schema.user.email})`, k));
+  const [owner] = await db
+    .select({ email: schema.user.email, name: schema.user.name })
+    .from(schema.user)
+    .where(eq(sql`lower(${schema.user.email})`, k));
   if (owner) await sendSignInPausedNotice({ to: owner.email, name: owner.name, failures, minutes: SIGN_IN_PAUSE_MIN });
   return { paused: true };
 }
 
 /** A successful sign-in clears the count. */
 export async function clearFailedSignIns(email: string): Promise<void> {
-  await getDb().delete(schema.signInGuard).where(eq(schema.signInGuard.email, key(email)));
+  await getDb()
+    .delete(schema.signInGuard)
+    .where(eq(schema.signInGuard.email, key(email)));
 }

@@ -51,7 +51,8 @@ function niceTicks(min: number, max: number, count = 5): number[] {
 }
 
 function extent(values: number[]): [number, number] {
-  let lo = Infinity, hi = -Infinity;
+  let lo = Infinity,
+    hi = -Infinity;
   for (const v of values) {
     if (v < lo) lo = v;
     if (v > hi) hi = v;
@@ -61,7 +62,16 @@ function extent(values: number[]): [number, number] {
   return [lo - pad, hi + pad];
 }
 
-export function ScatterChart({ title, xLabel, yLabel, series, markers = [], height = 300, xFormat = String, yFormat = String }: ScatterChartProps) {
+export function ScatterChart({
+  title,
+  xLabel,
+  yLabel,
+  series,
+  markers = [],
+  height = 300,
+  xFormat = String,
+  yFormat = String,
+}: ScatterChartProps) {
   const svgRef = useRef<SVGSVGElement>(null);
   const titleId = useId();
   const all = series.flatMap((s) => s.points);
@@ -104,26 +114,63 @@ export function ScatterChart({ title, xLabel, yLabel, series, markers = [], heig
   });
   return (
     <figure className="w-full">
-      <figcaption id={titleId} className="mb-1 text-sm font-semibold">{title}</figcaption>
-      <svg ref={svgRef} viewBox={`0 0 ${W} ${H}`} className="w-full touch-none select-none" role="img" aria-labelledby={titleId}>
-        <rect x={PAD.left} y={PAD.top} width={W - PAD.left - PAD.right} height={H - PAD.top - PAD.bottom} fill="var(--color-paper)" stroke="var(--color-rule)" />
+      <figcaption id={titleId} className="mb-1 text-sm font-semibold">
+        {title}
+      </figcaption>
+      <svg
+        ref={svgRef}
+        viewBox={`0 0 ${W} ${H}`}
+        className="w-full touch-none select-none"
+        role="img"
+        aria-labelledby={titleId}
+      >
+        <rect
+          x={PAD.left}
+          y={PAD.top}
+          width={W - PAD.left - PAD.right}
+          height={H - PAD.top - PAD.bottom}
+          fill="var(--color-paper)"
+          stroke="var(--color-rule)"
+        />
         {niceTicks(x0, x1).map((t) => (
           <g key={`x${t}`}>
             <line x1={sx(t)} x2={sx(t)} y1={PAD.top} y2={H - PAD.bottom} stroke="var(--color-rule)" strokeWidth={0.5} />
-            <text x={sx(t)} y={H - PAD.bottom + 16} textAnchor="middle" fontSize={11} fill="var(--color-ink-soft)">{xFormat(t)}</text>
+            <text x={sx(t)} y={H - PAD.bottom + 16} textAnchor="middle" fontSize={11} fill="var(--color-ink-soft)">
+              {xFormat(t)}
+            </text>
           </g>
         ))}
         {niceTicks(y0, y1).map((t) => (
           <g key={`y${t}`}>
             <line x1={PAD.left} x2={W - PAD.right} y1={sy(t)} y2={sy(t)} stroke="var(--color-rule)" strokeWidth={0.5} />
-            <text x={PAD.left - 6} y={sy(t) + 4} textAnchor="end" fontSize={11} fill="var(--color-ink-soft)">{yFormat(t)}</text>
+            <text x={PAD.left - 6} y={sy(t) + 4} textAnchor="end" fontSize={11} fill="var(--color-ink-soft)">
+              {yFormat(t)}
+            </text>
           </g>
         ))}
-        <text x={(PAD.left + W - PAD.right) / 2} y={H - 6} textAnchor="middle" fontSize={12} fill="var(--color-ink)">{xLabel}</text>
-        <text x={14} y={(PAD.top + H - PAD.bottom) / 2} textAnchor="middle" fontSize={12} fill="var(--color-ink)" transform={`rotate(-90 14 ${(PAD.top + H - PAD.bottom) / 2})`}>{yLabel}</text>
+        <text x={(PAD.left + W - PAD.right) / 2} y={H - 6} textAnchor="middle" fontSize={12} fill="var(--color-ink)">
+          {xLabel}
+        </text>
+        <text
+          x={14}
+          y={(PAD.top + H - PAD.bottom) / 2}
+          textAnchor="middle"
+          fontSize={12}
+          fill="var(--color-ink)"
+          transform={`rotate(-90 14 ${(PAD.top + H - PAD.bottom) / 2})`}
+        >
+          {yLabel}
+        </text>
         {series.map((s) =>
           s.kind === "line" ? (
-            <polyline key={s.label} fill="none" stroke={s.color ?? "var(--color-ink)"} strokeWidth={2} strokeDasharray={s.dash ? "6 4" : undefined} points={s.points.map(([x, y]) => `${sx(x).toFixed(1)},${sy(y).toFixed(1)}`).join(" ")} />
+            <polyline
+              key={s.label}
+              fill="none"
+              stroke={s.color ?? "var(--color-ink)"}
+              strokeWidth={2}
+              strokeDasharray={s.dash ? "6 4" : undefined}
+              points={s.points.map(([x, y]) => `${sx(x).toFixed(1)},${sy(y).toFixed(1)}`).join(" ")}
+            />
           ) : (
             <g key={s.label} fill={s.color ?? "var(--color-ink)"} fillOpacity={0.7}>
               {s.points.map(([x, y], i) => (
@@ -147,9 +194,13 @@ export function ScatterChart({ title, xLabel, yLabel, series, markers = [], heig
               data-marker={m.id}
             >
               <line x1={x} x2={x} y1={PAD.top} y2={H - PAD.bottom} stroke={m.color} strokeWidth={2.5} />
-              {interactive ? <rect x={x - 10} y={PAD.top} width={20} height={H - PAD.top - PAD.bottom} fill="transparent" /> : null}
+              {interactive ? (
+                <rect x={x - 10} y={PAD.top} width={20} height={H - PAD.top - PAD.bottom} fill="transparent" />
+              ) : null}
               <rect x={x - 22} y={PAD.top + 2} width={44} height={18} rx={4} fill={m.color} />
-              <text x={x} y={PAD.top + 15} textAnchor="middle" fontSize={11} fontWeight={700} fill="#fff">{m.label}</text>
+              <text x={x} y={PAD.top + 15} textAnchor="middle" fontSize={11} fontWeight={700} fill="#fff">
+                {m.label}
+              </text>
             </g>
           );
         })}
@@ -157,7 +208,11 @@ export function ScatterChart({ title, xLabel, yLabel, series, markers = [], heig
       <ul className="mt-1 flex flex-wrap gap-x-4 text-xs text-ink-soft">
         {series.map((s) => (
           <li key={s.label} className="flex items-center gap-1">
-            <span aria-hidden className="inline-block h-2 w-3 rounded-sm" style={{ background: s.color ?? "var(--color-ink)" }} />
+            <span
+              aria-hidden
+              className="inline-block h-2 w-3 rounded-sm"
+              style={{ background: s.color ?? "var(--color-ink)" }}
+            />
             {s.label}
           </li>
         ))}

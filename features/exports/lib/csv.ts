@@ -8,7 +8,10 @@ import Papa from "papaparse";
 export type Cell = string | number | boolean | null | undefined;
 
 export function toCsv(header: string[], rows: Cell[][]): string {
-  return Papa.unparse({ fields: header, data: rows.map((r) => r.map((c) => (c === null || c === undefined ? "" : c))) }, { escapeFormulae: true, newline: "\r\n" });
+  return Papa.unparse(
+    { fields: header, data: rows.map((r) => r.map((c) => (c === null || c === undefined ? "" : c))) },
+    { escapeFormulae: true, newline: "\r\n" },
+  );
 }
 
 const r1 = (v: number | null | undefined) => (v === null || v === undefined ? null : Math.round(v * 10) / 10);
@@ -26,8 +29,34 @@ export interface PlanRow {
 
 export function planCsv(rows: PlanRow[]): string {
   return toCsv(
-    ["date", "title", "sport", "kind", "planned_min", "zone1_min", "zone2_min", "zone3_min", "notes", "logged", "done_min", "rpe"],
-    rows.map((s) => [s.date, s.title, s.sport, s.kind, r1(s.totalS / 60), r1(s.minutesByZone[0]), r1(s.minutesByZone[1]), r1(s.minutesByZone[2]), s.notes, s.log?.status ?? "", r1(s.log?.durationMin), s.log?.rpe ?? null]),
+    [
+      "date",
+      "title",
+      "sport",
+      "kind",
+      "planned_min",
+      "zone1_min",
+      "zone2_min",
+      "zone3_min",
+      "notes",
+      "logged",
+      "done_min",
+      "rpe",
+    ],
+    rows.map((s) => [
+      s.date,
+      s.title,
+      s.sport,
+      s.kind,
+      r1(s.totalS / 60),
+      r1(s.minutesByZone[0]),
+      r1(s.minutesByZone[1]),
+      r1(s.minutesByZone[2]),
+      s.notes,
+      s.log?.status ?? "",
+      r1(s.log?.durationMin),
+      s.log?.rpe ?? null,
+    ]),
   );
 }
 
@@ -51,8 +80,44 @@ export interface LogRowOut {
 
 export function logsCsv(rows: LogRowOut[]): string {
   return toCsv(
-    ["date", "title", "sport", "status", "duration_min", "distance_km", "rpe", "zone1_min", "zone2_min", "zone3_min", "hr_avg_bpm", "power_avg_w", "speed_avg_kmh", "trimp", "trimp_method", "notes", "skip_reason"],
-    rows.map((l) => [l.date, l.title, l.sport, l.status, r1(l.durationMin), l.distanceKm, l.rpe, r1(l.measuredMinByZone?.[0]), r1(l.measuredMinByZone?.[1]), r1(l.measuredMinByZone?.[2]), r1(l.hrAvgBpm), r1(l.powerAvgW), r1(l.speedAvgKmh), r1(l.trimp), l.trimpMethod, l.notes, l.skipReason]),
+    [
+      "date",
+      "title",
+      "sport",
+      "status",
+      "duration_min",
+      "distance_km",
+      "rpe",
+      "zone1_min",
+      "zone2_min",
+      "zone3_min",
+      "hr_avg_bpm",
+      "power_avg_w",
+      "speed_avg_kmh",
+      "trimp",
+      "trimp_method",
+      "notes",
+      "skip_reason",
+    ],
+    rows.map((l) => [
+      l.date,
+      l.title,
+      l.sport,
+      l.status,
+      r1(l.durationMin),
+      l.distanceKm,
+      l.rpe,
+      r1(l.measuredMinByZone?.[0]),
+      r1(l.measuredMinByZone?.[1]),
+      r1(l.measuredMinByZone?.[2]),
+      r1(l.hrAvgBpm),
+      r1(l.powerAvgW),
+      r1(l.speedAvgKmh),
+      r1(l.trimp),
+      l.trimpMethod,
+      l.notes,
+      l.skipReason,
+    ]),
   );
 }
 
@@ -66,7 +131,27 @@ export interface ZoneRowOut {
 
 export function zonesCsv(rows: ZoneRowOut[]): string {
   return toCsv(
-    ["sport", "effective_from", "source", "vt1_hr_bpm", "vt1_power_w", "vt1_speed_kmh", "vt2_hr_bpm", "vt2_power_w", "vt2_speed_kmh"],
-    rows.map((z) => [z.sport, z.effectiveFrom, z.source, z.vt1.hrBpm, z.vt1.powerW, r1(z.vt1.speedKmh), z.vt2.hrBpm, z.vt2.powerW, r1(z.vt2.speedKmh)]),
+    [
+      "sport",
+      "effective_from",
+      "source",
+      "vt1_hr_bpm",
+      "vt1_power_w",
+      "vt1_speed_kmh",
+      "vt2_hr_bpm",
+      "vt2_power_w",
+      "vt2_speed_kmh",
+    ],
+    rows.map((z) => [
+      z.sport,
+      z.effectiveFrom,
+      z.source,
+      z.vt1.hrBpm,
+      z.vt1.powerW,
+      r1(z.vt1.speedKmh),
+      z.vt2.hrBpm,
+      z.vt2.powerW,
+      r1(z.vt2.speedKmh),
+    ]),
   );
 }

@@ -9,8 +9,16 @@ export type Speech = (typeof SPEECH)[number];
 
 export const talkStageSchema = z.object({
   workload: z.number({ error: "Enter the workload as a number." }).positive("The workload must be above 0."),
-  durationS: z.number({ error: "Enter the stage duration in seconds." }).int().min(30, "A stage lasts at least 30 s.").max(1800, "A stage lasts at most 30 min."),
-  hrBpm: z.number({ error: "Enter the heart rate in bpm." }).int().min(40, "Heart rate must be at least 40 bpm.").max(240, "Heart rate must be at most 240 bpm."),
+  durationS: z
+    .number({ error: "Enter the stage duration in seconds." })
+    .int()
+    .min(30, "A stage lasts at least 30 s.")
+    .max(1800, "A stage lasts at most 30 min."),
+  hrBpm: z
+    .number({ error: "Enter the heart rate in bpm." })
+    .int()
+    .min(40, "Heart rate must be at least 40 bpm.")
+    .max(240, "Heart rate must be at most 240 bpm."),
   speech: z.enum(SPEECH, { error: "Choose how speaking felt." }),
 });
 
@@ -43,7 +51,10 @@ export function analyzeTalkTest(input: TalkTestInput): TalkTestResult {
   const { stages, workloadUnit } = input;
   const warnings: string[] = [];
   const short = stages.filter((s) => s.durationS < STEADY_STATE_S - 10).length;
-  if (short) warnings.push(`${short} stage(s) were shorter than about 3 minutes: heart rate had not caught up with the workload, so the heart rate at each threshold is probably too low and the workload (speed or power) at each threshold too high.`);
+  if (short)
+    warnings.push(
+      `${short} stage(s) were shorter than about 3 minutes: heart rate had not caught up with the workload, so the heart rate at each threshold is probably too low and the workload (speed or power) at each threshold too high.`,
+    );
   for (let i = 1; i < stages.length; i++) {
     if (stages[i]!.workload <= stages[i - 1]!.workload) {
       warnings.push(`Stage ${i + 1} is not harder than stage ${i}: talk-test stages should rise steadily.`);
@@ -57,18 +68,29 @@ export function analyzeTalkTest(input: TalkTestInput): TalkTestResult {
       break;
     }
   }
-  const at = (i: number): TalkThreshold => ({ stage: i + 1, workload: stages[i]!.workload, workloadUnit, hrBpm: stages[i]!.hrBpm });
+  const at = (i: number): TalkThreshold => ({
+    stage: i + 1,
+    workload: stages[i]!.workload,
+    workloadUnit,
+    hrBpm: stages[i]!.hrBpm,
+  });
   const i1 = stages.findIndex((s) => s.speech !== "comfortable");
   const i2 = stages.findIndex((s) => s.speech === "cannot_speak");
-  let vt1: TalkThreshold | null = null, vt2: TalkThreshold | null = null;
-  let vt1Reason: string | null = null, vt2Reason: string | null = null;
-  if (i1 === -1) vt1Reason = "Speech stayed comfortable in every stage: VT1 lies above the last stage. Add harder stages.";
-  else if (i1 === 0) vt1Reason = "Speech was already not comfortable in the first stage: VT1 lies below it. Start easier.";
+  let vt1: TalkThreshold | null = null,
+    vt2: TalkThreshold | null = null;
+  let vt1Reason: string | null = null,
+    vt2Reason: string | null = null;
+  if (i1 === -1)
+    vt1Reason = "Speech stayed comfortable in every stage: VT1 lies above the last stage. Add harder stages.";
+  else if (i1 === 0)
+    vt1Reason = "Speech was already not comfortable in the first stage: VT1 lies below it. Start easier.";
   else vt1 = at(i1);
   if (i2 === -1) vt2Reason = "The athlete could still speak in the last stage: VT2 was not reached.";
   else if (i2 === i1 && i1 >= 0) {
     vt2 = at(i2);
-    warnings.push("Speech went from comfortable straight to impossible in one stage: use smaller steps to separate VT1 and VT2.");
+    warnings.push(
+      "Speech went from comfortable straight to impossible in one stage: use smaller steps to separate VT1 and VT2.",
+    );
   } else vt2 = at(i2);
   return { vt1, vt1Reason, vt2, vt2Reason, warnings };
 }

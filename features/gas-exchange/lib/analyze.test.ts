@@ -28,7 +28,9 @@ describe("threshold detection on synthetic ramp tests", () => {
   });
 
   it("recovers VT1, VT2 and peak VO2 within tolerance on a large majority", () => {
-    let vt1 = 0, vt2 = 0, peak = 0;
+    let vt1 = 0,
+      vt2 = 0,
+      peak = 0;
     for (const { truth, a } of results) {
       if (!a.ok) continue;
       if (a.vt1 && Math.abs(a.vt1.vo2MlMin / truth.vt1Vo2MlMin - 1) <= 0.1) vt1++;

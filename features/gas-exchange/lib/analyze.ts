@@ -9,8 +9,23 @@
  * A threshold that cannot be found is null with a reason, never a made-up number.
  */
 import { fitHinge, fitLine, type HingeFit } from "./breakpoint";
-import { average, DEFAULT_AVERAGING, highestWindowMean, removeAberrantBreaths, type Averaging, type CleanOptions } from "./clean";
-import { readGasExchangeCsv, treadmillDemand, type Breath, type ColumnMapping, type DetectedColumn, type Channel, type UnitChoices } from "./csv";
+import {
+  average,
+  DEFAULT_AVERAGING,
+  highestWindowMean,
+  removeAberrantBreaths,
+  type Averaging,
+  type CleanOptions,
+} from "./clean";
+import {
+  readGasExchangeCsv,
+  treadmillDemand,
+  type Breath,
+  type ColumnMapping,
+  type DetectedColumn,
+  type Channel,
+  type UnitChoices,
+} from "./csv";
 
 export type MethodName = "v-slope" | "ventilatory-equivalents" | "ve-vco2-slope" | "ve-vco2-ratio";
 
@@ -127,14 +142,18 @@ function workload(b: Breath): number | null {
 
 function runningMedianOf(values: number[], half: number): number[] {
   return values.map((_, i) => {
-    const w = values.slice(Math.max(0, i - half), i + half + 1).filter(Number.isFinite).sort((a, b) => a - b);
+    const w = values
+      .slice(Math.max(0, i - half), i + half + 1)
+      .filter(Number.isFinite)
+      .sort((a, b) => a - b);
     return w.length ? w[w.length >> 1]! : NaN;
   });
 }
 
 /** Mean of a field over points within ±halfS of t, or null. */
 function localMean(points: Breath[], t: number, halfS: number, f: (b: Breath) => number | null): number | null {
-  let s = 0, c = 0;
+  let s = 0,
+    c = 0;
   for (const p of points) {
     if (Math.abs(p.timeS - t) <= halfS) {
       const v = f(p);
@@ -153,7 +172,11 @@ function localMean(points: Breath[], t: number, halfS: number, f: (b: Breath) =>
  */
 function localLinear(points: Breath[], halfS: number, f: (b: Breath) => number): number[] {
   return points.map((p) => {
-    let n = 0, st = 0, sv = 0, stt = 0, stv = 0;
+    let n = 0,
+      st = 0,
+      sv = 0,
+      stt = 0,
+      stv = 0;
     for (const q of points) {
       const d = q.timeS - p.timeS;
       if (d < -halfS) continue;
@@ -178,7 +201,10 @@ function nearest(points: Breath[], t: number): Breath {
 function timeAtValue(points: Breath[], value: number, f: (b: Breath) => number): number {
   let near = points.filter((p) => Math.abs(f(p) - value) <= 0.03 * value).map((p) => p.timeS);
   if (near.length === 0) {
-    const closest = points.reduce((best, p) => (Math.abs(f(p) - value) < Math.abs(f(best) - value) ? p : best), points[0]!);
+    const closest = points.reduce(
+      (best, p) => (Math.abs(f(p) - value) < Math.abs(f(best) - value) ? p : best),
+      points[0]!,
+    );
     near = [closest.timeS];
   }
   near.sort((a, b) => a - b);
@@ -194,19 +220,22 @@ function timeAtValue(points: Breath[], value: number, f: (b: Breath) => number):
  */
 function findSegment(points: Breath[], peakEndS: number): { onsetS: number; endS: number; source: "workload" | "vo2" } {
   const hasLoad = points.filter((p) => workload(p) !== null).length > points.length * 0.5;
-  const raw = points.map((p) => (hasLoad ? workload(p) ?? NaN : p.vo2MlMin));
+  const raw = points.map((p) => (hasLoad ? (workload(p) ?? NaN) : p.vo2MlMin));
   const load = runningMedianOf(raw, 3);
   const finite = load.filter(Number.isFinite);
   if (finite.length < 3) return { onsetS: points[0]!.timeS, endS: peakEndS, source: hasLoad ? "workload" : "vo2" };
-  const maxLoad = Math.max(...finite), minLoad = Math.min(...finite);
+  const maxLoad = Math.max(...finite),
+    minLoad = Math.min(...finite);
   // A measured workload (a rowing ergometer's stroke power) is noisy: the tolerance is also three times its typical
   // point-to-point change after smoothing.
   const diffs: number[] = [];
-  for (let i = 1; i < load.length; i++) if (Number.isFinite(load[i]!) && Number.isFinite(load[i - 1]!)) diffs.push(Math.abs(load[i]! - load[i - 1]!));
+  for (let i = 1; i < load.length; i++)
+    if (Number.isFinite(load[i]!) && Number.isFinite(load[i - 1]!)) diffs.push(Math.abs(load[i]! - load[i - 1]!));
   diffs.sort((x, y) => x - y);
   const jitter = diffs.length ? diffs[diffs.length >> 1]! : 0;
   const rawDiffs: number[] = [];
-  for (let i = 1; i < raw.length; i++) if (Number.isFinite(raw[i]!) && Number.isFinite(raw[i - 1]!)) rawDiffs.push(Math.abs(raw[i]! - raw[i - 1]!));
+  for (let i = 1; i < raw.length; i++)
+    if (Number.isFinite(raw[i]!) && Number.isFinite(raw[i - 1]!)) rawDiffs.push(Math.abs(raw[i]! - raw[i - 1]!));
   rawDiffs.sort((x, y) => x - y);
   const rawJitter = rawDiffs.length ? rawDiffs[rawDiffs.length >> 1]! : 0;
   const tol = Math.max(1e-9, (hasLoad ? 0.03 : 0.06) * (maxLoad - minLoad), 3 * jitter, rawJitter);
@@ -218,7 +247,9 @@ function findSegment(points: Breath[], peakEndS: number): { onsetS: number; endS
     // VO2 peaks at the end of exercise; the first point at the peak level ends the rise.
     endIdx = load.findIndex((l) => l >= maxLoad - 0.03 * (maxLoad - minLoad));
   }
-  const endS = hasLoad ? Math.max(points[endIdx]!.timeS, Math.min(peakEndS, points[endIdx]!.timeS + 30)) : Math.max(points[endIdx]!.timeS, peakEndS);
+  const endS = hasLoad
+    ? Math.max(points[endIdx]!.timeS, Math.min(peakEndS, points[endIdx]!.timeS + 30))
+    : Math.max(points[endIdx]!.timeS, peakEndS);
   // Steps going back in time.
   const steps: number[] = [];
   let level = load[endIdx]!;
@@ -268,8 +299,16 @@ function describeAt(points: Breath[], t: number, bodyMassKg: number | null | und
   const vco2 = localMean(points, t, 15, (p) => p.vco2MlMin) ?? nearest(points, t).vco2MlMin;
   const r = (v: number | null, d = 0) => (v === null ? null : round(v, d));
   const power = (at: number) => r(localMean(points, at, 15, (p) => p.powerW));
-  const speed = (at: number) => r(localMean(points, at, 15, (p) => p.speedKmh), 1);
-  const grade = (at: number) => r(localMean(points, at, 15, (p) => p.gradePct ?? null), 1);
+  const speed = (at: number) =>
+    r(
+      localMean(points, at, 15, (p) => p.speedKmh),
+      1,
+    );
+  const grade = (at: number) =>
+    r(
+      localMean(points, at, 15, (p) => p.gradePct ?? null),
+      1,
+    );
   const earlier = Math.max(points[0]?.timeS ?? 0, t - mrtS);
   return {
     vo2MlMin: round(vo2),
@@ -288,34 +327,70 @@ function describeAt(points: Breath[], t: number, bodyMassKg: number | null | und
 }
 
 /** VT2: breakpoint of VE against VCO2 (slope must rise), cross-checked with the rise of VE/VCO2 over time. */
-function detectVt2(points: Breath[], bodyMassKg: number | null | undefined, mrtS: number): { vt2: Threshold | null; reason: string | null } {
+function detectVt2(
+  points: Breath[],
+  bodyMassKg: number | null | undefined,
+  mrtS: number,
+): { vt2: Threshold | null; reason: string | null } {
   const xs = points.map((p) => p.vco2MlMin);
   const ys = points.map((p) => p.veLMin);
-  const lo = Math.min(...xs), hi = Math.max(...xs);
+  const lo = Math.min(...xs),
+    hi = Math.max(...xs);
   const fit = fitHinge(xs, ys, { minSegment: 4, range: [lo + 0.4 * (hi - lo), lo + 0.97 * (hi - lo)] });
   if (!fit) return { vt2: null, reason: "VT2 not found: too few points above the lower part of the test." };
   const ratio = fit.slopeBefore > 0 ? fit.slopeAfter / fit.slopeBefore : 0;
   if (ratio < 1.15 || fit.gain < 0.1) {
-    return { vt2: null, reason: "VT2 not found: VE rises in proportion to VCO2 to the end (no respiratory compensation point; the test may have stopped before it)." };
+    return {
+      vt2: null,
+      reason:
+        "VT2 not found: VE rises in proportion to VCO2 to the end (no respiratory compensation point; the test may have stopped before it).",
+    };
   }
   const t = timeAtValue(points, fit.x0, (p) => p.vco2MlMin);
   const at = describeAt(points, t, bodyMassKg, mrtS);
   // Cross-check: VE/VCO2 over time, breakpoint where it starts to rise.
-  const upper = points.filter((p) => p.timeS >= points[0]!.timeS + 0.3 * (points[points.length - 1]!.timeS - points[0]!.timeS));
-  const eq = fitHinge(upper.map((p) => p.timeS), upper.map((p) => p.veLMin / p.vco2MlMin * 1000), { minSegment: 4 });
+  const upper = points.filter(
+    (p) => p.timeS >= points[0]!.timeS + 0.3 * (points[points.length - 1]!.timeS - points[0]!.timeS),
+  );
+  const eq = fitHinge(
+    upper.map((p) => p.timeS),
+    upper.map((p) => (p.veLMin / p.vco2MlMin) * 1000),
+    { minSegment: 4 },
+  );
   const results: MethodResult[] = [
-    { method: "ve-vco2-slope", found: true, vo2MlMin: at.vo2MlMin, timeS: at.timeS, note: `VE/VCO2 slope ${round(fit.slopeBefore * 1000, 1)} → ${round(fit.slopeAfter * 1000, 1)}` },
+    {
+      method: "ve-vco2-slope",
+      found: true,
+      vo2MlMin: at.vo2MlMin,
+      timeS: at.timeS,
+      note: `VE/VCO2 slope ${round(fit.slopeBefore * 1000, 1)} → ${round(fit.slopeAfter * 1000, 1)}`,
+    },
   ];
   let agreement: Threshold["agreement"] = null;
   const warnings: string[] = [];
   if (eq && eq.slopeAfter > 0 && eq.slopeAfter > eq.slopeBefore + 1e-4) {
     const eqVo2 = round(localMean(points, eq.x0, 15, (p) => p.vo2MlMin)!);
-    results.push({ method: "ve-vco2-ratio", found: true, vo2MlMin: eqVo2, timeS: round(eq.x0), note: "VE/VCO2 starts to rise" });
+    results.push({
+      method: "ve-vco2-ratio",
+      found: true,
+      vo2MlMin: eqVo2,
+      timeS: round(eq.x0),
+      note: "VE/VCO2 starts to rise",
+    });
     const diff = Math.abs(eqVo2 - at.vo2MlMin);
     agreement = { differenceMlMin: round(diff), differencePct: round((100 * diff) / at.vo2MlMin, 1) };
-    if (agreement.differencePct > 10) warnings.push(`The two VT2 methods differ by ${agreement.differenceMlMin} mL/min (${agreement.differencePct} %); check the curves.`);
+    if (agreement.differencePct > 10)
+      warnings.push(
+        `The two VT2 methods differ by ${agreement.differenceMlMin} mL/min (${agreement.differencePct} %); check the curves.`,
+      );
   } else {
-    results.push({ method: "ve-vco2-ratio", found: false, vo2MlMin: null, timeS: null, note: "no clear rise of VE/VCO2" });
+    results.push({
+      method: "ve-vco2-ratio",
+      found: false,
+      vo2MlMin: null,
+      timeS: null,
+      note: "no clear rise of VE/VCO2",
+    });
     warnings.push("VE/VCO2 shows no clear rise; VT2 rests on the VE–VCO2 slope alone.");
   }
   const confidence = confidenceOf(fit, ratio, agreement?.differencePct ?? null);
@@ -347,9 +422,18 @@ const VT1_ONSET_S = 60;
 /** Half-width of the time window over which VO2 is smoothed for the V-slope axis. */
 const SMOOTH_HALF_S = 45;
 
-function detectVt1(points: Breath[], vt2: Threshold | null, bodyMassKg: number | null | undefined, mrtS: number, minPoints = MIN_POINTS): { vt1: Threshold | null; reason: string | null } {
-  const all = (vt2 ? points.filter((p) => p.timeS < vt2.timeS) : points).filter((p) => p.timeS >= points[0]!.timeS + VT1_ONSET_S);
-  if (all.length < minPoints / 2) return { vt1: null, reason: "VT1 not found: too few points below the respiratory compensation point." };
+function detectVt1(
+  points: Breath[],
+  vt2: Threshold | null,
+  bodyMassKg: number | null | undefined,
+  mrtS: number,
+  minPoints = MIN_POINTS,
+): { vt1: Threshold | null; reason: string | null } {
+  const all = (vt2 ? points.filter((p) => p.timeS < vt2.timeS) : points).filter(
+    (p) => p.timeS >= points[0]!.timeS + VT1_ONSET_S,
+  );
+  if (all.length < minPoints / 2)
+    return { vt1: null, reason: "VT1 not found: too few points below the respiratory compensation point." };
   let fit: HingeFit | null = null;
   let below = all;
   let axis: number[] = [];
@@ -364,7 +448,8 @@ function detectVt1(points: Breath[], vt2: Threshold | null, bodyMassKg: number |
     axis = localLinear(below, SMOOTH_HALF_S, (p) => p.vo2MlMin);
     const xs = axis;
     const ys = below.map((p, i) => (p.vco2MlMin / p.vo2MlMin) * xs[i]!);
-    const lo = Math.min(...xs), hi = Math.max(...xs);
+    const lo = Math.min(...xs),
+      hi = Math.max(...xs);
     const f = fitHinge(xs, ys, { minSegment: 4, range: [lo + 0.1 * (hi - lo), lo + 0.9 * (hi - lo)] });
     if (!f) break;
     if (f.slopeAfter <= 1 || f.slopeAfter - f.slopeBefore < 0.1 || f.gain < 0.1) {
@@ -384,39 +469,87 @@ function detectVt1(points: Breath[], vt2: Threshold | null, bodyMassKg: number |
   const vslopeVo2 = fit.x0;
   const vslopeT = timeAtValue(below, vslopeVo2, (p) => p.vo2MlMin);
   const results: MethodResult[] = [
-    { method: "v-slope", found: true, vo2MlMin: round(vslopeVo2), timeS: round(vslopeT), note: `VCO2/VO2 slope ${round(fit.slopeBefore, 2)} → ${round(fit.slopeAfter, 2)}` },
+    {
+      method: "v-slope",
+      found: true,
+      vo2MlMin: round(vslopeVo2),
+      timeS: round(vslopeT),
+      note: `VCO2/VO2 slope ${round(fit.slopeBefore, 2)} → ${round(fit.slopeAfter, 2)}`,
+    },
   ];
   const warnings: string[] = [];
   let agreement: Threshold["agreement"] = null;
   // Ventilatory equivalents: VE/VO2 starts to rise (VE against VO2 on the same axis, with its own breakpoint) while
   // VE/VCO2 stays flat. VE is measured apart from VCO2, so its noise is its own: when the two agree, their mean is reported
   // (combining methods is more accurate than either alone: Gaskill et al. 2001, Med Sci Sports Exerc 33:1841–1848).
-  const lo = Math.min(...axis), hi = Math.max(...axis);
-  const eqO2 = fitHinge(axis, below.map((p, i) => (p.veLMin / p.vo2MlMin) * axis[i]!), { minSegment: 4, range: [lo + 0.1 * (hi - lo), lo + 0.9 * (hi - lo)] });
+  const lo = Math.min(...axis),
+    hi = Math.max(...axis);
+  const eqO2 = fitHinge(
+    axis,
+    below.map((p, i) => (p.veLMin / p.vo2MlMin) * axis[i]!),
+    { minSegment: 4, range: [lo + 0.1 * (hi - lo), lo + 0.9 * (hi - lo)] },
+  );
   let eqFound = false;
   let reported = vslopeVo2;
   if (eqO2 && eqO2.slopeAfter > 1.1 * eqO2.slopeBefore && eqO2.gain >= 0.1) {
     const after = below.filter((_, i) => axis[i]! >= eqO2.x0);
     const afterAxis = axis.filter((x) => x >= eqO2.x0);
     // VE/VCO2 should stay flat above it: its relative rise must be well below that of VE/VO2.
-    const co2 = after.length >= 4 ? fitLine(afterAxis, after.map((p) => (p.veLMin / p.vco2MlMin) * 1000)) : null;
-    const o2 = after.length >= 4 ? fitLine(afterAxis, after.map((p) => (p.veLMin / p.vo2MlMin) * 1000)) : null;
+    const co2 =
+      after.length >= 4
+        ? fitLine(
+            afterAxis,
+            after.map((p) => (p.veLMin / p.vco2MlMin) * 1000),
+          )
+        : null;
+    const o2 =
+      after.length >= 4
+        ? fitLine(
+            afterAxis,
+            after.map((p) => (p.veLMin / p.vo2MlMin) * 1000),
+          )
+        : null;
     const meanOf = (v: number[]) => v.reduce((a, b) => a + b, 0) / v.length;
     const rel = (l: { slope: number } | null, v: number[]) => (l ? l.slope / meanOf(v) : 0);
-    const co2Rise = co2 ? rel(co2, after.map((p) => (p.veLMin / p.vco2MlMin) * 1000)) : 0;
-    const o2Rise = o2 ? rel(o2, after.map((p) => (p.veLMin / p.vo2MlMin) * 1000)) : 0;
+    const co2Rise = co2
+      ? rel(
+          co2,
+          after.map((p) => (p.veLMin / p.vco2MlMin) * 1000),
+        )
+      : 0;
+    const o2Rise = o2
+      ? rel(
+          o2,
+          after.map((p) => (p.veLMin / p.vo2MlMin) * 1000),
+        )
+      : 0;
     if (o2Rise > 0 && co2Rise < 0.5 * o2Rise) {
       eqFound = true;
       const eqT = timeAtValue(below, eqO2.x0, (p) => p.vo2MlMin);
-      results.push({ method: "ventilatory-equivalents", found: true, vo2MlMin: round(eqO2.x0), timeS: round(eqT), note: "VE/VO2 rises while VE/VCO2 stays flat" });
+      results.push({
+        method: "ventilatory-equivalents",
+        found: true,
+        vo2MlMin: round(eqO2.x0),
+        timeS: round(eqT),
+        note: "VE/VO2 rises while VE/VCO2 stays flat",
+      });
       const diff = Math.abs(eqO2.x0 - vslopeVo2);
       agreement = { differenceMlMin: round(diff), differencePct: round((100 * diff) / vslopeVo2, 1) };
-      if (agreement.differencePct > 10) warnings.push(`V-slope and the ventilatory equivalents differ by ${agreement.differenceMlMin} mL/min (${agreement.differencePct} %); VT1 is the V-slope value. Check the curves.`);
+      if (agreement.differencePct > 10)
+        warnings.push(
+          `V-slope and the ventilatory equivalents differ by ${agreement.differenceMlMin} mL/min (${agreement.differencePct} %); VT1 is the V-slope value. Check the curves.`,
+        );
       else reported = (vslopeVo2 + eqO2.x0) / 2;
     }
   }
   if (!eqFound) {
-    results.push({ method: "ventilatory-equivalents", found: false, vo2MlMin: null, timeS: null, note: "no rise of VE/VO2 with a flat VE/VCO2" });
+    results.push({
+      method: "ventilatory-equivalents",
+      found: false,
+      vo2MlMin: null,
+      timeS: null,
+      note: "no rise of VE/VO2 with a flat VE/VCO2",
+    });
     warnings.push("The ventilatory equivalents do not confirm VT1; it rests on the V-slope alone.");
   }
   const t = timeAtValue(below, reported, (p) => p.vo2MlMin);
@@ -445,11 +578,21 @@ export function analyzeBreaths(breaths: Breath[], opts: AnalysisOptions = {}): A
   const preAveraged = !opts.averaging && steps.length > 10 && steps[steps.length >> 1]! >= 8;
   const { kept, removed } = preAveraged ? { kept: breaths, removed: 0 } : removeAberrantBreaths(breaths, opts.cleaning);
   if (removed > 0) warnings.push(`${removed} aberrant breath(s) removed (coughs, swallows or sighs).`);
-  if (preAveraged) warnings.push(`The rows are already averaged (every ${round(steps[steps.length >> 1]!)} s): used as they are.`);
+  if (preAveraged)
+    warnings.push(`The rows are already averaged (every ${round(steps[steps.length >> 1]!)} s): used as they are.`);
   const averaged = preAveraged ? kept : average(kept, opts.averaging ?? DEFAULT_AVERAGING);
   const peakWindow = highestWindowMean(kept, "vo2MlMin", 30);
   const mass = opts.bodyMassKg ?? null;
-  const emptyPeak: Peak = { vo2MlMin: 0, vo2MlKgMin: null, hrBpm: null, rer: null, powerW: null, speedKmh: null, gradePct: null, plateau: false };
+  const emptyPeak: Peak = {
+    vo2MlMin: 0,
+    vo2MlKgMin: null,
+    hrBpm: null,
+    rer: null,
+    powerW: null,
+    speedKmh: null,
+    gradePct: null,
+    plateau: false,
+  };
   const base: Omit<Analysis, "vt1" | "vt2" | "vt1Reason" | "vt2Reason" | "peak"> = {
     warnings,
     points: averaged,
@@ -472,33 +615,52 @@ export function analyzeBreaths(breaths: Breath[], opts: AnalysisOptions = {}): A
     return { ...base, vt1: null, vt1Reason: reason, vt2: null, vt2Reason: reason, peak };
   }
   const found = findSegment(averaged, peakWindow.endTimeS);
-  const chosenFrom = opts.segment?.fromS ?? null, chosenTo = opts.segment?.toS ?? null;
+  const chosenFrom = opts.segment?.fromS ?? null,
+    chosenTo = opts.segment?.toS ?? null;
   const onsetS = chosenFrom ?? found.onsetS;
   const endS = chosenTo ?? found.endS;
   const segmentSource = chosenFrom !== null || chosenTo !== null ? "chosen" : found.source;
-  if (segmentSource === "vo2") warnings.push("The file has no workload column: the test segment was found from VO2 alone; check its start and end.");
+  if (segmentSource === "vo2")
+    warnings.push(
+      "The file has no workload column: the test segment was found from VO2 alone; check its start and end.",
+    );
   const exercise = averaged.filter((p) => p.timeS >= onsetS && p.timeS <= endS);
   const detection = exercise.filter((p) => p.timeS >= onsetS + KINETICS_LAG_S);
 
   const hrs = exercise.map((p) => p.hrBpm).filter((v): v is number => v !== null);
   // Peak RER: over the same 30 s as peak VO2, not the highest value of the test (an early hyperventilation would win).
   const inPeak = kept.filter((b) => b.timeS > peakWindow.endTimeS - 30 && b.timeS <= peakWindow.endTimeS);
-  const peakRer = inPeak.length ? inPeak.reduce((s, b) => s + b.vco2MlMin, 0) / inPeak.reduce((s, b) => s + b.vo2MlMin, 0) : null;
-  const earlier = highestWindowMean(kept.filter((b) => b.timeS <= peakWindow.endTimeS - 60), "vo2MlMin", 30);
-  const maxOf = (v: (number | null | undefined)[], d = 0) => ((f) => (f.length ? round(Math.max(...f), d) : null))(v.filter((x): x is number => x !== null && x !== undefined));
+  const peakRer = inPeak.length
+    ? inPeak.reduce((s, b) => s + b.vco2MlMin, 0) / inPeak.reduce((s, b) => s + b.vo2MlMin, 0)
+    : null;
+  const earlier = highestWindowMean(
+    kept.filter((b) => b.timeS <= peakWindow.endTimeS - 60),
+    "vo2MlMin",
+    30,
+  );
+  const maxOf = (v: (number | null | undefined)[], d = 0) =>
+    ((f) => (f.length ? round(Math.max(...f), d) : null))(v.filter((x): x is number => x !== null && x !== undefined));
   const peak: Peak = {
     vo2MlMin: round(peakWindow.value),
     vo2MlKgMin: mass ? round(peakWindow.value / mass, 1) : null,
     hrBpm: hrs.length ? round(Math.max(...hrs)) : null,
     rer: peakRer === null ? null : round(peakRer, 2),
     powerW: maxOf(exercise.map((p) => p.powerW)),
-    speedKmh: maxOf(exercise.map((p) => p.speedKmh), 1),
-    gradePct: maxOf(exercise.map((p) => p.gradePct), 1),
+    speedKmh: maxOf(
+      exercise.map((p) => p.speedKmh),
+      1,
+    ),
+    gradePct: maxOf(
+      exercise.map((p) => p.gradePct),
+      1,
+    ),
     // Plateau: less than 150 mL/min rise over the last minute (Taylor, Buskirk & Henschel 1955 criterion).
     plateau: earlier ? peakWindow.value - earlier.value < 150 : false,
   };
   if (peak.rer !== null && peak.rer < 1.05) {
-    warnings.push(`Peak RER ${peak.rer} is below about 1.05: the test was probably not maximal, so VT2 and peak VO2 may be underestimated.`);
+    warnings.push(
+      `Peak RER ${peak.rer} is below about 1.05: the test was probably not maximal, so VT2 and peak VO2 may be underestimated.`,
+    );
   }
   if (detection.length < minPoints) {
     const reason = "Too few points during exercise to find thresholds.";
@@ -518,11 +680,13 @@ export function analyzeBreaths(breaths: Breath[], opts: AnalysisOptions = {}): A
   if (!vt1 && vt1Reason) warnings.push(vt1Reason);
   if (vt1 && peak.vo2MlMin) {
     const pct = (100 * vt1.vo2MlMin) / peak.vo2MlMin;
-    if (pct < 35 || pct > 85) vt1.warnings.push(`VT1 at ${round(pct)} % of peak VO2 is unusual (typically 45–70 %); check the curves.`);
+    if (pct < 35 || pct > 85)
+      vt1.warnings.push(`VT1 at ${round(pct)} % of peak VO2 is unusual (typically 45–70 %); check the curves.`);
   }
   if (vt2 && peak.vo2MlMin) {
     const pct = (100 * vt2.vo2MlMin) / peak.vo2MlMin;
-    if (pct < 55 || pct > 98) vt2.warnings.push(`VT2 at ${round(pct)} % of peak VO2 is unusual (typically 70–90 %); check the curves.`);
+    if (pct < 55 || pct > 98)
+      vt2.warnings.push(`VT2 at ${round(pct)} % of peak VO2 is unusual (typically 70–90 %); check the curves.`);
   }
   return { ...base, onsetS, endS, segmentSource, vt1, vt1Reason, vt2, vt2Reason, peak };
 }

@@ -10,10 +10,12 @@ const rng = mulberry32;
  * candidates are the data points and seven evenly spaced points between each neighbouring pair. */
 function bruteForceHinge(xs: number[], ys: number[], minSeg: number) {
   const idx = xs.map((_, i) => i).sort((a, b) => xs[a]! - xs[b]!);
-  const sx = idx.map((i) => xs[i]!), sy = idx.map((i) => ys[i]!);
+  const sx = idx.map((i) => xs[i]!),
+    sy = idx.map((i) => ys[i]!);
   let best = { rss: Infinity, x0: NaN };
   const candidates: number[] = [];
-  for (let k = minSeg; k <= sx.length - minSeg; k++) for (let s = 0; s < 8; s++) candidates.push(sx[k - 1]! + (s / 8) * (sx[k]! - sx[k - 1]!));
+  for (let k = minSeg; k <= sx.length - minSeg; k++)
+    for (let s = 0; s < 8; s++) candidates.push(sx[k - 1]! + (s / 8) * (sx[k]! - sx[k - 1]!));
   for (const x0 of candidates) {
     // Normal equations built directly from the data.
     const rows = sx.map((x) => [1, x, Math.max(0, x - x0)]);

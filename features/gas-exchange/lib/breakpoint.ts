@@ -28,15 +28,20 @@ export interface LineFit {
 /** Ordinary least squares of y on x. */
 export function fitLine(xs: ArrayLike<number>, ys: ArrayLike<number>): LineFit {
   const n = xs.length;
-  let sx = 0, sy = 0;
+  let sx = 0,
+    sy = 0;
   for (let i = 0; i < n; i++) {
     sx += xs[i]!;
     sy += ys[i]!;
   }
-  const mx = sx / n, my = sy / n;
-  let sxx = 0, sxy = 0, syy = 0;
+  const mx = sx / n,
+    my = sy / n;
+  let sxx = 0,
+    sxy = 0,
+    syy = 0;
   for (let i = 0; i < n; i++) {
-    const dx = xs[i]! - mx, dy = ys[i]! - my;
+    const dx = xs[i]! - mx,
+      dy = ys[i]! - my;
     sxx += dx * dx;
     sxy += dx * dy;
     syy += dy * dy;
@@ -47,8 +52,20 @@ export function fitLine(xs: ArrayLike<number>, ys: ArrayLike<number>): LineFit {
 
 /** Solves the symmetric 3×3 system [[a, b, c], [b, d, e], [c, e, f]]·β = (r0, r1, r2) by Cramer's rule, without
  * allocating (it runs for every candidate breakpoint); null when singular. */
-function solve3(a: number, b: number, c: number, d: number, e: number, f: number, r0: number, r1: number, r2: number): [number, number, number] | null {
-  const m00 = d * f - e * e, m01 = b * f - e * c, m02 = b * e - d * c;
+function solve3(
+  a: number,
+  b: number,
+  c: number,
+  d: number,
+  e: number,
+  f: number,
+  r0: number,
+  r1: number,
+  r2: number,
+): [number, number, number] | null {
+  const m00 = d * f - e * e,
+    m01 = b * f - e * c,
+    m02 = b * e - d * c;
   const det = a * m00 - b * m01 + c * m02;
   if (!Number.isFinite(det) || Math.abs(det) < 1e-12) return null;
   const b0 = r0 * m00 - b * (r1 * f - e * r2) + c * (r1 * e - d * r2);
@@ -75,7 +92,8 @@ export function fitHinge(xsIn: ArrayLike<number>, ysIn: ArrayLike<number>, opts:
   if (n < 2 * minSeg) return null;
   const order = Array.from({ length: n }, (_, i) => i).sort((i, j) => xsIn[i]! - xsIn[j]!);
   // Centre and scale for numerical stability; the fit is invariant to this.
-  let mx = 0, my = 0;
+  let mx = 0,
+    my = 0;
   for (let i = 0; i < n; i++) {
     mx += xsIn[i]!;
     my += ysIn[i]!;
@@ -85,12 +103,17 @@ export function fitHinge(xsIn: ArrayLike<number>, ysIn: ArrayLike<number>, opts:
   let sdx = 0;
   for (let i = 0; i < n; i++) sdx += (xsIn[i]! - mx) ** 2;
   sdx = Math.sqrt(sdx / n) || 1;
-  const x = new Float64Array(n), y = new Float64Array(n);
+  const x = new Float64Array(n),
+    y = new Float64Array(n);
   for (let k = 0; k < n; k++) {
     x[k] = (xsIn[order[k]!]! - mx) / sdx;
     y[k] = ysIn[order[k]!]! - my;
   }
-  let Sx = 0, Sxx = 0, Sy = 0, Sxy = 0, Syy = 0;
+  let Sx = 0,
+    Sxx = 0,
+    Sy = 0,
+    Sxy = 0,
+    Syy = 0;
   for (let k = 0; k < n; k++) {
     Sx += x[k]!;
     Sxx += x[k]! * x[k]!;
@@ -100,8 +123,11 @@ export function fitHinge(xsIn: ArrayLike<number>, ysIn: ArrayLike<number>, opts:
   }
   const line = fitLine(x, y);
   // Suffix sums over k..n-1.
-  const c = new Float64Array(n + 1), s1 = new Float64Array(n + 1), s2 = new Float64Array(n + 1);
-  const sy = new Float64Array(n + 1), sxy = new Float64Array(n + 1);
+  const c = new Float64Array(n + 1),
+    s1 = new Float64Array(n + 1),
+    s2 = new Float64Array(n + 1);
+  const sy = new Float64Array(n + 1),
+    sxy = new Float64Array(n + 1);
   for (let k = n - 1; k >= 0; k--) {
     c[k] = c[k + 1]! + 1;
     s1[k] = s1[k + 1]! + x[k]!;

@@ -22,7 +22,8 @@ export function runningMedian(values: ArrayLike<number>, half: number): Float64A
   const buf = new Float64Array(2 * half + 1);
   let size = 0;
   const position = (v: number) => {
-    let lo = 0, hi = size;
+    let lo = 0,
+      hi = size;
     while (lo < hi) {
       const mid = (lo + hi) >> 1;
       if (buf[mid]! < v) lo = mid + 1;
@@ -30,9 +31,11 @@ export function runningMedian(values: ArrayLike<number>, half: number): Float64A
     }
     return lo;
   };
-  let left = 0, right = -1; // window [left, right]
+  let left = 0,
+    right = -1; // window [left, right]
   for (let i = 0; i < n; i++) {
-    const wantLeft = Math.max(0, i - half), wantRight = Math.min(n - 1, i + half);
+    const wantLeft = Math.max(0, i - half),
+      wantRight = Math.min(n - 1, i + half);
     while (left < wantLeft) {
       const at = position(values[left++]!);
       buf.copyWithin(at, at + 1, size);
@@ -54,10 +57,12 @@ export function runningMedian(values: ArrayLike<number>, half: number): Float64A
 /** Median by quickselect (O(n) on average); reorders `a`. */
 function medianInPlace(a: Float64Array): number {
   const kth = (k: number) => {
-    let lo = 0, hi = a.length - 1;
+    let lo = 0,
+      hi = a.length - 1;
     while (lo < hi) {
       const pivot = a[(lo + hi) >> 1]!;
-      let i = lo, j = hi;
+      let i = lo,
+        j = hi;
       while (i <= j) {
         while (a[i]! < pivot) i++;
         while (a[j]! > pivot) j--;
@@ -85,7 +90,9 @@ export function removeAberrantBreaths(breaths: Breath[], opts: CleanOptions = {}
   const n = breaths.length;
   if (n < 2 * half + 1) return { kept: breaths, removed: 0 };
   const drop = new Uint8Array(n);
-  const v = new Float64Array(n), abs = new Float64Array(n), scratch = new Float64Array(n);
+  const v = new Float64Array(n),
+    abs = new Float64Array(n),
+    scratch = new Float64Array(n);
   for (const key of ["vo2MlMin", "vco2MlMin", "veLMin"] as const) {
     for (let i = 0; i < n; i++) v[i] = breaths[i]![key];
     const med = runningMedian(v, half);
@@ -103,8 +110,20 @@ export type Averaging = { mode: "time"; binS: number } | { mode: "breaths"; coun
 export const DEFAULT_AVERAGING: Averaging = { mode: "time", binS: 15 };
 
 function averageGroup(breaths: Breath[], from: number, to: number): Breath {
-  let t = 0, vo2 = 0, vco2 = 0, ve = 0;
-  let hr = 0, hrN = 0, p = 0, pN = 0, sp = 0, spN = 0, rf = 0, rfN = 0, g = 0, gN = 0;
+  let t = 0,
+    vo2 = 0,
+    vco2 = 0,
+    ve = 0;
+  let hr = 0,
+    hrN = 0,
+    p = 0,
+    pN = 0,
+    sp = 0,
+    spN = 0,
+    rf = 0,
+    rfN = 0,
+    g = 0,
+    gN = 0;
   for (let i = from; i < to; i++) {
     const b = breaths[i]!;
     t += b.timeS;
@@ -172,9 +191,14 @@ export function average(breaths: Breath[], how: Averaging = DEFAULT_AVERAGING): 
 }
 
 /** Highest mean of `key` over any `windowS`-second window (time-based, two pointers, O(n)). */
-export function highestWindowMean(breaths: Breath[], key: "vo2MlMin", windowS: number): { value: number; endTimeS: number } | null {
+export function highestWindowMean(
+  breaths: Breath[],
+  key: "vo2MlMin",
+  windowS: number,
+): { value: number; endTimeS: number } | null {
   let best: { value: number; endTimeS: number } | null = null;
-  let lo = 0, sum = 0;
+  let lo = 0,
+    sum = 0;
   for (let hi = 0; hi < breaths.length; hi++) {
     sum += breaths[hi]![key];
     while (breaths[hi]!.timeS - breaths[lo]!.timeS > windowS) {

@@ -12,7 +12,13 @@ describe("reading gas-exchange CSV files", () => {
   });
 
   it("reads common header variants, semicolons, decimal commas, a BOM and blank lines, and L/min inferred from the values", () => {
-    const { csv } = syntheticRamp({ seed: 2, headers: ["Time", "VO2", "VCO2", "VE", "HR", "Load", "BF"], delimiter: ";", decimalComma: true, litres: true });
+    const { csv } = syntheticRamp({
+      seed: 2,
+      headers: ["Time", "VO2", "VCO2", "VE", "HR", "Load", "BF"],
+      delimiter: ";",
+      decimalComma: true,
+      litres: true,
+    });
     const lines = csv.split("\n");
     lines.splice(5, 0, "", "   ");
     const r = readGasExchangeCsv("\uFEFF" + lines.join("\r\n"));
@@ -46,7 +52,16 @@ describe("reading gas-exchange CSV files", () => {
   });
 
   it("drops non-numeric, negative and impossible rows with warnings instead of crashing", () => {
-    const text = ["time_s,vo2_ml_min,vco2_ml_min,ve_l_min,hr_bpm", "0,1000,900,30,90", "5,abc,900,30,90", "10,-5,900,30,90", "15,1e9,900,30,91", "20,1100,950,31,400", "8,1000,900,30,90", "60,1150,990,33,95"].join("\n");
+    const text = [
+      "time_s,vo2_ml_min,vco2_ml_min,ve_l_min,hr_bpm",
+      "0,1000,900,30,90",
+      "5,abc,900,30,90",
+      "10,-5,900,30,90",
+      "15,1e9,900,30,91",
+      "20,1100,950,31,400",
+      "8,1000,900,30,90",
+      "60,1150,990,33,95",
+    ].join("\n");
     const r = readGasExchangeCsv(text);
     if (!r.ok) throw new Error(r.error);
     expect(r.breaths.map((b) => b.timeS)).toEqual([0, 20, 60]);

@@ -28,7 +28,11 @@ export const UNIT_CHOICES = {
   vo2: ["mL/min", "L/min", "mL/kg/min"],
   speed: ["km/h", "mph", "m/s"],
 } as const;
-export type UnitChoices = { time?: "s" | "min"; vo2?: "mL/min" | "L/min" | "mL/kg/min"; speed?: "km/h" | "mph" | "m/s" };
+export type UnitChoices = {
+  time?: "s" | "min";
+  vo2?: "mL/min" | "L/min" | "mL/kg/min";
+  speed?: "km/h" | "mph" | "m/s";
+};
 
 export interface ReadOptions {
   /** Body mass, to convert a relative VO2 column (mL/kg/min) when it is the only one. */
@@ -60,7 +64,15 @@ export interface DetectedColumn {
 }
 
 export type ReadResult =
-  | { ok: true; breaths: Breath[]; columns: Partial<Record<Channel, DetectedColumn>>; headers: string[]; warnings: string[]; rowsRead: number; bodyMassFromFileKg: number | null }
+  | {
+      ok: true;
+      breaths: Breath[];
+      columns: Partial<Record<Channel, DetectedColumn>>;
+      headers: string[];
+      warnings: string[];
+      rowsRead: number;
+      bodyMassFromFileKg: number | null;
+    }
   | { ok: false; error: string; headers: string[] };
 
 /** Repaired duplicate names ("VO2...4", "vo2.1", "VO2_2") lose their suffix before matching. */
@@ -77,7 +89,21 @@ function normaliseHeader(h: string): string {
 }
 
 const ALIASES: Record<Channel, string[]> = {
-  time: ["times", "time", "t", "ts", "elapsed", "elapsedtime", "timesec", "timeelapsed", "testtime", "timemin", "tmin", "extime", "exercisetime"],
+  time: [
+    "times",
+    "time",
+    "t",
+    "ts",
+    "elapsed",
+    "elapsedtime",
+    "timesec",
+    "timeelapsed",
+    "testtime",
+    "timemin",
+    "tmin",
+    "extime",
+    "exercisetime",
+  ],
   vo2: ["vo2mlmin", "vo2abs", "vo2", "vo2lmin", "vo2stpd", "vo2mlkgmin", "vo2kg", "vo2rel", "relvo2"],
   vco2: ["vco2mlmin", "vco2", "vco2lmin", "vco2stpd", "vco2abs"],
   ve: ["velmin", "ve", "vebtps", "vent", "ventilation", "minuteventilation"],
@@ -119,14 +145,16 @@ export function parseTime(raw: string): number {
 /** A decimal number with a point or a decimal comma; NaN for anything else (empty, text, hexadecimal, infinities). */
 export function parseNumber(raw: string): number {
   if (raw === "") return NaN;
-  const first = raw.charCodeAt(0), end = raw.charCodeAt(raw.length - 1);
+  const first = raw.charCodeAt(0),
+    end = raw.charCodeAt(raw.length - 1);
   let s = first <= 32 || end <= 32 ? raw.trim() : raw;
   if (s === "") return NaN;
   if (s.includes(",")) s = s.replace(",", ".");
   // Number() also reads "0x1f", "Infinity" and "1_0"-free forms; refuse the first two explicitly.
   const last = s.charCodeAt(s.length - 1);
   if (!((last >= 48 && last <= 57) || last === 46)) return NaN;
-  if (s.length > 1 && (s[1] === "x" || s[1] === "X" || s[1] === "b" || s[1] === "B" || s[1] === "o" || s[1] === "O")) return NaN;
+  if (s.length > 1 && (s[1] === "x" || s[1] === "X" || s[1] === "b" || s[1] === "B" || s[1] === "o" || s[1] === "O"))
+    return NaN;
   const n = Number(s);
   return Number.isFinite(n) ? n : NaN;
 }
@@ -190,7 +218,11 @@ export function cellValue(raw: string, asTime: boolean): number {
  * The general path: papaparse reads every row (quotes, odd line breaks, anything), then each wanted cell is parsed.
  * `greedy` drops blank lines and lines whose cells are all blank.
  */
-function columnsThroughPapa(text: string, wanted: number[], timeAt: number): { headers: string[]; columns: NumericColumns } {
+function columnsThroughPapa(
+  text: string,
+  wanted: number[],
+  timeAt: number,
+): { headers: string[]; columns: NumericColumns } {
   const rows = Papa.parse<string[]>(text, { skipEmptyLines: "greedy", delimitersToGuess: DELIMITERS }).data;
   const headers = (rows[0] ?? []).map((h) => h.trim());
   const values = wanted.map(() => [] as number[]);
@@ -207,7 +239,13 @@ function columnsThroughPapa(text: string, wanted: number[], timeAt: number): { h
  * (a time as mm:ss, text, an exponent, spaces, long mantissas) goes through the same parsers as the general path, so both
  * paths give the same numbers. Lines that are blank or whose cells are all blank are skipped, as papaparse's `greedy` does.
  */
-function columnsInPlace(text: string, bodyStart: number, delimiter: string, wanted: number[], timeAt: number): NumericColumns {
+function columnsInPlace(
+  text: string,
+  bodyStart: number,
+  delimiter: string,
+  wanted: number[],
+  timeAt: number,
+): NumericColumns {
   const delim = delimiter.charCodeAt(0);
   const slot = new Int32Array(Math.max(0, ...wanted) + 1).fill(-1);
   wanted.forEach((col, k) => (slot[col] = k));
@@ -224,7 +262,12 @@ function columnsInPlace(text: string, bodyStart: number, delimiter: string, want
     for (;;) {
       const fieldStart = pos;
       const k = field < slot.length ? slot[field]! : -1;
-      let mantissa = 0, digits = 0, decimals = 0, seenPoint = false, negative = false, plain = true;
+      let mantissa = 0,
+        digits = 0,
+        decimals = 0,
+        seenPoint = false,
+        negative = false,
+        plain = true;
       let c = 0;
       while (pos < n) {
         c = text.charCodeAt(pos);
@@ -315,7 +358,13 @@ export function treadmillDemand(speedKmh: number, gradePct: number | null | unde
  * demand of the fastest minutes lies nearest the measured VO2 per kilogram (mph and km/h differ by a factor 1.6, far more
  * than the equations' error); otherwise km/h.
  */
-function speedUnitFromValues(speeds: number[], grades: number[] | null, vo2: number[], vo2Scale: number, massKg: number | null): "km/h" | "mph" | null {
+function speedUnitFromValues(
+  speeds: number[],
+  grades: number[] | null,
+  vo2: number[],
+  vo2Scale: number,
+  massKg: number | null,
+): "km/h" | "mph" | null {
   if (!massKg) return null;
   const idx = speeds.map((v, i) => [v, i] as const).filter(([v]) => Number.isFinite(v) && v > 0.5);
   if (idx.length < 20) return null;
@@ -323,7 +372,12 @@ function speedUnitFromValues(speeds: number[], grades: number[] | null, vo2: num
   const top = sorted.slice(0, Math.max(10, Math.floor(sorted.length * 0.15)));
   const measured = median(top.map(([, i]) => (vo2[i]! * vo2Scale) / massKg).filter((v) => Number.isFinite(v) && v > 0));
   if (!Number.isFinite(measured)) return null;
-  const demand = (factor: number) => median(top.map(([v, i]) => treadmillDemand(v * factor, grades ? (Number.isFinite(grades[i]!) && grades[i]! < 45 ? grades[i]! : 0) : 0)));
+  const demand = (factor: number) =>
+    median(
+      top.map(([v, i]) =>
+        treadmillDemand(v * factor, grades ? (Number.isFinite(grades[i]!) && grades[i]! < 45 ? grades[i]! : 0) : 0),
+      ),
+    );
   const dk = Math.abs(Math.log(measured / demand(1)));
   const dm = Math.abs(Math.log(measured / demand(1.609344)));
   return dm < dk ? "mph" : "km/h";
@@ -335,15 +389,26 @@ export function readGasExchangeCsv(text: string, mapping: ColumnMapping = {}, op
   const firstBreak = clean.search(/\r\n|\n|\r/);
   const headerLine = firstBreak < 0 ? clean : clean.slice(0, firstBreak);
   const headEnd = nthLineEnd(clean, 20);
-  const head = Papa.parse<string[]>(clean.slice(0, headEnd), { skipEmptyLines: "greedy", delimitersToGuess: DELIMITERS, preview: 20 });
+  const head = Papa.parse<string[]>(clean.slice(0, headEnd), {
+    skipEmptyLines: "greedy",
+    delimitersToGuess: DELIMITERS,
+    preview: 20,
+  });
   const headRows = head.data;
   const headers = (headRows[0] ?? []).map((h) => h.trim());
   if (headRows.length < 2) return { ok: false, error: "The file has no data rows under a header line.", headers };
-  const plainFile = firstBreak > 0 && headerLine.trim() !== "" && !clean.includes('"') && head.meta.delimiter.length === 1;
+  const plainFile =
+    firstBreak > 0 && headerLine.trim() !== "" && !clean.includes('"') && head.meta.delimiter.length === 1;
   const bodyStart = firstBreak + (clean.startsWith("\r\n", firstBreak) ? 2 : 1);
-  return readTable(headers, (wanted, timeAt) =>
-    plainFile ? columnsInPlace(clean, bodyStart, head.meta.delimiter, wanted, timeAt) : columnsThroughPapa(clean, wanted, timeAt).columns,
-  mapping, opts);
+  return readTable(
+    headers,
+    (wanted, timeAt) =>
+      plainFile
+        ? columnsInPlace(clean, bodyStart, head.meta.delimiter, wanted, timeAt)
+        : columnsThroughPapa(clean, wanted, timeAt).columns,
+    mapping,
+    opts,
+  );
 }
 
 /**
@@ -361,7 +426,11 @@ export function readTable(
   for (const [channel, header] of Object.entries(mapping) as [Channel, string | undefined][]) {
     if (header === undefined) continue;
     if (!headers.includes(header)) {
-      return { ok: false, error: `The mapping names a column "${header}" for ${CHANNEL_LABELS[channel]}, but the file has no such column.`, headers };
+      return {
+        ok: false,
+        error: `The mapping names a column "${header}" for ${CHANNEL_LABELS[channel]}, but the file has no such column.`,
+        headers,
+      };
     }
     for (const c of CHANNELS) if (chosen[c] === header && c !== channel) delete chosen[c];
     chosen[channel] = header;
@@ -375,10 +444,17 @@ export function readTable(
     };
   }
   // Several VO2 columns (relative and absolute, often with repaired names): read them all and prefer an absolute one.
-  const vo2Options = mapping.vo2 ? [mapping.vo2] : vo2Candidates(headers).filter((h) => !Object.entries(chosen).some(([c, v]) => c !== "vo2" && v === h));
+  const vo2Options = mapping.vo2
+    ? [mapping.vo2]
+    : vo2Candidates(headers).filter((h) => !Object.entries(chosen).some(([c, v]) => c !== "vo2" && v === h));
   if (!vo2Options.includes(chosen.vo2!)) vo2Options.unshift(chosen.vo2!);
-  const index = Object.fromEntries(CHANNELS.map((c) => [c, chosen[c] ? headers.indexOf(chosen[c]!) : -1])) as Record<Channel, number>;
-  const wanted = [...new Set([...CHANNELS.map((c) => index[c]).filter((i) => i >= 0), ...vo2Options.map((h) => headers.indexOf(h))])];
+  const index = Object.fromEntries(CHANNELS.map((c) => [c, chosen[c] ? headers.indexOf(chosen[c]!) : -1])) as Record<
+    Channel,
+    number
+  >;
+  const wanted = [
+    ...new Set([...CHANNELS.map((c) => index[c]).filter((i) => i >= 0), ...vo2Options.map((h) => headers.indexOf(h))]),
+  ];
   const columns0 = load(wanted, index.time);
   const byHeader = (h: string): number[] => columns0.values[wanted.indexOf(headers.indexOf(h))]!;
   const column = (c: Channel): number[] | null => (index[c] >= 0 ? columns0.values[wanted.indexOf(index[c])]! : null);
@@ -390,7 +466,11 @@ export function readTable(
   // VO2: the chosen unit, else the header, else the values; absolute columns first.
   const classified = vo2Options.map((h) => {
     const fromHeader = vo2UnitFromHeader(h);
-    return { header: h, unit: fromHeader ?? vo2UnitFromValues(byHeader(h)), reason: (fromHeader ? "header" : "values") as DetectedColumn["unitReason"] };
+    return {
+      header: h,
+      unit: fromHeader ?? vo2UnitFromValues(byHeader(h)),
+      reason: (fromHeader ? "header" : "values") as DetectedColumn["unitReason"],
+    };
   });
   let vo2Pick = classified[0]!;
   if (!mapping.vo2) vo2Pick = classified.find((c) => c.unit !== "mL/kg/min") ?? classified[0]!;
@@ -399,7 +479,8 @@ export function readTable(
   // The body mass the file implies, when it holds both an absolute and a relative VO2.
   let massFromFile: number | null = null;
   if (relative && vo2Pick.unit !== "mL/kg/min") {
-    const abs = byHeader(vo2Pick.header), rel = byHeader(relative.header);
+    const abs = byHeader(vo2Pick.header),
+      rel = byHeader(relative.header);
     const f = vo2Pick.unit === "L/min" ? 1000 : 1;
     const ratios: number[] = [];
     for (let i = 0; i < abs.length; i++) if (abs[i]! > 0 && rel[i]! > 0) ratios.push((abs[i]! * f) / rel[i]!);
@@ -421,8 +502,12 @@ export function readTable(
     warnings.push(`VO2 read as mL/kg/min from "${vo2Pick.header}" and converted with the body mass of ${mass} kg.`);
   } else scale.vo2 = vo2Pick.unit === "L/min" ? 1000 : 1;
   columns.vo2 = { header: vo2Pick.header, unit: vo2Pick.unit, unitReason: vo2Pick.reason };
-  if (vo2Pick.unit === "L/min" && vo2Pick.reason === "values") warnings.push(`VO2 read as L/min (typical values below 8) and converted to mL/min.`);
-  if (relative && vo2Pick.unit !== "mL/kg/min") warnings.push(`Absolute VO2 taken from "${vo2Pick.header}"; the relative column "${relative.header}" (mL/kg/min) was not used.`);
+  if (vo2Pick.unit === "L/min" && vo2Pick.reason === "values")
+    warnings.push(`VO2 read as L/min (typical values below 8) and converted to mL/min.`);
+  if (relative && vo2Pick.unit !== "mL/kg/min")
+    warnings.push(
+      `Absolute VO2 taken from "${vo2Pick.header}"; the relative column "${relative.header}" (mL/kg/min) was not used.`,
+    );
 
   {
     const header = chosen.vco2!;
@@ -431,7 +516,9 @@ export function readTable(
       columns.vco2 = { header, unit: fromHeader === "l" ? "L/min" : "mL/min", unitReason: "header" };
       scale.vco2 = fromHeader === "l" ? 1000 : 1;
     } else {
-      const sample = column("vco2")!.slice(0, 300).filter((v) => Number.isFinite(v) && v > 0);
+      const sample = column("vco2")!
+        .slice(0, 300)
+        .filter((v) => Number.isFinite(v) && v > 0);
       const m = median(sample);
       const litres = Number.isFinite(m) && m < 10;
       columns.vco2 = { header, unit: litres ? "L/min" : "mL/min", unitReason: "values" };
@@ -440,7 +527,11 @@ export function readTable(
     }
   }
   const veHeader = chosen.ve!;
-  columns.ve = { header: veHeader, unit: unitFromHeader(veHeader) === "ml" ? "mL/min" : "L/min", unitReason: unitFromHeader(veHeader) ? "header" : "default" };
+  columns.ve = {
+    header: veHeader,
+    unit: unitFromHeader(veHeader) === "ml" ? "mL/min" : "L/min",
+    unitReason: unitFromHeader(veHeader) ? "header" : "default",
+  };
   scale.ve = columns.ve.unit === "mL/min" ? 0.001 : 1;
 
   // Time: clock text is seconds; plain numbers are minutes when the header says so, or when a whole test spans under
@@ -454,7 +545,8 @@ export function readTable(
     if (!fromHeader) {
       const finite = times.filter((v) => Number.isFinite(v) && v >= 0);
       const steps: number[] = [];
-      for (let i = 1; i < Math.min(finite.length, 400); i++) if (finite[i]! > finite[i - 1]!) steps.push(finite[i]! - finite[i - 1]!);
+      for (let i = 1; i < Math.min(finite.length, 400); i++)
+        if (finite[i]! > finite[i - 1]!) steps.push(finite[i]! - finite[i - 1]!);
       const span = finite.length ? finite[finite.length - 1]! - finite[0]! : 0;
       if (finite.length > 20 && span > 0 && span < 90 && median(steps) < 1) {
         unit = "min";
@@ -467,22 +559,42 @@ export function readTable(
     }
     columns.time = { header, unit, unitReason: reason };
     scale.time = unit === "min" ? 60 : 1;
-    if (unit === "min" && reason === "values") warnings.push(`Time read as decimal minutes (the whole test spans under 90 of its units) and converted to seconds.`);
+    if (unit === "min" && reason === "values")
+      warnings.push(
+        `Time read as decimal minutes (the whole test spans under 90 of its units) and converted to seconds.`,
+      );
   }
 
-  const optionalUnits: Record<"hr" | "power" | "speed" | "grade" | "rf", string> = { hr: "bpm", power: "W", speed: "km/h", grade: "%", rf: "1/min" };
+  const optionalUnits: Record<"hr" | "power" | "speed" | "grade" | "rf", string> = {
+    hr: "bpm",
+    power: "W",
+    speed: "km/h",
+    grade: "%",
+    rf: "1/min",
+  };
   for (const c of ["hr", "power", "speed", "grade", "rf"] as const) {
     if (chosen[c]) columns[c] = { header: chosen[c]!, unit: optionalUnits[c], unitReason: "default" };
   }
   if (chosen.speed) {
     const fromHeader = speedUnitFromHeader(chosen.speed);
-    const massForSpeed = vo2Pick.unit === "mL/kg/min" ? (opts.bodyMassKg ?? null) : (massFromFile ?? opts.bodyMassKg ?? null);
-    const fromValues = fromHeader ? null : speedUnitFromValues(column("speed")!, column("grade"), column("vo2")!, scale.vo2!, massForSpeed);
+    const massForSpeed =
+      vo2Pick.unit === "mL/kg/min" ? (opts.bodyMassKg ?? null) : (massFromFile ?? opts.bodyMassKg ?? null);
+    const fromValues = fromHeader
+      ? null
+      : speedUnitFromValues(column("speed")!, column("grade"), column("vo2")!, scale.vo2!, massForSpeed);
     const unit = units.speed ?? fromHeader ?? fromValues ?? "km/h";
-    columns.speed = { header: chosen.speed, unit, unitReason: units.speed ? "chosen" : fromHeader ? "header" : fromValues ? "values" : "default" };
+    columns.speed = {
+      header: chosen.speed,
+      unit,
+      unitReason: units.speed ? "chosen" : fromHeader ? "header" : fromValues ? "values" : "default",
+    };
     scale.speed = unit === "mph" ? 1.609344 : unit === "m/s" ? 3.6 : 1;
-    if (columns.speed.unitReason === "values") warnings.push(`Speed read as ${unit} (the VO2 measured at the fastest minutes matches the ACSM treadmill demand in ${unit}).`);
-    if (columns.speed.unitReason === "default") warnings.push("Speed read as km/h (the header gives no unit); choose mph or m/s if the treadmill showed those.");
+    if (columns.speed.unitReason === "values")
+      warnings.push(
+        `Speed read as ${unit} (the VO2 measured at the fastest minutes matches the ACSM treadmill demand in ${unit}).`,
+      );
+    if (columns.speed.unitReason === "default")
+      warnings.push("Speed read as km/h (the header gives no unit); choose mph or m/s if the treadmill showed those.");
   }
 
   const breaths: Breath[] = [];
@@ -491,13 +603,16 @@ export function readTable(
   const backwards: number[] = [];
   const optionalDropped: Record<string, number> = {};
   let lastTime = -Infinity;
-  const vo2s = column("vo2")!, vco2s = column("vco2")!, ves = column("ve")!;
+  const vo2s = column("vo2")!,
+    vco2s = column("vco2")!,
+    ves = column("ve")!;
   const OPTIONAL = ["hr", "power", "speed", "grade", "rf"] as const;
   const optionalColumns = OPTIONAL.map((c) => ({
     c,
     values: column(c),
     scale: scale[c] ?? 1,
-    limits: LIMITS[({ hr: "hrBpm", power: "powerW", speed: "speedKmh", grade: "gradePct", rf: "rfPerMin" } as const)[c]],
+    limits:
+      LIMITS[({ hr: "hrBpm", power: "powerW", speed: "speedKmh", grade: "gradePct", rf: "rfPerMin" } as const)[c]],
   }));
   const optionalValues: (number | null)[] = OPTIONAL.map(() => null);
   for (let i = 0; i < columns0.rows; i++) {
@@ -511,9 +626,13 @@ export function readTable(
       continue;
     }
     if (
-      vo2 < LIMITS.vo2MlMin[0] || vo2 > LIMITS.vo2MlMin[1] ||
-      vco2 < LIMITS.vco2MlMin[0] || vco2 > LIMITS.vco2MlMin[1] ||
-      ve < LIMITS.veLMin[0] || ve > LIMITS.veLMin[1] || timeS < 0
+      vo2 < LIMITS.vo2MlMin[0] ||
+      vo2 > LIMITS.vo2MlMin[1] ||
+      vco2 < LIMITS.vco2MlMin[0] ||
+      vco2 > LIMITS.vco2MlMin[1] ||
+      ve < LIMITS.veLMin[0] ||
+      ve > LIMITS.veLMin[1] ||
+      timeS < 0
     ) {
       outOfRange.push(line);
       continue;
@@ -530,7 +649,8 @@ export function readTable(
       const raw = col.values[i]!;
       if (raw === EMPTY) continue;
       const v = raw * col.scale;
-      if (!Number.isFinite(v) || v < col.limits[0] || v > col.limits[1]) optionalDropped[col.c] = (optionalDropped[col.c] ?? 0) + 1;
+      if (!Number.isFinite(v) || v < col.limits[0] || v > col.limits[1])
+        optionalDropped[col.c] = (optionalDropped[col.c] ?? 0) + 1;
       else optionalValues[k] = v;
     }
     breaths.push({
@@ -545,18 +665,34 @@ export function readTable(
       rfPerMin: optionalValues[4]!,
     });
   }
-  if (badRequired.length) warnings.push(`${badRequired.length} row(s) dropped: missing or non-numeric time, VO2, VCO2 or VE (line ${describeRows(badRequired)}).`);
-  if (outOfRange.length) warnings.push(`${outOfRange.length} row(s) dropped: negative or physiologically impossible values (line ${describeRows(outOfRange)}).`);
-  if (backwards.length) warnings.push(`${backwards.length} row(s) dropped: time goes backwards (line ${describeRows(backwards)}).`);
+  if (badRequired.length)
+    warnings.push(
+      `${badRequired.length} row(s) dropped: missing or non-numeric time, VO2, VCO2 or VE (line ${describeRows(badRequired)}).`,
+    );
+  if (outOfRange.length)
+    warnings.push(
+      `${outOfRange.length} row(s) dropped: negative or physiologically impossible values (line ${describeRows(outOfRange)}).`,
+    );
+  if (backwards.length)
+    warnings.push(`${backwards.length} row(s) dropped: time goes backwards (line ${describeRows(backwards)}).`);
   for (const [c, count] of Object.entries(optionalDropped)) {
-    warnings.push(`${count} ${CHANNEL_LABELS[c as Channel]} value(s) ignored: not a number or out of range${c === "grade" ? " (a standing belt often reports a placeholder grade)" : ""}.`);
+    warnings.push(
+      `${count} ${CHANNEL_LABELS[c as Channel]} value(s) ignored: not a number or out of range${c === "grade" ? " (a standing belt often reports a placeholder grade)" : ""}.`,
+    );
   }
   let gaps = 0;
   for (let i = 1; i < breaths.length; i++) {
     const gap = breaths[i]!.timeS - breaths[i - 1]!.timeS;
-    if (gap > 30 && gaps++ < 5) warnings.push(`A gap of ${Math.round(gap)} s without data at ${Math.round(breaths[i - 1]!.timeS)} s.`);
+    if (gap > 30 && gaps++ < 5)
+      warnings.push(`A gap of ${Math.round(gap)} s without data at ${Math.round(breaths[i - 1]!.timeS)} s.`);
   }
-  if (breaths.length === 0) return { ok: false, error: "No usable rows: every row lacked a readable time, VO2, VCO2 or VE. Check the column mapping and the units.", headers };
+  if (breaths.length === 0)
+    return {
+      ok: false,
+      error:
+        "No usable rows: every row lacked a readable time, VO2, VCO2 or VE. Check the column mapping and the units.",
+      headers,
+    };
   if (columns0.rows >= 50 && breaths.length < 0.5 * columns0.rows) {
     return {
       ok: false,

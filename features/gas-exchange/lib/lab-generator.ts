@@ -21,9 +21,29 @@
 import { treadmillDemand } from "./csv";
 import { mulberry32 } from "./synthetic-ramp";
 
-export const PROTOCOLS = ["cycle-ramp", "cycle-steps-1min", "cycle-steps-3min", "rowing-ramp", "treadmill-speed-grade", "treadmill-steps"] as const;
+export const PROTOCOLS = [
+  "cycle-ramp",
+  "cycle-steps-1min",
+  "cycle-steps-3min",
+  "rowing-ramp",
+  "treadmill-speed-grade",
+  "treadmill-steps",
+] as const;
 export const PHASES = ["warmup", "rest-warmup-stage", "varied-warmup", "no-warmup"] as const;
-export const EXPORTS = ["breath", "avg-10s", "avg-15s", "avg-30s", "relative-first", "repaired-names", "bracket-units", "minutes", "mmss-mph-sentinel", "hhmmss", "semicolon-comma", "litres"] as const;
+export const EXPORTS = [
+  "breath",
+  "avg-10s",
+  "avg-15s",
+  "avg-30s",
+  "relative-first",
+  "repaired-names",
+  "bracket-units",
+  "minutes",
+  "mmss-mph-sentinel",
+  "hhmmss",
+  "semicolon-comma",
+  "litres",
+] as const;
 export type Protocol = (typeof PROTOCOLS)[number];
 export type Phase = (typeof PHASES)[number];
 export type ExportStyle = (typeof EXPORTS)[number];
@@ -55,7 +75,8 @@ export interface LabTruth {
 }
 
 function gaussian(r: () => number): number {
-  const u = Math.max(r(), 1e-12), v = r();
+  const u = Math.max(r(), 1e-12),
+    v = r();
   return Math.sqrt(-2 * Math.log(u)) * Math.cos(2 * Math.PI * v);
 }
 
@@ -91,7 +112,11 @@ function protocolOf(c: LabCase, r: () => number) {
       const stageS = c.protocol === "cycle-steps-1min" ? 60 : 180;
       const stages = c.protocol === "cycle-steps-1min" ? 12 + Math.floor(4 * r()) : 6 + Math.floor(2 * r());
       const inc = (peakW - startW) / stages;
-      segs.push({ durationS: stages * stageS, ramp: true, at: (t) => ({ w: Math.round(startW + inc * (1 + Math.floor(t / stageS))) }) });
+      segs.push({
+        durationS: stages * stageS,
+        ramp: true,
+        at: (t) => ({ w: Math.round(startW + inc * (1 + Math.floor(t / stageS))) }),
+      });
     } else {
       const rate = (15 + 20 * r()) / 60;
       segs.push({ durationS: (peakW - startW) / rate, ramp: true, at: (t) => ({ w: startW + rate * t }) });
@@ -111,7 +136,8 @@ function protocolOf(c: LabCase, r: () => number) {
         segs.push({ durationS: 60 + Math.round(60 * r()), at: () => ({ kmh: v, grade: 1 }) });
       }
       segs.push({ durationS: 150, at: () => ({ kmh: walk, grade: 1 }) });
-    } else if (c.phase === "warmup") segs.push({ durationS: 180 + Math.round(120 * r()), at: () => ({ kmh: walk, grade: 1 }) });
+    } else if (c.phase === "warmup")
+      segs.push({ durationS: 180 + Math.round(120 * r()), at: () => ({ kmh: walk, grade: 1 }) });
     else segs.push({ durationS: 30, at: () => ({ kmh: walk, grade: 1 }) });
     const from = c.phase === "rest-warmup-stage" ? runStart : walk;
     if (c.protocol === "treadmill-steps") {
@@ -133,7 +159,10 @@ function protocolOf(c: LabCase, r: () => number) {
       segs.push({
         durationS: speedS + gradeS,
         ramp: true,
-        at: (t) => (t <= speedS ? { kmh: from + rateKmhPerS * t, grade: 1 } : { kmh: maxSpeed, grade: 1 + (6 * (t - speedS)) / gradeS }),
+        at: (t) =>
+          t <= speedS
+            ? { kmh: from + rateKmhPerS * t, grade: 1 }
+            : { kmh: maxSpeed, grade: 1 + (6 * (t - speedS)) / gradeS },
       });
     }
     segs.push({ durationS: 120, at: () => ({ kmh: walk, grade: 0 }) });
@@ -142,7 +171,9 @@ function protocolOf(c: LabCase, r: () => number) {
 }
 
 export function labTest(c: LabCase): { rows: Record<string, number | null>[]; truth: LabTruth; treadmill: boolean } {
-  const r = mulberry32(c.seed * 7919 + PROTOCOLS.indexOf(c.protocol) * 131 + PHASES.indexOf(c.phase) * 17 + EXPORTS.indexOf(c.style));
+  const r = mulberry32(
+    c.seed * 7919 + PROTOCOLS.indexOf(c.protocol) * 131 + PHASES.indexOf(c.phase) * 17 + EXPORTS.indexOf(c.style),
+  );
   const mass = 55 + 35 * r();
   const economy = 0.9 + 0.2 * r();
   const tau = 25 + 20 * r();
@@ -154,7 +185,8 @@ export function labTest(c: LabCase): { rows: Record<string, number | null>[]; tr
     total += s.durationS;
   }
   const rampIdx = segs.findIndex((s) => s.ramp);
-  const rampStartS = starts[rampIdx]!, rampEndS = rampStartS + segs[rampIdx]!.durationS;
+  const rampStartS = starts[rampIdx]!,
+    rampEndS = rampStartS + segs[rampIdx]!.durationS;
   const loadAt = (t: number) => {
     let k = segs.length - 1;
     while (k > 0 && starts[k]! > t) k--;
@@ -183,11 +215,13 @@ export function labTest(c: LabCase): { rows: Record<string, number | null>[]; tr
   const rampHi = peak;
   const vt1 = rampLo + (0.4 + 0.2 * r()) * (rampHi - rampLo);
   const vt2 = rampLo + (0.74 + 0.12 * r()) * (rampHi - rampLo);
-  const s1 = 0.86 + 0.08 * r(), s2 = 1.3 + 0.2 * r();
+  const s1 = 0.86 + 0.08 * r(),
+    s2 = 1.3 + 0.2 * r();
   const restRer = 0.8 + 0.05 * r();
   const rest = 3.8 * mass;
   const co2Target = (x: number) => restRer * rest + s1 * (x - rest) + (s2 - s1) * Math.max(0, x - vt1);
-  const veSlope = 0.022 + 0.008 * r(), veRise = 1.7 + 0.5 * r();
+  const veSlope = 0.022 + 0.008 * r(),
+    veRise = 1.7 + 0.5 * r();
   const co2AtVt2 = co2Target(vt2);
   const veOf = (co2: number) => 4 + veSlope * co2 + veSlope * (veRise - 1) * Math.max(0, co2 - co2AtVt2);
   const tauCo2 = tau + 15;
@@ -212,7 +246,8 @@ export function labTest(c: LabCase): { rows: Record<string, number | null>[]; tr
   }
   const noise = 0.06 + 0.03 * r();
   const scale = c.noiseScale ?? 1;
-  const hrRest = 55 + 20 * r(), hrMax = 180 + 20 * r();
+  const hrRest = 55 + 20 * r(),
+    hrMax = 180 + 20 * r();
   const rowing = c.protocol === "rowing-ramp";
   const rows: Record<string, number | null>[] = [];
   let t = 0;
@@ -241,7 +276,11 @@ export function labTest(c: LabCase): { rows: Record<string, number | null>[]; tr
     rows.push({ t, vo2: bVo2, vco2: bVco2, ve: bVe, hr, power, kmh: l.kmh ?? null, grade: l.grade ?? null, rf });
     t += (60 / Math.max(8, rf)) * (0.8 + 0.4 * r());
   }
-  return { rows, truth: { vt1Vo2MlMin: vt1, vt2Vo2MlMin: vt2Seen, peakVo2MlMin: peak, massKg: mass, rampStartS, rampEndS }, treadmill };
+  return {
+    rows,
+    truth: { vt1Vo2MlMin: vt1, vt2Vo2MlMin: vt2Seen, peakVo2MlMin: peak, massKg: mass, rampStartS, rampEndS },
+    treadmill,
+  };
 }
 
 function averageRows(rows: Record<string, number | null>[], binS: number) {
@@ -273,18 +312,33 @@ function averageRows(rows: Record<string, number | null>[], binS: number) {
 const pad = (x: number) => String(x).padStart(2, "0");
 
 /** A generated test as a lab would export it: the table (header and rows of cells) and the CSV text. */
-export function labExport(c: LabCase): { header: string[]; cells: (string | number)[][]; csv: string; truth: LabTruth; massKg: number } {
+export function labExport(c: LabCase): {
+  header: string[];
+  cells: (string | number)[][];
+  csv: string;
+  truth: LabTruth;
+  massKg: number;
+} {
   const { rows: raw, truth, treadmill } = labTest(c);
   const style = c.style;
-  const rows = style === "avg-10s" ? averageRows(raw, 10) : style === "avg-15s" ? averageRows(raw, 15) : style === "avg-30s" ? averageRows(raw, 30) : raw;
+  const rows =
+    style === "avg-10s"
+      ? averageRows(raw, 10)
+      : style === "avg-15s"
+        ? averageRows(raw, 15)
+        : style === "avg-30s"
+          ? averageRows(raw, 30)
+          : raw;
   const mass = truth.massKg;
   const mph = style === "mmss-mph-sentinel" || style === "bracket-units";
-  const f = (x: number | null, d: number) => (x === null ? "" : style === "semicolon-comma" ? x.toFixed(d).replace(".", ",") : Number(x.toFixed(d)));
+  const f = (x: number | null, d: number) =>
+    x === null ? "" : style === "semicolon-comma" ? x.toFixed(d).replace(".", ",") : Number(x.toFixed(d));
   const time = (s: number): string | number => {
-    if (style === "minutes" ) return Number((s / 60).toFixed(4));
+    if (style === "minutes") return Number((s / 60).toFixed(4));
     if (style === "bracket-units") return Number((s / 60).toFixed(4));
     if (style === "mmss-mph-sentinel") return `${Math.floor(s / 60)}:${pad(Math.floor(s % 60))}`;
-    if (style === "hhmmss") return `${pad(Math.floor(s / 3600))}:${pad(Math.floor((s % 3600) / 60))}:${pad(Math.floor(s % 60))}`;
+    if (style === "hhmmss")
+      return `${pad(Math.floor(s / 3600))}:${pad(Math.floor((s % 3600) / 60))}:${pad(Math.floor(s % 60))}`;
     return f(s, 1);
   };
   let header: string[];
@@ -296,28 +350,82 @@ export function labExport(c: LabCase): { header: string[]; cells: (string | numb
     const grade = standing && style === "mmss-mph-sentinel" ? 300.1 : row.grade!;
     return [f(speed, 1), f(grade, 1)];
   };
-  const loadHeader = treadmill ? (style === "bracket-units" ? ["Speed (mph)", "Grade (%)"] : ["speed", "grade"]) : style === "bracket-units" ? ["Work (W)"] : ["power"];
+  const loadHeader = treadmill
+    ? style === "bracket-units"
+      ? ["Speed (mph)", "Grade (%)"]
+      : ["speed", "grade"]
+    : style === "bracket-units"
+      ? ["Work (W)"]
+      : ["power"];
   switch (style) {
     case "relative-first":
       header = ["time", ...loadHeader, "vo2", "vo2.1", "vco2", "ve.btps", "heartrate", "rr"];
-      cell = (row) => [time(row.t!), ...load(row), f(row.vo2! / mass, 1), f(row.vo2!, 0), f(row.vco2!, 0), f(row.ve!, 1), f(row.hr!, 0), f(row.rf!, 0)];
+      cell = (row) => [
+        time(row.t!),
+        ...load(row),
+        f(row.vo2! / mass, 1),
+        f(row.vo2!, 0),
+        f(row.vco2!, 0),
+        f(row.ve!, 1),
+        f(row.hr!, 0),
+        f(row.rf!, 0),
+      ];
       break;
     case "repaired-names":
     case "mmss-mph-sentinel":
       header = ["Time", ...loadHeader, "VO2...4", "VO2...5", "VCO2", "RER", "VE BTPS", "HeartRate"];
-      cell = (row) => [time(row.t!), ...load(row), f(row.vo2! / mass, 1), f(row.vo2!, 0), f(row.vco2!, 0), f(row.vco2! / row.vo2!, 2), f(row.ve!, 1), f(row.hr!, 0)];
+      cell = (row) => [
+        time(row.t!),
+        ...load(row),
+        f(row.vo2! / mass, 1),
+        f(row.vo2!, 0),
+        f(row.vco2!, 0),
+        f(row.vco2! / row.vo2!, 2),
+        f(row.ve!, 1),
+        f(row.hr!, 0),
+      ];
       break;
     case "bracket-units":
       header = ["Time (min)", ...loadHeader, "VO2 (L/min)", "VCO2 (L/min)", "VE (L/min)", "HR (bpm)"];
-      cell = (row) => [time(row.t!), ...load(row), f(row.vo2! / 1000, 3), f(row.vco2! / 1000, 3), f(row.ve!, 1), f(row.hr!, 0)];
+      cell = (row) => [
+        time(row.t!),
+        ...load(row),
+        f(row.vo2! / 1000, 3),
+        f(row.vco2! / 1000, 3),
+        f(row.ve!, 1),
+        f(row.hr!, 0),
+      ];
       break;
     case "litres":
       header = ["t", ...loadHeader, "VO2", "VCO2", "VE", "HR"];
-      cell = (row) => [time(row.t!), ...load(row), f(row.vo2! / 1000, 3), f(row.vco2! / 1000, 3), f(row.ve!, 1), f(row.hr!, 0)];
+      cell = (row) => [
+        time(row.t!),
+        ...load(row),
+        f(row.vo2! / 1000, 3),
+        f(row.vco2! / 1000, 3),
+        f(row.ve!, 1),
+        f(row.hr!, 0),
+      ];
       break;
     default:
-      header = [style === "minutes" ? "time" : "time_s", ...loadHeader, "vo2_ml_min", "vco2_ml_min", "ve_l_min", "hr_bpm", "rf_per_min"];
-      cell = (row) => [time(row.t!), ...load(row), f(row.vo2!, 0), f(row.vco2!, 0), f(row.ve!, 1), f(row.hr!, 0), f(row.rf!, 0)];
+      header = [
+        style === "minutes" ? "time" : "time_s",
+        ...loadHeader,
+        "vo2_ml_min",
+        "vco2_ml_min",
+        "ve_l_min",
+        "hr_bpm",
+        "rf_per_min",
+      ];
+      cell = (row) => [
+        time(row.t!),
+        ...load(row),
+        f(row.vo2!, 0),
+        f(row.vco2!, 0),
+        f(row.ve!, 1),
+        f(row.hr!, 0),
+        f(row.rf!, 0),
+      ];
   }
   const cells = rows.map(cell);
   const delim = style === "semicolon-comma" ? ";" : ",";
@@ -329,6 +437,8 @@ export function labExport(c: LabCase): { header: string[]; cells: (string | numb
 export function labCases(perCell = 1, firstSeed = 1): LabCase[] {
   const out: LabCase[] = [];
   let seed = firstSeed;
-  for (const protocol of PROTOCOLS) for (const phase of PHASES) for (const style of EXPORTS) for (let k = 0; k < perCell; k++) out.push({ seed: seed++, protocol, phase, style });
+  for (const protocol of PROTOCOLS)
+    for (const phase of PHASES)
+      for (const style of EXPORTS) for (let k = 0; k < perCell; k++) out.push({ seed: seed++, protocol, phase, style });
   return out;
 }

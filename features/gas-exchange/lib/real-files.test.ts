@@ -75,7 +75,11 @@ describe("real laboratory exports", () => {
   });
 
   it("VT1 < VT2 < peak in every file, and peak RER is taken at peak VO2, not at an early spike", () => {
-    for (const name of ["treadmill-ramp-mss-relative-first.csv", "treadmill-warmup-ramp-minutes-mph.csv", "treadmill-stage-then-ramp-hms.csv"]) {
+    for (const name of [
+      "treadmill-ramp-mss-relative-first.csv",
+      "treadmill-warmup-ramp-minutes-mph.csv",
+      "treadmill-stage-then-ramp-hms.csv",
+    ]) {
       const a = analysed(name);
       if (a.vt1 && a.vt2) expect(a.vt1.vo2MlMin).toBeLessThan(a.vt2.vo2MlMin);
       if (a.vt2) expect(a.vt2.vo2MlMin).toBeLessThanOrEqual(a.peak.vo2MlMin);
@@ -94,7 +98,14 @@ describe("real laboratory exports", () => {
     const lines = text.trim().split("\n");
     const head = lines[0]!.split(",");
     const drop = head.indexOf("vo2_abs");
-    const relativeOnly = lines.map((l) => l.split(",").filter((_, i) => i !== drop).join(",")).join("\n");
+    const relativeOnly = lines
+      .map((l) =>
+        l
+          .split(",")
+          .filter((_, i) => i !== drop)
+          .join(","),
+      )
+      .join("\n");
     const refused = analyzeCsv(relativeOnly);
     expect(refused.ok).toBe(false);
     if (!refused.ok) expect(refused.error).toMatch(/relative \(mL\/kg\/min\).*body mass/);

@@ -60,7 +60,8 @@ export function mulberry32(seed: number) {
 }
 
 function gaussian(r: () => number): number {
-  const u = Math.max(r(), 1e-12), v = r();
+  const u = Math.max(r(), 1e-12),
+    v = r();
   return Math.sqrt(-2 * Math.log(u)) * Math.cos(2 * Math.PI * v);
 }
 
@@ -82,14 +83,16 @@ export function syntheticRamp(o: RampOptions = {}): { csv: string; truth: RampTr
   const vo2ss = (w: number) => 7 * mass + 1.8 * 6.12 * w;
   const p1 = warmupW + (o.vt1Fraction ?? 0.5) * (peakW - warmupW);
   const p2 = warmupW + (o.vt2Fraction ?? 0.8) * (peakW - warmupW);
-  const vt1 = vo2ss(p1), vt2 = vo2ss(p2);
+  const vt1 = vo2ss(p1),
+    vt2 = vo2ss(p2);
   const start = vo2ss(warmupW);
   const vco2Of = (vo2: number) => {
     const base = 0.85 * start + 0.92 * (vo2 - start);
     return o.noBreakpoints ? 0.85 * start + 0.97 * (vo2 - start) : base + (1.4 - 0.92) * Math.max(0, vo2 - vt1);
   };
   const vco2AtVt2 = vco2Of(vt2);
-  const veOf = (vco2: number) => (o.noBreakpoints ? 3 + 0.027 * vco2 : 3 + 0.025 * vco2 + (0.048 - 0.025) * Math.max(0, vco2 - vco2AtVt2));
+  const veOf = (vco2: number) =>
+    o.noBreakpoints ? 3 + 0.027 * vco2 : 3 + 0.025 * vco2 + (0.048 - 0.025) * Math.max(0, vco2 - vco2AtVt2);
   const rampEndS = warmupS + (peakW - warmupW) / rampPerS;
   const totalS = rampEndS + recoveryS;
   const powerAt = (t: number) => (t < warmupS ? warmupW : t <= rampEndS ? warmupW + (t - warmupS) * rampPerS : 30);

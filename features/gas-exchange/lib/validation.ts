@@ -23,7 +23,8 @@ export function runCase(c: LabCase): CaseResult {
   const a = analyzeCsv(csv);
   const rampMin = (truth.rampEndS - truth.rampStartS) / 60;
   if (!a.ok) return { c, vt1: false, vt2: false, peak: false, beforeRamp: false, rampMin, detail: a.error };
-  const near = (v: number | undefined, want: number, pct: number) => v !== undefined && Math.abs(v - want) <= (pct / 100) * want;
+  const near = (v: number | undefined, want: number, pct: number) =>
+    v !== undefined && Math.abs(v - want) <= (pct / 100) * want;
   const beforeRamp = [a.vt1, a.vt2].some((t) => t && t.timeS < truth.rampStartS);
   return {
     c,
@@ -45,8 +46,15 @@ export interface Rates {
 }
 
 export function rates(results: CaseResult[]): Rates {
-  const share = (f: (r: CaseResult) => boolean) => (results.length ? (100 * results.filter(f).length) / results.length : 0);
-  return { n: results.length, vt1: share((r) => r.vt1), vt2: share((r) => r.vt2), peak: share((r) => r.peak), beforeRamp: results.filter((r) => r.beforeRamp).length };
+  const share = (f: (r: CaseResult) => boolean) =>
+    results.length ? (100 * results.filter(f).length) / results.length : 0;
+  return {
+    n: results.length,
+    vt1: share((r) => r.vt1),
+    vt2: share((r) => r.vt2),
+    peak: share((r) => r.peak),
+    beforeRamp: results.filter((r) => r.beforeRamp).length,
+  };
 }
 
 export function groupRates(results: CaseResult[], key: (c: LabCase) => string): [string, Rates][] {
@@ -79,5 +87,10 @@ export function breathScatter(breaths: Breath[]): { vo2: number; rer: number; ve
     for (let i = 7; i < v.length - 7; i++) dev.push(Math.abs(v[i]! - median(v.slice(i - 7, i + 8))));
     return Math.round(1000 * 1.4826 * median(dev)) / 10;
   };
-  return { vo2: scatter((b) => b.vo2MlMin), rer: scatter((b) => b.vco2MlMin / b.vo2MlMin), veVco2: scatter((b) => b.veLMin / b.vco2MlMin), veVo2: scatter((b) => b.veLMin / b.vo2MlMin) };
+  return {
+    vo2: scatter((b) => b.vo2MlMin),
+    rer: scatter((b) => b.vco2MlMin / b.vo2MlMin),
+    veVco2: scatter((b) => b.veLMin / b.vco2MlMin),
+    veVo2: scatter((b) => b.veLMin / b.vo2MlMin),
+  };
 }

@@ -17,7 +17,12 @@ async function xlsx(header: string[], cells: (string | number)[][], sheetName = 
 
 describe(".xlsx input", () => {
   it("gives the same thresholds as the CSV of the same test", async () => {
-    const { header, cells, csv } = labExport({ seed: 3, protocol: "treadmill-speed-grade", phase: "rest-warmup-stage", style: "relative-first" });
+    const { header, cells, csv } = labExport({
+      seed: 3,
+      protocol: "treadmill-speed-grade",
+      phase: "rest-warmup-stage",
+      style: "relative-first",
+    });
     const bytes = await xlsx(header, cells);
     expect(fileKind(bytes)).toBe("xlsx");
     const fromBook = analyzeRead(await readGasExchangeFile(bytes));

@@ -3,7 +3,16 @@
  * The first sheet is read unless another is named; the header is the first row with text in it. Old binary formats are
  * refused with what to do instead.
  */
-import { cellValue, EMPTY, readGasExchangeCsv, readTable, type ColumnMapping, type NumericColumns, type ReadOptions, type ReadResult } from "./csv";
+import {
+  cellValue,
+  EMPTY,
+  readGasExchangeCsv,
+  readTable,
+  type ColumnMapping,
+  type NumericColumns,
+  type ReadOptions,
+  type ReadResult,
+} from "./csv";
 
 export type FileKind = "csv" | "xlsx" | "xls" | "binary";
 
@@ -17,7 +26,8 @@ export function fileKind(bytes: Uint8Array): FileKind {
 
 export const REFUSED_KINDS: Record<"xls" | "binary", string> = {
   xls: "This is an old Excel workbook (.xls), which Tidemark cannot read. Open it and save it as .xlsx or as CSV, then upload that.",
-  binary: "This file is not a text CSV or an .xlsx workbook (it contains binary data). Export the test as CSV or .xlsx and try again.",
+  binary:
+    "This file is not a text CSV or an .xlsx workbook (it contains binary data). Export the test as CSV or .xlsx and try again.",
 };
 
 const EXCEL_EPOCH_MS = Date.UTC(1899, 11, 30);
@@ -45,7 +55,11 @@ function cellText(v: unknown): string {
   if (typeof v === "string" || typeof v === "number") return String(v).trim();
   if (typeof v === "object") {
     const o = v as { result?: unknown; richText?: { text: string }[]; text?: string };
-    if (o.richText) return o.richText.map((r) => r.text).join("").trim();
+    if (o.richText)
+      return o.richText
+        .map((r) => r.text)
+        .join("")
+        .trim();
     if (typeof o.text === "string") return o.text.trim();
     if ("result" in o) return cellText(o.result);
   }
@@ -54,18 +68,30 @@ function cellText(v: unknown): string {
 
 export type WorkbookRead = ReadResult & { sheets: string[]; sheet: string | null };
 
-export async function readGasExchangeWorkbook(bytes: Uint8Array, mapping: ColumnMapping = {}, opts: ReadOptions & { sheet?: string | null } = {}): Promise<WorkbookRead> {
+export async function readGasExchangeWorkbook(
+  bytes: Uint8Array,
+  mapping: ColumnMapping = {},
+  opts: ReadOptions & { sheet?: string | null } = {},
+): Promise<WorkbookRead> {
   const ExcelJS = (await import("exceljs")).default;
   const wb = new ExcelJS.Workbook();
   try {
     await wb.xlsx.load(bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.byteLength) as ArrayBuffer);
   } catch {
-    return { ok: false, error: "The workbook could not be opened (damaged or not an .xlsx file). Save it again as .xlsx or CSV.", headers: [], sheets: [], sheet: null };
+    return {
+      ok: false,
+      error: "The workbook could not be opened (damaged or not an .xlsx file). Save it again as .xlsx or CSV.",
+      headers: [],
+      sheets: [],
+      sheet: null,
+    };
   }
   const sheets = wb.worksheets.map((w) => w.name);
   const ws = opts.sheet ? wb.getWorksheet(opts.sheet) : wb.worksheets[0];
   if (!ws) {
-    const error = opts.sheet ? `The workbook has no sheet "${opts.sheet}". Its sheets: ${sheets.join(", ") || "none"}.` : "The workbook has no sheets.";
+    const error = opts.sheet
+      ? `The workbook has no sheet "${opts.sheet}". Its sheets: ${sheets.join(", ") || "none"}.`
+      : "The workbook has no sheets.";
     return { ok: false, error, headers: [], sheets, sheet: null };
   }
   const rows: unknown[][] = [];
@@ -74,13 +100,24 @@ export async function readGasExchangeWorkbook(bytes: Uint8Array, mapping: Column
     rows.push(values.slice(1));
   });
   const headerAt = rows.findIndex((r) => r.some((v) => typeof v === "string" && v.trim() !== ""));
-  if (headerAt < 0) return { ok: false, error: `The sheet "${ws.name}" has no header row.`, headers: [], sheets, sheet: ws.name };
+  if (headerAt < 0)
+    return { ok: false, error: `The sheet "${ws.name}" has no header row.`, headers: [], sheets, sheet: ws.name };
   const headers = rows[headerAt]!.map(cellText);
   const body = rows.slice(headerAt + 1).filter((r) => r.some((v) => cellText(v) !== ""));
-  if (!body.length) return { ok: false, error: `The sheet "${ws.name}" has no data rows under its header.`, headers, sheets, sheet: ws.name };
+  if (!body.length)
+    return {
+      ok: false,
+      error: `The sheet "${ws.name}" has no data rows under its header.`,
+      headers,
+      sheets,
+      sheet: ws.name,
+    };
   const read = readTable(
     headers,
-    (wanted, timeAt): NumericColumns => ({ rows: body.length, values: wanted.map((col) => body.map((r) => cellNumber(r[col], col === timeAt))) }),
+    (wanted, timeAt): NumericColumns => ({
+      rows: body.length,
+      values: wanted.map((col) => body.map((r) => cellNumber(r[col], col === timeAt))),
+    }),
     mapping,
     opts,
   );
@@ -88,7 +125,11 @@ export async function readGasExchangeWorkbook(bytes: Uint8Array, mapping: Column
 }
 
 /** Any supported export, by its content: CSV text or an .xlsx workbook. */
-export async function readGasExchangeFile(bytes: Uint8Array, mapping: ColumnMapping = {}, opts: ReadOptions & { sheet?: string | null } = {}): Promise<ReadResult & { sheets?: string[]; sheet?: string | null }> {
+export async function readGasExchangeFile(
+  bytes: Uint8Array,
+  mapping: ColumnMapping = {},
+  opts: ReadOptions & { sheet?: string | null } = {},
+): Promise<ReadResult & { sheets?: string[]; sheet?: string | null }> {
   const kind = fileKind(bytes);
   if (kind === "xls" || kind === "binary") return { ok: false, error: REFUSED_KINDS[kind], headers: [] };
   if (kind === "xlsx") return readGasExchangeWorkbook(bytes, mapping, opts);

@@ -41,15 +41,24 @@ export interface DriftResult {
   message: string;
 }
 
-
-export function detectDrift(entries: DriftEntry[], zoneSetFrom: string, today: string, unit: "W" | "km/h", opts: DriftOptions = {}): DriftResult | null {
+export function detectDrift(
+  entries: DriftEntry[],
+  zoneSetFrom: string,
+  today: string,
+  unit: "W" | "km/h",
+  opts: DriftOptions = {},
+): DriftResult | null {
   const { baselineDays = 21, recentDays = 21, thresholdBpm = 5, minBaseline = 3, minRecent = 3 } = opts;
-  const start = dayNumber(zoneSetFrom), now = dayNumber(today);
+  const start = dayNumber(zoneSetFrom),
+    now = dayNumber(today);
   const baseline = entries.filter((e) => dayNumber(e.date) >= start && dayNumber(e.date) < start + baselineDays);
   if (baseline.length < minBaseline) return null;
-  const xs = baseline.map((e) => e.x), ys = baseline.map((e) => e.hrAvgBpm);
-  const mx = xs.reduce((a, b) => a + b, 0) / xs.length, my = ys.reduce((a, b) => a + b, 0) / ys.length;
-  let sxx = 0, sxy = 0;
+  const xs = baseline.map((e) => e.x),
+    ys = baseline.map((e) => e.hrAvgBpm);
+  const mx = xs.reduce((a, b) => a + b, 0) / xs.length,
+    my = ys.reduce((a, b) => a + b, 0) / ys.length;
+  let sxx = 0,
+    sxy = 0;
   for (let i = 0; i < xs.length; i++) {
     sxx += (xs[i]! - mx) ** 2;
     sxy += (xs[i]! - mx) * (ys[i]! - my);
@@ -57,8 +66,15 @@ export function detectDrift(entries: DriftEntry[], zoneSetFrom: string, today: s
   // Too little spread in power to fit a slope: compare with the baseline mean (the recent sessions are at that power anyway).
   const slope = sxx > 0 && Math.sqrt(sxx / xs.length) > 0.02 * mx ? sxy / sxx : 0;
   const predict = (x: number) => my + slope * (x - mx);
-  const lo = Math.min(...xs) * 0.9, hi = Math.max(...xs) * 1.1;
-  const recent = entries.filter((e) => dayNumber(e.date) >= Math.max(start + baselineDays, now - recentDays) && dayNumber(e.date) <= now && e.x >= lo && e.x <= hi);
+  const lo = Math.min(...xs) * 0.9,
+    hi = Math.max(...xs) * 1.1;
+  const recent = entries.filter(
+    (e) =>
+      dayNumber(e.date) >= Math.max(start + baselineDays, now - recentDays) &&
+      dayNumber(e.date) <= now &&
+      e.x >= lo &&
+      e.x <= hi,
+  );
   if (recent.length < minRecent) return null;
   const diffs = recent.map((e) => e.hrAvgBpm - predict(e.x));
   const meanDiff = diffs.reduce((a, b) => a + b, 0) / diffs.length;
@@ -71,7 +87,17 @@ export function detectDrift(entries: DriftEntry[], zoneSetFrom: string, today: s
   const message = drifted
     ? `Heart rate at ${at} is ${Math.round(seen)} bpm over the last ${recent.length} sessions, against ${Math.round(expected)} bpm when the zones were set (${meanDiff > 0 ? "+" : ""}${Math.round(meanDiff)} bpm). ${direction === "up" ? "Fatigue, illness, heat or lost fitness can do this" : "Fitness has probably improved"}; consider an earlier retest.`
     : `Heart rate at the same ${unit === "W" ? "power" : "speed"} is within ${thresholdBpm} bpm of the baseline (${meanDiff > 0 ? "+" : ""}${meanDiff.toFixed(1)} bpm).`;
-  return { drifted, direction, meanDiffBpm: meanDiff, baselineSessions: baseline.length, recentSessions: recent.length, atX, expectedHrBpm: expected, recentHrBpm: seen, message };
+  return {
+    drifted,
+    direction,
+    meanDiffBpm: meanDiff,
+    baselineSessions: baseline.length,
+    recentSessions: recent.length,
+    atX,
+    expectedHrBpm: expected,
+    recentHrBpm: seen,
+    message,
+  };
 }
 
 export interface DriftLog {
@@ -83,14 +109,24 @@ export interface DriftLog {
 }
 
 /** Drift per sport since that sport's latest zone set, against power where the logs have it, else speed; a drifted one first. */
-export function driftAcrossSports(logs: DriftLog[], zoneSets: { sport: string; effectiveFrom: string }[], today: string): (DriftResult & { sport: string }) | null {
+export function driftAcrossSports(
+  logs: DriftLog[],
+  zoneSets: { sport: string; effectiveFrom: string }[],
+  today: string,
+): (DriftResult & { sport: string }) | null {
   let best: (DriftResult & { sport: string }) | null = null;
   for (const sport of new Set(zoneSets.map((z) => z.sport))) {
-    const from = zoneSets.filter((z) => z.sport === sport && z.effectiveFrom <= today).map((z) => z.effectiveFrom).sort().at(-1);
+    const from = zoneSets
+      .filter((z) => z.sport === sport && z.effectiveFrom <= today)
+      .map((z) => z.effectiveFrom)
+      .sort()
+      .at(-1);
     if (!from) continue;
     const usePower = logs.some((l) => l.sport === sport && l.powerAvgW != null);
     const entries = logs
-      .filter((l) => l.sport === sport && l.hrAvgBpm != null && (usePower ? l.powerAvgW != null : l.speedAvgKmh != null))
+      .filter(
+        (l) => l.sport === sport && l.hrAvgBpm != null && (usePower ? l.powerAvgW != null : l.speedAvgKmh != null),
+      )
       .map((l) => ({ date: l.date, hrAvgBpm: l.hrAvgBpm!, x: usePower ? l.powerAvgW! : l.speedAvgKmh! }));
     const r = detectDrift(entries, from, today, usePower ? "W" : "km/h");
     if (r && (!best || (r.drifted && !best.drifted))) best = { ...r, sport };

@@ -1,5 +1,16 @@
 import { describe, expect, it } from "vitest";
-import { acwrEwmaSeries, acwrFlag, acwrRolling, banisterTrimp, edwardsTrimp, edwardsTrimpFromBands, monotonyAndStrain, sessionRpeLoad, timeInZone, toOneHz } from "./load";
+import {
+  acwrEwmaSeries,
+  acwrFlag,
+  acwrRolling,
+  banisterTrimp,
+  edwardsTrimp,
+  edwardsTrimpFromBands,
+  monotonyAndStrain,
+  sessionRpeLoad,
+  timeInZone,
+  toOneHz,
+} from "./load";
 
 describe("training load", () => {
   it("session-RPE load: 60 min at RPE 5 → 300 AU (Foster et al. 2001)", () => {
@@ -7,9 +18,15 @@ describe("training load", () => {
   });
 
   it("Banister TRIMP: 60 min, rest 60, max 190, average 150, male → about 100 (Banister 1991)", () => {
-    expect(banisterTrimp({ minutes: 60, hrAvgBpm: 150, hrRestBpm: 60, hrMaxBpm: 190, sex: "male" })).toBeCloseTo(100.4, 0);
+    expect(banisterTrimp({ minutes: 60, hrAvgBpm: 150, hrRestBpm: 60, hrMaxBpm: 190, sex: "male" })).toBeCloseTo(
+      100.4,
+      0,
+    );
     // Female weighting 0.86·e^(1.67x): 60 × 0.6923 × 0.86 × e^(1.1562) = 113.5 (hand calculation).
-    expect(banisterTrimp({ minutes: 60, hrAvgBpm: 150, hrRestBpm: 60, hrMaxBpm: 190, sex: "female" })).toBeCloseTo(113.5, 0);
+    expect(banisterTrimp({ minutes: 60, hrAvgBpm: 150, hrRestBpm: 60, hrMaxBpm: 190, sex: "female" })).toBeCloseTo(
+      113.5,
+      0,
+    );
   });
 
   it("Edwards TRIMP weights 50–100 % HRmax bands 1 to 5 (Edwards 1993)", () => {
@@ -53,7 +70,14 @@ describe("training load", () => {
   });
 
   it("resamples to 1 Hz and leaves long gaps empty", () => {
-    const out = toOneHz([{ timeS: 0, value: 100 }, { timeS: 2, value: 110 }, { timeS: 20, value: 120 }], 5);
+    const out = toOneHz(
+      [
+        { timeS: 0, value: 100 },
+        { timeS: 2, value: 110 },
+        { timeS: 20, value: 120 },
+      ],
+      5,
+    );
     expect(out.slice(0, 4)).toEqual([100, 100, 110, 110]);
     expect(out[10]).toBeNull();
     expect(out[20]).toBe(120);

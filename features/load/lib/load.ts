@@ -9,7 +9,13 @@ export function sessionRpeLoad(rpe: number, minutes: number): number {
   return rpe * minutes;
 }
 
-export function banisterTrimp(p: { minutes: number; hrAvgBpm: number; hrRestBpm: number; hrMaxBpm: number; sex: "female" | "male" }): number {
+export function banisterTrimp(p: {
+  minutes: number;
+  hrAvgBpm: number;
+  hrRestBpm: number;
+  hrMaxBpm: number;
+  sex: "female" | "male";
+}): number {
   const x = (p.hrAvgBpm - p.hrRestBpm) / (p.hrMaxBpm - p.hrRestBpm);
   if (!Number.isFinite(x) || x <= 0) return 0;
   const weight = p.sex === "male" ? 0.64 * Math.exp(1.92 * x) : 0.86 * Math.exp(1.67 * x);
@@ -44,8 +50,10 @@ export function acwrRolling(dailyLoads: number[]): number | null {
 
 /** Exponentially weighted ACWR series (Williams et al. 2017): λ = 2/(N+1), N = 7 and 28 days. */
 export function acwrEwmaSeries(dailyLoads: number[]): { acute: number; chronic: number; ratio: number | null }[] {
-  const la = 2 / (7 + 1), lc = 2 / (28 + 1);
-  let acute = 0, chronic = 0;
+  const la = 2 / (7 + 1),
+    lc = 2 / (28 + 1);
+  let acute = 0,
+    chronic = 0;
   return dailyLoads.map((load, i) => {
     if (i === 0) {
       acute = load;
@@ -68,7 +76,11 @@ export function acwrFlag(ratio: number | null): "low" | "high" | null {
 }
 
 /** Monotony = mean daily load ÷ its standard deviation (population SD, 7 days incl. rest days); strain = weekly load × monotony. */
-export function monotonyAndStrain(weekDailyLoads: number[]): { weeklyLoad: number; monotony: number | null; strain: number | null } {
+export function monotonyAndStrain(weekDailyLoads: number[]): {
+  weeklyLoad: number;
+  monotony: number | null;
+  strain: number | null;
+} {
   if (weekDailyLoads.length !== 7) throw new Error("Monotony needs the seven daily loads of a week (0 for rest days).");
   const weeklyLoad = weekDailyLoads.reduce((s, v) => s + v, 0);
   const mean = weeklyLoad / 7;

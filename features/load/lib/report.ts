@@ -96,9 +96,11 @@ export const EWMA_HISTORY_DAYS = 180;
  * "not enough history" (one day of logs would otherwise read as a ratio of 4, flagged). */
 export const MIN_HISTORY_DAYS = 21;
 
-const enoughHistory = (day: number, firstLogDate: string | null | undefined) => !!firstLogDate && day - dayNum(firstLogDate) + 1 >= MIN_HISTORY_DAYS;
+const enoughHistory = (day: number, firstLogDate: string | null | undefined) =>
+  !!firstLogDate && day - dayNum(firstLogDate) + 1 >= MIN_HISTORY_DAYS;
 /** The athlete's first logged day as given, or else the earliest of the logs passed in. */
-const firstOf = (given: string | null | undefined, logs: ReportLog[]) => given ?? logs.reduce<string | null>((m, l) => (m === null || l.date < m ? l.date : m), null);
+const firstOf = (given: string | null | undefined, logs: ReportLog[]) =>
+  given ?? logs.reduce<string | null>((m, l) => (m === null || l.date < m ? l.date : m), null);
 
 /** The first day of the EWMA series for a report starting on `firstDay`, given the athlete's first logged day. */
 export function ewmaStart(firstLogDate: string | null | undefined, firstDay: string): string {
@@ -133,10 +135,18 @@ function ewmaRatios(logs: ReportLog[], start: number, first: number, last: numbe
   return out;
 }
 
-export function loadReport(p: { logs: ReportLog[]; planned: ReportPlanned[]; from: string; to: string; firstLogDate?: string | null; trimpMethod?: string | null }): LoadReport {
+export function loadReport(p: {
+  logs: ReportLog[];
+  planned: ReportPlanned[];
+  from: string;
+  to: string;
+  firstLogDate?: string | null;
+  trimpMethod?: string | null;
+}): LoadReport {
   const trimpMethod = p.trimpMethod ?? null;
   let trimpOtherMethod = 0;
-  const first = dayNum(p.from), last = dayNum(p.to);
+  const first = dayNum(p.from),
+    last = dayNum(p.to);
   const firstLog = firstOf(p.firstLogDate, p.logs);
   const ewmaByDay = ewmaRatios(p.logs, dayNum(ewmaStart(firstLog, p.from)), first, last);
   const origin = first - 27;
@@ -155,7 +165,12 @@ export function loadReport(p: { logs: ReportLog[]; planned: ReportPlanned[]; fro
   const days: DayLoad[] = [];
   for (let n = first; n <= last; n++) {
     const i = n - origin;
-    days.push({ date: isoOf(n), load: daily[i]!, acwrRolling: enoughHistory(n, firstLog) ? acwrRolling(daily.slice(Math.max(0, i - 27), i + 1)) : null, acwrEwma: ewmaByDay[n - first]! });
+    days.push({
+      date: isoOf(n),
+      load: daily[i]!,
+      acwrRolling: enoughHistory(n, firstLog) ? acwrRolling(daily.slice(Math.max(0, i - 27), i + 1)) : null,
+      acwrEwma: ewmaByDay[n - first]!,
+    });
   }
   // Bucket logs and planned sessions by week once (day numbers parsed once each).
   const firstMonday = mondayNum(first);
@@ -173,12 +188,16 @@ export function loadReport(p: { logs: ReportLog[]; planned: ReportPlanned[]; fro
   const weeks: WeekLoad[] = [];
   for (let k = 0; k < weekCount; k++) {
     const w = firstMonday + 7 * k;
-    const week = Array.from({ length: 7 }, (_, j) => (w + j - origin >= 0 && w + j - origin < daily.length ? daily[w + j - origin]! : 0));
+    const week = Array.from({ length: 7 }, (_, j) =>
+      w + j - origin >= 0 && w + j - origin < daily.length ? daily[w + j - origin]! : 0,
+    );
     const ms = monotonyAndStrain(week);
     const logs = logsByWeek[k]!;
     const planned = plannedByWeek[k]!;
     const minByZone: Shares = [0, 0, 0];
-    let measured = 0, trimp = 0, doneMin = 0;
+    let measured = 0,
+      trimp = 0,
+      doneMin = 0;
     for (const l of logs) {
       const z = logZoneMinutes(l, l.plannedSessionId ? plannedById.get(l.plannedSessionId) : undefined);
       if (z) for (let i = 0; i < 3; i++) minByZone[i]! += z[i]!;
@@ -209,7 +228,18 @@ export function loadReport(p: { logs: ReportLog[]; planned: ReportPlanned[]; fro
   }
   const lastDay = days.at(-1);
   const latestRatio = lastDay?.acwrEwma ?? lastDay?.acwrRolling ?? null;
-  return { days, weeks, latest: { acwrRolling: lastDay?.acwrRolling ?? null, acwrEwma: lastDay?.acwrEwma ?? null, flag: acwrFlag(latestRatio) }, unratedLogs: unrated, trimpMethod, trimpOtherMethod };
+  return {
+    days,
+    weeks,
+    latest: {
+      acwrRolling: lastDay?.acwrRolling ?? null,
+      acwrEwma: lastDay?.acwrEwma ?? null,
+      flag: acwrFlag(latestRatio),
+    },
+    unratedLogs: unrated,
+    trimpMethod,
+    trimpOtherMethod,
+  };
 }
 
 /**
@@ -217,7 +247,8 @@ export function loadReport(p: { logs: ReportLog[]; planned: ReportPlanned[]; fro
  * `loadReport({ from: today − 27, to: today }).latest`, for many athletes at once.
  */
 export function latestLoad(logs: ReportLog[], today: string, firstLogDate?: string | null): LoadReport["latest"] {
-  const last = dayNum(today), origin = last - 27;
+  const last = dayNum(today),
+    origin = last - 27;
   const { daily } = dailyLoads(logs, origin, 28);
   const firstLog = firstOf(firstLogDate, logs);
   const ewma = ewmaRatios(logs, dayNum(ewmaStart(firstLog, today)), last, last)[0]!;

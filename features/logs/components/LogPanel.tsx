@@ -35,7 +35,17 @@ function errorText(e: unknown): string {
 }
 
 /** Mark a planned session done, partly done or skipped; edit or undo it for 7 days; attach the recorded file. */
-export function LogPanel({ sessionId, athleteId, plannedMin, log }: { sessionId: string; athleteId: string; plannedMin: number; log: LogView | null }) {
+export function LogPanel({
+  sessionId,
+  athleteId,
+  plannedMin,
+  log,
+}: {
+  sessionId: string;
+  athleteId: string;
+  plannedMin: number;
+  log: LogView | null;
+}) {
   const router = useRouter();
   const [editing, setEditing] = useState(!log);
   const [status, setStatus] = useState<LogView["status"]>(log?.status ?? "done");
@@ -52,9 +62,16 @@ export function LogPanel({ sessionId, athleteId, plannedMin, log }: { sessionId:
     if (busy) return;
     const f = new FormData(e.currentTarget);
     const num = (k: string) => (f.get(k) === "" || f.get(k) === null ? null : Number(f.get(k)));
-    const body = status === "skipped"
-      ? { status, skipReason: String(f.get("skipReason") ?? ""), notes: String(f.get("notes") ?? "") }
-      : { status, durationMin: num("durationMin"), distanceKm: num("distanceKm"), rpe: num("rpe"), notes: String(f.get("notes") ?? "") };
+    const body =
+      status === "skipped"
+        ? { status, skipReason: String(f.get("skipReason") ?? ""), notes: String(f.get("notes") ?? "") }
+        : {
+            status,
+            durationMin: num("durationMin"),
+            distanceKm: num("distanceKm"),
+            rpe: num("rpe"),
+            notes: String(f.get("notes") ?? ""),
+          };
     setBusy(true);
     setError(undefined);
     try {
@@ -92,9 +109,17 @@ export function LogPanel({ sessionId, athleteId, plannedMin, log }: { sessionId:
     setError(undefined);
     setProgress(0);
     try {
-      const r = await uploadWithProgress<{ timeInZone: { minutesByZone: number[] } | null; warnings: string[] }>(`/api/athletes/${athleteId}/activities`, form, (p) => setProgress(p * 0.9));
+      const r = await uploadWithProgress<{ timeInZone: { minutesByZone: number[] } | null; warnings: string[] }>(
+        `/api/athletes/${athleteId}/activities`,
+        form,
+        (p) => setProgress(p * 0.9),
+      );
       setProgress(1);
-      setNotice(r.timeInZone ? `File read: ${r.timeInZone.minutesByZone.map((m, i) => `zone ${i + 1} ${Math.round(m)} min`).join(", ")}.${r.warnings.length ? ` ${r.warnings.join(" ")}` : ""}` : `File read. ${r.warnings.join(" ")}`);
+      setNotice(
+        r.timeInZone
+          ? `File read: ${r.timeInZone.minutesByZone.map((m, i) => `zone ${i + 1} ${Math.round(m)} min`).join(", ")}.${r.warnings.length ? ` ${r.warnings.join(" ")}` : ""}`
+          : `File read. ${r.warnings.join(" ")}`,
+      );
       router.refresh();
     } catch (err) {
       setError(errorText(err));
@@ -111,7 +136,9 @@ export function LogPanel({ sessionId, athleteId, plannedMin, log }: { sessionId:
         <div className="space-y-1 text-sm" data-testid="log-summary">
           <p>
             <span className="font-semibold">{LOG_STATUS_LABELS[log.status]}</span>
-            {log.status === "skipped" ? <> · {log.skipReason}</> : (
+            {log.status === "skipped" ? (
+              <> · {log.skipReason}</>
+            ) : (
               <span className="num">
                 {log.durationMin != null ? ` · ${Math.round(log.durationMin)} of ${Math.round(plannedMin)} min` : ""}
                 {log.distanceKm != null ? ` · ${log.distanceKm.toFixed(1)} km` : ""}
@@ -119,14 +146,25 @@ export function LogPanel({ sessionId, athleteId, plannedMin, log }: { sessionId:
               </span>
             )}
           </p>
-          {log.measuredMinByZone ? <p className="num text-ink-soft">Measured by {MEASURE_LABEL[log.zoneMeasure ?? ""] ?? "file"}: {log.measuredMinByZone.map((m, i) => `zone ${i + 1} ${Math.round(m)} min`).join(" · ")}</p> : null}
+          {log.measuredMinByZone ? (
+            <p className="num text-ink-soft">
+              Measured by {MEASURE_LABEL[log.zoneMeasure ?? ""] ?? "file"}:{" "}
+              {log.measuredMinByZone.map((m, i) => `zone ${i + 1} ${Math.round(m)} min`).join(" · ")}
+            </p>
+          ) : null}
           {log.notes ? <p className="text-ink-soft">“{log.notes}”</p> : null}
           {editable ? (
             <p className="flex flex-wrap gap-2">
-              <button type="button" className="btn-quiet py-1" onClick={() => setEditing(true)}>Edit the log</button>
-              <button type="button" className="btn-quiet py-1" onClick={undo} disabled={busy}>Undo</button>
+              <button type="button" className="btn-quiet py-1" onClick={() => setEditing(true)}>
+                Edit the log
+              </button>
+              <button type="button" className="btn-quiet py-1" onClick={undo} disabled={busy}>
+                Undo
+              </button>
             </p>
-          ) : <p className="text-xs text-ink-soft">Logs can be changed for 7 days.</p>}
+          ) : (
+            <p className="text-xs text-ink-soft">Logs can be changed for 7 days.</p>
+          )}
         </div>
       ) : null}
       {editing && editable ? (
@@ -135,30 +173,63 @@ export function LogPanel({ sessionId, athleteId, plannedMin, log }: { sessionId:
             <legend className="field-label">How did it go?</legend>
             {(["done", "partial", "skipped"] as const).map((s) => (
               <label key={s} className="flex items-center gap-1">
-                <input type="radio" name="status" value={s} checked={status === s} onChange={() => setStatus(s)} /> {LOG_STATUS_LABELS[s]}
+                <input type="radio" name="status" value={s} checked={status === s} onChange={() => setStatus(s)} />{" "}
+                {LOG_STATUS_LABELS[s]}
               </label>
             ))}
           </fieldset>
           {status === "skipped" ? (
             <label className="block">
               <span className="field-label">Why was it skipped?</span>
-              <input name="skipReason" className="field-input" defaultValue={log?.skipReason ?? ""} maxLength={500} required placeholder="Ill, travelling, no time…" />
+              <input
+                name="skipReason"
+                className="field-input"
+                defaultValue={log?.skipReason ?? ""}
+                maxLength={500}
+                required
+                placeholder="Ill, travelling, no time…"
+              />
             </label>
           ) : (
             <div className="grid gap-3 sm:grid-cols-3">
               <label className="block">
                 <span className="field-label">Duration (min)</span>
-                <input name="durationMin" type="number" inputMode="decimal" min={1} max={1440} step="any" required className="field-input num" defaultValue={log?.durationMin ?? Math.round(plannedMin)} />
+                <input
+                  name="durationMin"
+                  type="number"
+                  inputMode="decimal"
+                  min={1}
+                  max={1440}
+                  step="any"
+                  required
+                  className="field-input num"
+                  defaultValue={log?.durationMin ?? Math.round(plannedMin)}
+                />
               </label>
               <label className="block">
                 <span className="field-label">Distance (km, optional)</span>
-                <input name="distanceKm" type="number" inputMode="decimal" min={0} max={1000} step="any" className="field-input num" defaultValue={log?.distanceKm ?? ""} />
+                <input
+                  name="distanceKm"
+                  type="number"
+                  inputMode="decimal"
+                  min={0}
+                  max={1000}
+                  step="any"
+                  className="field-input num"
+                  defaultValue={log?.distanceKm ?? ""}
+                />
               </label>
               <label className="block">
                 <span className="field-label">Effort, whole session (RPE 0–10)</span>
                 <select name="rpe" required className="field-input" defaultValue={log?.rpe ?? ""}>
-                  <option value="" disabled>Choose…</option>
-                  {CR10_ANCHORS.map((a) => <option key={a.value} value={a.value}>{a.value} · {a.label}</option>)}
+                  <option value="" disabled>
+                    Choose…
+                  </option>
+                  {CR10_ANCHORS.map((a) => (
+                    <option key={a.value} value={a.value}>
+                      {a.value} · {a.label}
+                    </option>
+                  ))}
                 </select>
               </label>
             </div>
@@ -168,8 +239,14 @@ export function LogPanel({ sessionId, athleteId, plannedMin, log }: { sessionId:
             <textarea name="notes" className="field-input" rows={2} maxLength={2000} defaultValue={log?.notes ?? ""} />
           </label>
           <p className="flex gap-2">
-            <SubmitButton className="btn" disabled={busy}>{busy ? "Saving…" : log ? "Save the changes" : "Save the log"}</SubmitButton>
-            {log ? <button type="button" className="btn-quiet" onClick={() => setEditing(false)}>Cancel</button> : null}
+            <SubmitButton className="btn" disabled={busy}>
+              {busy ? "Saving…" : log ? "Save the changes" : "Save the log"}
+            </SubmitButton>
+            {log ? (
+              <button type="button" className="btn-quiet" onClick={() => setEditing(false)}>
+                Cancel
+              </button>
+            ) : null}
           </p>
           <p className="text-xs text-ink-soft">Rate the session as a whole about half an hour after it ended.</p>
         </form>
@@ -177,11 +254,24 @@ export function LogPanel({ sessionId, athleteId, plannedMin, log }: { sessionId:
       {!log?.hasFile && (log?.status ?? "done") !== "skipped" ? (
         <label className="block text-sm">
           <span className="field-label">Recorded file (FIT, TCX, GPX or CSV, up to 25 MB)</span>
-          <input type="file" accept=".fit,.tcx,.gpx,.csv" className="text-sm" disabled={progress !== null} onChange={(e) => e.target.files?.[0] && upload(e.target.files[0])} />
+          <input
+            type="file"
+            accept=".fit,.tcx,.gpx,.csv"
+            className="text-sm"
+            disabled={progress !== null}
+            onChange={(e) => e.target.files?.[0] && upload(e.target.files[0])}
+          />
         </label>
       ) : null}
       {progress !== null ? (
-        <div role="progressbar" aria-label="Uploading and reading the file" aria-valuemin={0} aria-valuemax={100} aria-valuenow={Math.round(progress * 100)} className="h-2 overflow-hidden rounded bg-ground">
+        <div
+          role="progressbar"
+          aria-label="Uploading and reading the file"
+          aria-valuemin={0}
+          aria-valuemax={100}
+          aria-valuenow={Math.round(progress * 100)}
+          className="h-2 overflow-hidden rounded bg-ground"
+        >
           <div className="h-full bg-tide transition-all" style={{ width: `${progress * 100}%` }} />
         </div>
       ) : null}

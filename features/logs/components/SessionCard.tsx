@@ -8,7 +8,10 @@ const KIND: Record<string, string> = { warmup: "Warm-up", work: "Work", recovery
 const SWATCH = ["bg-zone-1", "bg-zone-2", "bg-zone-3"];
 
 function amount(s: Extract<Block, { type: "step" }>): string {
-  if (s.durationS !== undefined) return s.durationS % 60 === 0 ? `${s.durationS / 60} min` : `${Math.floor(s.durationS / 60)} min ${s.durationS % 60} s`;
+  if (s.durationS !== undefined)
+    return s.durationS % 60 === 0
+      ? `${s.durationS / 60} min`
+      : `${Math.floor(s.durationS / 60)} min ${s.durationS % 60} s`;
   return s.distanceM! >= 1000 ? `${(s.distanceM! / 1000).toFixed(s.distanceM! % 1000 ? 1 : 0)} km` : `${s.distanceM} m`;
 }
 
@@ -23,11 +26,16 @@ function Steps({ blocks, zones, sport }: { blocks: Block[]; zones: Zone[] | null
           </li>
         ) : (
           <li key={i} className="flex flex-wrap items-baseline gap-x-2 text-sm">
-            <span aria-hidden className={`inline-block h-3 w-3 rounded-sm border border-ink/20 ${SWATCH[b.zone - 1]}`} />
+            <span
+              aria-hidden
+              className={`inline-block h-3 w-3 rounded-sm border border-ink/20 ${SWATCH[b.zone - 1]}`}
+            />
             <span className="font-semibold">{KIND[b.kind]}</span>
             <span className="num">{amount(b)}</span>
             <span>zone {b.zone}</span>
-            <span className="num text-ink-soft">{zones ? (targetText(zones[b.zone - 1], sport) ?? "no numbers in the zone set") : "no zone set yet"}</span>
+            <span className="num text-ink-soft">
+              {zones ? (targetText(zones[b.zone - 1], sport) ?? "no numbers in the zone set") : "no zone set yet"}
+            </span>
           </li>
         ),
       )}
@@ -57,15 +65,31 @@ export function SessionCard({ s, canLog }: { s: SessionCardData; canLog: boolean
   return (
     <article className="card space-y-3" aria-label={`Session: ${s.title}`} data-testid="session-card">
       <header className="flex flex-wrap items-baseline justify-between gap-2">
-        <h3 className="text-lg font-bold">{s.kind === "retest" ? "⟳ " : ""}{s.title}</h3>
-        <p className="num text-sm text-ink-soft">{(SPORT_LABELS as Record<string, string>)[s.sport] ?? s.sport} · {Math.round(plannedMin)} min planned</p>
+        <h3 className="text-lg font-bold">
+          {s.kind === "retest" ? "⟳ " : ""}
+          {s.title}
+        </h3>
+        <p className="num text-sm text-ink-soft">
+          {(SPORT_LABELS as Record<string, string>)[s.sport] ?? s.sport} · {Math.round(plannedMin)} min planned
+        </p>
       </header>
       {s.notes ? <p className="text-sm">{s.notes}</p> : null}
       <Steps blocks={s.structure as Block[]} zones={s.zoneSet?.zones ?? null} sport={s.sport} />
-      {s.zoneSet ? <p className="text-xs text-ink-soft">Targets from the zones in force since {s.zoneSet.effectiveFrom}.</p> : null}
+      {s.zoneSet ? (
+        <p className="text-xs text-ink-soft">Targets from the zones in force since {s.zoneSet.effectiveFrom}.</p>
+      ) : null}
       <div>
-        <p className="text-xs font-semibold text-ink-soft">Done: <span className="num">{Math.round(s.compliance * 100)} % of the planned time</span></p>
-        <div className="mt-1 h-2 overflow-hidden rounded bg-ground" role="meter" aria-label="Share of the planned time done" aria-valuemin={0} aria-valuemax={100} aria-valuenow={Math.round(s.compliance * 100)}>
+        <p className="text-xs font-semibold text-ink-soft">
+          Done: <span className="num">{Math.round(s.compliance * 100)} % of the planned time</span>
+        </p>
+        <div
+          className="mt-1 h-2 overflow-hidden rounded bg-ground"
+          role="meter"
+          aria-label="Share of the planned time done"
+          aria-valuemin={0}
+          aria-valuemax={100}
+          aria-valuenow={Math.round(s.compliance * 100)}
+        >
           <div className="h-full bg-ink/70" style={{ width: `${fill * 100}%` }} />
         </div>
       </div>

@@ -31,7 +31,11 @@ function clean(input: z.infer<typeof logSchema> | z.infer<typeof patchLogSchema>
  * Logs a planned session: the athlete themself, or a coach on the athlete's behalf (the log records who). One log per planned
  * session: a repeated submit returns the existing log instead of writing a second one.
  */
-export async function logPlannedSession(actor: Actor, sessionId: string, input: z.infer<typeof logSchema>): Promise<{ log: LogRow; created: boolean }> {
+export async function logPlannedSession(
+  actor: Actor,
+  sessionId: string,
+  input: z.infer<typeof logSchema>,
+): Promise<{ log: LogRow; created: boolean }> {
   const db = getDb();
   const [planned] = await db.select().from(schema.plannedSession).where(eq(schema.plannedSession.id, sessionId));
   if (!planned) throw notFound("No such session.");
@@ -39,25 +43,61 @@ export async function logPlannedSession(actor: Actor, sessionId: string, input: 
   const id = randomUUID();
   const inserted = await db
     .insert(schema.sessionLog)
-    .values({ id, athleteId: planned.athleteId, plannedSessionId: planned.id, date: planned.date, sport: planned.sport, title: planned.title, loggedBy: actor.userId, notes: "", ...clean(input), status: input.status })
+    .values({
+      id,
+      athleteId: planned.athleteId,
+      plannedSessionId: planned.id,
+      date: planned.date,
+      sport: planned.sport,
+      title: planned.title,
+      loggedBy: actor.userId,
+      notes: "",
+      ...clean(input),
+      status: input.status,
+    })
     .onConflictDoNothing({ target: schema.sessionLog.plannedSessionId })
     .returning();
   if (inserted[0]) return { log: inserted[0], created: true };
-  const [existing] = await db.select().from(schema.sessionLog).where(eq(schema.sessionLog.plannedSessionId, planned.id));
+  const [existing] = await db
+    .select()
+    .from(schema.sessionLog)
+    .where(eq(schema.sessionLog.plannedSessionId, planned.id));
   return { log: existing!, created: false };
 }
 
 /** Logs a session that was not planned. A repeated submit with the same client key returns the first log. */
-export async function logUnplannedSession(actor: Actor, athleteId: string, input: z.infer<typeof unplannedLogSchema>): Promise<{ log: LogRow; created: boolean }> {
+export async function logUnplannedSession(
+  actor: Actor,
+  athleteId: string,
+  input: z.infer<typeof unplannedLogSchema>,
+): Promise<{ log: LogRow; created: boolean }> {
   await requireAthleteAccess(actor, athleteId, "edit");
   const db = getDb();
   const { date, sport, title, clientKey, ...rest } = input;
-  const values = { id: randomUUID(), athleteId, date, sport, title, clientKey: clientKey ?? null, loggedBy: actor.userId, notes: "", ...clean(rest), status: rest.status };
+  const values = {
+    id: randomUUID(),
+    athleteId,
+    date,
+    sport,
+    title,
+    clientKey: clientKey ?? null,
+    loggedBy: actor.userId,
+    notes: "",
+    ...clean(rest),
+    status: rest.status,
+  };
   const inserted = clientKey
-    ? await db.insert(schema.sessionLog).values(values).onConflictDoNothing({ target: [schema.sessionLog.athleteId, schema.sessionLog.clientKey] }).returning()
+    ? await db
+        .insert(schema.sessionLog)
+        .values(values)
+        .onConflictDoNothing({ target: [schema.sessionLog.athleteId, schema.sessionLog.clientKey] })
+        .returning()
     : await db.insert(schema.sessionLog).values(values).returning();
   if (inserted[0]) return { log: inserted[0], created: true };
-  const [existing] = await db.select().from(schema.sessionLog).where(and(eq(schema.sessionLog.athleteId, athleteId), eq(schema.sessionLog.clientKey, clientKey!)));
+  const [existing] = await db
+    .select()
+    .from(schema.sessionLog)
+    .where(and(eq(schema.sessionLog.athleteId, athleteId), eq(schema.sessionLog.clientKey, clientKey!)));
   return { log: existing!, created: false };
 }
 
@@ -65,18 +105,36 @@ async function loadLog(actor: Actor, id: string): Promise<LogRow> {
   const [row] = await getDb().select().from(schema.sessionLog).where(eq(schema.sessionLog.id, id));
   if (!row) throw notFound("No such log.");
   await requireAthleteAccessOrNotFound(actor, row.athleteId, "edit", "No such log.");
-  if (editableUntil(row.createdAt).getTime() < Date.now()) throw new HttpError(409, `A log can be changed for ${LOG_EDIT_DAYS} days after it was made; this one is older.`);
+  if (editableUntil(row.createdAt).getTime() < Date.now())
+    throw new HttpError(409, `A log can be changed for ${LOG_EDIT_DAYS} days after it was made; this one is older.`);
   return row;
 }
 
 export async function updateLog(actor: Actor, id: string, patch: z.infer<typeof patchLogSchema>): Promise<LogRow> {
   const row = await loadLog(actor, id);
-  const merged = { status: patch.status ?? row.status, durationMin: patch.durationMin !== undefined ? patch.durationMin : row.durationMin, rpe: patch.rpe !== undefined ? patch.rpe : row.rpe, skipReason: patch.skipReason !== undefined ? patch.skipReason : row.skipReason };
-  if (merged.status === "skipped" && !merged.skipReason) throw new HttpError(400, "Some fields are not valid.", { fieldErrors: { skipReason: ["Say why the session was skipped (a few words are enough)."] } });
+  const merged = {
+    status: patch.status ?? row.status,
+    durationMin: patch.durationMin !== undefined ? patch.durationMin : row.durationMin,
+    rpe: patch.rpe !== undefined ? patch.rpe : row.rpe,
+    skipReason: patch.skipReason !== undefined ? patch.skipReason : row.skipReason,
+  };
+  if (merged.status === "skipped" && !merged.skipReason)
+    throw new HttpError(400, "Some fields are not valid.", {
+      fieldErrors: { skipReason: ["Say why the session was skipped (a few words are enough)."] },
+    });
   if (merged.status !== "skipped" && (merged.durationMin == null || merged.rpe == null)) {
-    throw new HttpError(400, "Some fields are not valid.", { fieldErrors: { ...(merged.durationMin == null ? { durationMin: ["Give how many minutes you trained."] } : {}), ...(merged.rpe == null ? { rpe: ["Rate the whole session from 0 (rest) to 10 (maximal)."] } : {}) } });
+    throw new HttpError(400, "Some fields are not valid.", {
+      fieldErrors: {
+        ...(merged.durationMin == null ? { durationMin: ["Give how many minutes you trained."] } : {}),
+        ...(merged.rpe == null ? { rpe: ["Rate the whole session from 0 (rest) to 10 (maximal)."] } : {}),
+      },
+    });
   }
-  const [updated] = await getDb().update(schema.sessionLog).set({ ...clean({ ...patch, status: merged.status }), loggedBy: actor.userId }).where(eq(schema.sessionLog.id, id)).returning();
+  const [updated] = await getDb()
+    .update(schema.sessionLog)
+    .set({ ...clean({ ...patch, status: merged.status }), loggedBy: actor.userId })
+    .where(eq(schema.sessionLog.id, id))
+    .returning();
   return updated!;
 }
 
@@ -93,12 +151,22 @@ export async function listLogs(actor: Actor, athleteId: string, from: string, to
     .select({ log: schema.sessionLog, fileId: schema.activityFile.id, filename: schema.activityFile.filename })
     .from(schema.sessionLog)
     .leftJoin(schema.activityFile, eq(schema.activityFile.logId, schema.sessionLog.id))
-    .where(and(eq(schema.sessionLog.athleteId, athleteId), gte(schema.sessionLog.date, from), lte(schema.sessionLog.date, to)))
+    .where(
+      and(
+        eq(schema.sessionLog.athleteId, athleteId),
+        gte(schema.sessionLog.date, from),
+        lte(schema.sessionLog.date, to),
+      ),
+    )
     .orderBy(asc(schema.sessionLog.date), asc(schema.sessionLog.createdAt));
   const byId = new Map<string, LogRow & { file: { id: string; filename: string } | null; editableUntil: string }>();
   for (const r of rows) {
     if (byId.has(r.log.id)) continue;
-    byId.set(r.log.id, { ...r.log, file: r.fileId ? { id: r.fileId, filename: r.filename! } : null, editableUntil: editableUntil(r.log.createdAt).toISOString() });
+    byId.set(r.log.id, {
+      ...r.log,
+      file: r.fileId ? { id: r.fileId, filename: r.filename! } : null,
+      editableUntil: editableUntil(r.log.createdAt).toISOString(),
+    });
   }
   return [...byId.values()];
 }

@@ -20,7 +20,12 @@ export function CoachDigestSettings({ initial }: { initial: { timeZone: string; 
         setState(null);
         try {
           await apiFetch("/api/me/notifications", { method: "PATCH", body: JSON.stringify({ timeZone, coachDigest }) });
-          setState({ kind: "ok", text: coachDigest ? `Saved. The digest comes on Mondays at 07:00, ${timeZone} time.` : "Saved. No weekly digest will be sent." });
+          setState({
+            kind: "ok",
+            text: coachDigest
+              ? `Saved. The digest comes on Mondays at 07:00, ${timeZone} time.`
+              : "Saved. No weekly digest will be sent.",
+          });
         } catch (err) {
           setState({ kind: "error", text: err instanceof Error ? err.message : "Saving failed." });
         } finally {
@@ -37,10 +42,16 @@ export function CoachDigestSettings({ initial }: { initial: { timeZone: string; 
         <span className="field-label">Your time zone</span>
         <select className="field-input" value={timeZone} onChange={(e) => setTimeZone(e.target.value)}>
           {timeZones.includes(timeZone) ? null : <option value={timeZone}>{timeZone}</option>}
-          {timeZones.map((tz) => <option key={tz} value={tz}>{tz}</option>)}
+          {timeZones.map((tz) => (
+            <option key={tz} value={tz}>
+              {tz}
+            </option>
+          ))}
         </select>
       </label>
-      <SubmitButton className="btn" disabled={busy}>{busy ? "Saving…" : "Save e-mail settings"}</SubmitButton>
+      <SubmitButton className="btn" disabled={busy}>
+        {busy ? "Saving…" : "Save e-mail settings"}
+      </SubmitButton>
     </form>
   );
 }
@@ -57,7 +68,12 @@ export function CalendarFeedSettings({ initialUrl }: { initialUrl: string | null
       if (method === "POST") {
         const r = await apiFetch<{ url: string }>("/api/me/calendar-feed", { method });
         setUrl(r.url);
-        setState({ kind: "ok", text: url ? "A new address is ready; the old one no longer works." : "Your feed is on. Add the address to your calendar app." });
+        setState({
+          kind: "ok",
+          text: url
+            ? "A new address is ready; the old one no longer works."
+            : "Your feed is on. Add the address to your calendar app.",
+        });
       } else {
         await apiFetch("/api/me/calendar-feed", { method });
         setUrl(null);
@@ -72,18 +88,32 @@ export function CalendarFeedSettings({ initialUrl }: { initialUrl: string | null
   return (
     <div className="space-y-3">
       {state ? state.kind === "ok" ? <FormNotice>{state.text}</FormNotice> : <FormAlert>{state.text}</FormAlert> : null}
-      <p className="text-sm text-ink-soft">Subscribe to your plan from a calendar app (iCalendar). Anyone with the address can read your plan: keep it to yourself, and renew it if it leaked.</p>
+      <p className="text-sm text-ink-soft">
+        Subscribe to your plan from a calendar app (iCalendar). Anyone with the address can read your plan: keep it to
+        yourself, and renew it if it leaked.
+      </p>
       {url ? (
         <label className="block">
           <span className="field-label">Your private feed address</span>
-          <input className="field-input font-mono text-xs" readOnly value={url} onFocus={(e) => e.currentTarget.select()} />
+          <input
+            className="field-input font-mono text-xs"
+            readOnly
+            value={url}
+            onFocus={(e) => e.currentTarget.select()}
+          />
         </label>
       ) : (
         <p className="text-sm">The feed is off.</p>
       )}
       <div className="flex flex-wrap gap-2">
-        <button type="button" className="btn" disabled={busy} onClick={() => void act("POST")}>{url ? "Renew the address" : "Switch the feed on"}</button>
-        {url ? <button type="button" className="btn-quiet" disabled={busy} onClick={() => void act("DELETE")}>Switch the feed off</button> : null}
+        <button type="button" className="btn" disabled={busy} onClick={() => void act("POST")}>
+          {url ? "Renew the address" : "Switch the feed on"}
+        </button>
+        {url ? (
+          <button type="button" className="btn-quiet" disabled={busy} onClick={() => void act("DELETE")}>
+            Switch the feed off
+          </button>
+        ) : null}
       </div>
     </div>
   );

@@ -14,7 +14,9 @@ describe("the calendar feed's name", () => {
     const cal = new ICAL.Component(ICAL.parse(ics));
     // ical.js keeps an X- property's text as written: the escaped form of RFC 5545 §3.3.11, on one line.
     expect(cal.getAllProperties("x-wr-calname")).toHaveLength(1);
-    expect(cal.getFirstPropertyValue("x-wr-calname")).toBe(String.raw`Tidemark plan: Eve\nX-INJECTED:1\nBEGIN:VEVENT\; a\, b \\ c`);
+    expect(cal.getFirstPropertyValue("x-wr-calname")).toBe(
+      String.raw`Tidemark plan: Eve\nX-INJECTED:1\nBEGIN:VEVENT\; a\, b \\ c`,
+    );
     expect(cal.getAllSubcomponents("vevent")).toHaveLength(0);
   });
 });

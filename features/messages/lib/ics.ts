@@ -26,7 +26,11 @@ export function icsText(value: string): string {
 }
 
 export function calendarIcs(input: { name: string; sessions: FeedSession[]; stampedAt: Date }): string {
-  const cal = ical({ name: icsText(input.name), prodId: { company: "Tidemark", product: "plan-feed", language: "EN" }, ttl: 3600 });
+  const cal = ical({
+    name: icsText(input.name),
+    prodId: { company: "Tidemark", product: "plan-feed", language: "EN" },
+    ttl: 3600,
+  });
   for (const s of input.sessions) {
     const [y, m, d] = s.date.split("-").map(Number) as [number, number, number];
     const minutes = Math.round(s.totalS / 60);
@@ -36,7 +40,12 @@ export function calendarIcs(input: { name: string; sessions: FeedSession[]; stam
       allDay: true,
       stamp: input.stampedAt,
       summary: `${s.kind === "retest" ? "Retest: " : ""}${s.title.replace(/^Retest: /, "")} (${minutes} min)`,
-      description: [`${s.sport}, ${minutes} min: zone 1 ${Math.round(s.minutesByZone[0])} min, zone 2 ${Math.round(s.minutesByZone[1])} min, zone 3 ${Math.round(s.minutesByZone[2])} min.`, s.notes].filter(Boolean).join("\n"),
+      description: [
+        `${s.sport}, ${minutes} min: zone 1 ${Math.round(s.minutesByZone[0])} min, zone 2 ${Math.round(s.minutesByZone[1])} min, zone 3 ${Math.round(s.minutesByZone[2])} min.`,
+        s.notes,
+      ]
+        .filter(Boolean)
+        .join("\n"),
       categories: [{ name: s.kind === "retest" ? "Retest" : "Training" }],
     });
   }

@@ -1,7 +1,12 @@
 import { describe, expect, it } from "vitest";
 import { localFakeTransport, localOutboxEnabled, maskLinks, type MailSettings } from "./outbox-view";
 
-const mail = (o: { outbox?: boolean; transport?: "resend" | "smtp"; resendBaseUrl?: string; smtpHost?: string }): MailSettings => ({
+const mail = (o: {
+  outbox?: boolean;
+  transport?: "resend" | "smtp";
+  resendBaseUrl?: string;
+  smtpHost?: string;
+}): MailSettings => ({
   transport: o.transport ?? "resend",
   resend: { baseUrl: o.resendBaseUrl },
   smtp: { host: o.smtpHost },
@@ -25,11 +30,14 @@ describe("the local outbox page", () => {
   });
 
   it("hides the secret part of every link, keeping where it goes", () => {
-    const text = "Choose a new password here:\nhttp://127.0.0.1:3000/api/auth/reset-password/abcDEF123?callbackURL=%2Freset\nThanks";
+    const text =
+      "Choose a new password here:\nhttp://127.0.0.1:3000/api/auth/reset-password/abcDEF123?callbackURL=%2Freset\nThanks";
     const masked = maskLinks(text);
     expect(masked).not.toContain("abcDEF123");
     expect(masked).toContain("http://127.0.0.1:3000/…");
     expect(masked).toContain("Choose a new password here:");
-    expect(maskLinks("join: https://tidemark.test/invite/tok_en-1 today")).toBe("join: https://tidemark.test/… (link hidden; it is in the recipient's inbox) today");
+    expect(maskLinks("join: https://tidemark.test/invite/tok_en-1 today")).toBe(
+      "join: https://tidemark.test/… (link hidden; it is in the recipient's inbox) today",
+    );
   });
 });

@@ -23,7 +23,10 @@ export function unsubscribeToken(secret: string, userId: string, kind: Unsubscri
   return `${b64(userId)}.${kind}.${mac(secret, userId, kind)}`;
 }
 
-export function readUnsubscribeToken(secret: string, token: string): { userId: string; kind: UnsubscribableKind } | null {
+export function readUnsubscribeToken(
+  secret: string,
+  token: string,
+): { userId: string; kind: UnsubscribableKind } | null {
   const parts = token.split(".");
   if (parts.length !== 3) return null;
   const [u, kind, sig] = parts as [string, string, string];

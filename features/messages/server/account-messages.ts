@@ -2,7 +2,15 @@ import "server-only";
 import { createElement } from "react";
 import { getDb, type Database } from "@/db/client";
 import { InvitationEmail, invitationSubject, invitationText, type InvitationEmailProps } from "@/emails/invitation";
-import { EmailVerificationEmail, emailVerificationSubject, emailVerificationText, ExistingAccountEmail, existingAccountSubject, existingAccountText, SignInPausedEmail } from "@/emails/email-verification";
+import {
+  EmailVerificationEmail,
+  emailVerificationSubject,
+  emailVerificationText,
+  ExistingAccountEmail,
+  existingAccountSubject,
+  existingAccountText,
+  SignInPausedEmail,
+} from "@/emails/email-verification";
 import { PasswordResetEmail, passwordResetSubject, passwordResetText } from "@/emails/password-reset";
 import { renderEmailHtml } from "@/emails/render";
 import { queueMessage } from "./outbox";
@@ -41,12 +49,17 @@ export async function sendExistingAccountNotice(p: { to: string; name: string })
 }
 
 /** Sign-in to this account was paused after several wrong passwords: its owner hears of it at once. */
-export async function sendSignInPausedNotice(p: { to: string; name: string; failures: number; minutes: number }): Promise<void> {
+export async function sendSignInPausedNotice(p: {
+  to: string;
+  name: string;
+  failures: number;
+  minutes: number;
+}): Promise<void> {
   const text = [
     `Hello ${p.name},`,
     "",
     `Someone typed a wrong password for your Tidemark account ${p.failures} times in a row, so sign-in to it is paused for ${p.minutes} minutes.`,
-    "If it was you, wait and try again, or choose a new password with \"Forgot your password?\" on the sign-in page.",
+    'If it was you, wait and try again, or choose a new password with "Forgot your password?" on the sign-in page.',
     "If it was not you, your account is safe as long as nobody knows the password; choosing a new one is a good idea.",
   ].join("\n");
   await queueMessage(getDb(), {

@@ -33,10 +33,21 @@ export async function deliverPending(now = new Date(), limit = 50): Promise<Deli
       .limit(limit)
       .for("update", { skipLocked: true });
     for (const m of due) {
-      const r = await sendEmail({ to: m.to, subject: m.subject, html: m.html, text: m.text, kind: m.kind, headers: m.headers, idempotencyKey: m.idempotencyKey ?? m.id });
+      const r = await sendEmail({
+        to: m.to,
+        subject: m.subject,
+        html: m.html,
+        text: m.text,
+        kind: m.kind,
+        headers: m.headers,
+        idempotencyKey: m.idempotencyKey ?? m.id,
+      });
       const attempts = m.attempts + 1;
       if (r.ok) {
-        await tx.update(schema.outbox).set({ status: "sent", attempts, sentAt: now, providerId: r.providerId, lastError: null }).where(eq(schema.outbox.id, m.id));
+        await tx
+          .update(schema.outbox)
+          .set({ status: "sent", attempts, sentAt: now, providerId: r.providerId, lastError: null })
+          .where(eq(schema.outbox.id, m.id));
         report.sent++;
       } else if (r.retry && attempts < MAX_ATTEMPTS) {
         await tx
@@ -45,7 +56,10 @@ export async function deliverPending(now = new Date(), limit = 50): Promise<Deli
           .where(eq(schema.outbox.id, m.id));
         report.retrying++;
       } else {
-        await tx.update(schema.outbox).set({ status: "failed", attempts, lastError: r.error }).where(eq(schema.outbox.id, m.id));
+        await tx
+          .update(schema.outbox)
+          .set({ status: "failed", attempts, lastError: r.error })
+          .where(eq(schema.outbox.id, m.id));
         report.failed++;
       }
     }

@@ -27,7 +27,14 @@ export async function queueMessage(db: Executor, message: OutgoingMessage): Prom
   message = { ...message, subject: message.subject.replace(/[\u0000-\u001F\u007F]+/g, " ").trim() };
   const rows = await db
     .insert(schema.outbox)
-    .values({ id, ...message, meta: message.meta ?? {}, headers: message.headers ?? {}, idempotencyKey: message.idempotencyKey ?? null, userId: message.userId ?? null })
+    .values({
+      id,
+      ...message,
+      meta: message.meta ?? {},
+      headers: message.headers ?? {},
+      idempotencyKey: message.idempotencyKey ?? null,
+      userId: message.userId ?? null,
+    })
     .onConflictDoNothing({ target: schema.outbox.idempotencyKey })
     .returning({ id: schema.outbox.id });
   return rows[0]?.id ?? null;

@@ -16,15 +16,25 @@ export interface NotificationSettings {
 }
 
 async function settingsRow(userId: string): Promise<NotificationSettings> {
-  const [row] = await getDb().select().from(schema.notificationSetting).where(eq(schema.notificationSetting.userId, userId));
-  return { timeZone: row?.timeZone ?? "UTC", coachDigest: row?.coachDigest ?? true, calendarToken: row?.calendarToken ?? null };
+  const [row] = await getDb()
+    .select()
+    .from(schema.notificationSetting)
+    .where(eq(schema.notificationSetting.userId, userId));
+  return {
+    timeZone: row?.timeZone ?? "UTC",
+    coachDigest: row?.coachDigest ?? true,
+    calendarToken: row?.calendarToken ?? null,
+  };
 }
 
 export function getNotificationSettings(actor: Actor): Promise<NotificationSettings> {
   return settingsRow(actor.userId);
 }
 
-export async function updateNotificationSettings(actor: Actor, patch: { timeZone?: string; coachDigest?: boolean }): Promise<NotificationSettings> {
+export async function updateNotificationSettings(
+  actor: Actor,
+  patch: { timeZone?: string; coachDigest?: boolean },
+): Promise<NotificationSettings> {
   await getDb()
     .insert(schema.notificationSetting)
     .values({ userId: actor.userId, ...patch })
@@ -38,29 +48,47 @@ export async function renewCalendarToken(actor: Actor): Promise<string> {
   await getDb()
     .insert(schema.notificationSetting)
     .values({ userId: actor.userId, calendarToken: token })
-    .onConflictDoUpdate({ target: schema.notificationSetting.userId, set: { calendarToken: token, updatedAt: new Date() } });
+    .onConflictDoUpdate({
+      target: schema.notificationSetting.userId,
+      set: { calendarToken: token, updatedAt: new Date() },
+    });
   return token;
 }
 
 export async function revokeCalendarToken(actor: Actor): Promise<void> {
-  await getDb().update(schema.notificationSetting).set({ calendarToken: null, updatedAt: new Date() }).where(eq(schema.notificationSetting.userId, actor.userId));
+  await getDb()
+    .update(schema.notificationSetting)
+    .set({ calendarToken: null, updatedAt: new Date() })
+    .where(eq(schema.notificationSetting.userId, actor.userId));
 }
 
 /**
  * What an unsubscribe link is for and whether that kind of message is already off, or null for a token that is not ours.
  * Only reads: a mail scanner or link preview opening the link changes nothing.
  */
-export async function readUnsubscribeLink(token: string): Promise<{ kind: UnsubscribableKind; label: string; email: string; alreadyOff: boolean } | null> {
+export async function readUnsubscribeLink(
+  token: string,
+): Promise<{ kind: UnsubscribableKind; label: string; email: string; alreadyOff: boolean } | null> {
   const parsed = readUnsubscribeToken(signingSecret(), token);
   if (!parsed) return null;
   const [u] = await getDb()
-    .select({ email: schema.user.email, remindSessions: schema.athleteProfile.remindSessions, remindRetests: schema.athleteProfile.remindRetests, coachDigest: schema.notificationSetting.coachDigest })
+    .select({
+      email: schema.user.email,
+      remindSessions: schema.athleteProfile.remindSessions,
+      remindRetests: schema.athleteProfile.remindRetests,
+      coachDigest: schema.notificationSetting.coachDigest,
+    })
     .from(schema.user)
     .leftJoin(schema.athleteProfile, eq(schema.athleteProfile.userId, schema.user.id))
     .leftJoin(schema.notificationSetting, eq(schema.notificationSetting.userId, schema.user.id))
     .where(eq(schema.user.id, parsed.userId));
   if (!u) return null;
-  const on = parsed.kind === "session_reminder" ? u.remindSessions : parsed.kind === "retest_reminder" ? u.remindRetests : u.coachDigest;
+  const on =
+    parsed.kind === "session_reminder"
+      ? u.remindSessions
+      : parsed.kind === "retest_reminder"
+        ? u.remindRetests
+        : u.coachDigest;
   return { kind: parsed.kind, label: KIND_LABELS[parsed.kind], email: u.email, alreadyOff: on === false };
 }
 
@@ -68,20 +96,33 @@ export async function readUnsubscribeLink(token: string): Promise<{ kind: Unsubs
  * Turns off one kind of message for the account named in a signed token, without signing in. Returns what was turned
  * off, or null for a token that is not ours.
  */
-export async function unsubscribe(token: string): Promise<{ kind: UnsubscribableKind; label: string; email: string } | null> {
+export async function unsubscribe(
+  token: string,
+): Promise<{ kind: UnsubscribableKind; label: string; email: string } | null> {
   const parsed = readUnsubscribeToken(signingSecret(), token);
   if (!parsed) return null;
   const db = getDb();
   const [u] = await db.select({ email: schema.user.email }).from(schema.user).where(eq(schema.user.id, parsed.userId));
   if (!u) return null;
   await db.transaction(async (tx) => {
-    if (parsed.kind === "session_reminder") await tx.update(schema.athleteProfile).set({ remindSessions: false }).where(eq(schema.athleteProfile.userId, parsed.userId));
-    else if (parsed.kind === "retest_reminder") await tx.update(schema.athleteProfile).set({ remindRetests: false }).where(eq(schema.athleteProfile.userId, parsed.userId));
+    if (parsed.kind === "session_reminder")
+      await tx
+        .update(schema.athleteProfile)
+        .set({ remindSessions: false })
+        .where(eq(schema.athleteProfile.userId, parsed.userId));
+    else if (parsed.kind === "retest_reminder")
+      await tx
+        .update(schema.athleteProfile)
+        .set({ remindRetests: false })
+        .where(eq(schema.athleteProfile.userId, parsed.userId));
     else
       await tx
         .insert(schema.notificationSetting)
         .values({ userId: parsed.userId, coachDigest: false })
-        .onConflictDoUpdate({ target: schema.notificationSetting.userId, set: { coachDigest: false, updatedAt: new Date() } });
+        .onConflictDoUpdate({
+          target: schema.notificationSetting.userId,
+          set: { coachDigest: false, updatedAt: new Date() },
+        });
   });
   return { kind: parsed.kind, label: KIND_LABELS[parsed.kind], email: u.email };
 }
@@ -91,7 +132,11 @@ export async function calendarFeed(token: string, now = new Date()): Promise<str
   if (!/^[A-Za-z0-9_-]{20,100}$/.test(token)) return null;
   const db = getDb();
   const [owner] = await db
-    .select({ userId: schema.notificationSetting.userId, name: schema.user.name, timeZone: schema.athleteProfile.timeZone })
+    .select({
+      userId: schema.notificationSetting.userId,
+      name: schema.user.name,
+      timeZone: schema.athleteProfile.timeZone,
+    })
     .from(schema.notificationSetting)
     .innerJoin(schema.user, eq(schema.user.id, schema.notificationSetting.userId))
     .leftJoin(schema.athleteProfile, eq(schema.athleteProfile.userId, schema.notificationSetting.userId))
@@ -99,9 +144,24 @@ export async function calendarFeed(token: string, now = new Date()): Promise<str
   if (!owner) return null;
   const today = localDate(now, owner.timeZone ?? "UTC");
   const sessions = await db
-    .select({ id: schema.plannedSession.id, date: schema.plannedSession.date, title: schema.plannedSession.title, kind: schema.plannedSession.kind, sport: schema.plannedSession.sport, totalS: schema.plannedSession.totalS, minutesByZone: schema.plannedSession.minutesByZone, notes: schema.plannedSession.notes })
+    .select({
+      id: schema.plannedSession.id,
+      date: schema.plannedSession.date,
+      title: schema.plannedSession.title,
+      kind: schema.plannedSession.kind,
+      sport: schema.plannedSession.sport,
+      totalS: schema.plannedSession.totalS,
+      minutesByZone: schema.plannedSession.minutesByZone,
+      notes: schema.plannedSession.notes,
+    })
     .from(schema.plannedSession)
-    .where(and(eq(schema.plannedSession.athleteId, owner.userId), gte(schema.plannedSession.date, addDays(today, -60)), lte(schema.plannedSession.date, addDays(today, 366))))
+    .where(
+      and(
+        eq(schema.plannedSession.athleteId, owner.userId),
+        gte(schema.plannedSession.date, addDays(today, -60)),
+        lte(schema.plannedSession.date, addDays(today, 366)),
+      ),
+    )
     .orderBy(asc(schema.plannedSession.date));
   return calendarIcs({ name: `Tidemark plan: ${owner.name}`, sessions, stampedAt: now });
 }

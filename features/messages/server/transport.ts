@@ -36,13 +36,26 @@ async function sendResend(e: Envelope): Promise<SendResult> {
   const { resend: settings } = config().mail;
   const baseUrl = settings.baseUrl ?? "https://api.resend.com";
   const key = settings.apiKey ?? (settings.baseUrl ? "re_local_fake_key" : "");
-  if (!key) return { ok: false, retry: false, error: "No RESEND_API_KEY is set and no local fake (RESEND_BASE_URL) is configured." };
+  if (!key)
+    return {
+      ok: false,
+      retry: false,
+      error: "No RESEND_API_KEY is set and no local fake (RESEND_BASE_URL) is configured.",
+    };
   if (!resend || resendFor !== `${baseUrl} ${key}`) {
     resend = new Resend(key, { baseUrl });
     resendFor = `${baseUrl} ${key}`;
   }
   const { data, error } = await resend.emails.send(
-    { from: fromAddress(), to: [e.to], subject: e.subject, html: e.html, text: e.text, headers: e.headers, tags: [{ name: "kind", value: e.kind }] },
+    {
+      from: fromAddress(),
+      to: [e.to],
+      subject: e.subject,
+      html: e.html,
+      text: e.text,
+      headers: e.headers,
+      tags: [{ name: "kind", value: e.kind }],
+    },
     { idempotencyKey: e.idempotencyKey },
   );
   if (data?.id) return { ok: true, providerId: data.id };
@@ -64,10 +77,21 @@ async function sendSmtp(e: Envelope): Promise<SendResult> {
     ...(s.user ? { auth: { user: s.user, pass: s.password } } : {}),
   });
   try {
-    const info = await smtp.sendMail({ from: fromAddress(), to: e.to, subject: e.subject, html: e.html, text: e.text, headers: { ...e.headers, "X-Tidemark-Kind": e.kind, "X-Tidemark-Idempotency-Key": e.idempotencyKey } });
+    const info = await smtp.sendMail({
+      from: fromAddress(),
+      to: e.to,
+      subject: e.subject,
+      html: e.html,
+      text: e.text,
+      headers: { ...e.headers, "X-Tidemark-Kind": e.kind, "X-Tidemark-Idempotency-Key": e.idempotencyKey },
+    });
     return { ok: true, providerId: info.messageId };
   } catch (err) {
     const code = (err as { responseCode?: number }).responseCode;
-    return { ok: false, retry: code === undefined || code >= 400 && code < 500, error: err instanceof Error ? err.message : String(err) };
+    return {
+      ok: false,
+      retry: code === undefined || (code >= 400 && code < 500),
+      error: err instanceof Error ? err.message : String(err),
+    };
   }
 }

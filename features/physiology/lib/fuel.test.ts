@@ -16,7 +16,13 @@ describe("fuel use", () => {
     expect(o.fatGMin).toBeCloseTo(0.328, 3);
   });
   it("non-protein RQ table (Lusk 1924, from memory, ±2 points)", () => {
-    const cases: [number, number][] = [[0.7, 0], [0.8, 33], [0.85, 51], [0.9, 68], [1.0, 100]];
+    const cases: [number, number][] = [
+      [0.7, 0],
+      [0.8, 33],
+      [0.85, 51],
+      [0.9, 68],
+      [1.0, 100],
+    ];
     for (const [rq, pct] of cases) expect(Math.abs(carbohydrateShare(rq) * 100 - pct)).toBeLessThanOrEqual(2);
   });
   it("finds the crossover near RER 0.85 and the maximal fat oxidation on a rising ramp", () => {

@@ -31,10 +31,37 @@ export function oxidation(vo2LMin: number, vco2LMin: number, equation: Oxidation
 
 // Non-protein RQ → share of energy from carbohydrate, % (after Lusk 1924; from memory).
 const NPRQ_TABLE: [number, number][] = [
-  [0.707, 0], [0.71, 1.1], [0.72, 4.8], [0.73, 8.4], [0.74, 12.0], [0.75, 15.6], [0.76, 19.2], [0.77, 22.8], [0.78, 26.3],
-  [0.79, 29.9], [0.8, 33.4], [0.81, 36.9], [0.82, 40.3], [0.83, 43.8], [0.84, 47.2], [0.85, 50.7], [0.86, 54.1], [0.87, 57.5],
-  [0.88, 60.8], [0.89, 64.2], [0.9, 67.5], [0.91, 70.8], [0.92, 74.1], [0.93, 77.4], [0.94, 80.7], [0.95, 84.0], [0.96, 87.2],
-  [0.97, 90.4], [0.98, 93.6], [0.99, 96.8], [1.0, 100],
+  [0.707, 0],
+  [0.71, 1.1],
+  [0.72, 4.8],
+  [0.73, 8.4],
+  [0.74, 12.0],
+  [0.75, 15.6],
+  [0.76, 19.2],
+  [0.77, 22.8],
+  [0.78, 26.3],
+  [0.79, 29.9],
+  [0.8, 33.4],
+  [0.81, 36.9],
+  [0.82, 40.3],
+  [0.83, 43.8],
+  [0.84, 47.2],
+  [0.85, 50.7],
+  [0.86, 54.1],
+  [0.87, 57.5],
+  [0.88, 60.8],
+  [0.89, 64.2],
+  [0.9, 67.5],
+  [0.91, 70.8],
+  [0.92, 74.1],
+  [0.93, 77.4],
+  [0.94, 80.7],
+  [0.95, 84.0],
+  [0.96, 87.2],
+  [0.97, 90.4],
+  [0.98, 93.6],
+  [0.99, 96.8],
+  [1.0, 100],
 ];
 
 /** Share of energy from carbohydrate (0–1) at a non-protein RQ; clamped to 0 below 0.707 and 1 above 1.00. */
@@ -79,10 +106,14 @@ export interface FuelProfile {
   warnings: string[];
 }
 
-export function fuelProfile(points: FuelPoint[], opts: { equation?: OxidationEquation; vo2PeakMlMin?: number } = {}): FuelProfile {
+export function fuelProfile(
+  points: FuelPoint[],
+  opts: { equation?: OxidationEquation; vo2PeakMlMin?: number } = {},
+): FuelProfile {
   const warnings: string[] = [];
   const rows: FuelRow[] = points.map((p) => {
-    const vo2 = p.vo2MlMin / 1000, vco2 = p.vco2MlMin / 1000;
+    const vo2 = p.vo2MlMin / 1000,
+      vco2 = p.vco2MlMin / 1000;
     const rer = vco2 / vo2;
     const ox = oxidation(vo2, vco2, opts.equation);
     const choShare = carbohydrateShare(rer);
@@ -97,8 +128,12 @@ export function fuelProfile(points: FuelPoint[], opts: { equation?: OxidationEqu
       fatShare: 1 - choShare,
     };
   });
-  if (rows.some((r) => r.rer > 1)) warnings.push("Above RER 1.00 the equations no longer hold (bicarbonate buffering adds CO2): fat oxidation is shown as zero there.");
-  if (rows.some((r) => r.rer < 0.7)) warnings.push("RER below 0.70 is outside the equations' range (hyperventilation, fasting or measurement error).");
+  if (rows.some((r) => r.rer > 1))
+    warnings.push(
+      "Above RER 1.00 the equations no longer hold (bicarbonate buffering adds CO2): fat oxidation is shown as zero there.",
+    );
+  if (rows.some((r) => r.rer < 0.7))
+    warnings.push("RER below 0.70 is outside the equations' range (hyperventilation, fasting or measurement error).");
   let crossover: FuelRow | null = null;
   for (let i = 0; i < rows.length; i++) {
     // Sustained: this and the next two points (when present) all above half.
@@ -114,7 +149,11 @@ export function fuelProfile(points: FuelPoint[], opts: { equation?: OxidationEqu
     const smooth = win.reduce((s, r) => s + r.fatGMin, 0) / win.length;
     if (smooth > best) {
       best = smooth;
-      maxFat = { ...rows[i]!, fatGMin: smooth, vo2PctPeak: opts.vo2PeakMlMin ? (100 * rows[i]!.vo2MlMin) / opts.vo2PeakMlMin : null };
+      maxFat = {
+        ...rows[i]!,
+        fatGMin: smooth,
+        vo2PctPeak: opts.vo2PeakMlMin ? (100 * rows[i]!.vo2MlMin) / opts.vo2PeakMlMin : null,
+      };
     }
   }
   return { rows, crossover, maxFat, warnings };

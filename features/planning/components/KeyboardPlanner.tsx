@@ -6,10 +6,26 @@ import type { Repeat } from "../lib/repeat";
 import { WEEKDAYS } from "../lib/weekdays";
 import type { TrayTemplate } from "./PlanCalendar";
 
-const WEEKDAY_LABELS: Record<(typeof WEEKDAYS)[number], string> = { MO: "Mon", TU: "Tue", WE: "Wed", TH: "Thu", FR: "Fri", SA: "Sat", SU: "Sun" };
+const WEEKDAY_LABELS: Record<(typeof WEEKDAYS)[number], string> = {
+  MO: "Mon",
+  TU: "Tue",
+  WE: "Wed",
+  TH: "Thu",
+  FR: "Fri",
+  SA: "Sat",
+  SU: "Sun",
+};
 
 /** Planning without a pointer: choose a template and a day, and optionally repeat it weekly (an RRULE). */
-export function KeyboardPlanner({ templates, defaultDate, onPlan }: { templates: TrayTemplate[]; defaultDate: string; onPlan: (templateId: string, date: string, repeat?: Repeat) => void }) {
+export function KeyboardPlanner({
+  templates,
+  defaultDate,
+  onPlan,
+}: {
+  templates: TrayTemplate[];
+  defaultDate: string;
+  onPlan: (templateId: string, date: string, repeat?: Repeat) => void;
+}) {
   const [templateId, setTemplateId] = useState("");
   const [date, setDate] = useState(defaultDate);
   const [repeats, setRepeats] = useState(false);
@@ -29,7 +45,8 @@ export function KeyboardPlanner({ templates, defaultDate, onPlan }: { templates:
         if (!templateId || !date) return;
         if (!repeats) return onPlan(templateId, date);
         if (!days.length) return setProblem("Choose at least one weekday to repeat on.");
-        if (endBy === "until" && !until) return setProblem("Give the last date of the repeat, or a number of sessions.");
+        if (endBy === "until" && !until)
+          return setProblem("Give the last date of the repeat, or a number of sessions.");
         if (endBy === "count" && !(count >= 1 && count <= 104)) return setProblem("Repeat between 1 and 104 times.");
         onPlan(templateId, date, endBy === "count" ? { byWeekday: days, count } : { byWeekday: days, until });
       }}
@@ -37,15 +54,34 @@ export function KeyboardPlanner({ templates, defaultDate, onPlan }: { templates:
       <p className="font-semibold">Plan without dragging</p>
       <fieldset disabled={!hydrated} className="space-y-2">
         <div>
-          <label htmlFor="kp-template" className="field-label">Template</label>
-          <select id="kp-template" className="field-input" value={templateId} onChange={(e) => setTemplateId(e.target.value)}>
+          <label htmlFor="kp-template" className="field-label">
+            Template
+          </label>
+          <select
+            id="kp-template"
+            className="field-input"
+            value={templateId}
+            onChange={(e) => setTemplateId(e.target.value)}
+          >
             <option value="">Choose…</option>
-            {templates.map((t) => <option key={t.id} value={t.id}>{t.name}</option>)}
+            {templates.map((t) => (
+              <option key={t.id} value={t.id}>
+                {t.name}
+              </option>
+            ))}
           </select>
         </div>
         <div>
-          <label htmlFor="kp-day" className="field-label">Day</label>
-          <input id="kp-day" type="date" className="field-input num" value={date} onChange={(e) => setDate(e.target.value)} />
+          <label htmlFor="kp-day" className="field-label">
+            Day
+          </label>
+          <input
+            id="kp-day"
+            type="date"
+            className="field-input num"
+            value={date}
+            onChange={(e) => setDate(e.target.value)}
+          />
         </div>
         <label className="flex items-center gap-2">
           <input type="checkbox" checked={repeats} onChange={(e) => setRepeats(e.target.checked)} /> Repeat weekly
@@ -57,7 +93,11 @@ export function KeyboardPlanner({ templates, defaultDate, onPlan }: { templates:
               <div className="flex flex-wrap gap-x-2">
                 {WEEKDAYS.map((d) => (
                   <label key={d} className="flex items-center gap-1">
-                    <input type="checkbox" checked={days.includes(d)} onChange={(e) => setDays((x) => (e.target.checked ? [...x, d] : x.filter((y) => y !== d)))} />
+                    <input
+                      type="checkbox"
+                      checked={days.includes(d)}
+                      onChange={(e) => setDays((x) => (e.target.checked ? [...x, d] : x.filter((y) => y !== d)))}
+                    />
                     {WEEKDAY_LABELS[d]}
                   </label>
                 ))}
@@ -67,17 +107,38 @@ export function KeyboardPlanner({ templates, defaultDate, onPlan }: { templates:
               <legend className="field-label">Ends</legend>
               <label className="flex items-center gap-1">
                 <input type="radio" checked={endBy === "count"} onChange={() => setEndBy("count")} /> after
-                <input aria-label="Number of sessions" type="number" min={1} max={104} className="field-input mt-0 w-16 num" value={count} onChange={(e) => setCount(Number(e.target.value))} /> sessions
+                <input
+                  aria-label="Number of sessions"
+                  type="number"
+                  min={1}
+                  max={104}
+                  className="field-input mt-0 w-16 num"
+                  value={count}
+                  onChange={(e) => setCount(Number(e.target.value))}
+                />{" "}
+                sessions
               </label>
               <label className="flex items-center gap-1">
                 <input type="radio" checked={endBy === "until"} onChange={() => setEndBy("until")} /> on
-                <input aria-label="Last date" type="date" className="field-input mt-0 num" value={until} onChange={(e) => setUntil(e.target.value)} />
+                <input
+                  aria-label="Last date"
+                  type="date"
+                  className="field-input mt-0 num"
+                  value={until}
+                  onChange={(e) => setUntil(e.target.value)}
+                />
               </label>
             </fieldset>
           </div>
         ) : null}
-        {problem ? <p role="alert" className="text-alert">{problem}</p> : null}
-        <SubmitButton className="btn w-full" disabled={!templateId || !date}>{repeats ? "Plan the series" : "Plan it"}</SubmitButton>
+        {problem ? (
+          <p role="alert" className="text-alert">
+            {problem}
+          </p>
+        ) : null}
+        <SubmitButton className="btn w-full" disabled={!templateId || !date}>
+          {repeats ? "Plan the series" : "Plan it"}
+        </SubmitButton>
       </fieldset>
     </form>
   );

@@ -23,7 +23,17 @@ export interface TrayTemplate {
   minutesByZone: [number, number, number];
 }
 
-export function PlanCalendar({ athleteId, templates, initialDate, canEdit }: { athleteId: string; templates: TrayTemplate[]; initialDate: string; canEdit: boolean }) {
+export function PlanCalendar({
+  athleteId,
+  templates,
+  initialDate,
+  canEdit,
+}: {
+  athleteId: string;
+  templates: TrayTemplate[];
+  initialDate: string;
+  canEdit: boolean;
+}) {
   const calendarRef = useRef<FullCalendar>(null);
   const trayRef = useRef<HTMLUListElement>(null);
   const [range, setRange] = useState<{ from: string; to: string }>({ from: "", to: "" });
@@ -46,7 +56,11 @@ export function PlanCalendar({ athleteId, templates, initialDate, canEdit }: { a
     if (!trayRef.current || !canEdit) return;
     const d = new Draggable(trayRef.current, {
       itemSelector: "[data-template-id]",
-      eventData: (el) => ({ title: el.getAttribute("data-title") ?? "", create: true, extendedProps: { templateId: el.getAttribute("data-template-id") } }),
+      eventData: (el) => ({
+        title: el.getAttribute("data-title") ?? "",
+        create: true,
+        extendedProps: { templateId: el.getAttribute("data-template-id") },
+      }),
     });
     return () => d.destroy();
   }, [canEdit]);
@@ -58,7 +72,11 @@ export function PlanCalendar({ athleteId, templates, initialDate, canEdit }: { a
         title: `${s.log ? `${LOG_MARK[s.log.status]} ` : ""}${s.kind === "retest" ? "⟳ " : ""}${s.title} · ${Math.round(s.totalS / 60)} min`,
         start: s.date,
         allDay: true,
-        classNames: [s.kind === "retest" ? "tm-retest" : "tm-session", s.minutesByZone[2] > 0 ? "tm-hard" : "tm-easy", ...(s.log ? [`tm-log-${s.log.status}`] : [])],
+        classNames: [
+          s.kind === "retest" ? "tm-retest" : "tm-session",
+          s.minutesByZone[2] > 0 ? "tm-hard" : "tm-easy",
+          ...(s.log ? [`tm-log-${s.log.status}`] : []),
+        ],
         extendedProps: { session: s },
       })),
     [sessions.data],
@@ -106,7 +124,10 @@ export function PlanCalendar({ athleteId, templates, initialDate, canEdit }: { a
     if (existing) return moveTo(existing, date);
     if (!templateId) return setMessage({ kind: "error", text: "That drop was not a template; nothing was planned." });
     setMessage(undefined);
-    create.mutate({ date, templateId }, { onError: fail, onSuccess: () => setMessage({ kind: "ok", text: `Planned "${info.event.title}" on ${date}.` }) });
+    create.mutate(
+      { date, templateId },
+      { onError: fail, onSuccess: () => setMessage({ kind: "ok", text: `Planned "${info.event.title}" on ${date}.` }) },
+    );
   };
 
   const weekList = weeks.data ?? [];
@@ -114,7 +135,11 @@ export function PlanCalendar({ athleteId, templates, initialDate, canEdit }: { a
     <div className="grid gap-6 lg:grid-cols-[1fr_16rem]">
       <div className="space-y-3">
         <div className="space-y-2" aria-live="polite">
-          {weeks.isPending && range.from ? <p role="status" className="text-sm text-ink-soft">Checking the weeks against their budgets…</p> : null}
+          {weeks.isPending && range.from ? (
+            <p role="status" className="text-sm text-ink-soft">
+              Checking the weeks against their budgets…
+            </p>
+          ) : null}
           {weeks.isError ? <FormAlert>The budget check could not be loaded: {weeks.error.message}</FormAlert> : null}
           {weekList.map((w) => (
             // The preview lies over the band instead of replacing it: the calendar must not move while something is dragged.
@@ -122,7 +147,18 @@ export function PlanCalendar({ athleteId, templates, initialDate, canEdit }: { a
               <BudgetBand
                 week={w}
                 busy={move.isPending}
-                onApplyFix={canEdit && w.fix ? () => move.mutate({ id: w.fix!.sessionId, date: w.fix!.toDate }, { onError: fail, onSuccess: () => setMessage({ kind: "ok", text: `Applied: ${w.fix!.message}` }) }) : undefined}
+                onApplyFix={
+                  canEdit && w.fix
+                    ? () =>
+                        move.mutate(
+                          { id: w.fix!.sessionId, date: w.fix!.toDate },
+                          {
+                            onError: fail,
+                            onSuccess: () => setMessage({ kind: "ok", text: `Applied: ${w.fix!.message}` }),
+                          },
+                        )
+                    : undefined
+                }
               />
               {preview && preview.weekStart === w.weekStart ? (
                 <div className="absolute inset-x-0 top-0 z-20 shadow-lg">
@@ -132,14 +168,25 @@ export function PlanCalendar({ athleteId, templates, initialDate, canEdit }: { a
             </div>
           ))}
         </div>
-        {message ? message.kind === "ok" ? <FormNotice>{message.text}</FormNotice> : <FormAlert>{message.text}</FormAlert> : null}
+        {message ? (
+          message.kind === "ok" ? (
+            <FormNotice>{message.text}</FormNotice>
+          ) : (
+            <FormAlert>{message.text}</FormAlert>
+          )
+        ) : null}
         {sessions.isError ? <FormAlert>The sessions could not be loaded: {sessions.error.message}</FormAlert> : null}
         {canEdit && (sessions.data ?? []).some((s) => s.seriesId) ? (
           <fieldset className="flex flex-wrap gap-4 text-sm">
             <legend className="sr-only">Moving a repeating session</legend>
             <span className="font-semibold">Moving a repeating session changes</span>
-            <label className="flex items-center gap-1"><input type="radio" checked={scope === "one"} onChange={() => setScope("one")} /> this occurrence</label>
-            <label className="flex items-center gap-1"><input type="radio" checked={scope === "series"} onChange={() => setScope("series")} /> the series from here on</label>
+            <label className="flex items-center gap-1">
+              <input type="radio" checked={scope === "one"} onChange={() => setScope("one")} /> this occurrence
+            </label>
+            <label className="flex items-center gap-1">
+              <input type="radio" checked={scope === "series"} onChange={() => setScope("series")} /> the series from
+              here on
+            </label>
           </fieldset>
         ) : null}
         <div className="tm-calendar rounded-lg border border-rule bg-paper p-2">
@@ -149,7 +196,11 @@ export function PlanCalendar({ athleteId, templates, initialDate, canEdit }: { a
             initialView="dayGridWeek"
             initialDate={initialDate}
             views={{ dayGridFourWeek: { type: "dayGrid", duration: { weeks: 4 }, buttonText: "4 weeks" } }}
-            headerToolbar={{ left: "prev,next today", center: "title", right: "dayGridWeek,dayGridFourWeek,dayGridMonth" }}
+            headerToolbar={{
+              left: "prev,next today",
+              center: "title",
+              right: "dayGridWeek,dayGridFourWeek,dayGridMonth",
+            }}
             buttonText={{ today: "This week", week: "Week", month: "Month" }}
             firstDay={1}
             height="auto"
@@ -176,11 +227,21 @@ export function PlanCalendar({ athleteId, templates, initialDate, canEdit }: { a
             eventContent={(arg) => {
               const s = arg.event.extendedProps.session as SessionDto | undefined;
               return (
-                <div className="w-full overflow-hidden px-1" data-testid="calendar-event" data-log={s?.log?.status ?? "none"}>
+                <div
+                  className="w-full overflow-hidden px-1"
+                  data-testid="calendar-event"
+                  data-log={s?.log?.status ?? "none"}
+                >
                   <p className="truncate">{arg.event.title}</p>
                   {s?.log ? (
-                    <div className="mt-0.5 h-1 w-full rounded bg-white/40" title={`${LOG_WORD[s.log.status]}: ${Math.round(s.log.compliance * 100)} % of the planned time`}>
-                      <div className="h-full rounded bg-current" style={{ width: `${Math.min(100, s.log.compliance * 100)}%` }} />
+                    <div
+                      className="mt-0.5 h-1 w-full rounded bg-white/40"
+                      title={`${LOG_WORD[s.log.status]}: ${Math.round(s.log.compliance * 100)} % of the planned time`}
+                    >
+                      <div
+                        className="h-full rounded bg-current"
+                        style={{ width: `${Math.min(100, s.log.compliance * 100)}%` }}
+                      />
                     </div>
                   ) : null}
                 </div>
@@ -201,7 +262,16 @@ export function PlanCalendar({ athleteId, templates, initialDate, canEdit }: { a
             onDelete={(which) =>
               remove.mutate(
                 { id: selected.id, scope: which },
-                { onSuccess: () => { setSelected(null); setMessage({ kind: "ok", text: which === "series" ? "Series deleted from this occurrence on." : "Session deleted." }); }, onError: fail },
+                {
+                  onSuccess: () => {
+                    setSelected(null);
+                    setMessage({
+                      kind: "ok",
+                      text: which === "series" ? "Series deleted from this occurrence on." : "Session deleted.",
+                    });
+                  },
+                  onError: fail,
+                },
               )
             }
             onMove={(date) =>
@@ -226,18 +296,47 @@ export function PlanCalendar({ athleteId, templates, initialDate, canEdit }: { a
       </div>
       {canEdit ? (
         <aside aria-labelledby="tray-heading" className="space-y-3">
-          <h2 id="tray-heading" className="font-bold">Template tray</h2>
-          <p className="text-xs text-ink-soft">Drag a template onto a day. The band of the week shows the result before you drop.</p>
-          {templates.length === 0 ? <p className="text-sm text-ink-soft">No templates yet. Build one on the templates page.</p> : null}
+          <h2 id="tray-heading" className="font-bold">
+            Template tray
+          </h2>
+          <p className="text-xs text-ink-soft">
+            Drag a template onto a day. The band of the week shows the result before you drop.
+          </p>
+          {templates.length === 0 ? (
+            <p className="text-sm text-ink-soft">No templates yet. Build one on the templates page.</p>
+          ) : null}
           <ul ref={trayRef} className="space-y-2">
             {templates.map((t) => (
-              <li key={t.id} data-template-id={t.id} data-title={t.name} className="cursor-grab rounded-md border border-rule bg-paper p-2 text-sm shadow-sm hover:border-tide">
+              <li
+                key={t.id}
+                data-template-id={t.id}
+                data-title={t.name}
+                className="cursor-grab rounded-md border border-rule bg-paper p-2 text-sm shadow-sm hover:border-tide"
+              >
                 <p className="font-semibold">{t.name}</p>
-                <p className="num text-xs text-ink-soft">{Math.round(t.totalS / 60)} min · {zoneText(t.minutesByZone)}</p>
+                <p className="num text-xs text-ink-soft">
+                  {Math.round(t.totalS / 60)} min · {zoneText(t.minutesByZone)}
+                </p>
               </li>
             ))}
           </ul>
-          <KeyboardPlanner templates={templates} defaultDate={range.from || initialDate} onPlan={(templateId, date, repeat) => create.mutate(repeat ? { date, templateId, repeat } : { date, templateId }, { onError: fail, onSuccess: (r) => { const n = (r as { ids?: string[] }).ids?.length ?? 1; setMessage({ kind: "ok", text: n > 1 ? `Planned ${n} sessions from ${date}.` : `Planned on ${date}.` }); calendarRef.current?.getApi().gotoDate(date); } })} />
+          <KeyboardPlanner
+            templates={templates}
+            defaultDate={range.from || initialDate}
+            onPlan={(templateId, date, repeat) =>
+              create.mutate(repeat ? { date, templateId, repeat } : { date, templateId }, {
+                onError: fail,
+                onSuccess: (r) => {
+                  const n = (r as { ids?: string[] }).ids?.length ?? 1;
+                  setMessage({
+                    kind: "ok",
+                    text: n > 1 ? `Planned ${n} sessions from ${date}.` : `Planned on ${date}.`,
+                  });
+                  calendarRef.current?.getApi().gotoDate(date);
+                },
+              })
+            }
+          />
         </aside>
       ) : null}
     </div>

@@ -25,12 +25,32 @@ export function SeasonForm({ athleteId, today, sport }: { athleteId: string; tod
   const router = useRouter();
   const { register, handleSubmit, formState, setError } = useForm<Values>({
     resolver: zodResolver(form),
-    defaultValues: { name: "", sport: (SPORTS as readonly string[]).includes(sport) ? (sport as Values["sport"]) : "running", startDate: today, eventName: "", eventDate: "", weeklyHours: 6, level: "trained", retestEveryWeeks: 12 },
+    defaultValues: {
+      name: "",
+      sport: (SPORTS as readonly string[]).includes(sport) ? (sport as Values["sport"]) : "running",
+      startDate: today,
+      eventName: "",
+      eventDate: "",
+      weeklyHours: 6,
+      level: "trained",
+      retestEveryWeeks: 12,
+    },
   });
   const e = formState.errors;
   const onSubmit = handleSubmit(async (v) => {
     try {
-      await apiFetch(`/api/athletes/${athleteId}/seasons`, { method: "POST", body: JSON.stringify({ name: v.name, sport: v.sport, startDate: v.startDate, events: [{ date: v.eventDate, name: v.eventName }], weeklyHours: v.weeklyHours, level: v.level, retestEveryWeeks: v.retestEveryWeeks }) });
+      await apiFetch(`/api/athletes/${athleteId}/seasons`, {
+        method: "POST",
+        body: JSON.stringify({
+          name: v.name,
+          sport: v.sport,
+          startDate: v.startDate,
+          events: [{ date: v.eventDate, name: v.eventName }],
+          weeklyHours: v.weeklyHours,
+          level: v.level,
+          retestEveryWeeks: v.retestEveryWeeks,
+        }),
+      });
       router.refresh();
     } catch (err) {
       setError("root", { message: err instanceof Error ? err.message : "The season could not be created." });
@@ -38,30 +58,60 @@ export function SeasonForm({ athleteId, today, sport }: { athleteId: string; tod
   });
   const field = (name: keyof Values, label: string, type = "text", extra: object = {}) => (
     <div>
-      <label htmlFor={`season-${name}`} className="field-label">{label}</label>
-      <input id={`season-${name}`} type={type} className="field-input num" {...register(name, type === "number" ? { valueAsNumber: true } : {})} {...extra} />
+      <label htmlFor={`season-${name}`} className="field-label">
+        {label}
+      </label>
+      <input
+        id={`season-${name}`}
+        type={type}
+        className="field-input num"
+        {...register(name, type === "number" ? { valueAsNumber: true } : {})}
+        {...extra}
+      />
       <FieldError id={`season-${name}-e`} message={e[name]?.message} />
     </div>
   );
   return (
     <form onSubmit={onSubmit} noValidate className="grid gap-3 sm:grid-cols-3">
-      <div className="sm:col-span-3"><FormAlert>{e.root?.message}</FormAlert></div>
+      <div className="sm:col-span-3">
+        <FormAlert>{e.root?.message}</FormAlert>
+      </div>
       {field("name", "Season name")}
       <div>
-        <label htmlFor="season-sport" className="field-label">Sport</label>
-        <select id="season-sport" className="field-input" {...register("sport")}>{SPORTS.map((s) => <option key={s} value={s}>{SPORT_LABELS[s]}</option>)}</select>
+        <label htmlFor="season-sport" className="field-label">
+          Sport
+        </label>
+        <select id="season-sport" className="field-input" {...register("sport")}>
+          {SPORTS.map((s) => (
+            <option key={s} value={s}>
+              {SPORT_LABELS[s]}
+            </option>
+          ))}
+        </select>
       </div>
       {field("startDate", "Start", "date")}
       {field("eventName", "Target event")}
       {field("eventDate", "Event date", "date")}
       {field("weeklyHours", "Weekly hours now (h)", "number", { step: "0.5" })}
       <div>
-        <label htmlFor="season-level" className="field-label">Athlete</label>
-        <select id="season-level" className="field-input" {...register("level")}><option value="trained">Trained (polarised budget)</option><option value="beginner">Beginner (pyramidal budget)</option></select>
+        <label htmlFor="season-level" className="field-label">
+          Athlete
+        </label>
+        <select id="season-level" className="field-input" {...register("level")}>
+          <option value="trained">Trained (polarised budget)</option>
+          <option value="beginner">Beginner (pyramidal budget)</option>
+        </select>
       </div>
       {field("retestEveryWeeks", "Retest every (weeks, 12–16)", "number")}
-      <div className="flex items-end"><SubmitButton className="btn w-full" disabled={formState.isSubmitting}>{formState.isSubmitting ? "Planning…" : "Generate the season"}</SubmitButton></div>
-      <p className="text-xs text-ink-soft sm:col-span-3">Weekly volume rises at most 10 % over recent weeks (a common caution with weak evidence, not a law), with 3 loading weeks then 1 unloading week, a taper before the event and retests in unloading weeks.</p>
+      <div className="flex items-end">
+        <SubmitButton className="btn w-full" disabled={formState.isSubmitting}>
+          {formState.isSubmitting ? "Planning…" : "Generate the season"}
+        </SubmitButton>
+      </div>
+      <p className="text-xs text-ink-soft sm:col-span-3">
+        Weekly volume rises at most 10 % over recent weeks (a common caution with weak evidence, not a law), with 3
+        loading weeks then 1 unloading week, a taper before the event and retests in unloading weeks.
+      </p>
     </form>
   );
 }

@@ -7,5 +7,9 @@ import dynamic from "next/dynamic";
  */
 export const SeasonFormLoader = dynamic(() => import("./SeasonForm").then((m) => m.SeasonForm), {
   ssr: false,
-  loading: () => <p role="status" className="text-sm text-ink-soft">Loading the season form…</p>,
+  loading: () => (
+    <p role="status" className="text-sm text-ink-soft">
+      Loading the season form…
+    </p>
+  ),
 });

@@ -11,7 +11,17 @@ const BLOCK_STYLE: Record<BlockName, string> = {
 };
 
 /** The strip of a season's weeks: block, volume target, budget state and retest marks; a week opens in the calendar. */
-export function SeasonRibbon({ athleteId, name, weeks, overBudget }: { athleteId: string; name: string; weeks: SeasonWeek[]; overBudget: Record<string, string[]> }) {
+export function SeasonRibbon({
+  athleteId,
+  name,
+  weeks,
+  overBudget,
+}: {
+  athleteId: string;
+  name: string;
+  weeks: SeasonWeek[];
+  overBudget: Record<string, string[]>;
+}) {
   const blocks = [...new Set(weeks.map((w) => w.block))];
   return (
     <section aria-label={`Season ribbon: ${name}`} className="space-y-2">
@@ -19,10 +29,15 @@ export function SeasonRibbon({ athleteId, name, weeks, overBudget }: { athleteId
         <h2 className="font-bold">{name}</h2>
         <ul className="flex flex-wrap gap-3 text-xs">
           {blocks.map((b) => (
-            <li key={b} className="flex items-center gap-1"><span aria-hidden className={`inline-block h-3 w-3 rounded-sm border border-rule ${BLOCK_STYLE[b]}`} />{BLOCK_LABELS[b]}</li>
+            <li key={b} className="flex items-center gap-1">
+              <span aria-hidden className={`inline-block h-3 w-3 rounded-sm border border-rule ${BLOCK_STYLE[b]}`} />
+              {BLOCK_LABELS[b]}
+            </li>
           ))}
           <li>⟳ retest</li>
-          <li><span className="font-bold text-alert">!</span> over budget</li>
+          <li>
+            <span className="font-bold text-alert">!</span> over budget
+          </li>
         </ul>
       </div>
       <ol className="flex gap-0.5 overflow-x-auto pb-1">
@@ -38,7 +53,10 @@ export function SeasonRibbon({ athleteId, name, weeks, overBudget }: { athleteId
               >
                 <span className="block num">{w.weekStart.slice(5)}</span>
                 <span className="block num font-semibold">{w.volumeHours} h</span>
-                <span className="block">{w.retest ? "⟳" : "\u00a0"}{flags.length ? <span className="font-bold text-alert">!</span> : null}</span>
+                <span className="block">
+                  {w.retest ? "⟳" : "\u00a0"}
+                  {flags.length ? <span className="font-bold text-alert">!</span> : null}
+                </span>
               </Link>
             </li>
           );

@@ -9,7 +9,14 @@ import { invalidatePlan, type SessionDto } from "../api";
 import { LOG_WORD, zoneText } from "./session-text";
 
 // The editor brings the form and validation libraries; it loads when a coach first opens it, not with the calendar.
-const SessionEditor = dynamic(() => import("./SessionEditor").then((m) => m.SessionEditor), { ssr: false, loading: () => <p role="status" className="text-sm text-ink-soft">Opening the editor…</p> });
+const SessionEditor = dynamic(() => import("./SessionEditor").then((m) => m.SessionEditor), {
+  ssr: false,
+  loading: () => (
+    <p role="status" className="text-sm text-ink-soft">
+      Opening the editor…
+    </p>
+  ),
+});
 
 export interface SelectedSessionProps {
   athleteId: string;
@@ -25,20 +32,41 @@ export interface SelectedSessionProps {
 }
 
 /** The session picked on the calendar: its numbers and log, and (for its coaches) edit, move, copy and delete. */
-export function SelectedSession({ athleteId, session: selected, canEdit, busy, onMove, onDelete, onClose, onDone, onError }: SelectedSessionProps) {
+export function SelectedSession({
+  athleteId,
+  session: selected,
+  canEdit,
+  busy,
+  onMove,
+  onDelete,
+  onClose,
+  onDone,
+  onError,
+}: SelectedSessionProps) {
   const [editing, setEditing] = useState(false);
   return (
     <section className="card space-y-2" aria-label="Selected session">
-      <h3 className="font-bold">{selected.title} · {selected.date}</h3>
-      <p className="num text-sm">{Math.round(selected.totalS / 60)} min · {zoneText(selected.minutesByZone)}{selected.rrule ? ` · repeats (${selected.rrule})` : ""}</p>
+      <h3 className="font-bold">
+        {selected.title} · {selected.date}
+      </h3>
+      <p className="num text-sm">
+        {Math.round(selected.totalS / 60)} min · {zoneText(selected.minutesByZone)}
+        {selected.rrule ? ` · repeats (${selected.rrule})` : ""}
+      </p>
       {selected.log ? (
         <p className="num text-sm" data-testid="selected-log">
-          <span className="font-semibold">{LOG_WORD[selected.log.status][0]!.toUpperCase() + LOG_WORD[selected.log.status].slice(1)}</span>
-          {selected.log.durationMin != null ? ` · ${Math.round(selected.log.durationMin)} min (${Math.round(selected.log.compliance * 100)} % of plan)` : ""}
+          <span className="font-semibold">
+            {LOG_WORD[selected.log.status][0]!.toUpperCase() + LOG_WORD[selected.log.status].slice(1)}
+          </span>
+          {selected.log.durationMin != null
+            ? ` · ${Math.round(selected.log.durationMin)} min (${Math.round(selected.log.compliance * 100)} % of plan)`
+            : ""}
           {selected.log.rpe != null ? ` · RPE ${selected.log.rpe}` : ""}
           {selected.log.measuredMinByZone ? ` · measured ${zoneText(selected.log.measuredMinByZone)}` : ""}
         </p>
-      ) : <p className="text-sm text-ink-soft">Not logged yet.</p>}
+      ) : (
+        <p className="text-sm text-ink-soft">Not logged yet.</p>
+      )}
       {canEdit && editing ? (
         <SessionEditor
           athleteId={athleteId}
@@ -53,12 +81,28 @@ export function SelectedSession({ athleteId, session: selected, canEdit, busy, o
       ) : null}
       {canEdit && !editing ? (
         <div className="flex flex-wrap gap-2 text-sm">
-          <button type="button" className="btn-quiet py-1" onClick={() => setEditing(true)}>Edit steps and notes</button>
+          <button type="button" className="btn-quiet py-1" onClick={() => setEditing(true)}>
+            Edit steps and notes
+          </button>
           <MoveToDay key={selected.id} session={selected} busy={busy} onMove={onMove} />
-          <DuplicateButton sessionId={selected.id} date={addDays(selected.date, 7)} onDone={onDone} onError={onError} athleteId={athleteId} />
-          <button type="button" className="btn-quiet py-1" onClick={() => onDelete("one")}>Delete</button>
-          {selected.seriesId ? <button type="button" className="btn-quiet py-1" onClick={() => onDelete("series")}>Delete the series from here</button> : null}
-          <button type="button" className="text-sm underline" onClick={onClose}>Close</button>
+          <DuplicateButton
+            sessionId={selected.id}
+            date={addDays(selected.date, 7)}
+            onDone={onDone}
+            onError={onError}
+            athleteId={athleteId}
+          />
+          <button type="button" className="btn-quiet py-1" onClick={() => onDelete("one")}>
+            Delete
+          </button>
+          {selected.seriesId ? (
+            <button type="button" className="btn-quiet py-1" onClick={() => onDelete("series")}>
+              Delete the series from here
+            </button>
+          ) : null}
+          <button type="button" className="text-sm underline" onClick={onClose}>
+            Close
+          </button>
         </div>
       ) : null}
     </section>
@@ -76,14 +120,36 @@ function MoveToDay({ session, busy, onMove }: { session: SessionDto; busy: boole
         if (date && date !== session.date) onMove(date);
       }}
     >
-      <label htmlFor={`move-${session.id}`} className="sr-only">New day for {session.title}</label>
-      <input id={`move-${session.id}`} type="date" className="field-input mt-0 w-40 py-1 num" value={date} onChange={(e) => setDate(e.target.value)} />
-      <SubmitButton className="btn-quiet py-1" disabled={busy || !date || date === session.date}>Move to this day</SubmitButton>
+      <label htmlFor={`move-${session.id}`} className="sr-only">
+        New day for {session.title}
+      </label>
+      <input
+        id={`move-${session.id}`}
+        type="date"
+        className="field-input mt-0 w-40 py-1 num"
+        value={date}
+        onChange={(e) => setDate(e.target.value)}
+      />
+      <SubmitButton className="btn-quiet py-1" disabled={busy || !date || date === session.date}>
+        Move to this day
+      </SubmitButton>
     </form>
   );
 }
 
-function DuplicateButton({ sessionId, date, onDone, onError, athleteId }: { sessionId: string; date: string; onDone: (t: string) => void; onError: (e: unknown) => void; athleteId: string }) {
+function DuplicateButton({
+  sessionId,
+  date,
+  onDone,
+  onError,
+  athleteId,
+}: {
+  sessionId: string;
+  date: string;
+  onDone: (t: string) => void;
+  onError: (e: unknown) => void;
+  athleteId: string;
+}) {
   const qc = useQueryClient();
   const [busy, setBusy] = useState(false);
   return (
@@ -108,4 +174,3 @@ function DuplicateButton({ sessionId, date, onDone, onError, athleteId }: { sess
     </button>
   );
 }
-

@@ -9,12 +9,30 @@ import { apiFetch } from "@/features/platform/lib/api-client";
 import { expand, STEP_KINDS, structureSchema, type Block } from "../lib/session";
 import { SubmitButton } from "@/features/platform/components/SubmitButton";
 
-const KIND_LABELS: Record<(typeof STEP_KINDS)[number], string> = { warmup: "Warm-up", work: "Work", recovery: "Recovery", cooldown: "Cool-down" };
+const KIND_LABELS: Record<(typeof STEP_KINDS)[number], string> = {
+  warmup: "Warm-up",
+  work: "Work",
+  recovery: "Recovery",
+  cooldown: "Cool-down",
+};
 const ZONE_FILL = ["var(--color-zone-1)", "var(--color-zone-2)", "var(--color-zone-3)"];
 
-const stepForm = z.object({ kind: z.enum(STEP_KINDS), amount: z.number({ error: "How long?" }).positive("Above 0.").max(600, "At most 600."), unit: z.enum(["min", "km"]), zone: z.number().int().min(1).max(3) });
-const blockForm = z.object({ times: z.number({ error: "How often?" }).int().min(1, "At least once.").max(50, "At most 50."), steps: z.array(stepForm).min(1) });
-export const formSchema = z.object({ name: z.string().trim().min(2, "Name the template."), sport: z.enum(SPORTS), description: z.string().max(500), blocks: z.array(blockForm).min(1, "Add at least one step.") });
+const stepForm = z.object({
+  kind: z.enum(STEP_KINDS),
+  amount: z.number({ error: "How long?" }).positive("Above 0.").max(600, "At most 600."),
+  unit: z.enum(["min", "km"]),
+  zone: z.number().int().min(1).max(3),
+});
+const blockForm = z.object({
+  times: z.number({ error: "How often?" }).int().min(1, "At least once.").max(50, "At most 50."),
+  steps: z.array(stepForm).min(1),
+});
+export const formSchema = z.object({
+  name: z.string().trim().min(2, "Name the template."),
+  sport: z.enum(SPORTS),
+  description: z.string().max(500),
+  blocks: z.array(blockForm).min(1, "Add at least one step."),
+});
 export type Values = z.infer<typeof formSchema>;
 type BlockValues = Values["blocks"][number];
 
@@ -24,7 +42,9 @@ export function toStructure(v: Pick<Values, "blocks">): Block[] {
     const steps = b.steps.map((st) => {
       const amount = Number(st.amount) || 0;
       const zone = Number(st.zone) || 1;
-      return st.unit === "km" ? { type: "step" as const, kind: st.kind, distanceM: Math.round(amount * 1000), zone } : { type: "step" as const, kind: st.kind, durationS: Math.round(amount * 60), zone };
+      return st.unit === "km"
+        ? { type: "step" as const, kind: st.kind, distanceM: Math.round(amount * 1000), zone }
+        : { type: "step" as const, kind: st.kind, durationS: Math.round(amount * 60), zone };
     });
     if (b.times > 1) out.push({ type: "repeat", times: b.times, steps });
     else out.push(...steps);
@@ -39,7 +59,14 @@ export function toStructure(v: Pick<Values, "blocks">): Block[] {
 export function fromStructure(structure: Block[]): BlockValues[] | null {
   const out: BlockValues[] = [];
   const stepOf = (b: Block) =>
-    b.type === "step" ? { kind: b.kind, amount: b.distanceM !== undefined ? b.distanceM / 1000 : (b.durationS ?? 0) / 60, unit: (b.distanceM !== undefined ? "km" : "min") as "km" | "min", zone: b.zone } : null;
+    b.type === "step"
+      ? {
+          kind: b.kind,
+          amount: b.distanceM !== undefined ? b.distanceM / 1000 : (b.durationS ?? 0) / 60,
+          unit: (b.distanceM !== undefined ? "km" : "min") as "km" | "min",
+          zone: b.zone,
+        }
+      : null;
   for (const b of structure) {
     if (b.type === "repeat") {
       const steps = b.steps.map(stepOf);
@@ -57,46 +84,118 @@ export function fromStructure(structure: Block[]): BlockValues[] | null {
 export function SessionProfile({ structure }: { structure: Block[] }) {
   const e = expand(structure);
   const total = e.totalS || 1;
-  const starts = e.steps.reduce<number[]>((acc, s, i) => [...acc, (acc[i] ?? 0) + ((s.durationS ?? 0) / total) * 300], [0]);
+  const starts = e.steps.reduce<number[]>(
+    (acc, s, i) => [...acc, (acc[i] ?? 0) + ((s.durationS ?? 0) / total) * 300],
+    [0],
+  );
   return (
-    <svg viewBox="0 0 300 40" className="h-10 w-full" role="img" aria-label={`Session profile: ${Math.round(e.totalS / 60)} min, zone 1 ${Math.round(e.minutesByZone[0])}, zone 2 ${Math.round(e.minutesByZone[1])}, zone 3 ${Math.round(e.minutesByZone[2])} min`}>
+    <svg
+      viewBox="0 0 300 40"
+      className="h-10 w-full"
+      role="img"
+      aria-label={`Session profile: ${Math.round(e.totalS / 60)} min, zone 1 ${Math.round(e.minutesByZone[0])}, zone 2 ${Math.round(e.minutesByZone[1])}, zone 3 ${Math.round(e.minutesByZone[2])} min`}
+    >
       {e.steps.map((s, i) => {
         const w = starts[i + 1]! - starts[i]!;
         const h = 10 + (s.zone - 1) * 14;
-        return <rect key={i} x={starts[i]} y={40 - h} width={Math.max(0.5, w - 0.5)} height={h} fill={ZONE_FILL[s.zone - 1]} stroke="var(--color-ink)" strokeWidth={0.3} />;
+        return (
+          <rect
+            key={i}
+            x={starts[i]}
+            y={40 - h}
+            width={Math.max(0.5, w - 0.5)}
+            height={h}
+            fill={ZONE_FILL[s.zone - 1]}
+            stroke="var(--color-ink)"
+            strokeWidth={0.3}
+          />
+        );
       })}
     </svg>
   );
 }
 
-function StepsEditor({ control, register, index }: { control: Control<Values>; register: UseFormRegister<Values>; index: number }) {
+function StepsEditor({
+  control,
+  register,
+  index,
+}: {
+  control: Control<Values>;
+  register: UseFormRegister<Values>;
+  index: number;
+}) {
   const { fields, append, remove } = useFieldArray({ control, name: `blocks.${index}.steps` });
   return (
     <div className="space-y-1">
       {fields.map((f, j) => (
         <div key={f.id} className="flex flex-wrap items-center gap-2">
-          <select aria-label={`Block ${index + 1} step ${j + 1} kind`} className="field-input mt-0 w-32" {...register(`blocks.${index}.steps.${j}.kind`)}>
-            {STEP_KINDS.map((k) => <option key={k} value={k}>{KIND_LABELS[k]}</option>)}
+          <select
+            aria-label={`Block ${index + 1} step ${j + 1} kind`}
+            className="field-input mt-0 w-32"
+            {...register(`blocks.${index}.steps.${j}.kind`)}
+          >
+            {STEP_KINDS.map((k) => (
+              <option key={k} value={k}>
+                {KIND_LABELS[k]}
+              </option>
+            ))}
           </select>
-          <input aria-label={`Block ${index + 1} step ${j + 1} amount`} type="number" step="0.5" className="field-input mt-0 w-24 num" {...register(`blocks.${index}.steps.${j}.amount`, { valueAsNumber: true })} />
-          <select aria-label={`Block ${index + 1} step ${j + 1} unit`} className="field-input mt-0 w-20" {...register(`blocks.${index}.steps.${j}.unit`)}>
+          <input
+            aria-label={`Block ${index + 1} step ${j + 1} amount`}
+            type="number"
+            step="0.5"
+            className="field-input mt-0 w-24 num"
+            {...register(`blocks.${index}.steps.${j}.amount`, { valueAsNumber: true })}
+          />
+          <select
+            aria-label={`Block ${index + 1} step ${j + 1} unit`}
+            className="field-input mt-0 w-20"
+            {...register(`blocks.${index}.steps.${j}.unit`)}
+          >
             <option value="min">min</option>
             <option value="km">km</option>
           </select>
           <span className="text-sm">in</span>
-          <select aria-label={`Block ${index + 1} step ${j + 1} zone`} className="field-input mt-0 w-28" {...register(`blocks.${index}.steps.${j}.zone`, { valueAsNumber: true })}>
-            {[1, 2, 3].map((z) => <option key={z} value={z}>zone {z}</option>)}
+          <select
+            aria-label={`Block ${index + 1} step ${j + 1} zone`}
+            className="field-input mt-0 w-28"
+            {...register(`blocks.${index}.steps.${j}.zone`, { valueAsNumber: true })}
+          >
+            {[1, 2, 3].map((z) => (
+              <option key={z} value={z}>
+                zone {z}
+              </option>
+            ))}
           </select>
-          <button type="button" className="text-sm text-alert underline" onClick={() => remove(j)} disabled={fields.length <= 1}>Remove step</button>
+          <button
+            type="button"
+            className="text-sm text-alert underline"
+            onClick={() => remove(j)}
+            disabled={fields.length <= 1}
+          >
+            Remove step
+          </button>
         </div>
       ))}
-      <button type="button" className="text-sm text-tide underline" onClick={() => append({ kind: "recovery", amount: 3, unit: "min", zone: 1 })}>Add a step to this block</button>
+      <button
+        type="button"
+        className="text-sm text-tide underline"
+        onClick={() => append({ kind: "recovery", amount: 3, unit: "min", zone: 1 })}
+      >
+        Add a step to this block
+      </button>
     </div>
   );
 }
 
 /** The blocks of a session or template with their steps, and the live totals and profile while editing. */
-export function StructureFields({ control, register }: { control: Control<Values>; register: UseFormRegister<Values> }) {
+export function StructureFields({
+  control,
+  register,
+}: {
+  control: Control<Values>;
+  register: UseFormRegister<Values>;
+}) {
   const { fields, append, remove } = useFieldArray({ control, name: "blocks" });
   const blocks = useWatch({ control, name: "blocks" });
   const structure = toStructure({ blocks: blocks ?? [] });
@@ -109,19 +208,40 @@ export function StructureFields({ control, register }: { control: Control<Values
           <li key={f.id} className="rounded-md border border-rule p-3">
             <div className="mb-2 flex flex-wrap items-center gap-2 text-sm">
               <span className="font-semibold">Block {i + 1}: repeat</span>
-              <input aria-label={`Block ${i + 1} repeats`} type="number" className="field-input mt-0 w-20 num" {...register(`blocks.${i}.times`, { valueAsNumber: true })} />
+              <input
+                aria-label={`Block ${i + 1} repeats`}
+                type="number"
+                className="field-input mt-0 w-20 num"
+                {...register(`blocks.${i}.times`, { valueAsNumber: true })}
+              />
               <span>× (once = plain steps)</span>
-              <button type="button" className="ml-auto text-alert underline" onClick={() => remove(i)} disabled={fields.length <= 1}>Remove block</button>
+              <button
+                type="button"
+                className="ml-auto text-alert underline"
+                onClick={() => remove(i)}
+                disabled={fields.length <= 1}
+              >
+                Remove block
+              </button>
             </div>
             <StepsEditor control={control} register={register} index={i} />
           </li>
         ))}
       </ol>
-      <button type="button" className="btn-quiet" onClick={() => append({ times: 1, steps: [{ kind: "work", amount: 10, unit: "min", zone: 1 }] })}>Add a block</button>
+      <button
+        type="button"
+        className="btn-quiet"
+        onClick={() => append({ times: 1, steps: [{ kind: "work", amount: 10, unit: "min", zone: 1 }] })}
+      >
+        Add a block
+      </button>
       <div className="rounded-md bg-ground p-3 text-sm" aria-live="polite">
         {e ? (
           <>
-            <p className="num font-semibold">{Math.round(e.totalS / 60)} min in all · zone 1 {Math.round(e.minutesByZone[0])} min · zone 2 {Math.round(e.minutesByZone[1])} min · zone 3 {Math.round(e.minutesByZone[2])} min</p>
+            <p className="num font-semibold">
+              {Math.round(e.totalS / 60)} min in all · zone 1 {Math.round(e.minutesByZone[0])} min · zone 2{" "}
+              {Math.round(e.minutesByZone[1])} min · zone 3 {Math.round(e.minutesByZone[2])} min
+            </p>
             <SessionProfile structure={valid.success ? valid.data : []} />
           </>
         ) : (
@@ -136,13 +256,31 @@ export function TemplateBuilder({ squadId }: { squadId: string }) {
   const router = useRouter();
   const { register, control, handleSubmit, formState, setError, reset } = useForm<Values>({
     resolver: zodResolver(formSchema),
-    defaultValues: { name: "", sport: "running", description: "", blocks: [{ times: 1, steps: [{ kind: "warmup", amount: 15, unit: "min", zone: 1 }] }, { times: 5, steps: [{ kind: "work", amount: 4, unit: "min", zone: 3 }, { kind: "recovery", amount: 3, unit: "min", zone: 1 }] }, { times: 1, steps: [{ kind: "cooldown", amount: 10, unit: "min", zone: 1 }] }] },
+    defaultValues: {
+      name: "",
+      sport: "running",
+      description: "",
+      blocks: [
+        { times: 1, steps: [{ kind: "warmup", amount: 15, unit: "min", zone: 1 }] },
+        {
+          times: 5,
+          steps: [
+            { kind: "work", amount: 4, unit: "min", zone: 3 },
+            { kind: "recovery", amount: 3, unit: "min", zone: 1 },
+          ],
+        },
+        { times: 1, steps: [{ kind: "cooldown", amount: 10, unit: "min", zone: 1 }] },
+      ],
+    },
   });
   const onSubmit = handleSubmit(async (v) => {
     const s = structureSchema.safeParse(toStructure(v));
     if (!s.success) return setError("root", { message: s.error.issues[0]!.message });
     try {
-      await apiFetch("/api/templates", { method: "POST", body: JSON.stringify({ squadId, name: v.name, sport: v.sport, description: v.description, structure: s.data }) });
+      await apiFetch("/api/templates", {
+        method: "POST",
+        body: JSON.stringify({ squadId, name: v.name, sport: v.sport, description: v.description, structure: s.data }),
+      });
       reset();
       router.refresh();
     } catch (err) {
@@ -154,21 +292,35 @@ export function TemplateBuilder({ squadId }: { squadId: string }) {
       <FormAlert>{formState.errors.root?.message}</FormAlert>
       <div className="grid gap-3 sm:grid-cols-2">
         <div>
-          <label htmlFor="tpl-name" className="field-label">Name</label>
+          <label htmlFor="tpl-name" className="field-label">
+            Name
+          </label>
           <input id="tpl-name" className="field-input" {...register("name")} />
           <FieldError id="tpl-name-e" message={formState.errors.name?.message} />
         </div>
         <div>
-          <label htmlFor="tpl-sport" className="field-label">Sport</label>
-          <select id="tpl-sport" className="field-input" {...register("sport")}>{SPORTS.map((s) => <option key={s} value={s}>{SPORT_LABELS[s]}</option>)}</select>
+          <label htmlFor="tpl-sport" className="field-label">
+            Sport
+          </label>
+          <select id="tpl-sport" className="field-input" {...register("sport")}>
+            {SPORTS.map((s) => (
+              <option key={s} value={s}>
+                {SPORT_LABELS[s]}
+              </option>
+            ))}
+          </select>
         </div>
         <div className="sm:col-span-2">
-          <label htmlFor="tpl-desc" className="field-label">Description <span className="font-normal text-ink-soft">(optional)</span></label>
+          <label htmlFor="tpl-desc" className="field-label">
+            Description <span className="font-normal text-ink-soft">(optional)</span>
+          </label>
           <input id="tpl-desc" className="field-input" {...register("description")} />
         </div>
       </div>
       <StructureFields control={control} register={register} />
-      <SubmitButton className="btn" disabled={formState.isSubmitting}>{formState.isSubmitting ? "Saving…" : "Save the template"}</SubmitButton>
+      <SubmitButton className="btn" disabled={formState.isSubmitting}>
+        {formState.isSubmitting ? "Saving…" : "Save the template"}
+      </SubmitButton>
     </form>
   );
 }

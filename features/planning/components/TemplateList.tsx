@@ -21,7 +21,9 @@ export function TemplateList({ templates }: { templates: Row[] }) {
   const router = useRouter();
   const [q, setQ] = useState("");
   const [error, setError] = useState<string>();
-  const shown = templates.filter((t) => `${t.name} ${t.description} ${t.sport}`.toLowerCase().includes(q.trim().toLowerCase()));
+  const shown = templates.filter((t) =>
+    `${t.name} ${t.description} ${t.sport}`.toLowerCase().includes(q.trim().toLowerCase()),
+  );
   const act = async (fn: () => Promise<unknown>) => {
     setError(undefined);
     try {
@@ -35,20 +37,52 @@ export function TemplateList({ templates }: { templates: Row[] }) {
     <div className="space-y-3">
       <label className="block max-w-sm">
         <span className="field-label">Search templates</span>
-        <input type="search" className="field-input" value={q} onChange={(e) => setQ(e.target.value)} placeholder="name, sport or description" />
+        <input
+          type="search"
+          className="field-input"
+          value={q}
+          onChange={(e) => setQ(e.target.value)}
+          placeholder="name, sport or description"
+        />
       </label>
       <FormAlert>{error}</FormAlert>
-      {shown.length === 0 ? <p className="text-ink-soft">{templates.length ? "No template matches the search." : "No templates yet: build the first one below."}</p> : null}
+      {shown.length === 0 ? (
+        <p className="text-ink-soft">
+          {templates.length ? "No template matches the search." : "No templates yet: build the first one below."}
+        </p>
+      ) : null}
       <ul className="grid gap-3 md:grid-cols-2">
         {shown.map((t) => (
           <li key={t.id} className="card space-y-1 p-4" data-testid="template-card">
-            <p className="font-semibold">{t.name} <span className="text-sm font-normal text-ink-soft">· {(SPORT_LABELS as Record<string, string>)[t.sport] ?? t.sport}</span></p>
+            <p className="font-semibold">
+              {t.name}{" "}
+              <span className="text-sm font-normal text-ink-soft">
+                · {(SPORT_LABELS as Record<string, string>)[t.sport] ?? t.sport}
+              </span>
+            </p>
             {t.description ? <p className="text-sm text-ink-soft">{t.description}</p> : null}
-            <p className="num text-sm">{Math.round(t.totalS / 60)} min · zone 1 {Math.round(t.minutesByZone[0])} · zone 2 {Math.round(t.minutesByZone[1])} · zone 3 {Math.round(t.minutesByZone[2])} min</p>
+            <p className="num text-sm">
+              {Math.round(t.totalS / 60)} min · zone 1 {Math.round(t.minutesByZone[0])} · zone 2{" "}
+              {Math.round(t.minutesByZone[1])} · zone 3 {Math.round(t.minutesByZone[2])} min
+            </p>
             <SessionProfile structure={t.structure as Block[]} />
             <div className="flex gap-3 text-sm">
-              <button type="button" className="text-tide underline" onClick={() => act(() => apiFetch("/api/templates", { method: "POST", body: JSON.stringify({ copyOf: t.id }) }))}>Duplicate</button>
-              <button type="button" className="text-alert underline" onClick={() => act(() => apiFetch(`/api/templates/${t.id}`, { method: "DELETE" }))}>Delete</button>
+              <button
+                type="button"
+                className="text-tide underline"
+                onClick={() =>
+                  act(() => apiFetch("/api/templates", { method: "POST", body: JSON.stringify({ copyOf: t.id }) }))
+                }
+              >
+                Duplicate
+              </button>
+              <button
+                type="button"
+                className="text-alert underline"
+                onClick={() => act(() => apiFetch(`/api/templates/${t.id}`, { method: "DELETE" }))}
+              >
+                Delete
+              </button>
             </div>
           </li>
         ))}

@@ -11,7 +11,11 @@ import type { TrayTemplate } from "./PlanCalendar";
  * the same engine as the server's band, with each week's budget, role and volume target as the server gave them. The
  * preview ends whenever a drag ends, wherever that is.
  */
-export function useDragPreview(sessions: SessionDto[] | undefined, weeks: WeekSummary[] | undefined, templates: TrayTemplate[]) {
+export function useDragPreview(
+  sessions: SessionDto[] | undefined,
+  weeks: WeekSummary[] | undefined,
+  templates: TrayTemplate[],
+) {
   const [preview, setPreview] = useState<WeekSummary | null>(null);
 
   useEffect(() => {
@@ -25,12 +29,26 @@ export function useDragPreview(sessions: SessionDto[] | undefined, weeks: WeekSu
   }, []);
 
   const seasonWeeks: SeasonWeekInfo[] = useMemo(
-    () => (weeks ?? []).map((w) => ({ weekStart: w.weekStart, budget: w.budget.key, block: w.block ?? "", retest: false, role: w.role ?? undefined, volumeHours: w.targetMin !== null ? w.targetMin / 60 : undefined })),
+    () =>
+      (weeks ?? []).map((w) => ({
+        weekStart: w.weekStart,
+        budget: w.budget.key,
+        block: w.block ?? "",
+        retest: false,
+        role: w.role ?? undefined,
+        volumeHours: w.targetMin !== null ? w.targetMin / 60 : undefined,
+      })),
     [weeks],
   );
 
   function previewFor(date: string, moving: { id?: string; templateId?: string }) {
-    const base: WeekSession[] = (sessions ?? []).map((s) => ({ id: s.id, date: s.date, title: s.title, kind: s.kind, minutesByZone: s.minutesByZone }));
+    const base: WeekSession[] = (sessions ?? []).map((s) => ({
+      id: s.id,
+      date: s.date,
+      title: s.title,
+      kind: s.kind,
+      minutesByZone: s.minutesByZone,
+    }));
     let next = base;
     if (moving.id) next = base.map((s) => (s.id === moving.id ? { ...s, date } : s));
     else if (moving.templateId) {

@@ -25,7 +25,15 @@ export type BudgetPreset = keyof typeof BUDGET_PRESETS;
 
 export const DEFAULT_RAMP_CAP = 0.1;
 
-export type BreachCode = "too_much_high" | "too_little_low" | "too_much_moderate" | "volume_ramp" | "no_easy_day" | "retest_overdue" | "role_volume" | "volume_off_target";
+export type BreachCode =
+  | "too_much_high"
+  | "too_little_low"
+  | "too_much_moderate"
+  | "volume_ramp"
+  | "no_easy_day"
+  | "retest_overdue"
+  | "role_volume"
+  | "volume_off_target";
 
 export interface Breach {
   code: BreachCode;
@@ -76,7 +84,12 @@ export function checkWeek(input: WeekInput): WeekCheck {
       breaches.push({
         code: "too_much_high",
         message: `Zone 3 is ${pct(shares[2])} % of the week; the ${budget.name.toLowerCase()} budget allows ${pct(maxShare)} %. Remove about ${Math.ceil(removeZ3)} min of zone 3 or add about ${Math.ceil(addZ1)} min of zone 1.`,
-        numbers: { sharePct: pct(shares[2]), allowedPct: pct(maxShare), removeZone3Min: Math.ceil(removeZ3), addZone1Min: Math.ceil(addZ1) },
+        numbers: {
+          sharePct: pct(shares[2]),
+          allowedPct: pct(maxShare),
+          removeZone3Min: Math.ceil(removeZ3),
+          addZone1Min: Math.ceil(addZ1),
+        },
       });
     }
     if (shares[1] > budget.shares[1] + tol) {
@@ -112,10 +125,18 @@ export function checkWeek(input: WeekInput): WeekCheck {
     }
   }
   if (input.days && input.days.length === 7 && !input.days.some(isEasyDay)) {
-    breaches.push({ code: "no_easy_day", message: "Every day of the week has zone 2 or zone 3 work: plan at least one easy or rest day.", numbers: { easyDays: 0 } });
+    breaches.push({
+      code: "no_easy_day",
+      message: "Every day of the week has zone 2 or zone 3 work: plan at least one easy or rest day.",
+      numbers: { easyDays: 0 },
+    });
   }
   if (input.retestOverdue) {
-    breaches.push({ code: "retest_overdue", message: "The retest is overdue: the zones may no longer match the athlete's fitness.", numbers: {} });
+    breaches.push({
+      code: "retest_overdue",
+      message: "The retest is overdue: the zones may no longer match the athlete's fitness.",
+      numbers: {},
+    });
   }
   return { totalMin: r1(total), shares, breaches, ok: breaches.length === 0 };
 }

@@ -6,7 +6,14 @@ import { planSeason, SeasonError } from "./season";
 describe("structured sessions", () => {
   const intervals = structureSchema.parse([
     { type: "step", kind: "warmup", durationS: 900, zone: 1 },
-    { type: "repeat", times: 5, steps: [{ type: "step", kind: "work", durationS: 240, zone: 3 }, { type: "step", kind: "recovery", durationS: 180, zone: 1 }] },
+    {
+      type: "repeat",
+      times: 5,
+      steps: [
+        { type: "step", kind: "work", durationS: 240, zone: 3 },
+        { type: "step", kind: "recovery", durationS: 180, zone: 1 },
+      ],
+    },
     { type: "step", kind: "cooldown", durationS: 600, zone: 1 },
   ]);
 
@@ -18,7 +25,16 @@ describe("structured sessions", () => {
   });
 
   it("nested repeats multiply out", () => {
-    const nested = structureSchema.parse([{ type: "repeat", times: 2, steps: [{ type: "repeat", times: 3, steps: [{ type: "step", kind: "work", durationS: 60, zone: 3 }] }, { type: "step", kind: "recovery", durationS: 300, zone: 1 }] }]);
+    const nested = structureSchema.parse([
+      {
+        type: "repeat",
+        times: 2,
+        steps: [
+          { type: "repeat", times: 3, steps: [{ type: "step", kind: "work", durationS: 60, zone: 3 }] },
+          { type: "step", kind: "recovery", durationS: 300, zone: 1 },
+        ],
+      },
+    ]);
     expect(expand(nested).minutesByZone).toEqual([10, 0, 6]);
   });
 
@@ -31,13 +47,37 @@ describe("structured sessions", () => {
   });
 
   it("rejects impossible structures with clear messages", () => {
-    const bad = (v: unknown) => structureSchema.safeParse(v).error?.issues.map((i) => i.message).join(" | ") ?? "";
+    const bad = (v: unknown) =>
+      structureSchema
+        .safeParse(v)
+        .error?.issues.map((i) => i.message)
+        .join(" | ") ?? "";
     expect(bad([])).toMatch(/at least one step/);
     expect(bad([{ type: "step", kind: "work", zone: 2 }])).toMatch(/either a duration or a distance/);
-    expect(bad([{ type: "step", kind: "work", durationS: 60, distanceM: 100, zone: 2 }])).toMatch(/either a duration or a distance/);
+    expect(bad([{ type: "step", kind: "work", durationS: 60, distanceM: 100, zone: 2 }])).toMatch(
+      /either a duration or a distance/,
+    );
     expect(bad([{ type: "step", kind: "sprint", durationS: 60, zone: 4 }])).toMatch(/warm-up, work|zone 1, 2 or 3/);
-    expect(bad([{ type: "repeat", times: 1, steps: [{ type: "step", kind: "work", durationS: 60, zone: 2 }] }])).toMatch(/at least twice/);
-    const deep = { type: "repeat", times: 2, steps: [{ type: "repeat", times: 2, steps: [{ type: "repeat", times: 2, steps: [{ type: "repeat", times: 2, steps: [{ type: "step", kind: "work", durationS: 10, zone: 3 }] }] }] }] };
+    expect(
+      bad([{ type: "repeat", times: 1, steps: [{ type: "step", kind: "work", durationS: 60, zone: 2 }] }]),
+    ).toMatch(/at least twice/);
+    const deep = {
+      type: "repeat",
+      times: 2,
+      steps: [
+        {
+          type: "repeat",
+          times: 2,
+          steps: [
+            {
+              type: "repeat",
+              times: 2,
+              steps: [{ type: "repeat", times: 2, steps: [{ type: "step", kind: "work", durationS: 10, zone: 3 }] }],
+            },
+          ],
+        },
+      ],
+    };
     expect(bad([deep])).toMatch(/nest at most 3/);
   });
 });
@@ -59,33 +99,60 @@ describe("weekly intensity budget", () => {
   });
 
   it("volume ramp above 10 % of the biggest recent week is flagged (common practice, weak evidence)", () => {
-    const r = checkWeek({ minutesByZone: [560, 20, 80], previousWeeksMinutes: [500, 580, 600, 390], budget: BUDGET_PRESETS.polarised });
+    const r = checkWeek({
+      minutesByZone: [560, 20, 80],
+      previousWeeksMinutes: [500, 580, 600, 390],
+      budget: BUDGET_PRESETS.polarised,
+    });
     expect(r.breaches.map((b) => b.code)).toEqual([]);
-    const over = checkWeek({ minutesByZone: [600, 20, 80], previousWeeksMinutes: [500, 600, 390], budget: BUDGET_PRESETS.polarised });
+    const over = checkWeek({
+      minutesByZone: [600, 20, 80],
+      previousWeeksMinutes: [500, 600, 390],
+      budget: BUDGET_PRESETS.polarised,
+    });
     expect(over.breaches.map((b) => b.code)).toEqual(["volume_ramp"]);
     expect(over.breaches[0]!.numbers).toMatchObject({ risePct: 16.7, referenceMin: 600 });
   });
 
   it("a week without an easy day and an overdue retest are flagged", () => {
     const hardDay: [number, number, number] = [60, 5, 10];
-    const r = checkWeek({ minutesByZone: [420, 35, 70], days: Array(7).fill(hardDay), budget: BUDGET_PRESETS.polarised, retestOverdue: true });
+    const r = checkWeek({
+      minutesByZone: [420, 35, 70],
+      days: Array(7).fill(hardDay),
+      budget: BUDGET_PRESETS.polarised,
+      retestOverdue: true,
+    });
     expect(r.breaches.map((b) => b.code)).toEqual(expect.arrayContaining(["no_easy_day", "retest_overdue"]));
   });
 });
 
 describe("season planning", () => {
-  const season = planSeason({ startDate: "2027-01-06", events: [{ date: "2027-09-26", name: "Autumn marathon" }], weeklyHours: 8 });
+  const season = planSeason({
+    startDate: "2027-01-06",
+    events: [{ date: "2027-09-26", name: "Autumn marathon" }],
+    weeklyHours: 8,
+  });
 
   it("orders the blocks toward the event and ends with transition", () => {
     const order = season.map((w) => w.block).filter((b, i, a) => a[i - 1] !== b);
-    expect(order).toEqual(["general_preparation", "specific_preparation", "pre_competition", "taper", "competition", "transition"]);
+    expect(order).toEqual([
+      "general_preparation",
+      "specific_preparation",
+      "pre_competition",
+      "taper",
+      "competition",
+      "transition",
+    ]);
     expect(season[0]!.weekStart).toBe("2027-01-04");
     expect(season.find((w) => w.block === "competition")!.events).toEqual(["Autumn marathon"]);
     expect(season.filter((w) => w.block === "taper")).toHaveLength(2);
   });
 
   it("loads 3:1 and never raises volume more than 10 % over the biggest of the last four weeks", () => {
-    const prep = season.filter((w) => w.role === "loading" || w.role === "unloading").slice(0, 8).map((w) => w.role);
+    const prep = season
+      .filter((w) => w.role === "loading" || w.role === "unloading")
+      .slice(0, 8)
+      .map((w) => w.role);
     expect(prep).toEqual(["loading", "loading", "loading", "unloading", "loading", "loading", "loading", "unloading"]);
     for (let i = 1; i < season.length; i++) {
       const ref = Math.max(...season.slice(Math.max(0, i - 4), i).map((w) => w.volumeHours));
@@ -106,21 +173,49 @@ describe("season planning", () => {
   });
 
   it("refuses impossible inputs", () => {
-    expect(() => planSeason({ startDate: "2027-01-06", events: [{ date: "2027-01-10", name: "x" }], weeklyHours: 8 })).toThrow(SeasonError);
-    expect(() => planSeason({ startDate: "2027-01-06", events: [{ date: "2027-06-10", name: "x" }], weeklyHours: 8, retestEveryWeeks: 20 })).toThrow(/12 to 16/);
-    expect(() => planSeason({ startDate: "not a date", events: [{ date: "2027-06-10", name: "x" }], weeklyHours: 8 })).toThrow(/not a date/);
+    expect(() =>
+      planSeason({ startDate: "2027-01-06", events: [{ date: "2027-01-10", name: "x" }], weeklyHours: 8 }),
+    ).toThrow(SeasonError);
+    expect(() =>
+      planSeason({
+        startDate: "2027-01-06",
+        events: [{ date: "2027-06-10", name: "x" }],
+        weeklyHours: 8,
+        retestEveryWeeks: 20,
+      }),
+    ).toThrow(/12 to 16/);
+    expect(() =>
+      planSeason({ startDate: "not a date", events: [{ date: "2027-06-10", name: "x" }], weeklyHours: 8 }),
+    ).toThrow(/not a date/);
   });
 });
 
 describe("retest placement", () => {
   const cases = [
     { weeks: 16, events: [["2027-04-25", "Spring 10k"]] },
-    { weeks: 52, events: [["2027-06-06", "Half"], ["2027-10-03", "Marathon"]] },
-    { weeks: 104, events: [["2027-05-02", "A"], ["2027-05-23", "B"], ["2028-09-24", "C"]] },
+    {
+      weeks: 52,
+      events: [
+        ["2027-06-06", "Half"],
+        ["2027-10-03", "Marathon"],
+      ],
+    },
+    {
+      weeks: 104,
+      events: [
+        ["2027-05-02", "A"],
+        ["2027-05-23", "B"],
+        ["2028-09-24", "C"],
+      ],
+    },
   ] as const;
   for (const c of cases) {
     it(`never lands in a taper, race or recovery week, and says where it went (${c.weeks} weeks, ${c.events.length} event(s))`, () => {
-      const weeks = planSeason({ startDate: "2027-01-04", events: c.events.map(([date, name]) => ({ date, name })), weeklyHours: 8 });
+      const weeks = planSeason({
+        startDate: "2027-01-04",
+        events: c.events.map(([date, name]) => ({ date, name })),
+        weeklyHours: 8,
+      });
       const tests = weeks.filter((w) => w.retest);
       expect(tests.length).toBeGreaterThan(0);
       for (const w of tests) {

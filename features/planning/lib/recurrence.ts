@@ -9,7 +9,10 @@ import { MAX_OCCURRENCES, repeatSchema, type Repeat } from "./repeat";
 import { WEEKDAYS } from "./weekdays";
 
 // Bundlers load rrule's ES build; Node's own loader (the bench, scripts) its CommonJS build, whose names sit on "default".
-const RRule: typeof RRuleType = "RRule" in rruleModule && rruleModule.RRule ? rruleModule.RRule : (rruleModule as unknown as { default: typeof rruleModule }).default.RRule;
+const RRule: typeof RRuleType =
+  "RRule" in rruleModule && rruleModule.RRule
+    ? rruleModule.RRule
+    : (rruleModule as unknown as { default: typeof rruleModule }).default.RRule;
 
 export { MAX_OCCURRENCES, repeatSchema, WEEKDAYS, type Repeat };
 const RRULE_DAYS: Weekday[] = [RRule.MO, RRule.TU, RRule.WE, RRule.TH, RRule.FR, RRule.SA, RRule.SU];
@@ -30,7 +33,11 @@ export function ruleFor(startDate: string, repeat: Repeat): RRuleType {
 
 /** The RRULE text (without DTSTART), e.g. "FREQ=WEEKLY;BYDAY=TU,TH;COUNT=8". */
 export function rruleText(startDate: string, repeat: Repeat): string {
-  return ruleFor(startDate, repeat).toString().split("\n").find((l) => l.startsWith("RRULE:"))!.slice(6);
+  return ruleFor(startDate, repeat)
+    .toString()
+    .split("\n")
+    .find((l) => l.startsWith("RRULE:"))!
+    .slice(6);
 }
 
 /** The local dates of the occurrences, from the start date on, at most MAX_OCCURRENCES. */

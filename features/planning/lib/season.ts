@@ -12,7 +12,8 @@
 import { BUDGET_PRESETS, DEFAULT_RAMP_CAP, type BudgetPreset } from "./budget";
 import { DateError, dayOf, isoOfDay, mondayOf } from "@/features/platform/lib/days";
 
-export type BlockName = "general_preparation" | "specific_preparation" | "pre_competition" | "taper" | "competition" | "transition";
+export type BlockName =
+  "general_preparation" | "specific_preparation" | "pre_competition" | "taper" | "competition" | "transition";
 
 export const BLOCK_LABELS: Record<BlockName, string> = {
   general_preparation: "General preparation",
@@ -74,7 +75,8 @@ export function planSeason(input: SeasonInput): SeasonWeek[] {
   const cap = input.rampCap ?? DEFAULT_RAMP_CAP;
   const every = input.retestEveryWeeks ?? 12;
   if (every < 12 || every > 16) throw new SeasonError("Retests come every 12 to 16 weeks.");
-  if (!(input.weeklyHours > 0 && input.weeklyHours <= 40)) throw new SeasonError("Weekly hours must be between 0 and 40.");
+  if (!(input.weeklyHours > 0 && input.weeklyHours <= 40))
+    throw new SeasonError("Weekly hours must be between 0 and 40.");
   if (!input.events.length) throw new SeasonError("Give at least one event date.");
   const start = parseDate(weekMonday(input.startDate));
   const events = [...input.events].sort((a, b) => a.date.localeCompare(b.date));
@@ -169,7 +171,8 @@ export function planSeason(input: SeasonInput): SeasonWeek[] {
   let last = 0;
   for (let due = every; due < total; due = last + every) {
     const window: number[] = [];
-    for (let d = 0; d <= 4; d++) for (const w of d === 0 ? [due] : [due - d, due + d]) if (w >= Math.max(last + 8, 1) && w < total) window.push(w);
+    for (let d = 0; d <= 4; d++)
+      for (const w of d === 0 ? [due] : [due - d, due + d]) if (w >= Math.max(last + 8, 1) && w < total) window.push(w);
     const placed = window.find((w) => role[w] === "unloading") ?? window.find((w) => role[w] === "loading") ?? -1;
     if (placed === -1) {
       // Nothing suitable near the due week (a block of races and tapers): the next cycle starts from the due week.
@@ -178,7 +181,10 @@ export function planSeason(input: SeasonInput): SeasonWeek[] {
     }
     retest[placed] = true;
     const dueOn = formatDate(start + due * 7 * DAY_MS);
-    retestNote[placed] = placed === due ? `Retest due this week (${role[placed]} week).` : `Retest due the week of ${dueOn}; placed here, ${placed < due ? "earlier" : "later"}, in ${role[placed] === "unloading" ? "an unloading" : "a loading"} week${role[due] === "taper" || role[due] === "event" || role[due] === "recovery" ? `, because the due week is a ${role[due] === "event" ? "race" : role[due]} week` : ""}.`;
+    retestNote[placed] =
+      placed === due
+        ? `Retest due this week (${role[placed]} week).`
+        : `Retest due the week of ${dueOn}; placed here, ${placed < due ? "earlier" : "later"}, in ${role[placed] === "unloading" ? "an unloading" : "a loading"} week${role[due] === "taper" || role[due] === "event" || role[due] === "recovery" ? `, because the due week is a ${role[due] === "event" ? "race" : role[due]} week` : ""}.`;
     last = placed;
   }
 

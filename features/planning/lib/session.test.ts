@@ -11,11 +11,17 @@ describe("bounds on a session's structure", () => {
     expect(r.error!.issues.map((i) => i.message)).toEqual(["Repeat groups nest at most 3 deep."]);
   });
   it("refuses a session that adds up to more than 12 hours, or 300 km", () => {
-    const long = structureSchema.safeParse([{ type: "repeat", times: 50, steps: [{ type: "step", kind: "work", durationS: 12 * 3600, zone: 1 }] }]);
+    const long = structureSchema.safeParse([
+      { type: "repeat", times: 50, steps: [{ type: "step", kind: "work", durationS: 12 * 3600, zone: 1 }] },
+    ]);
     expect(long.success).toBe(false);
     expect(long.error!.issues[0]!.message).toMatch(/at most 12 hours; this one adds up to 600 hours/);
-    const far = structureSchema.safeParse([{ type: "repeat", times: 10, steps: [{ type: "step", kind: "work", distanceM: 100_000, zone: 1 }] }]);
+    const far = structureSchema.safeParse([
+      { type: "repeat", times: 10, steps: [{ type: "step", kind: "work", distanceM: 100_000, zone: 1 }] },
+    ]);
     expect(far.error!.issues[0]!.message).toMatch(/at most 300 km/);
-    expect(structureSchema.safeParse([{ type: "step", kind: "work", durationS: 4 * 3600, zone: 1 }]).success).toBe(true);
+    expect(structureSchema.safeParse([{ type: "step", kind: "work", durationS: 4 * 3600, zone: 1 }]).success).toBe(
+      true,
+    );
   });
 });

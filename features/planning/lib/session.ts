@@ -15,10 +15,23 @@ export const stepSchema = z
   .object({
     type: z.literal("step"),
     kind: z.enum(STEP_KINDS, { error: "A step is warm-up, work, recovery or cool-down." }),
-    durationS: z.number().int("Give the duration in whole seconds.").positive("A duration must be above 0.").max(MAX_SESSION_S, "A step lasts at most 12 hours.").optional(),
-    distanceM: z.number().positive("A distance must be above 0.").max(300_000, "A step covers at most 300 km.").optional(),
+    durationS: z
+      .number()
+      .int("Give the duration in whole seconds.")
+      .positive("A duration must be above 0.")
+      .max(MAX_SESSION_S, "A step lasts at most 12 hours.")
+      .optional(),
+    distanceM: z
+      .number()
+      .positive("A distance must be above 0.")
+      .max(300_000, "A step covers at most 300 km.")
+      .optional(),
     zone: z.number().int().min(1, "Target zone 1, 2 or 3.").max(3, "Target zone 1, 2 or 3."),
-    note: z.string().max(200, "Keep the note under 200 characters.").refine(isSingleLine, SINGLE_LINE_MESSAGE).optional(),
+    note: z
+      .string()
+      .max(200, "Keep the note under 200 characters.")
+      .refine(isSingleLine, SINGLE_LINE_MESSAGE)
+      .optional(),
   })
   .refine((s) => (s.durationS === undefined) !== (s.distanceM === undefined), {
     message: "Give a step either a duration or a distance, not both or neither.",
@@ -33,10 +46,16 @@ export interface RepeatGroup {
 export type Block = Step | RepeatGroup;
 
 // A discriminated union on "type", so that a bad step reports the step's own messages rather than "Invalid input".
-export const blockSchema: z.ZodType<Block> = z.lazy(() => z.discriminatedUnion("type", [stepSchema, repeatObjectSchema]));
+export const blockSchema: z.ZodType<Block> = z.lazy(() =>
+  z.discriminatedUnion("type", [stepSchema, repeatObjectSchema]),
+);
 const repeatObjectSchema = z.object({
   type: z.literal("repeat"),
-  times: z.number().int("Repeat a whole number of times.").min(2, "Repeat at least twice.").max(50, "Repeat at most 50 times."),
+  times: z
+    .number()
+    .int("Repeat a whole number of times.")
+    .min(2, "Repeat at least twice.")
+    .max(50, "Repeat at most 50 times."),
   steps: z.array(blockSchema).min(1, "A repeat group needs at least one step.").max(20),
 });
 export const repeatSchema: z.ZodType<RepeatGroup> = repeatObjectSchema;
@@ -65,22 +84,35 @@ const parsedStructureSchema = z
   .min(1, "A session needs at least one step.")
   .max(40, "A session has at most 40 blocks.")
   .superRefine((blocks, ctx) => {
-    if (depth(blocks) > MAX_REPEAT_DEPTH) ctx.addIssue({ code: "custom", message: `Repeat groups nest at most ${MAX_REPEAT_DEPTH} deep.` });
+    if (depth(blocks) > MAX_REPEAT_DEPTH)
+      ctx.addIssue({ code: "custom", message: `Repeat groups nest at most ${MAX_REPEAT_DEPTH} deep.` });
     const flat = countSteps(blocks);
     if (flat > 2000) ctx.addIssue({ code: "custom", message: "The session expands to more than 2000 steps." });
     const { seconds, metres } = totals(blocks);
-    if (seconds > MAX_SESSION_S) ctx.addIssue({ code: "custom", message: `A session lasts at most ${MAX_SESSION_S / 3600} hours; this one adds up to ${Math.round(seconds / 3600)} hours.` });
-    if (metres > MAX_SESSION_M) ctx.addIssue({ code: "custom", message: `A session covers at most ${MAX_SESSION_M / 1000} km; this one adds up to ${Math.round(metres / 1000)} km.` });
+    if (seconds > MAX_SESSION_S)
+      ctx.addIssue({
+        code: "custom",
+        message: `A session lasts at most ${MAX_SESSION_S / 3600} hours; this one adds up to ${Math.round(seconds / 3600)} hours.`,
+      });
+    if (metres > MAX_SESSION_M)
+      ctx.addIssue({
+        code: "custom",
+        message: `A session covers at most ${MAX_SESSION_M / 1000} km; this one adds up to ${Math.round(metres / 1000)} km.`,
+      });
   });
 
 export const structureSchema = z
   .unknown()
-  .refine((v) => rawRepeatDepth(v, MAX_REPEAT_DEPTH) <= MAX_REPEAT_DEPTH, `Repeat groups nest at most ${MAX_REPEAT_DEPTH} deep.`)
+  .refine(
+    (v) => rawRepeatDepth(v, MAX_REPEAT_DEPTH) <= MAX_REPEAT_DEPTH,
+    `Repeat groups nest at most ${MAX_REPEAT_DEPTH} deep.`,
+  )
   .pipe(parsedStructureSchema);
 
 /** Seconds of the timed steps and metres of the distance steps, repeats counted. */
 function totals(blocks: Block[]): { seconds: number; metres: number } {
-  let seconds = 0, metres = 0;
+  let seconds = 0,
+    metres = 0;
   for (const b of blocks) {
     if (b.type === "repeat") {
       const inner = totals(b.steps);
@@ -131,7 +163,8 @@ export interface Expansion {
 export function expand(blocks: Block[], speedKmhByZone: Partial<Record<1 | 2 | 3, number>> = {}): Expansion {
   const steps = flatten(blocks);
   const secondsByZone: [number, number, number] = [0, 0, 0];
-  let totalDistanceM = 0, untimed = 0;
+  let totalDistanceM = 0,
+    untimed = 0;
   for (const s of steps) {
     let seconds = s.durationS;
     if (seconds === null && s.distanceM !== null) {
@@ -143,7 +176,9 @@ export function expand(blocks: Block[], speedKmhByZone: Partial<Record<1 | 2 | 3
     if (seconds !== null) secondsByZone[s.zone - 1]! += seconds;
   }
   const totalS = secondsByZone[0] + secondsByZone[1] + secondsByZone[2];
-  const warnings = untimed ? [`${untimed} distance step(s) have no time: the zone set gives no speed for their zone.`] : [];
+  const warnings = untimed
+    ? [`${untimed} distance step(s) have no time: the zone set gives no speed for their zone.`]
+    : [];
   if (totalS > MAX_SESSION_S) warnings.push("The session lasts more than 12 hours.");
   return {
     totalS,

@@ -7,14 +7,36 @@ describe("recurrence (RFC 5545 RRULE via rrule, cross-checked with ical.js)", ()
   it("a weekly Tuesday/Thursday rule keeps its weekdays across the March daylight-saving change (Europe, 28 March 2027)", () => {
     const repeat = { byWeekday: ["TU", "TH"] as ("TU" | "TH")[], count: 8 };
     const mine = expandDates("2027-03-16", repeat);
-    expect(mine).toEqual(["2027-03-16", "2027-03-18", "2027-03-23", "2027-03-25", "2027-03-30", "2027-04-01", "2027-04-06", "2027-04-08"]);
+    expect(mine).toEqual([
+      "2027-03-16",
+      "2027-03-18",
+      "2027-03-23",
+      "2027-03-25",
+      "2027-03-30",
+      "2027-04-01",
+      "2027-04-06",
+      "2027-04-08",
+    ]);
     for (const d of mine) expect([2, 4]).toContain(new Date(`${d}T12:00:00Z`).getUTCDay());
     // The same rule expanded by ical.js (reference library, REFERENCES.md) from an iCalendar event with a date start.
-    const ics = ["BEGIN:VCALENDAR", "VERSION:2.0", "PRODID:-//test//EN", "BEGIN:VEVENT", "UID:x", "DTSTAMP:20270101T000000Z", "DTSTART;VALUE=DATE:20270316", `RRULE:${rruleText("2027-03-16", repeat)}`, "SUMMARY:Intervals", "END:VEVENT", "END:VCALENDAR"].join("\r\n");
+    const ics = [
+      "BEGIN:VCALENDAR",
+      "VERSION:2.0",
+      "PRODID:-//test//EN",
+      "BEGIN:VEVENT",
+      "UID:x",
+      "DTSTAMP:20270101T000000Z",
+      "DTSTART;VALUE=DATE:20270316",
+      `RRULE:${rruleText("2027-03-16", repeat)}`,
+      "SUMMARY:Intervals",
+      "END:VEVENT",
+      "END:VCALENDAR",
+    ].join("\r\n");
     const event = new ICAL.Event(new ICAL.Component(ICAL.parse(ics)).getFirstSubcomponent("vevent")!);
     const it2 = event.iterator();
     const theirs: string[] = [];
-    for (let next = it2.next(); next && theirs.length < 20; next = it2.next()) theirs.push(next.toString().slice(0, 10));
+    for (let next = it2.next(); next && theirs.length < 20; next = it2.next())
+      theirs.push(next.toString().slice(0, 10));
     expect(theirs).toEqual(mine);
   });
 
@@ -24,14 +46,25 @@ describe("recurrence (RFC 5545 RRULE via rrule, cross-checked with ical.js)", ()
 });
 
 describe("weekly budget summaries", () => {
-  const s = (id: string, date: string, m: [number, number, number], title = id): WeekSession => ({ id, date, title, kind: "training", minutesByZone: m });
+  const s = (id: string, date: string, m: [number, number, number], title = id): WeekSession => ({
+    id,
+    date,
+    title,
+    kind: "training",
+    minutesByZone: m,
+  });
 
   it("sums planned minutes per ISO week and checks them against the season week's budget", () => {
     const weeks = summariseWeeks({
       from: "2027-03-01",
       to: "2027-03-14",
       today: "2027-03-01",
-      sessions: [s("a", "2027-03-01", [60, 0, 0]), s("b", "2027-03-03", [40, 0, 20]), s("c", "2027-03-06", [120, 0, 0]), s("d", "2027-03-08", [90, 0, 0])],
+      sessions: [
+        s("a", "2027-03-01", [60, 0, 0]),
+        s("b", "2027-03-03", [40, 0, 20]),
+        s("c", "2027-03-06", [120, 0, 0]),
+        s("d", "2027-03-08", [90, 0, 0]),
+      ],
       seasonWeeks: [{ weekStart: "2027-03-01", budget: "polarised", block: "general_preparation", retest: false }],
     });
     expect(weeks.map((w) => w.weekStart)).toEqual(["2027-03-01", "2027-03-08"]);
@@ -73,19 +106,37 @@ describe("weekly budget summaries", () => {
       testDates: ["2027-01-10"],
     });
     expect(weeks[0]!.flags.map((f) => f.code)).toEqual(["retest_overdue"]);
-    const done = summariseWeeks({ from: "2027-03-15", to: "2027-03-15", today: "2027-03-17", sessions: [], seasonWeeks: [{ weekStart: "2027-03-01", budget: "polarised", block: "x", retest: true }], testDates: ["2027-03-03"] });
+    const done = summariseWeeks({
+      from: "2027-03-15",
+      to: "2027-03-15",
+      today: "2027-03-17",
+      sessions: [],
+      seasonWeeks: [{ weekStart: "2027-03-01", budget: "polarised", block: "x", retest: true }],
+      testDates: ["2027-03-03"],
+    });
     expect(done[0]!.flags).toEqual([]);
   });
 
   it("a week holding only its retest is not judged yet; once training is planned around it, the test's minutes count", () => {
     // The generated retest: 10 min zone 1, 15 min zone 2, 10 min zone 1 (43 % zone 2 on its own, hand computation).
-    const retest: WeekSession = { id: "rt", date: "2027-03-17", title: "Retest", kind: "retest", minutesByZone: [20, 15, 0] };
+    const retest: WeekSession = {
+      id: "rt",
+      date: "2027-03-17",
+      title: "Retest",
+      kind: "retest",
+      minutesByZone: [20, 15, 0],
+    };
     const alone = summariseWeeks({ from: "2027-03-15", to: "2027-03-15", today: "2027-03-01", sessions: [retest] });
     expect(alone[0]!.plannedMinByZone).toEqual([20, 15, 0]);
     expect(alone[0]!.flags).toEqual([]);
     expect(alone[0]!.overBudget).toBe(false);
     // With one easy hour: 80 z1 + 15 z2 of 95 min → zone 2 is 15.8 %, over the polarised 5 % + 5 %; zone 1 84.2 % is fine.
-    const planned = summariseWeeks({ from: "2027-03-15", to: "2027-03-15", today: "2027-03-01", sessions: [retest, s("e", "2027-03-15", [60, 0, 0])] });
+    const planned = summariseWeeks({
+      from: "2027-03-15",
+      to: "2027-03-15",
+      today: "2027-03-01",
+      sessions: [retest, s("e", "2027-03-15", [60, 0, 0])],
+    });
     expect(planned[0]!.flags.map((f) => f.code)).toEqual(["too_much_moderate"]);
   });
 });
@@ -93,12 +144,36 @@ describe("weekly budget summaries", () => {
 describe("weeks judged by their role in the season", () => {
   // A week of 3 h 20 min: 130 min zone 1 and 70 min zone 3 (35 % zone 3, far above any budget's share).
   const sessions = [
-    { id: "a", date: "2027-09-13", title: "Intervals", kind: "training", minutesByZone: [40, 0, 35] as [number, number, number] },
-    { id: "b", date: "2027-09-15", title: "Openers", kind: "training", minutesByZone: [50, 0, 35] as [number, number, number] },
-    { id: "c", date: "2027-09-17", title: "Easy", kind: "training", minutesByZone: [40, 0, 0] as [number, number, number] },
+    {
+      id: "a",
+      date: "2027-09-13",
+      title: "Intervals",
+      kind: "training",
+      minutesByZone: [40, 0, 35] as [number, number, number],
+    },
+    {
+      id: "b",
+      date: "2027-09-15",
+      title: "Openers",
+      kind: "training",
+      minutesByZone: [50, 0, 35] as [number, number, number],
+    },
+    {
+      id: "c",
+      date: "2027-09-17",
+      title: "Easy",
+      kind: "training",
+      minutesByZone: [40, 0, 0] as [number, number, number],
+    },
   ];
   const week = (role: "loading" | "taper" | "event" | "unloading", volumeHours: number) =>
-    summariseWeeks({ from: "2027-09-13", to: "2027-09-13", sessions, seasonWeeks: [{ weekStart: "2027-09-13", budget: "polarised", block: "taper", retest: false, role, volumeHours }], today: "2027-09-01" })[0]!;
+    summariseWeeks({
+      from: "2027-09-13",
+      to: "2027-09-13",
+      sessions,
+      seasonWeeks: [{ weekStart: "2027-09-13", budget: "polarised", block: "taper", retest: false, role, volumeHours }],
+      today: "2027-09-01",
+    })[0]!;
 
   it("a taper that keeps its intervals is not flagged for its zone 3 share, only for volume above its target (+15 %)", () => {
     expect(week("loading", 6).flags.map((f) => f.code)).toContain("too_much_high");
@@ -115,19 +190,38 @@ describe("weeks judged by their role in the season", () => {
   it("a race week is exempt from the zone shares; an unloading week is judged on its volume and its budget", () => {
     expect(week("event", 4).overBudget).toBe(false);
     const unloading = week("unloading", 2);
-    expect(unloading.flags.map((f) => f.code).sort()).toEqual(["role_volume", "too_little_low", "too_much_high"].sort());
+    expect(unloading.flags.map((f) => f.code).sort()).toEqual(
+      ["role_volume", "too_little_low", "too_much_high"].sort(),
+    );
   });
 });
 
 describe("volume against the week's target", () => {
   const one = (minutes: [number, number, number], volumeHours: number, today: string) =>
-    summariseWeeks({ from: "2027-09-13", to: "2027-09-13", sessions: [{ id: "a", date: "2027-09-14", title: "Long", kind: "training", minutesByZone: minutes }], seasonWeeks: [{ weekStart: "2027-09-13", budget: "polarised", block: "general_preparation", retest: false, role: "loading", volumeHours }], today })[0]!;
+    summariseWeeks({
+      from: "2027-09-13",
+      to: "2027-09-13",
+      sessions: [{ id: "a", date: "2027-09-14", title: "Long", kind: "training", minutesByZone: minutes }],
+      seasonWeeks: [
+        {
+          weekStart: "2027-09-13",
+          budget: "polarised",
+          block: "general_preparation",
+          retest: false,
+          role: "loading",
+          volumeHours,
+        },
+      ],
+      today,
+    })[0]!;
 
   it("a loading week planned far above its target (8.5 h against 5.75 h) is flagged", () => {
     const w = one([480, 0, 30], 5.75, "2027-09-14");
     expect(w.flags.map((f) => f.code)).toContain("volume_off_target");
     // 510 min against 345 min: 48 % more (hand calculation).
-    expect(w.flags.find((f) => f.code === "volume_off_target")!.message).toMatch(/8\.5 h against its target of 5\.75 h \(48 % more\)/);
+    expect(w.flags.find((f) => f.code === "volume_off_target")!.message).toMatch(
+      /8\.5 h against its target of 5\.75 h \(48 % more\)/,
+    );
   });
 
   it("a future week with less than half its target planned is in progress, not over budget; once begun it is judged", () => {
@@ -143,20 +237,61 @@ describe("volume against the week's target", () => {
 
 describe("the one-click fix does no harm", () => {
   // Week A (2027-09-06) over budget with three hard sessions; week B (2027-09-13) easy.
-  const hard = (id: string, date: string) => ({ id, date, title: `Intervals ${id}`, kind: "training", minutesByZone: [40, 0, 35] as [number, number, number] });
-  const easy = (id: string, date: string, min = 90) => ({ id, date, title: `Easy ${id}`, kind: "training", minutesByZone: [min, 0, 0] as [number, number, number] });
+  const hard = (id: string, date: string) => ({
+    id,
+    date,
+    title: `Intervals ${id}`,
+    kind: "training",
+    minutesByZone: [40, 0, 35] as [number, number, number],
+  });
+  const easy = (id: string, date: string, min = 90) => ({
+    id,
+    date,
+    title: `Easy ${id}`,
+    kind: "training",
+    minutesByZone: [min, 0, 0] as [number, number, number],
+  });
   // Week A: two hard sessions and 180 easy minutes, 21.2 % zone 3 (over 15 ± 5 %); one hard session fewer makes 13.7 %.
   // Week B: three easy hours of 60 min; with one hard session added it stays within budget and its ramp (hand computation).
-  const base = [hard("h1", "2027-09-07"), easy("e0", "2027-09-08"), hard("h2", "2027-09-10"), easy("e1", "2027-09-12"), easy("e2", "2027-09-14", 60), easy("e4", "2027-09-17", 60), easy("e3", "2027-09-19", 60)];
+  const base = [
+    hard("h1", "2027-09-07"),
+    easy("e0", "2027-09-08"),
+    hard("h2", "2027-09-10"),
+    easy("e1", "2027-09-12"),
+    easy("e2", "2027-09-14", 60),
+    easy("e4", "2027-09-17", 60),
+    easy("e3", "2027-09-19", 60),
+  ];
   const fixFor = (sessions: typeof base, roleB: "loading" | "taper" = "loading") =>
     summariseWeeks({
       from: "2027-09-06",
       to: "2027-09-06",
       sessions,
       seasonWeeks: [
-        { weekStart: "2027-09-06", budget: "polarised", block: "specific_preparation", retest: false, role: "loading", volumeHours: 7 },
-        { weekStart: "2027-09-13", budget: "polarised", block: "specific_preparation", retest: false, role: roleB, volumeHours: 7 },
-        { weekStart: "2027-08-30", budget: "polarised", block: "specific_preparation", retest: false, role: "taper", volumeHours: 7 },
+        {
+          weekStart: "2027-09-06",
+          budget: "polarised",
+          block: "specific_preparation",
+          retest: false,
+          role: "loading",
+          volumeHours: 7,
+        },
+        {
+          weekStart: "2027-09-13",
+          budget: "polarised",
+          block: "specific_preparation",
+          retest: false,
+          role: roleB,
+          volumeHours: 7,
+        },
+        {
+          weekStart: "2027-08-30",
+          budget: "polarised",
+          block: "specific_preparation",
+          retest: false,
+          role: "taper",
+          volumeHours: 7,
+        },
       ],
       today: "2027-09-01",
     })[0]!.fix;

@@ -65,7 +65,6 @@ export interface WeekSummary {
   block: string | null;
 }
 
-
 function minutesOf(sessions: WeekSession[]): Shares {
   const m: Shares = [0, 0, 0];
   for (const s of sessions) for (let z = 0; z < 3; z++) m[z]! += s.minutesByZone[z]!;
@@ -98,7 +97,15 @@ function previousTotals(weekStart: string, weekOf: WeekOf): number[] {
 /** Minutes per zone of each day of the week, Monday first. */
 function daysOf(weekStart: string, sessions: WeekSession[]): Shares[] {
   const monday = dayNumber(weekStart);
-  const days: Shares[] = [[0, 0, 0], [0, 0, 0], [0, 0, 0], [0, 0, 0], [0, 0, 0], [0, 0, 0], [0, 0, 0]];
+  const days: Shares[] = [
+    [0, 0, 0],
+    [0, 0, 0],
+    [0, 0, 0],
+    [0, 0, 0],
+    [0, 0, 0],
+    [0, 0, 0],
+    [0, 0, 0],
+  ];
   for (const s of sessions) {
     const day = days[dayNumber(s.date) - monday];
     if (day) for (let z = 0; z < 3; z++) day[z]! += s.minutesByZone[z]!;
@@ -125,7 +132,17 @@ export interface SummariseInput {
 
 const seasonWeekIndex = new WeakMap<SeasonWeekInfo[], Map<string, SeasonWeekInfo>>();
 
-function weekBudget(weekStart: string, input: SummariseInput): { preset: BudgetPreset; budget: Budget; block: string | null; retest: boolean; role: WeekRole | null; volumeHours: number | null } {
+function weekBudget(
+  weekStart: string,
+  input: SummariseInput,
+): {
+  preset: BudgetPreset;
+  budget: Budget;
+  block: string | null;
+  retest: boolean;
+  role: WeekRole | null;
+  volumeHours: number | null;
+} {
   let byStart = input.seasonWeeks ? seasonWeekIndex.get(input.seasonWeeks) : undefined;
   if (input.seasonWeeks && !byStart) {
     byStart = new Map(input.seasonWeeks.map((w) => [w.weekStart, w]));
@@ -133,10 +150,23 @@ function weekBudget(weekStart: string, input: SummariseInput): { preset: BudgetP
   }
   const sw = byStart?.get(weekStart);
   const preset = sw?.budget ?? input.defaultBudget ?? "polarised";
-  return { preset, budget: BUDGET_PRESETS[preset], block: sw?.block ?? null, retest: sw?.retest ?? false, role: sw?.role ?? null, volumeHours: sw?.volumeHours ?? null };
+  return {
+    preset,
+    budget: BUDGET_PRESETS[preset],
+    block: sw?.block ?? null,
+    retest: sw?.retest ?? false,
+    role: sw?.role ?? null,
+    volumeHours: sw?.volumeHours ?? null,
+  };
 }
 
-function check(weekStart: string, weekOf: WeekOf, input: SummariseInput, previousTotals: number[], retestOverdue: boolean) {
+function check(
+  weekStart: string,
+  weekOf: WeekOf,
+  input: SummariseInput,
+  previousTotals: number[],
+  retestOverdue: boolean,
+) {
   const inWeek = weekOf(weekStart);
   const planned = minutesOf(inWeek);
   const { preset, budget, block, role, volumeHours } = weekBudget(weekStart, input);
@@ -144,13 +174,24 @@ function check(weekStart: string, weekOf: WeekOf, input: SummariseInput, previou
   // practice: the budget governs training; the test's minutes count once training is planned around it).
   const judged: Shares = inWeek.some((s) => s.kind !== "retest") ? planned : [0, 0, 0];
   // The easy-day rule applies only to weeks with training on most days; a week of two sessions has easy days by itself.
-  const checked = checkWeek({ minutesByZone: judged, days: daysOf(weekStart, inWeek), previousWeeksMinutes: previousTotals, budget, retestOverdue });
+  const checked = checkWeek({
+    minutesByZone: judged,
+    days: daysOf(weekStart, inWeek),
+    previousWeeksMinutes: previousTotals,
+    budget,
+    retestOverdue,
+  });
   const result = role ? judgeByRole(checked, role, judged, volumeHours) : checked;
   return { inWeek, planned, preset, budget, block, role, volumeHours, result };
 }
 
 /** Role rules (see ROLE_VOLUME_TOLERANCE): taper and event weeks drop the zone-share checks; the reduced weeks get a volume check. */
-function judgeByRole(checked: ReturnType<typeof checkWeek>, role: WeekRole, minutes: Shares, volumeHours: number | null): ReturnType<typeof checkWeek> {
+function judgeByRole(
+  checked: ReturnType<typeof checkWeek>,
+  role: WeekRole,
+  minutes: Shares,
+  volumeHours: number | null,
+): ReturnType<typeof checkWeek> {
   let breaches = checked.breaches;
   if (role === "taper" || role === "event") breaches = breaches.filter((b) => !SHARE_CODES.has(b.code));
   if (role === "loading" && volumeHours !== null && volumeHours > 0) {
@@ -171,14 +212,23 @@ function judgeByRole(checked: ReturnType<typeof checkWeek>, role: WeekRole, minu
     const total = minutes[0] + minutes[1] + minutes[2];
     const limit = volumeHours * 60 * (1 + ROLE_VOLUME_TOLERANCE);
     if (total > limit) {
-      const what = role === "taper" ? "A taper keeps its intensity and cuts volume" : role === "event" ? "A race week keeps the volume low around the race" : "An easier week rests by its lower volume";
+      const what =
+        role === "taper"
+          ? "A taper keeps its intensity and cuts volume"
+          : role === "event"
+            ? "A race week keeps the volume low around the race"
+            : "An easier week rests by its lower volume";
       const hours = (m: number) => `${Math.round((m / 60) * 100) / 100} h`;
       breaches = [
         ...breaches,
         {
           code: "role_volume",
           message: `${what}: this week plans ${hours(total)} against a target of ${hours(volumeHours * 60)} (at most ${hours(limit)}). Remove about ${Math.ceil(total - volumeHours * 60)} min, easy minutes first.`,
-          numbers: { plannedMin: Math.round(total), targetMin: Math.round(volumeHours * 60), limitMin: Math.round(limit) },
+          numbers: {
+            plannedMin: Math.round(total),
+            targetMin: Math.round(volumeHours * 60),
+            limitMin: Math.round(limit),
+          },
         },
       ];
     }
@@ -189,7 +239,9 @@ function judgeByRole(checked: ReturnType<typeof checkWeek>, role: WeekRole, minu
 /** A retest week in the past without a test on or after its Monday is overdue. */
 function isRetestOverdue(weekStart: string, input: SummariseInput): boolean {
   const today = input.today;
-  const retestWeeks = (input.seasonWeeks ?? []).filter((w) => w.retest && addDays(w.weekStart, 7) <= today && w.weekStart <= weekStart);
+  const retestWeeks = (input.seasonWeeks ?? []).filter(
+    (w) => w.retest && addDays(w.weekStart, 7) <= today && w.weekStart <= weekStart,
+  );
   const last = retestWeeks.at(-1);
   if (!last) return false;
   return !(input.testDates ?? []).some((d) => d >= last.weekStart);
@@ -204,22 +256,40 @@ export function summariseWeeks(input: SummariseInput): WeekSummary[] {
     const next = addDays(w, 7);
     const previous = previousTotals(w, weekOf);
     const overdue = isRetestOverdue(w, input) && w <= input.today;
-    const { inWeek, planned, preset, budget, block, role, volumeHours, result } = check(w, weekOf, input, previous, overdue);
+    const { inWeek, planned, preset, budget, block, role, volumeHours, result } = check(
+      w,
+      weekOf,
+      input,
+      previous,
+      overdue,
+    );
     const budgetBreaches = result.breaches.filter((b) => b.code !== "retest_overdue");
     // A week not yet begun and planned to less than half its target is still being filled: in progress, not red.
     const plannedTotal = planned[0] + planned[1] + planned[2];
-    const inProgress = volumeHours !== null && volumeHours > 0 && w > input.today && plannedTotal < IN_PROGRESS_SHARE * volumeHours * 60;
+    const inProgress =
+      volumeHours !== null && volumeHours > 0 && w > input.today && plannedTotal < IN_PROGRESS_SHARE * volumeHours * 60;
     out.push({
       weekStart: w,
       plannedMinByZone: planned.map((v) => Math.round(v * 10) / 10) as Shares,
-      doneMinByZone: minutesOf((input.done ?? []).filter((d) => d.date >= w && d.date < next).map((d) => ({ id: "", date: d.date, title: "", kind: "", minutesByZone: d.minutesByZone }))).map((v) => Math.round(v * 10) / 10) as Shares,
+      doneMinByZone: minutesOf(
+        (input.done ?? [])
+          .filter((d) => d.date >= w && d.date < next)
+          .map((d) => ({ id: "", date: d.date, title: "", kind: "", minutesByZone: d.minutesByZone })),
+      ).map((v) => Math.round(v * 10) / 10) as Shares,
       budget: { key: preset, name: budget.name, shares: [...budget.shares] as Shares, tolerance: budget.tolerance },
       role,
       targetMin: volumeHours !== null ? Math.round(volumeHours * 60) : null,
       inProgress,
       overBudget: !inProgress && budgetBreaches.length > 0,
       flags: result.breaches.map((b) => ({ code: b.code, message: b.message, numbers: b.numbers })),
-      fix: !inProgress && input.withFix !== false && budgetBreaches.some((b) => b.code !== "volume_ramp" && b.code !== "role_volume" && b.code !== "volume_off_target") ? proposeFix(w, inWeek, input, weekOf) : null,
+      fix:
+        !inProgress &&
+        input.withFix !== false &&
+        budgetBreaches.some(
+          (b) => b.code !== "volume_ramp" && b.code !== "role_volume" && b.code !== "volume_off_target",
+        )
+          ? proposeFix(w, inWeek, input, weekOf)
+          : null,
       block,
     });
   }
@@ -235,14 +305,27 @@ export function isHardSession(s: Pick<WeekSession, "minutesByZone">): boolean {
   return s.minutesByZone[2] >= 10 || s.minutesByZone[1] >= 30;
 }
 
-export function proposeFix(weekStart: string, inWeek: WeekSession[], input: SummariseInput, weekOf: WeekOf = indexByWeek(input.sessions)): Fix | null {
+export function proposeFix(
+  weekStart: string,
+  inWeek: WeekSession[],
+  input: SummariseInput,
+  weekOf: WeekOf = indexByWeek(input.sessions),
+): Fix | null {
   // Never a retest or a race: those are placed on purpose.
-  const candidates = inWeek.filter((s) => s.kind !== "retest" && s.kind !== "race" && s.kind !== "event").sort((a, b) => b.minutesByZone[2] + b.minutesByZone[1] - (a.minutesByZone[2] + a.minutesByZone[1]));
+  const candidates = inWeek
+    .filter((s) => s.kind !== "retest" && s.kind !== "race" && s.kind !== "event")
+    .sort((a, b) => b.minutesByZone[2] + b.minutesByZone[1] - (a.minutesByZone[2] + a.minutesByZone[1]));
   // The share and easy-day breaches are what a move can cure; a volume ramp needs shorter sessions instead.
-  const curable = (b: Breach) => b.code !== "retest_overdue" && b.code !== "volume_ramp" && b.code !== "role_volume" && b.code !== "volume_off_target";
-  const breachesOf = (week: string, of: WeekOf) => check(week, of, input, previousTotals(week, of), false).result.breaches.filter(curable);
+  const curable = (b: Breach) =>
+    b.code !== "retest_overdue" &&
+    b.code !== "volume_ramp" &&
+    b.code !== "role_volume" &&
+    b.code !== "volume_off_target";
+  const breachesOf = (week: string, of: WeekOf) =>
+    check(week, of, input, previousTotals(week, of), false).result.breaches.filter(curable);
   // The week it lands in is checked against every rule, the volume ramp and its target included.
-  const everyBreachOf = (week: string, of: WeekOf) => check(week, of, input, previousTotals(week, of), false).result.breaches.filter((b) => b.code !== "retest_overdue");
+  const everyBreachOf = (week: string, of: WeekOf) =>
+    check(week, of, input, previousTotals(week, of), false).result.breaches.filter((b) => b.code !== "retest_overdue");
   const sessionsOn = (of: WeekOf, date: string) => of(mondayOf(date)).filter((x) => x.date === date);
   for (const s of candidates) {
     if (s.minutesByZone[2] + s.minutesByZone[1] === 0) break;
@@ -256,13 +339,25 @@ export function proposeFix(weekStart: string, inWeek: WeekSession[], input: Summ
       const targetWeek = mondayOf(toDate);
       // Never into a taper, race, unloading or recovery week, nor a week with a retest.
       const target = weekBudget(targetWeek, input);
-      if ((target.role && target.role !== "loading") || target.retest || weekOf(targetWeek).some((x) => x.kind === "retest")) continue;
+      if (
+        (target.role && target.role !== "loading") ||
+        target.retest ||
+        weekOf(targetWeek).some((x) => x.kind === "retest")
+      )
+        continue;
       // Never back to back with another hard session (nor onto a day that has one).
-      if (isHardSession(s) && [-1, 0, 1].some((d) => sessionsOn(without, addDays(toDate, d)).some(isHardSession))) continue;
+      if (isHardSession(s) && [-1, 0, 1].some((d) => sessionsOn(without, addDays(toDate, d)).some(isHardSession)))
+        continue;
       // The plan with this one session moved: only its old and new weeks differ.
       const moved: WeekOf = (w) => (w === targetWeek ? [...without(w), { ...s, date: toDate }] : without(w));
       if (everyBreachOf(targetWeek, moved).length === 0) {
-        return { action: "move", sessionId: s.id, title: s.title, toDate, message: `Move "${s.title}" to ${toDate}: both weeks then keep their budget.` };
+        return {
+          action: "move",
+          sessionId: s.id,
+          title: s.title,
+          toDate,
+          message: `Move "${s.title}" to ${toDate}: both weeks then keep their budget.`,
+        };
       }
     }
   }

@@ -25,16 +25,46 @@ export async function createSeason(actor: Actor, athleteId: string, input: z.inf
   await requireAthleteAccess(actor, athleteId, "coach");
   let weeks;
   try {
-    weeks = planSeason({ startDate: input.startDate, events: input.events, weeklyHours: input.weeklyHours, level: input.level, loadingWeeks: input.loadingWeeks, retestEveryWeeks: input.retestEveryWeeks });
+    weeks = planSeason({
+      startDate: input.startDate,
+      events: input.events,
+      weeklyHours: input.weeklyHours,
+      level: input.level,
+      loadingWeeks: input.loadingWeeks,
+      retestEveryWeeks: input.retestEveryWeeks,
+    });
   } catch (e) {
     if (e instanceof SeasonError) throw new HttpError(400, e.message);
     throw e;
   }
   const id = randomUUID();
   await getDb().transaction(async (tx) => {
-    await tx.insert(schema.season).values({ id, athleteId, name: input.name, sport: input.sport, startDate: weeks[0]!.weekStart, events: input.events, weeklyHours: input.weeklyHours, level: input.level, retestEveryWeeks: input.retestEveryWeeks, weeks: weeks as unknown as Record<string, unknown>[], createdBy: actor.userId });
+    await tx.insert(schema.season).values({
+      id,
+      athleteId,
+      name: input.name,
+      sport: input.sport,
+      startDate: weeks[0]!.weekStart,
+      events: input.events,
+      weeklyHours: input.weeklyHours,
+      level: input.level,
+      retestEveryWeeks: input.retestEveryWeeks,
+      weeks: weeks as unknown as Record<string, unknown>[],
+      createdBy: actor.userId,
+    });
     for (const w of weeks.filter((x) => x.retest)) {
-      await tx.insert(schema.plannedSession).values({ id: randomUUID(), athleteId, date: addDays(w.weekStart, 2), kind: "retest", sport: input.sport, title: "Retest: threshold test", structure: RETEST_STRUCTURE, ...totals(RETEST_STRUCTURE), createdBy: actor.userId, notes: "Retest to keep the zones in step with fitness. Answer the readiness questions first." });
+      await tx.insert(schema.plannedSession).values({
+        id: randomUUID(),
+        athleteId,
+        date: addDays(w.weekStart, 2),
+        kind: "retest",
+        sport: input.sport,
+        title: "Retest: threshold test",
+        structure: RETEST_STRUCTURE,
+        ...totals(RETEST_STRUCTURE),
+        createdBy: actor.userId,
+        notes: "Retest to keep the zones in step with fitness. Answer the readiness questions first.",
+      });
     }
   });
   return { id, weeks };
@@ -44,7 +74,12 @@ export async function createSeason(actor: Actor, athleteId: string, input: z.inf
  * Edits one week of a season (block, role, volume target, budget, retest). Turning the retest on places a retest session on
  * the Wednesday of that week; turning it off removes the week's retest sessions that have no log. One transaction.
  */
-export async function updateSeasonWeek(actor: Actor, seasonId: string, weekStart: string, patch: z.infer<typeof seasonWeekPatchSchema>) {
+export async function updateSeasonWeek(
+  actor: Actor,
+  seasonId: string,
+  weekStart: string,
+  patch: z.infer<typeof seasonWeekPatchSchema>,
+) {
   const db = getDb();
   const [row] = await db.select().from(schema.season).where(eq(schema.season.id, seasonId));
   if (!row) throw notFound("No such season.");
@@ -52,7 +87,10 @@ export async function updateSeasonWeek(actor: Actor, seasonId: string, weekStart
   await requireAthleteAccess(actor, row.athleteId, "coach");
   const weeks = row.weeks as unknown as SeasonWeek[];
   const index = weeks.findIndex((w) => w.weekStart === weekStart);
-  if (index < 0) throw new HttpError(400, `The season has no week starting ${weekStart}.`, { fieldErrors: { weekStart: ["Choose a Monday of this season."] } });
+  if (index < 0)
+    throw new HttpError(400, `The season has no week starting ${weekStart}.`, {
+      fieldErrors: { weekStart: ["Choose a Monday of this season."] },
+    });
   const { version, ...changes } = patch;
   let after: SeasonWeek = { ...weeks[index]!, ...changes };
   let before: SeasonWeek = weeks[index]!;
@@ -61,22 +99,67 @@ export async function updateSeasonWeek(actor: Actor, seasonId: string, weekStart
     // The season as it is now, locked until the change is written: a change made on an older version is refused.
     const [current] = await tx.select().from(schema.season).where(eq(schema.season.id, seasonId)).for("update");
     if (!current) throw notFound("No such season.");
-    if (version !== undefined && current.version !== version) throw editConflict({ id: current.id, version: current.version, weeks: current.weeks }, "this season");
+    if (version !== undefined && current.version !== version)
+      throw editConflict({ id: current.id, version: current.version, weeks: current.weeks }, "this season");
     const currentWeeks = current.weeks as unknown as SeasonWeek[];
     before = currentWeeks[index]!;
     after = { ...before, ...changes };
     nextVersion = current.version + 1;
     const next = currentWeeks.map((w, i) => (i === index ? after : w));
-    await tx.update(schema.season).set({ weeks: next as unknown as Record<string, unknown>[], version: nextVersion }).where(eq(schema.season.id, seasonId));
+    await tx
+      .update(schema.season)
+      .set({ weeks: next as unknown as Record<string, unknown>[], version: nextVersion })
+      .where(eq(schema.season.id, seasonId));
     const weekEnd = addDays(weekStart, 6);
     if (after.retest && !before.retest) {
-      const existing = await tx.select({ id: schema.plannedSession.id }).from(schema.plannedSession).where(and(eq(schema.plannedSession.athleteId, row.athleteId), eq(schema.plannedSession.kind, "retest"), gte(schema.plannedSession.date, weekStart), lte(schema.plannedSession.date, weekEnd)));
+      const existing = await tx
+        .select({ id: schema.plannedSession.id })
+        .from(schema.plannedSession)
+        .where(
+          and(
+            eq(schema.plannedSession.athleteId, row.athleteId),
+            eq(schema.plannedSession.kind, "retest"),
+            gte(schema.plannedSession.date, weekStart),
+            lte(schema.plannedSession.date, weekEnd),
+          ),
+        );
       if (!existing.length) {
-        await tx.insert(schema.plannedSession).values({ id: randomUUID(), athleteId: row.athleteId, date: addDays(weekStart, 2), kind: "retest", sport: row.sport, title: "Retest: threshold test", structure: RETEST_STRUCTURE, ...totals(RETEST_STRUCTURE), createdBy: actor.userId, notes: "Retest to keep the zones in step with fitness. Answer the readiness questions first." });
+        await tx.insert(schema.plannedSession).values({
+          id: randomUUID(),
+          athleteId: row.athleteId,
+          date: addDays(weekStart, 2),
+          kind: "retest",
+          sport: row.sport,
+          title: "Retest: threshold test",
+          structure: RETEST_STRUCTURE,
+          ...totals(RETEST_STRUCTURE),
+          createdBy: actor.userId,
+          notes: "Retest to keep the zones in step with fitness. Answer the readiness questions first.",
+        });
       }
     } else if (!after.retest && before.retest) {
-      const retests = await tx.select({ id: schema.plannedSession.id }).from(schema.plannedSession).where(and(eq(schema.plannedSession.athleteId, row.athleteId), eq(schema.plannedSession.kind, "retest"), gte(schema.plannedSession.date, weekStart), lte(schema.plannedSession.date, weekEnd)));
-      const logged = retests.length ? await tx.select({ id: schema.sessionLog.plannedSessionId }).from(schema.sessionLog).where(inArray(schema.sessionLog.plannedSessionId, retests.map((r) => r.id))) : [];
+      const retests = await tx
+        .select({ id: schema.plannedSession.id })
+        .from(schema.plannedSession)
+        .where(
+          and(
+            eq(schema.plannedSession.athleteId, row.athleteId),
+            eq(schema.plannedSession.kind, "retest"),
+            gte(schema.plannedSession.date, weekStart),
+            lte(schema.plannedSession.date, weekEnd),
+          ),
+        );
+      const logged = retests.length
+        ? await tx
+            .select({ id: schema.sessionLog.plannedSessionId })
+            .from(schema.sessionLog)
+            .where(
+              inArray(
+                schema.sessionLog.plannedSessionId,
+                retests.map((r) => r.id),
+              ),
+            )
+        : [];
       const keep = new Set(logged.map((l) => l.id));
       const drop = retests.filter((r) => !keep.has(r.id)).map((r) => r.id);
       if (drop.length) await tx.delete(schema.plannedSession).where(inArray(schema.plannedSession.id, drop));
@@ -87,5 +170,9 @@ export async function updateSeasonWeek(actor: Actor, seasonId: string, weekStart
 
 export async function listSeasons(actor: Actor, athleteId: string) {
   await requireAthleteAccess(actor, athleteId, "view");
-  return getDb().select().from(schema.season).where(eq(schema.season.athleteId, athleteId)).orderBy(asc(schema.season.startDate));
+  return getDb()
+    .select()
+    .from(schema.season)
+    .where(eq(schema.season.athleteId, athleteId))
+    .orderBy(asc(schema.season.startDate));
 }

@@ -19,7 +19,10 @@ type Tx = Pick<Database, "insert" | "update" | "select" | "delete">;
 
 export function totals(structure: Block[]) {
   const e = expand(structure);
-  return { totalS: Math.round(e.totalS), minutesByZone: e.minutesByZone.map((m) => Math.round(m * 10) / 10) as [number, number, number] };
+  return {
+    totalS: Math.round(e.totalS),
+    minutesByZone: e.minutesByZone.map((m) => Math.round(m * 10) / 10) as [number, number, number],
+  };
 }
 
 export async function listSessions(actor: Actor, athleteId: string, from: string, to: string) {
@@ -27,7 +30,13 @@ export async function listSessions(actor: Actor, athleteId: string, from: string
   const rows = await getDb()
     .select()
     .from(schema.plannedSession)
-    .where(and(eq(schema.plannedSession.athleteId, athleteId), gte(schema.plannedSession.date, from), lte(schema.plannedSession.date, to)))
+    .where(
+      and(
+        eq(schema.plannedSession.athleteId, athleteId),
+        gte(schema.plannedSession.date, from),
+        lte(schema.plannedSession.date, to),
+      ),
+    )
     .orderBy(asc(schema.plannedSession.date), asc(schema.plannedSession.createdAt));
   const series = new Map<string, string>();
   for (const r of rows) {
@@ -39,19 +48,43 @@ export async function listSessions(actor: Actor, athleteId: string, from: string
   const zoneSets = await zoneSetsOf(athleteId);
   const logs = rows.length
     ? await getDb()
-        .select({ id: schema.sessionLog.id, plannedSessionId: schema.sessionLog.plannedSessionId, status: schema.sessionLog.status, durationMin: schema.sessionLog.durationMin, rpe: schema.sessionLog.rpe, measuredMinByZone: schema.sessionLog.measuredMinByZone, zoneMeasure: schema.sessionLog.zoneMeasure })
+        .select({
+          id: schema.sessionLog.id,
+          plannedSessionId: schema.sessionLog.plannedSessionId,
+          status: schema.sessionLog.status,
+          durationMin: schema.sessionLog.durationMin,
+          rpe: schema.sessionLog.rpe,
+          measuredMinByZone: schema.sessionLog.measuredMinByZone,
+          zoneMeasure: schema.sessionLog.zoneMeasure,
+        })
         .from(schema.sessionLog)
-        .where(inArray(schema.sessionLog.plannedSessionId, rows.map((r) => r.id)))
+        .where(
+          inArray(
+            schema.sessionLog.plannedSessionId,
+            rows.map((r) => r.id),
+          ),
+        )
     : [];
   const logOf = new Map(logs.map((l) => [l.plannedSessionId, l]));
   return rows.map((r) => {
-    const zones = zoneSetInForce(zoneSets.filter((z) => z.sport === r.sport), r.date);
+    const zones = zoneSetInForce(
+      zoneSets.filter((z) => z.sport === r.sport),
+      r.date,
+    );
     const log = logOf.get(r.id) ?? null;
     return {
       ...r,
       rrule: r.seriesId ? (series.get(r.seriesId) ?? null) : null,
       zoneSet: zones ? { id: zones.id, effectiveFrom: zones.effectiveFrom, zones: zones.zones } : null,
-      log: log ? { ...log, compliance: log.status === "skipped" || log.durationMin == null || r.totalS <= 0 ? 0 : log.durationMin / (r.totalS / 60) } : null,
+      log: log
+        ? {
+            ...log,
+            compliance:
+              log.status === "skipped" || log.durationMin == null || r.totalS <= 0
+                ? 0
+                : log.durationMin / (r.totalS / 60),
+          }
+        : null,
     };
   });
 }
@@ -60,27 +93,58 @@ export async function listSessions(actor: Actor, athleteId: string, from: string
 export async function createSession(actor: Actor, athleteId: string, input: z.infer<typeof createSessionSchema>) {
   await requireAthleteAccess(actor, athleteId, "coach");
   const db = getDb();
-  let base: { title: string; sport: string; kind: string; structure: Block[]; templateId: string | null; notes: string };
+  let base: {
+    title: string;
+    sport: string;
+    kind: string;
+    structure: Block[];
+    templateId: string | null;
+    notes: string;
+  };
   if ("templateId" in input) {
     const [t] = await db.select().from(schema.sessionTemplate).where(eq(schema.sessionTemplate.id, input.templateId));
-    if (!t || !isCoachOf(actor, t.squadId)) throw new HttpError(400, "Unknown template.", { fieldErrors: { templateId: ["No such template in your squads."] } });
-    base = { title: t.name, sport: t.sport, kind: "training", structure: t.structure as Block[], templateId: t.id, notes: "" };
+    if (!t || !isCoachOf(actor, t.squadId))
+      throw new HttpError(400, "Unknown template.", {
+        fieldErrors: { templateId: ["No such template in your squads."] },
+      });
+    base = {
+      title: t.name,
+      sport: t.sport,
+      kind: "training",
+      structure: t.structure as Block[],
+      templateId: t.id,
+      notes: "",
+    };
   } else {
-    base = { title: input.title, sport: input.sport, kind: input.kind, structure: input.structure, templateId: null, notes: input.notes ?? "" };
+    base = {
+      title: input.title,
+      sport: input.sport,
+      kind: input.kind,
+      structure: input.structure,
+      templateId: null,
+      notes: input.notes ?? "",
+    };
   }
   const dates = input.repeat ? expandDates(input.date, input.repeat) : [input.date];
-  if (!dates.length) throw new HttpError(400, "The repeat rule gives no dates.", { fieldErrors: { repeat: ["The rule gives no dates from the start date on."] } });
+  if (!dates.length)
+    throw new HttpError(400, "The repeat rule gives no dates.", {
+      fieldErrors: { repeat: ["The rule gives no dates from the start date on."] },
+    });
   const ids: string[] = [];
   await db.transaction(async (tx) => {
     let seriesId: string | null = null;
     if (input.repeat) {
       seriesId = randomUUID();
-      await tx.insert(schema.sessionSeries).values({ id: seriesId, athleteId, rrule: rruleText(input.date, input.repeat) });
+      await tx
+        .insert(schema.sessionSeries)
+        .values({ id: seriesId, athleteId, rrule: rruleText(input.date, input.repeat) });
     }
     for (const date of dates) {
       const id = randomUUID();
       ids.push(id);
-      await tx.insert(schema.plannedSession).values({ id, athleteId, date, seriesId, createdBy: actor.userId, ...base, ...totals(base.structure) });
+      await tx
+        .insert(schema.plannedSession)
+        .values({ id, athleteId, date, seriesId, createdBy: actor.userId, ...base, ...totals(base.structure) });
     }
   });
   return { id: ids[0]!, ids, dates };
@@ -105,7 +169,11 @@ export async function updateSession(actor: Actor, id: string, patch: z.infer<typ
   };
   await db.transaction(async (tx: Tx) => {
     // The session as it is now, locked until the change is written: a change made on an older version is refused.
-    const [current] = await tx.select().from(schema.plannedSession).where(eq(schema.plannedSession.id, id)).for("update");
+    const [current] = await tx
+      .select()
+      .from(schema.plannedSession)
+      .where(eq(schema.plannedSession.id, id))
+      .for("update");
     if (!current) throw notFound("No such session.");
     if (patch.version !== undefined && current.version !== patch.version) throw editConflict(current, "this session");
     const bump = { version: sql`${schema.plannedSession.version} + 1` };
@@ -114,14 +182,28 @@ export async function updateSession(actor: Actor, id: string, patch: z.infer<typ
       const members = await tx
         .select()
         .from(schema.plannedSession)
-        .where(and(eq(schema.plannedSession.seriesId, row.seriesId), eq(schema.plannedSession.detached, false), gte(schema.plannedSession.date, row.date)));
+        .where(
+          and(
+            eq(schema.plannedSession.seriesId, row.seriesId),
+            eq(schema.plannedSession.detached, false),
+            gte(schema.plannedSession.date, row.date),
+          ),
+        );
       for (const m of members) {
-        await tx.update(schema.plannedSession).set({ ...fields, ...bump, ...(shift ? { date: addDays(m.date, shift) } : {}) }).where(eq(schema.plannedSession.id, m.id));
+        await tx
+          .update(schema.plannedSession)
+          .set({ ...fields, ...bump, ...(shift ? { date: addDays(m.date, shift) } : {}) })
+          .where(eq(schema.plannedSession.id, m.id));
       }
     } else {
       await tx
         .update(schema.plannedSession)
-        .set({ ...fields, ...bump, ...(patch.date ? { date: patch.date } : {}), detached: row.seriesId ? true : row.detached })
+        .set({
+          ...fields,
+          ...bump,
+          ...(patch.date ? { date: patch.date } : {}),
+          detached: row.seriesId ? true : row.detached,
+        })
         .where(eq(schema.plannedSession.id, id));
     }
   });
@@ -133,7 +215,15 @@ export async function deleteSession(actor: Actor, id: string, scope: "one" | "se
   const row = await loadSession(actor, id, "coach");
   const db = getDb();
   if (scope === "series" && row.seriesId) {
-    await db.delete(schema.plannedSession).where(and(eq(schema.plannedSession.seriesId, row.seriesId), gte(schema.plannedSession.date, row.date), eq(schema.plannedSession.detached, false)));
+    await db
+      .delete(schema.plannedSession)
+      .where(
+        and(
+          eq(schema.plannedSession.seriesId, row.seriesId),
+          gte(schema.plannedSession.date, row.date),
+          eq(schema.plannedSession.detached, false),
+        ),
+      );
   } else {
     await db.delete(schema.plannedSession).where(eq(schema.plannedSession.id, id));
   }
@@ -141,7 +231,14 @@ export async function deleteSession(actor: Actor, id: string, scope: "one" | "se
 
 export async function duplicateSession(actor: Actor, id: string, date: string) {
   const row = await loadSession(actor, id, "coach");
-  return createSession(actor, row.athleteId, { date, title: row.title, sport: row.sport as never, kind: row.kind as "training" | "retest", structure: row.structure as Block[], notes: row.notes });
+  return createSession(actor, row.athleteId, {
+    date,
+    title: row.title,
+    sport: row.sport as never,
+    kind: row.kind as "training" | "retest",
+    structure: row.structure as Block[],
+    notes: row.notes,
+  });
 }
 
 /** The next retest session on or after a date, or null. */
@@ -150,7 +247,13 @@ export async function nextRetestOf(actor: Actor, athleteId: string, from: string
   const [row] = await getDb()
     .select({ id: schema.plannedSession.id, date: schema.plannedSession.date, title: schema.plannedSession.title })
     .from(schema.plannedSession)
-    .where(and(eq(schema.plannedSession.athleteId, athleteId), eq(schema.plannedSession.kind, "retest"), gte(schema.plannedSession.date, from)))
+    .where(
+      and(
+        eq(schema.plannedSession.athleteId, athleteId),
+        eq(schema.plannedSession.kind, "retest"),
+        gte(schema.plannedSession.date, from),
+      ),
+    )
     .orderBy(asc(schema.plannedSession.date))
     .limit(1);
   return row ?? null;

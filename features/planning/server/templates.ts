@@ -10,7 +10,10 @@ import type { templatePatchSchema, templateSchema } from "../schemas";
 
 function totals(structure: Block[]) {
   const e = expand(structure);
-  return { totalS: Math.round(e.totalS), minutesByZone: e.minutesByZone.map((m) => Math.round(m * 10) / 10) as [number, number, number] };
+  return {
+    totalS: Math.round(e.totalS),
+    minutesByZone: e.minutesByZone.map((m) => Math.round(m * 10) / 10) as [number, number, number],
+  };
 }
 
 export async function listTemplates(actor: Actor, opts: { squadId?: string; q?: string } = {}) {
@@ -19,7 +22,11 @@ export async function listTemplates(actor: Actor, opts: { squadId?: string; q?: 
   if (!squads.length) return [];
   const where = [inArray(schema.sessionTemplate.squadId, squads)];
   if (opts.q) where.push(ilike(schema.sessionTemplate.name, `%${opts.q.replace(/[%_\\]/g, (c) => `\\${c}`)}%`));
-  return getDb().select().from(schema.sessionTemplate).where(and(...where)).orderBy(asc(schema.sessionTemplate.name));
+  return getDb()
+    .select()
+    .from(schema.sessionTemplate)
+    .where(and(...where))
+    .orderBy(asc(schema.sessionTemplate.name));
 }
 
 async function loadTemplate(actor: Actor, id: string) {
@@ -37,7 +44,16 @@ export async function createTemplate(actor: Actor, input: z.infer<typeof templat
   const id = randomUUID();
   const [row] = await getDb()
     .insert(schema.sessionTemplate)
-    .values({ id, squadId: input.squadId, name: input.name, sport: input.sport, description: input.description ?? "", structure: input.structure, ...totals(input.structure), createdBy: actor.userId })
+    .values({
+      id,
+      squadId: input.squadId,
+      name: input.name,
+      sport: input.sport,
+      description: input.description ?? "",
+      structure: input.structure,
+      ...totals(input.structure),
+      createdBy: actor.userId,
+    })
     .returning();
   return row!;
 }
@@ -47,8 +63,16 @@ export async function updateTemplate(actor: Actor, id: string, patch: z.infer<ty
   const { version, ...changes } = patch;
   const [row] = await getDb()
     .update(schema.sessionTemplate)
-    .set({ ...changes, ...(changes.structure ? totals(changes.structure) : {}), version: sql`${schema.sessionTemplate.version} + 1` })
-    .where(version === undefined ? eq(schema.sessionTemplate.id, id) : and(eq(schema.sessionTemplate.id, id), eq(schema.sessionTemplate.version, version)))
+    .set({
+      ...changes,
+      ...(changes.structure ? totals(changes.structure) : {}),
+      version: sql`${schema.sessionTemplate.version} + 1`,
+    })
+    .where(
+      version === undefined
+        ? eq(schema.sessionTemplate.id, id)
+        : and(eq(schema.sessionTemplate.id, id), eq(schema.sessionTemplate.version, version)),
+    )
     .returning();
   // Nothing written: the template changed since the client read it (it exists; loadTemplate found it).
   if (!row) throw editConflict(await loadTemplate(actor, id), "this template");
@@ -57,7 +81,13 @@ export async function updateTemplate(actor: Actor, id: string, patch: z.infer<ty
 
 export async function duplicateTemplate(actor: Actor, id: string) {
   const t = await loadTemplate(actor, id);
-  return createTemplate(actor, { squadId: t.squadId, name: `${t.name} (copy)`.slice(0, 80), sport: t.sport as never, description: t.description, structure: t.structure as Block[] });
+  return createTemplate(actor, {
+    squadId: t.squadId,
+    name: `${t.name} (copy)`.slice(0, 80),
+    sport: t.sport as never,
+    description: t.description,
+    structure: t.structure as Block[],
+  });
 }
 
 export async function deleteTemplate(actor: Actor, id: string) {

@@ -19,8 +19,15 @@ const answers = new Map<string, { generation: number; body: string }>();
  * row from creation (migration 0007); for one that somehow lacks it, the counter is null and nothing is stored. Read
  * before the data it guards: a change made meanwhile then makes the stored answer look older than it is, never newer.
  */
-export async function athleteMembershipsAndGeneration(athleteId: string): Promise<{ memberships: Membership[]; generation: number | null; timeZone: string | null }> {
-  const rows = await getDb().execute<{ generation: string | null; time_zone: string | null; squad_id: string | null; role: Membership["role"] | null }>(sql`
+export async function athleteMembershipsAndGeneration(
+  athleteId: string,
+): Promise<{ memberships: Membership[]; generation: number | null; timeZone: string | null }> {
+  const rows = await getDb().execute<{
+    generation: string | null;
+    time_zone: string | null;
+    squad_id: string | null;
+    role: Membership["role"] | null;
+  }>(sql`
     select c.generation, p.time_zone, m.squad_id, m.role
     from (select ${athleteId}::text as id) a
     left join roster_cache c on c.athlete_id = a.id

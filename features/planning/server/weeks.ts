@@ -23,7 +23,13 @@ export async function weekSummaries(actor: Actor, athleteId: string, from: strin
  * `weekSummaries` as the JSON the weeks API answers with, from the per-process store of answers when nothing about the
  * athlete changed since it was computed and it is still the same day for the athlete (week-cache.ts).
  */
-export async function weekSummariesJson(actor: Actor, athleteId: string, from: string, to: string, now = new Date()): Promise<string> {
+export async function weekSummariesJson(
+  actor: Actor,
+  athleteId: string,
+  from: string,
+  to: string,
+  now = new Date(),
+): Promise<string> {
   const { generation, today } = await viewableAthleteDay(actor, athleteId, now);
   if (generation === null) return JSON.stringify(await computeWeekSummaries(athleteId, from, to, today));
   const key = `${athleteId}|${from}|${to}|${today}`;
@@ -56,28 +62,72 @@ interface AthleteWeekInputs {
  * (as minutes per zone: measured, or the plan's minutes scaled to the time logged). Four queries, whatever the number of
  * athletes.
  */
-async function loadWeekInputs(athleteIds: string[], range: { sessionsFrom: string; sessionsTo: string; logsFrom: string; logsTo: string }): Promise<{ byAthlete: Map<string, AthleteWeekInputs>; logStatusOf: Map<string, "done" | "partial" | "skipped"> }> {
+async function loadWeekInputs(
+  athleteIds: string[],
+  range: { sessionsFrom: string; sessionsTo: string; logsFrom: string; logsTo: string },
+): Promise<{ byAthlete: Map<string, AthleteWeekInputs>; logStatusOf: Map<string, "done" | "partial" | "skipped"> }> {
   const db = getDb();
   const [sessions, seasons, tests, logs] = await Promise.all([
     db
-      .select({ id: schema.plannedSession.id, athleteId: schema.plannedSession.athleteId, date: schema.plannedSession.date, title: schema.plannedSession.title, kind: schema.plannedSession.kind, minutesByZone: schema.plannedSession.minutesByZone, totalS: schema.plannedSession.totalS })
+      .select({
+        id: schema.plannedSession.id,
+        athleteId: schema.plannedSession.athleteId,
+        date: schema.plannedSession.date,
+        title: schema.plannedSession.title,
+        kind: schema.plannedSession.kind,
+        minutesByZone: schema.plannedSession.minutesByZone,
+        totalS: schema.plannedSession.totalS,
+      })
       .from(schema.plannedSession)
-      .where(and(inArray(schema.plannedSession.athleteId, athleteIds), gte(schema.plannedSession.date, range.sessionsFrom), lte(schema.plannedSession.date, range.sessionsTo)))
+      .where(
+        and(
+          inArray(schema.plannedSession.athleteId, athleteIds),
+          gte(schema.plannedSession.date, range.sessionsFrom),
+          lte(schema.plannedSession.date, range.sessionsTo),
+        ),
+      )
       .orderBy(asc(schema.plannedSession.date), asc(schema.plannedSession.createdAt)),
-    db.select({ athleteId: schema.season.athleteId, weeks: schema.season.weeks }).from(schema.season).where(inArray(schema.season.athleteId, athleteIds)),
-    db.select({ athleteId: schema.athleteTest.athleteId, date: schema.athleteTest.testDate }).from(schema.athleteTest).where(inArray(schema.athleteTest.athleteId, athleteIds)),
     db
-      .select({ athleteId: schema.sessionLog.athleteId, date: schema.sessionLog.date, status: schema.sessionLog.status, durationMin: schema.sessionLog.durationMin, rpe: schema.sessionLog.rpe, measuredMinByZone: schema.sessionLog.measuredMinByZone, trimp: schema.sessionLog.trimp, plannedSessionId: schema.sessionLog.plannedSessionId })
+      .select({ athleteId: schema.season.athleteId, weeks: schema.season.weeks })
+      .from(schema.season)
+      .where(inArray(schema.season.athleteId, athleteIds)),
+    db
+      .select({ athleteId: schema.athleteTest.athleteId, date: schema.athleteTest.testDate })
+      .from(schema.athleteTest)
+      .where(inArray(schema.athleteTest.athleteId, athleteIds)),
+    db
+      .select({
+        athleteId: schema.sessionLog.athleteId,
+        date: schema.sessionLog.date,
+        status: schema.sessionLog.status,
+        durationMin: schema.sessionLog.durationMin,
+        rpe: schema.sessionLog.rpe,
+        measuredMinByZone: schema.sessionLog.measuredMinByZone,
+        trimp: schema.sessionLog.trimp,
+        plannedSessionId: schema.sessionLog.plannedSessionId,
+      })
       .from(schema.sessionLog)
-      .where(and(inArray(schema.sessionLog.athleteId, athleteIds), gte(schema.sessionLog.date, range.logsFrom), lte(schema.sessionLog.date, range.logsTo))),
+      .where(
+        and(
+          inArray(schema.sessionLog.athleteId, athleteIds),
+          gte(schema.sessionLog.date, range.logsFrom),
+          lte(schema.sessionLog.date, range.logsTo),
+        ),
+      ),
   ]);
-  const out = new Map<string, AthleteWeekInputs>(athleteIds.map((id) => [id, { sessions: [], seasonWeeks: [], testDates: [], done: [] }]));
+  const out = new Map<string, AthleteWeekInputs>(
+    athleteIds.map((id) => [id, { sessions: [], seasonWeeks: [], testDates: [], done: [] }]),
+  );
   const plannedById = new Map(sessions.map((x) => [x.id, x]));
   for (const x of sessions) out.get(x.athleteId)?.sessions.push(x);
   for (const x of seasons) out.get(x.athleteId)?.seasonWeeks.push(...(x.weeks as unknown as SeasonWeekInfo[]));
   for (const t of tests) out.get(t.athleteId)?.testDates.push(t.date);
   for (const l of logs) {
-    out.get(l.athleteId)?.done.push({ date: l.date, minutesByZone: logZoneMinutes(l, l.plannedSessionId ? plannedById.get(l.plannedSessionId) : undefined) ?? ([0, 0, 0] as Zones) });
+    out.get(l.athleteId)?.done.push({
+      date: l.date,
+      minutesByZone:
+        logZoneMinutes(l, l.plannedSessionId ? plannedById.get(l.plannedSessionId) : undefined) ?? ([0, 0, 0] as Zones),
+    });
   }
   const logStatusOf = new Map(logs.filter((l) => l.plannedSessionId).map((l) => [l.plannedSessionId!, l.status]));
   return { byAthlete: out, logStatusOf };
@@ -85,14 +135,35 @@ async function loadWeekInputs(athleteIds: string[], range: { sessionsFrom: strin
 
 async function computeWeekSummaries(athleteId: string, from: string, to: string, today: string) {
   // Four weeks before the range (the volume ramp compares with them) and two beyond it (a fix may move a session there).
-  const inputs = await loadWeekInputs([athleteId], { sessionsFrom: addDays(mondayOf(from), -28), sessionsTo: addDays(mondayOf(to), 6 + 14), logsFrom: mondayOf(from), logsTo: addDays(mondayOf(to), 6) });
+  const inputs = await loadWeekInputs([athleteId], {
+    sessionsFrom: addDays(mondayOf(from), -28),
+    sessionsTo: addDays(mondayOf(to), 6 + 14),
+    logsFrom: mondayOf(from),
+    logsTo: addDays(mondayOf(to), 6),
+  });
   const mine = inputs.byAthlete.get(athleteId)!;
-  return summariseWeeks({ from, to, sessions: mine.sessions, seasonWeeks: mine.seasonWeeks, testDates: mine.testDates, done: mine.done, today });
+  return summariseWeeks({
+    from,
+    to,
+    sessions: mine.sessions,
+    seasonWeeks: mine.seasonWeeks,
+    testDates: mine.testDates,
+    done: mine.done,
+    today,
+  });
 }
 
 export interface SquadWeekRow {
   athlete: { id: string; name: string };
-  sessions: { id: string; date: string; title: string; kind: string; totalS: number; minutesByZone: [number, number, number]; log: "done" | "partial" | "skipped" | null }[];
+  sessions: {
+    id: string;
+    date: string;
+    title: string;
+    kind: string;
+    totalS: number;
+    minutesByZone: [number, number, number];
+    log: "done" | "partial" | "skipped" | null;
+  }[];
   week: WeekSummary;
 }
 
@@ -115,7 +186,10 @@ export async function squadWeek(actor: Actor, squadId: string, weekStart: string
   const athletes = rows.map(({ id, name }) => ({ id, name }));
   const timeZoneOf = new Map(rows.map((r) => [r.id, r.timeZone ?? "UTC"]));
   if (!athletes.length) return [];
-  const { byAthlete, logStatusOf } = await loadWeekInputs(athletes.map((a) => a.id), { sessionsFrom: addDays(monday, -28), sessionsTo: sunday, logsFrom: monday, logsTo: sunday });
+  const { byAthlete, logStatusOf } = await loadWeekInputs(
+    athletes.map((a) => a.id),
+    { sessionsFrom: addDays(monday, -28), sessionsTo: sunday, logsFrom: monday, logsTo: sunday },
+  );
   const now = new Date();
   return athletes.map((a) => {
     const own = byAthlete.get(a.id)!;
@@ -132,7 +206,17 @@ export async function squadWeek(actor: Actor, squadId: string, weekStart: string
     });
     return {
       athlete: a,
-      sessions: own.sessions.filter((x) => x.date >= monday).map((x) => ({ id: x.id, date: x.date, title: x.title, kind: x.kind, totalS: x.totalS, minutesByZone: x.minutesByZone, log: logStatusOf.get(x.id) ?? null })),
+      sessions: own.sessions
+        .filter((x) => x.date >= monday)
+        .map((x) => ({
+          id: x.id,
+          date: x.date,
+          title: x.title,
+          kind: x.kind,
+          totalS: x.totalS,
+          minutesByZone: x.minutesByZone,
+          log: logStatusOf.get(x.id) ?? null,
+        })),
       week: week!,
     };
   });

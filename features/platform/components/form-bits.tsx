@@ -28,7 +28,9 @@ export function FormNotice({ children }: { children?: ReactNode }) {
 }
 
 /** A message for an auth error, with the usual cases spelled out. */
-export function authErrorMessage(error: { status?: number; message?: string; code?: string } | null | undefined): string {
+export function authErrorMessage(
+  error: { status?: number; message?: string; code?: string } | null | undefined,
+): string {
   if (!error) return "Something went wrong. Please try again.";
   if (error.code === "SIGN_IN_PAUSED" && error.message) return error.message;
   if (error.status === 429) return "Too many attempts. Wait a minute, then try again.";

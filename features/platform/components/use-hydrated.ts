@@ -9,5 +9,9 @@ const noSubscription = () => () => {};
  * choice made too early is not silently dropped.
  */
 export function useHydrated(): boolean {
-  return useSyncExternalStore(noSubscription, () => true, () => false);
+  return useSyncExternalStore(
+    noSubscription,
+    () => true,
+    () => false,
+  );
 }

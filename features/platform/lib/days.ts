@@ -45,7 +45,9 @@ export function dayNumber(iso: string): number {
 
 function computeDayNumber(iso: string): number {
   if (iso.length !== 10 || iso.charCodeAt(4) !== 45 || iso.charCodeAt(7) !== 45) return NaN;
-  const y = Number(iso.slice(0, 4)), m = Number(iso.slice(5, 7)), d = Number(iso.slice(8, 10));
+  const y = Number(iso.slice(0, 4)),
+    m = Number(iso.slice(5, 7)),
+    d = Number(iso.slice(8, 10));
   if (!Number.isInteger(y) || !Number.isInteger(m) || !Number.isInteger(d) || m < 1 || m > 12 || d < 1) return NaN;
   if (d > (m === 2 && isLeap(y) ? 29 : DAYS_IN_MONTH[m - 1]!)) return NaN;
   return dayFromCivil(y, m, d);
@@ -72,7 +74,8 @@ export class DateError extends Error {}
 
 /** The day number of a real calendar date, or a DateError that says what is wrong with it. */
 export function dayOf(iso: string): number {
-  if (typeof iso !== "string" || !/^\d{4}-\d{2}-\d{2}$/.test(iso)) throw new DateError(`"${iso}" is not a date (YYYY-MM-DD).`);
+  if (typeof iso !== "string" || !/^\d{4}-\d{2}-\d{2}$/.test(iso))
+    throw new DateError(`"${iso}" is not a date (YYYY-MM-DD).`);
   const n = dayNumber(iso);
   if (Number.isNaN(n)) throw new DateError(`"${iso}" is not a date.`);
   return n;

@@ -1,5 +1,13 @@
 /** The sports Tidemark plans and tests, with their labels: every feature's one list. */
-export const SPORTS = ["running", "cycling", "triathlon", "rowing", "swimming", "cross_country_skiing", "walking"] as const;
+export const SPORTS = [
+  "running",
+  "cycling",
+  "triathlon",
+  "rowing",
+  "swimming",
+  "cross_country_skiing",
+  "walking",
+] as const;
 export type Sport = (typeof SPORTS)[number];
 export const SPORT_LABELS: Record<Sport, string> = {
   running: "Running",

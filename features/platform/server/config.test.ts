@@ -15,7 +15,12 @@ describe("configuration", () => {
     expect(c.production).toBe(false);
     expect(c.auth.url).toBe("http://127.0.0.1:3000");
     expect(c.database.poolSize).toBe(10);
-    expect(c.signIn).toEqual({ limitPerMin: undefined, clientIpHeader: undefined, trustedProxies: [], rateLimitDisabled: false });
+    expect(c.signIn).toEqual({
+      limitPerMin: undefined,
+      clientIpHeader: undefined,
+      trustedProxies: [],
+      rateLimitDisabled: false,
+    });
     expect(c.mail.transport).toBe("resend");
     expect(c.mail.fakeUrl).toBe("http://127.0.0.1:4010");
   });
@@ -33,17 +38,25 @@ describe("configuration", () => {
     });
     expect(c.production).toBe(true);
     expect(c.auth.url).toBe("https://tidemark.example");
-    expect(c.signIn).toEqual({ limitPerMin: 12, clientIpHeader: "x-forwarded-for", trustedProxies: ["10.0.0.1", "10.0.0.2"], rateLimitDisabled: true });
+    expect(c.signIn).toEqual({
+      limitPerMin: 12,
+      clientIpHeader: "x-forwarded-for",
+      trustedProxies: ["10.0.0.1", "10.0.0.2"],
+      rateLimitDisabled: true,
+    });
     expect(c.mail.smtp.port).toBe(587);
   });
 
   it("refuses bad values, naming each variable and what it must be", () => {
-    const bad = () => readConfig({ TIDEMARK_EMAIL_TRANSPORT: "pigeon", SMTP_PORT: "seventy", BETTER_AUTH_URL: "tidemark" });
+    const bad = () =>
+      readConfig({ TIDEMARK_EMAIL_TRANSPORT: "pigeon", SMTP_PORT: "seventy", BETTER_AUTH_URL: "tidemark" });
     expect(bad).toThrow(/^The configuration is not valid/);
     expect(bad).toThrow(/TIDEMARK_EMAIL_TRANSPORT: must be resend or smtp/);
     expect(bad).toThrow(/SMTP_PORT: must be a port number/);
     expect(bad).toThrow(/BETTER_AUTH_URL: must be a full address/);
-    expect(() => readConfig({ TIDEMARK_SIGN_IN_LIMIT_PER_MIN: "0" })).toThrow(/TIDEMARK_SIGN_IN_LIMIT_PER_MIN: must be at least 1/);
+    expect(() => readConfig({ TIDEMARK_SIGN_IN_LIMIT_PER_MIN: "0" })).toThrow(
+      /TIDEMARK_SIGN_IN_LIMIT_PER_MIN: must be at least 1/,
+    );
   });
 
   it("is read once: a change to the environment shows only after resetConfig()", () => {

@@ -18,14 +18,27 @@ const optionalText = z
   .transform((v) => (v && v.trim() ? v.trim() : undefined));
 
 const schema = z.object({
-  NODE_ENV: z.enum(["development", "production", "test"], { error: "must be development, production or test" }).default("development"),
+  NODE_ENV: z
+    .enum(["development", "production", "test"], { error: "must be development, production or test" })
+    .default("development"),
   DATABASE_URL: optionalText,
   DATABASE_POOL_SIZE: z.coerce.number({ error: "must be a number" }).int().min(1).max(500).default(10),
   BETTER_AUTH_SECRET: optionalText,
-  BETTER_AUTH_URL: z.url({ error: "must be a full address such as https://tidemark.example" }).default("http://127.0.0.1:3000"),
-  TIDEMARK_SIGN_IN_LIMIT_PER_MIN: z.coerce.number({ error: "must be a whole number" }).int().positive("must be at least 1").optional(),
+  BETTER_AUTH_URL: z
+    .url({ error: "must be a full address such as https://tidemark.example" })
+    .default("http://127.0.0.1:3000"),
+  TIDEMARK_SIGN_IN_LIMIT_PER_MIN: z.coerce
+    .number({ error: "must be a whole number" })
+    .int()
+    .positive("must be at least 1")
+    .optional(),
   TIDEMARK_CLIENT_IP_HEADER: optionalText.transform((v) => v?.toLowerCase()),
-  TIDEMARK_TRUSTED_PROXIES: optionalText.transform((v) => (v ?? "").split(",").map((p) => p.trim()).filter(Boolean)),
+  TIDEMARK_TRUSTED_PROXIES: optionalText.transform((v) =>
+    (v ?? "")
+      .split(",")
+      .map((p) => p.trim())
+      .filter(Boolean),
+  ),
   TIDEMARK_DISABLE_RATE_LIMIT: flag,
   TIDEMARK_MAIL_FROM: z.string().min(3).default("Tidemark <no-reply@tidemark.test>"),
   TIDEMARK_EMAIL_TRANSPORT: z.enum(["resend", "smtp"], { error: "must be resend or smtp" }).default("resend"),
@@ -44,7 +57,12 @@ export interface Config {
   production: boolean;
   database: { url: string | undefined; poolSize: number };
   auth: { secret: string | undefined; url: string };
-  signIn: { limitPerMin: number | undefined; clientIpHeader: string | undefined; trustedProxies: string[]; rateLimitDisabled: boolean };
+  signIn: {
+    limitPerMin: number | undefined;
+    clientIpHeader: string | undefined;
+    trustedProxies: string[];
+    rateLimitDisabled: boolean;
+  };
   mail: {
     from: string;
     transport: "resend" | "smtp";
@@ -69,7 +87,12 @@ export function readConfig(env: Record<string, string | undefined>): Config {
     production: e.NODE_ENV === "production",
     database: { url: e.DATABASE_URL, poolSize: e.DATABASE_POOL_SIZE },
     auth: { secret: e.BETTER_AUTH_SECRET, url: e.BETTER_AUTH_URL.replace(/\/$/, "") },
-    signIn: { limitPerMin: e.TIDEMARK_SIGN_IN_LIMIT_PER_MIN, clientIpHeader: e.TIDEMARK_CLIENT_IP_HEADER, trustedProxies: e.TIDEMARK_TRUSTED_PROXIES, rateLimitDisabled: e.TIDEMARK_DISABLE_RATE_LIMIT },
+    signIn: {
+      limitPerMin: e.TIDEMARK_SIGN_IN_LIMIT_PER_MIN,
+      clientIpHeader: e.TIDEMARK_CLIENT_IP_HEADER,
+      trustedProxies: e.TIDEMARK_TRUSTED_PROXIES,
+      rateLimitDisabled: e.TIDEMARK_DISABLE_RATE_LIMIT,
+    },
     mail: {
       from: e.TIDEMARK_MAIL_FROM,
       transport: e.TIDEMARK_EMAIL_TRANSPORT,
@@ -100,7 +123,9 @@ export function resetConfig(): void {
 export function signingSecret(): string {
   const secret = config().auth.secret ?? "";
   if (secret.length < 32) {
-    throw new Error("BETTER_AUTH_SECRET is not set (or shorter than 32 characters): set it to a long random value, for example `openssl rand -base64 32`. `npm start` sets one for a local installation.");
+    throw new Error(
+      "BETTER_AUTH_SECRET is not set (or shorter than 32 characters): set it to a long random value, for example `openssl rand -base64 32`. `npm start` sets one for a local installation.",
+    );
   }
   return secret;
 }

@@ -19,7 +19,11 @@ export const forbidden = (why = "You do not have access to this.") => new HttpEr
 
 /** Someone else changed the record since the client read it: 409 with the current state, so the client can show it. */
 export const editConflict = (current: unknown, what = "this") =>
-  new HttpError(409, `Someone else changed ${what} since you opened it. The current version is shown; make your change again if it is still needed.`, { current });
+  new HttpError(
+    409,
+    `Someone else changed ${what} since you opened it. The current version is shown; make your change again if it is still needed.`,
+    { current },
+  );
 
 export function json(body: unknown, init: ResponseInit = {}): Response {
   return Response.json(body, init);
@@ -42,7 +46,8 @@ export async function readJson<T extends z.ZodType>(req: Request, schema: T): Pr
   const length = Number(req.headers.get("content-length") ?? 0);
   if (length > MAX_JSON_BYTES) throw new HttpError(413, `The request body is larger than ${MAX_JSON_BYTES / 1024} KB.`);
   const raw = await req.text();
-  if (raw.length > MAX_JSON_BYTES) throw new HttpError(413, `The request body is larger than ${MAX_JSON_BYTES / 1024} KB.`);
+  if (raw.length > MAX_JSON_BYTES)
+    throw new HttpError(413, `The request body is larger than ${MAX_JSON_BYTES / 1024} KB.`);
   let data: unknown;
   try {
     data = raw.length ? JSON.parse(raw) : undefined;
@@ -57,7 +62,11 @@ export async function readJson<T extends z.ZodType>(req: Request, schema: T): Pr
 }
 
 /** The search parameters of a request through a zod schema; 400 with field errors when they do not fit. */
-export function parseQuery<T extends z.ZodType>(req: Request, schema: T, message = "Some query parameters are not valid."): z.infer<T> {
+export function parseQuery<T extends z.ZodType>(
+  req: Request,
+  schema: T,
+  message = "Some query parameters are not valid.",
+): z.infer<T> {
   const parsed = schema.safeParse(Object.fromEntries(new URL(req.url).searchParams));
   if (!parsed.success) throw new HttpError(400, message, { fieldErrors: fieldErrors(parsed.error) });
   return parsed.data;
@@ -78,8 +87,12 @@ export interface UploadLimits {
  * too large a body before reading it and too large a file after (413), a form that cannot be read (400), a missing file
  * (400). Gives the file's bytes and the other fields.
  */
-export async function readUpload(req: Request, limits: UploadLimits): Promise<{ file: { name: string; type: string; bytes: Uint8Array }; form: FormData }> {
-  if (!(req.headers.get("content-type") ?? "").startsWith("multipart/form-data")) throw new HttpError(415, "Send the file as multipart/form-data in the field named file.");
+export async function readUpload(
+  req: Request,
+  limits: UploadLimits,
+): Promise<{ file: { name: string; type: string; bytes: Uint8Array }; form: FormData }> {
+  if (!(req.headers.get("content-type") ?? "").startsWith("multipart/form-data"))
+    throw new HttpError(415, "Send the file as multipart/form-data in the field named file.");
   const length = Number(req.headers.get("content-length") ?? 0);
   if (length > limits.maxBytes + 64 * 1024) throw new HttpError(413, limits.tooLarge);
   let form: FormData;
@@ -89,7 +102,8 @@ export async function readUpload(req: Request, limits: UploadLimits): Promise<{ 
     throw new HttpError(400, "The upload could not be read as a form with a file.");
   }
   const file = form.get("file");
-  if (!(file instanceof File)) throw new HttpError(400, limits.missing, { fieldErrors: { file: [limits.missingField] } });
+  if (!(file instanceof File))
+    throw new HttpError(400, limits.missing, { fieldErrors: { file: [limits.missingField] } });
   if (file.size > limits.maxBytes) throw new HttpError(413, limits.tooLarge);
   return { file: { name: file.name, type: file.type, bytes: new Uint8Array(await file.arrayBuffer()) }, form };
 }
@@ -113,7 +127,24 @@ export function parseParams<T extends z.ZodType>(params: unknown, schema: T): z.
 }
 
 // Connection failures (Node and postgres.js codes) and PostgreSQL's shutdown and connection classes (57P0x, 08xxx).
-const UNAVAILABLE = new Set(["ECONNREFUSED", "ECONNRESET", "EPIPE", "ETIMEDOUT", "CONNECTION_CLOSED", "CONNECTION_ENDED", "CONNECTION_DESTROYED", "CONNECT_TIMEOUT", "57P01", "57P02", "57P03", "08000", "08001", "08003", "08004", "08006"]);
+const UNAVAILABLE = new Set([
+  "ECONNREFUSED",
+  "ECONNRESET",
+  "EPIPE",
+  "ETIMEDOUT",
+  "CONNECTION_CLOSED",
+  "CONNECTION_ENDED",
+  "CONNECTION_DESTROYED",
+  "CONNECT_TIMEOUT",
+  "57P01",
+  "57P02",
+  "57P03",
+  "08000",
+  "08001",
+  "08003",
+  "08004",
+  "08006",
+]);
 
 /** Whether an error, or any error it wraps (query builders and the auth library wrap the driver's), means the database is unreachable. */
 export function isDatabaseUnavailable(e: unknown): boolean {
@@ -140,14 +171,19 @@ export function checkSameOrigin(req: Request): void {
     if (!own.has(origin)) throw new HttpError(403, "This request came from another site and was refused.");
   } else {
     const site = req.headers.get("sec-fetch-site");
-    if (site !== null && site !== "same-origin") throw new HttpError(403, "This request came from another site and was refused.");
+    if (site !== null && site !== "same-origin")
+      throw new HttpError(403, "This request came from another site and was refused.");
   }
   // A body is typed by its sender: a browser always sends a Content-Type with one (text/plain for a bare string, a form's
   // own type for a form). Without a body there is nothing to type.
   const type = (req.headers.get("content-type") ?? "").split(";")[0]!.trim().toLowerCase();
-  const hasBody = type !== "" || Number(req.headers.get("content-length") ?? 0) > 0 || req.headers.has("transfer-encoding");
+  const hasBody =
+    type !== "" || Number(req.headers.get("content-length") ?? 0) > 0 || req.headers.has("transfer-encoding");
   if (hasBody && type !== "application/json" && type !== "multipart/form-data") {
-    throw new HttpError(415, "Send the request body as JSON (Content-Type: application/json) or as multipart/form-data.");
+    throw new HttpError(
+      415,
+      "Send the request body as JSON (Content-Type: application/json) or as multipart/form-data.",
+    );
   }
 }
 
@@ -165,7 +201,10 @@ export function route<C>(handler: (req: Request, ctx: C) => Promise<Response>, o
     } catch (e) {
       if (e instanceof HttpError) return json({ error: e.message, ...e.details }, { status: e.status });
       if (isDatabaseUnavailable(e)) {
-        return json({ error: "The database is unavailable; please retry shortly." }, { status: 503, headers: { "Retry-After": "5" } });
+        return json(
+          { error: "The database is unavailable; please retry shortly." },
+          { status: 503, headers: { "Retry-After": "5" } },
+        );
       }
       console.error(e);
       return json({ error: "Something went wrong on our side." }, { status: 500 });

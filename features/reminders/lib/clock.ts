@@ -19,11 +19,24 @@ const WEEKDAY = { Mon: 1, Tue: 2, Wed: 3, Thu: 4, Fri: 5, Sat: 6, Sun: 7 } as co
 export function localTime(instant: Date, timeZone: string): LocalTime {
   let f = formatters.get(timeZone);
   if (!f) {
-    f = new Intl.DateTimeFormat("en-GB", { timeZone, year: "numeric", month: "2-digit", day: "2-digit", hour: "2-digit", minute: "2-digit", weekday: "short", hourCycle: "h23" });
+    f = new Intl.DateTimeFormat("en-GB", {
+      timeZone,
+      year: "numeric",
+      month: "2-digit",
+      day: "2-digit",
+      hour: "2-digit",
+      minute: "2-digit",
+      weekday: "short",
+      hourCycle: "h23",
+    });
     formatters.set(timeZone, f);
   }
   const p = Object.fromEntries(f.formatToParts(instant).map((x) => [x.type, x.value]));
-  return { date: `${p.year}-${p.month}-${p.day}`, minutes: Number(p.hour) * 60 + Number(p.minute), weekday: WEEKDAY[p.weekday as keyof typeof WEEKDAY] };
+  return {
+    date: `${p.year}-${p.month}-${p.day}`,
+    minutes: Number(p.hour) * 60 + Number(p.minute),
+    weekday: WEEKDAY[p.weekday as keyof typeof WEEKDAY],
+  };
 }
 
 export const minutesOf = (hhmm: string) => Number(hhmm.slice(0, 2)) * 60 + Number(hhmm.slice(3, 5));
@@ -32,7 +45,12 @@ export const minutesOf = (hhmm: string) => Number(hhmm.slice(0, 2)) * 60 + Numbe
  * The day whose sessions a reminder covers, once the person's chosen local time has come: the same day ("morning_of") or
  * the next ("evening_before"); null before that time, or when reminders are off.
  */
-export function sessionReminderDay(now: Date, timeZone: string, timing: "evening_before" | "morning_of" | "off", time: string): string | null {
+export function sessionReminderDay(
+  now: Date,
+  timeZone: string,
+  timing: "evening_before" | "morning_of" | "off",
+  time: string,
+): string | null {
   if (timing === "off") return null;
   const local = localTime(now, timeZone);
   if (local.minutes < minutesOf(time)) return null;
@@ -43,7 +61,13 @@ export function sessionReminderDay(now: Date, timeZone: string, timing: "evening
  * Which retest reminder is due for a retest on `retestDate`: seven days before ("week"), the day before ("day"), or once
  * it is past without a test on or after it ("overdue"); each from the person's reminder time on that local day.
  */
-export function retestStage(now: Date, timeZone: string, time: string, retestDate: string, testedSince: boolean): "week" | "day" | "overdue" | null {
+export function retestStage(
+  now: Date,
+  timeZone: string,
+  time: string,
+  retestDate: string,
+  testedSince: boolean,
+): "week" | "day" | "overdue" | null {
   const local = localTime(now, timeZone);
   if (local.date > retestDate) return testedSince ? null : "overdue";
   if (local.minutes < minutesOf(time)) return null;
@@ -61,7 +85,12 @@ export function digestMonday(now: Date, timeZone: string): string | null {
 
 /** A day written out for people, e.g. "Tuesday 5 January 2027". */
 const weekdayName = new Intl.DateTimeFormat("en-GB", { weekday: "long", timeZone: "UTC" });
-const dayMonthYear = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "long", year: "numeric", timeZone: "UTC" });
+const dayMonthYear = new Intl.DateTimeFormat("en-GB", {
+  day: "numeric",
+  month: "long",
+  year: "numeric",
+  timeZone: "UTC",
+});
 export function dayLabel(date: string): string {
   const noon = new Date(`${date}T12:00:00Z`);
   return `${weekdayName.format(noon)} ${dayMonthYear.format(noon)}`;

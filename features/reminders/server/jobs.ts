@@ -5,7 +5,12 @@ import { getDb, schema } from "@/db/client";
 import { CoachDigestEmail, coachDigestSubject, coachDigestText, type DigestLine } from "@/emails/coach-digest";
 import { renderEmailHtml } from "@/emails/render";
 import { RetestReminderEmail, retestReminderSubject, retestReminderText } from "@/emails/retest-reminder";
-import { SessionReminderEmail, sessionReminderSubject, sessionReminderText, type ReminderSession } from "@/emails/session-reminder";
+import {
+  SessionReminderEmail,
+  sessionReminderSubject,
+  sessionReminderText,
+  type ReminderSession,
+} from "@/emails/session-reminder";
 import { actorForUser } from "@/features/access/server";
 import { SCREENING_QUESTIONS } from "@/features/athlete-tests/schemas";
 import { unsubscribeToken, type UnsubscribableKind } from "@/features/messages/lib/unsubscribe";
@@ -31,33 +36,57 @@ function links(userId: string, kind: UnsubscribableKind) {
     unsubscribeUrl,
     settingsUrl: `${origin}/settings`,
     // RFC 2369 and RFC 8058: mail programs offer the link, and may turn the messages off with one POST.
-    headers: { "List-Unsubscribe": `<${origin}/api/unsubscribe/${token}>`, "List-Unsubscribe-Post": "List-Unsubscribe=One-Click" },
+    headers: {
+      "List-Unsubscribe": `<${origin}/api/unsubscribe/${token}>`,
+      "List-Unsubscribe-Post": "List-Unsubscribe=One-Click",
+    },
   };
 }
 
 async function alreadyQueued(keys: string[]): Promise<Set<string>> {
   if (!keys.length) return new Set();
-  const rows = await getDb().select({ key: schema.outbox.idempotencyKey }).from(schema.outbox).where(inArray(schema.outbox.idempotencyKey, keys));
+  const rows = await getDb()
+    .select({ key: schema.outbox.idempotencyKey })
+    .from(schema.outbox)
+    .where(inArray(schema.outbox.idempotencyKey, keys));
   return new Set(rows.map((r) => r.key!));
 }
 
 /** Steps of a session with each target in the athlete's own numbers on that day (consecutive equal steps merged). */
-async function reminderSessions(athleteId: string, sessions: { title: string; sport: string; totalS: number; notes: string; structure: unknown; date: string }[]): Promise<ReminderSession[]> {
+async function reminderSessions(
+  athleteId: string,
+  sessions: { title: string; sport: string; totalS: number; notes: string; structure: unknown; date: string }[],
+): Promise<ReminderSession[]> {
   const zoneSets = await zoneSetsOf(athleteId);
   return sessions.map((s) => {
-    const set = zoneSetInForce(zoneSets.filter((z) => z.sport === s.sport), s.date);
+    const set = zoneSetInForce(
+      zoneSets.filter((z) => z.sport === s.sport),
+      s.date,
+    );
     const steps = flatten(s.structure as Block[]);
     const lines: { label: string; target: string; count: number }[] = [];
     for (const st of steps) {
-      const amount = st.durationS != null ? `${Math.round(st.durationS / 6) / 10} min` : `${Math.round((st.distanceM ?? 0) / 100) / 10} km`;
+      const amount =
+        st.durationS != null
+          ? `${Math.round(st.durationS / 6) / 10} min`
+          : `${Math.round((st.distanceM ?? 0) / 100) / 10} km`;
       const numbers = set ? targetText(set.zones[st.zone - 1], s.sport) : null;
-      const target = numbers ? `zone ${st.zone}, ${numbers}` : set ? `zone ${st.zone}` : `zone ${st.zone} (no zone set yet)`;
+      const target = numbers
+        ? `zone ${st.zone}, ${numbers}`
+        : set
+          ? `zone ${st.zone}`
+          : `zone ${st.zone} (no zone set yet)`;
       const label = `${STEP_LABELS[st.kind]} ${amount}`;
       const last = lines.at(-1);
       if (last && last.label === label && last.target === target) last.count++;
       else lines.push({ label, target, count: 1 });
     }
-    return { title: s.title, minutes: Math.round(s.totalS / 60), notes: s.notes, steps: lines.map((l) => ({ label: l.count > 1 ? `${l.count} × ${l.label}` : l.label, target: l.target })) };
+    return {
+      title: s.title,
+      minutes: Math.round(s.totalS / 60),
+      notes: s.notes,
+      steps: lines.map((l) => ({ label: l.count > 1 ? `${l.count} × ${l.label}` : l.label, target: l.target })),
+    };
   });
 }
 
@@ -65,7 +94,14 @@ async function reminderSessions(athleteId: string, sessions: { title: string; sp
 export async function queueSessionReminders(now: Date): Promise<number> {
   const db = getDb();
   const athletes = await db
-    .select({ id: schema.user.id, name: schema.user.name, email: schema.user.email, timeZone: schema.athleteProfile.timeZone, timing: schema.athleteProfile.reminderTiming, time: schema.athleteProfile.reminderTime })
+    .select({
+      id: schema.user.id,
+      name: schema.user.name,
+      email: schema.user.email,
+      timeZone: schema.athleteProfile.timeZone,
+      timing: schema.athleteProfile.reminderTiming,
+      time: schema.athleteProfile.reminderTime,
+    })
     .from(schema.athleteProfile)
     .innerJoin(schema.user, eq(schema.user.id, schema.athleteProfile.userId))
     .where(and(eq(schema.athleteProfile.remindSessions, true), ne(schema.athleteProfile.reminderTiming, "off")));
@@ -79,11 +115,25 @@ export async function queueSessionReminders(now: Date): Promise<number> {
     const sessions = await db
       .select()
       .from(schema.plannedSession)
-      .where(and(eq(schema.plannedSession.athleteId, a.id), eq(schema.plannedSession.date, a.day), ne(schema.plannedSession.kind, "retest")));
+      .where(
+        and(
+          eq(schema.plannedSession.athleteId, a.id),
+          eq(schema.plannedSession.date, a.day),
+          ne(schema.plannedSession.kind, "retest"),
+        ),
+      );
     if (!sessions.length) continue;
     const when = a.day === localDate(now, a.timeZone) ? "today" : "tomorrow";
     const l = links(a.id, "session_reminder");
-    const props = { name: a.name, dayLabel: dayLabel(a.day), when, sessions: await reminderSessions(a.id, sessions), todayUrl: `${publicOrigin()}/today`, unsubscribeUrl: l.unsubscribeUrl, settingsUrl: l.settingsUrl } as const;
+    const props = {
+      name: a.name,
+      dayLabel: dayLabel(a.day),
+      when,
+      sessions: await reminderSessions(a.id, sessions),
+      todayUrl: `${publicOrigin()}/today`,
+      unsubscribeUrl: l.unsubscribeUrl,
+      settingsUrl: l.settingsUrl,
+    } as const;
     const id = await queueMessage(db, {
       kind: "session_reminder",
       to: a.email,
@@ -105,18 +155,45 @@ export async function queueRetestReminders(now: Date): Promise<number> {
   const db = getDb();
   const utcToday = localDate(now, "UTC");
   const retests = await db
-    .select({ athleteId: schema.plannedSession.athleteId, date: schema.plannedSession.date, title: schema.plannedSession.title, notes: schema.plannedSession.notes, sport: schema.plannedSession.sport, name: schema.user.name, email: schema.user.email, timeZone: schema.athleteProfile.timeZone, time: schema.athleteProfile.reminderTime })
+    .select({
+      athleteId: schema.plannedSession.athleteId,
+      date: schema.plannedSession.date,
+      title: schema.plannedSession.title,
+      notes: schema.plannedSession.notes,
+      sport: schema.plannedSession.sport,
+      name: schema.user.name,
+      email: schema.user.email,
+      timeZone: schema.athleteProfile.timeZone,
+      time: schema.athleteProfile.reminderTime,
+    })
     .from(schema.plannedSession)
     .innerJoin(schema.athleteProfile, eq(schema.athleteProfile.userId, schema.plannedSession.athleteId))
     .innerJoin(schema.user, eq(schema.user.id, schema.plannedSession.athleteId))
-    .where(and(eq(schema.plannedSession.kind, "retest"), eq(schema.athleteProfile.remindRetests, true), between(schema.plannedSession.date, addDays(utcToday, -28), addDays(utcToday, 8))));
+    .where(
+      and(
+        eq(schema.plannedSession.kind, "retest"),
+        eq(schema.athleteProfile.remindRetests, true),
+        between(schema.plannedSession.date, addDays(utcToday, -28), addDays(utcToday, 8)),
+      ),
+    );
   if (!retests.length) return 0;
   const tests = await db
     .select({ athleteId: schema.athleteTest.athleteId, date: schema.athleteTest.testDate })
     .from(schema.athleteTest)
-    .where(and(inArray(schema.athleteTest.athleteId, [...new Set(retests.map((r) => r.athleteId))]), gte(schema.athleteTest.testDate, addDays(utcToday, -28))));
+    .where(
+      and(
+        inArray(schema.athleteTest.athleteId, [...new Set(retests.map((r) => r.athleteId))]),
+        gte(schema.athleteTest.testDate, addDays(utcToday, -28)),
+      ),
+    );
   const due = retests.flatMap((r) => {
-    const stage = retestStage(now, r.timeZone, r.time, r.date, tests.some((t) => t.athleteId === r.athleteId && t.date >= r.date));
+    const stage = retestStage(
+      now,
+      r.timeZone,
+      r.time,
+      r.date,
+      tests.some((t) => t.athleteId === r.athleteId && t.date >= r.date),
+    );
     return stage ? [{ ...r, stage, key: `retest_reminder:${stage}:${r.athleteId}:${r.date}` }] : [];
   });
   const done = await alreadyQueued(due.map((d) => d.key));
@@ -154,7 +231,15 @@ export async function queueRetestReminders(now: Date): Promise<number> {
 export async function queueCoachDigests(now: Date): Promise<number> {
   const db = getDb();
   const coaches = await db
-    .select({ userId: schema.membership.userId, squadId: schema.membership.squadId, squad: schema.squad.name, name: schema.user.name, email: schema.user.email, timeZone: schema.notificationSetting.timeZone, digest: schema.notificationSetting.coachDigest })
+    .select({
+      userId: schema.membership.userId,
+      squadId: schema.membership.squadId,
+      squad: schema.squad.name,
+      name: schema.user.name,
+      email: schema.user.email,
+      timeZone: schema.notificationSetting.timeZone,
+      digest: schema.notificationSetting.coachDigest,
+    })
     .from(schema.membership)
     .innerJoin(schema.user, eq(schema.user.id, schema.membership.userId))
     .innerJoin(schema.squad, eq(schema.squad.id, schema.membership.squadId))
@@ -173,21 +258,47 @@ export async function queueCoachDigests(now: Date): Promise<number> {
     const lastWeek = [addDays(c.monday, -7), addDays(c.monday, -1)] as const;
     const missedRows = ids.length
       ? await db
-          .select({ athleteId: schema.plannedSession.athleteId, id: schema.plannedSession.id, date: schema.plannedSession.date, title: schema.plannedSession.title, status: schema.sessionLog.status })
+          .select({
+            athleteId: schema.plannedSession.athleteId,
+            id: schema.plannedSession.id,
+            date: schema.plannedSession.date,
+            title: schema.plannedSession.title,
+            status: schema.sessionLog.status,
+          })
           .from(schema.plannedSession)
           .leftJoin(schema.sessionLog, eq(schema.sessionLog.plannedSessionId, schema.plannedSession.id))
-          .where(and(inArray(schema.plannedSession.athleteId, ids), gte(schema.plannedSession.date, lastWeek[0]), lte(schema.plannedSession.date, lastWeek[1])))
+          .where(
+            and(
+              inArray(schema.plannedSession.athleteId, ids),
+              gte(schema.plannedSession.date, lastWeek[0]),
+              lte(schema.plannedSession.date, lastWeek[1]),
+            ),
+          )
       : [];
     const nameOf = new Map(rows.map((r) => [r.id, r.name]));
-    const missed: DigestLine[] = missedRows.filter((m) => !m.status || m.status === "skipped").map((m) => ({ athlete: nameOf.get(m.athleteId) ?? "", detail: `${m.title} on ${m.date} ${m.status === "skipped" ? "was skipped" : "has no log"}` }));
+    const missed: DigestLine[] = missedRows
+      .filter((m) => !m.status || m.status === "skipped")
+      .map((m) => ({
+        athlete: nameOf.get(m.athleteId) ?? "",
+        detail: `${m.title} on ${m.date} ${m.status === "skipped" ? "was skipped" : "has no log"}`,
+      }));
     const l = links(c.userId, "coach_digest");
     const props = {
       name: c.name,
       squad: c.squad,
       weekLabel: dayLabel(c.monday),
-      overBudget: rows.filter((r) => r.week.overBudget).map((r) => ({ athlete: r.name, detail: r.week.flags.join(" ") })),
-      overdueRetests: rows.filter((r) => r.retestOverdue).map((r) => ({ athlete: r.name, detail: r.retestNote ?? "retest overdue" })),
-      loadFlags: rows.filter((r) => r.loadFlag).map((r) => ({ athlete: r.name, detail: `acute:chronic ratio ${r.acwr?.toFixed(2) ?? "–"} (${r.loadFlag === "high" ? "above" : "below"} the usual band)` })),
+      overBudget: rows
+        .filter((r) => r.week.overBudget)
+        .map((r) => ({ athlete: r.name, detail: r.week.flags.join(" ") })),
+      overdueRetests: rows
+        .filter((r) => r.retestOverdue)
+        .map((r) => ({ athlete: r.name, detail: r.retestNote ?? "retest overdue" })),
+      loadFlags: rows
+        .filter((r) => r.loadFlag)
+        .map((r) => ({
+          athlete: r.name,
+          detail: `acute:chronic ratio ${r.acwr?.toFixed(2) ?? "–"} (${r.loadFlag === "high" ? "above" : "below"} the usual band)`,
+        })),
       missed,
       rosterUrl: `${publicOrigin()}/roster?squad=${c.squadId}`,
       unsubscribeUrl: l.unsubscribeUrl,
@@ -208,4 +319,3 @@ export async function queueCoachDigests(now: Date): Promise<number> {
   }
   return queued;
 }
-

@@ -10,10 +10,26 @@ export interface JobDefinition {
 }
 
 export const JOBS = {
-  "session-reminders": { description: "Session reminders at each athlete's chosen local time (evening before or morning of)", cron: "*/5 * * * *", run: queueSessionReminders },
-  "retest-reminders": { description: "Retest reminders 7 days and 1 day before a retest, and once when it is overdue", cron: "*/15 * * * *", run: queueRetestReminders },
-  "coach-digest": { description: "The weekly coach digest, Mondays from 07:00 in the coach's time zone", cron: "*/15 * * * *", run: queueCoachDigests },
-  "deliver-outbox": { description: "Sends queued messages (invitations, password resets, reminders, digests), retrying with backoff", cron: "* * * * *", run: (now: Date) => deliverPending(now) },
+  "session-reminders": {
+    description: "Session reminders at each athlete's chosen local time (evening before or morning of)",
+    cron: "*/5 * * * *",
+    run: queueSessionReminders,
+  },
+  "retest-reminders": {
+    description: "Retest reminders 7 days and 1 day before a retest, and once when it is overdue",
+    cron: "*/15 * * * *",
+    run: queueRetestReminders,
+  },
+  "coach-digest": {
+    description: "The weekly coach digest, Mondays from 07:00 in the coach's time zone",
+    cron: "*/15 * * * *",
+    run: queueCoachDigests,
+  },
+  "deliver-outbox": {
+    description: "Sends queued messages (invitations, password resets, reminders, digests), retrying with backoff",
+    cron: "* * * * *",
+    run: (now: Date) => deliverPending(now),
+  },
 } satisfies Record<string, JobDefinition>;
 
 export type JobName = keyof typeof JOBS;

@@ -18,7 +18,12 @@ export interface RosterInput {
   zoneSets: { sport: string; effectiveFrom: string }[];
   testDates: string[];
   sessions: (ReportPlanned & { title: string; kind: string })[];
-  logs: (ReportLog & { sport: string; hrAvgBpm: number | null; powerAvgW: number | null; speedAvgKmh: number | null })[];
+  logs: (ReportLog & {
+    sport: string;
+    hrAvgBpm: number | null;
+    powerAvgW: number | null;
+    speedAvgKmh: number | null;
+  })[];
   seasonWeeks: SeasonWeekInfo[];
   /** The athlete's first logged day: where the exponentially weighted load ratio starts (load/lib/report.ts). */
   firstLogDate?: string | null;
@@ -44,18 +49,29 @@ export interface RosterRow {
   readiness: { status: ReadinessStatus; holdHardSessions: boolean; label: string; hrMedication: boolean };
 }
 
-const days = (a: string, b: string) => Math.round((Date.parse(`${b}T00:00:00Z`) - Date.parse(`${a}T00:00:00Z`)) / 86_400_000);
+const days = (a: string, b: string) =>
+  Math.round((Date.parse(`${b}T00:00:00Z`) - Date.parse(`${a}T00:00:00Z`)) / 86_400_000);
 
 export function rosterRow(input: RosterInput): RosterRow {
   const { today } = input;
   const monday = mondayOf(today);
-  const latestSet = input.zoneSets.filter((z) => z.effectiveFrom <= today).reduce<string | null>((m, z) => (m === null || z.effectiveFrom > m ? z.effectiveFrom : m), null);
-  const lastTest = input.testDates.filter((d) => d <= today).sort().at(-1) ?? null;
-  const retests = input.sessions.filter((s) => s.kind === "retest").map((s) => s.date).sort();
+  const latestSet = input.zoneSets
+    .filter((z) => z.effectiveFrom <= today)
+    .reduce<string | null>((m, z) => (m === null || z.effectiveFrom > m ? z.effectiveFrom : m), null);
+  const lastTest =
+    input.testDates
+      .filter((d) => d <= today)
+      .sort()
+      .at(-1) ?? null;
+  const retests = input.sessions
+    .filter((s) => s.kind === "retest")
+    .map((s) => s.date)
+    .sort();
   const nextRetest = retests.find((d) => d >= today) ?? null;
   const missed = retests.filter((d) => d < today && !input.testDates.some((t) => t >= d)).at(-1) ?? null;
   const dueBy = latestSet ? addDays(latestSet, RETEST_DUE_WEEKS * 7) : null;
-  let retestOverdue = false, retestNote: string | null = null;
+  let retestOverdue = false,
+    retestNote: string | null = null;
   if (missed) {
     retestOverdue = true;
     retestNote = `The retest planned for ${missed} has no test yet.`;
@@ -64,21 +80,42 @@ export function rosterRow(input: RosterInput): RosterRow {
     retestNote = `The zones are from ${latestSet}, more than ${RETEST_DUE_WEEKS} weeks ago.`;
   } else if (!latestSet) retestNote = "No zones yet: a first test is due.";
 
-  const done = input.logs.map((l) => ({ date: l.date, minutesByZone: l.status === "skipped" ? ([0, 0, 0] as [number, number, number]) : (l.measuredMinByZone ?? [0, 0, 0]) }));
-  const [week] = summariseWeeks({ from: monday, to: monday, sessions: input.sessions, seasonWeeks: input.seasonWeeks, testDates: lastTest ? input.testDates : [], today, done, withFix: false });
+  const done = input.logs.map((l) => ({
+    date: l.date,
+    minutesByZone:
+      l.status === "skipped" ? ([0, 0, 0] as [number, number, number]) : (l.measuredMinByZone ?? [0, 0, 0]),
+  }));
+  const [week] = summariseWeeks({
+    from: monday,
+    to: monday,
+    sessions: input.sessions,
+    seasonWeeks: input.seasonWeeks,
+    testDates: lastTest ? input.testDates : [],
+    today,
+    done,
+    withFix: false,
+  });
   const latest = latestLoad(input.logs, today, input.firstLogDate);
   // Compliance over the sessions planned up to today in the last four weeks.
   const from4 = addDays(monday, -21);
   const past = input.sessions.filter((s) => s.date >= from4 && s.date <= today);
   const pastIds = new Set(past.map((s) => s.id));
   const plannedMin = past.reduce((a, s) => a + s.totalS / 60, 0);
-  const doneMin = input.logs.filter((l) => l.plannedSessionId && pastIds.has(l.plannedSessionId) && l.status !== "skipped").reduce((a, l) => a + (l.durationMin ?? 0), 0);
+  const doneMin = input.logs
+    .filter((l) => l.plannedSessionId && pastIds.has(l.plannedSessionId) && l.status !== "skipped")
+    .reduce((a, l) => a + (l.durationMin ?? 0), 0);
   const weekEnd = addDays(monday, 7);
-  const weekDoneMin = input.logs.filter((l) => l.status !== "skipped" && l.date >= monday && l.date < weekEnd).reduce((a, l) => a + (l.durationMin ?? 0), 0);
+  const weekDoneMin = input.logs
+    .filter((l) => l.status !== "skipped" && l.date >= monday && l.date < weekEnd)
+    .reduce((a, l) => a + (l.durationMin ?? 0), 0);
 
   // Drift reads the last 120 days, as the athlete's page does (the logs given reach further back for the load ratio).
   const driftFrom = addDays(today, -120);
-  const d = driftAcrossSports(input.logs.filter((l) => l.date >= driftFrom), input.zoneSets, today);
+  const d = driftAcrossSports(
+    input.logs.filter((l) => l.date >= driftFrom),
+    input.zoneSets,
+    today,
+  );
   const drift: RosterRow["drift"] = d?.drifted ? { message: d.message, direction: d.direction! } : null;
   return {
     id: input.athlete.id,
@@ -89,11 +126,21 @@ export function rosterRow(input: RosterInput): RosterRow {
     nextRetest,
     retestOverdue,
     retestNote,
-    week: { overBudget: week?.overBudget ?? false, flags: (week?.flags ?? []).map((f) => f.message), plannedMin: Math.round((week?.plannedMinByZone ?? [0, 0, 0]).reduce((a, b) => a + b, 0)), doneMin: Math.round(weekDoneMin) },
+    week: {
+      overBudget: week?.overBudget ?? false,
+      flags: (week?.flags ?? []).map((f) => f.message),
+      plannedMin: Math.round((week?.plannedMinByZone ?? [0, 0, 0]).reduce((a, b) => a + b, 0)),
+      doneMin: Math.round(weekDoneMin),
+    },
     compliance4w: plannedMin > 0 ? doneMin / plannedMin : null,
     acwr: latest.acwrEwma ?? latest.acwrRolling,
     loadFlag: latest.flag,
     drift,
-    readiness: (({ status, holdHardSessions, label, hrMedication }) => ({ status, holdHardSessions, label, hrMedication }))(readiness({ ...(input.readiness ?? { latest: null, clearances: [] }), today })),
+    readiness: (({ status, holdHardSessions, label, hrMedication }) => ({
+      status,
+      holdHardSessions,
+      label,
+      hrMedication,
+    }))(readiness({ ...(input.readiness ?? { latest: null, clearances: [] }), today })),
   };
 }

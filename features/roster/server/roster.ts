@@ -12,8 +12,23 @@ import { rosterRow, type RosterRow } from "../lib/roster";
 import { readinessInputs } from "@/features/athlete-tests/server";
 import { EWMA_HISTORY_DAYS } from "@/features/load/lib/report";
 
-type PlannedRow = Record<string, unknown> & { id: string; athleteId: string; date: string; title: string; kind: string; totalS: number; minutesByZone: [number, number, number] };
-type LogRow = ReportLog & Record<string, unknown> & { athleteId: string; sport: string; hrAvgBpm: number | null; powerAvgW: number | null; speedAvgKmh: number | null };
+type PlannedRow = Record<string, unknown> & {
+  id: string;
+  athleteId: string;
+  date: string;
+  title: string;
+  kind: string;
+  totalS: number;
+  minutesByZone: [number, number, number];
+};
+type LogRow = ReportLog &
+  Record<string, unknown> & {
+    athleteId: string;
+    sport: string;
+    hrAvgBpm: number | null;
+    powerAvgW: number | null;
+    speedAvgKmh: number | null;
+  };
 
 interface Athlete {
   id: string;
@@ -28,7 +43,11 @@ interface Athlete {
  * generation, computed for the athlete's current local day); the others are computed together and stored, guarded by
  * their generation so that a change during the computation is never stored as current.
  */
-export async function squadRoster(actor: Actor, squadId?: string, now = new Date()): Promise<{ squadId: string | null; rows: RosterRow[] }> {
+export async function squadRoster(
+  actor: Actor,
+  squadId?: string,
+  now = new Date(),
+): Promise<{ squadId: string | null; rows: RosterRow[] }> {
   const id = squadId ?? coachedSquadIds(actor)[0];
   if (!id) return { squadId: null, rows: [] };
   if (!canViewRoster(actor, id)) {
@@ -68,11 +87,18 @@ export async function squadRoster(actor: Actor, squadId?: string, now = new Date
     if (!d) todayIn.set(zone, (d = localDate(now, zone)));
     return d;
   };
-  const stale = athletes.filter((a) => !(a.row && a.computedGeneration === a.generation && a.computedFor === localToday(a.timeZone)));
+  const stale = athletes.filter(
+    (a) => !(a.row && a.computedGeneration === a.generation && a.computedFor === localToday(a.timeZone)),
+  );
   const fresh = new Map<string, RosterRow>();
   if (stale.length) {
     const computed = await computeRows(stale, localToday, now);
-    const updates = stale.map((a, i) => ({ id: a.id, g: a.generation ?? 0, day: localToday(a.timeZone), row: computed[i]! }));
+    const updates = stale.map((a, i) => ({
+      id: a.id,
+      g: a.generation ?? 0,
+      day: localToday(a.timeZone),
+      row: computed[i]!,
+    }));
     for (const u of updates) fresh.set(u.id, u.row);
     await db.execute(sql`
       update roster_cache c set row = v.row, computed_generation = v.g, computed_for = v.day, computed_at = now()
@@ -86,16 +112,32 @@ export async function squadRoster(actor: Actor, squadId?: string, now = new Date
  * Computes roster rows: five queries for the given athletes, run together, then the pure `rosterRow` per athlete. The
  * windows: five weeks of plan and retests back to 180 days; 181 days of logs (the load ratio; drift reads 120 of them).
  */
-async function computeRows(athletes: Athlete[], localToday: (tz: string | null) => string, now: Date): Promise<RosterRow[]> {
+async function computeRows(
+  athletes: Athlete[],
+  localToday: (tz: string | null) => string,
+  now: Date,
+): Promise<RosterRow[]> {
   const db = getDb();
   const ids = athletes.map((a) => a.id);
   const today = localDate(now, "UTC");
   const monday = mondayOf(today);
   const readinessPending = readinessInputs(ids);
-  const firstLogsPending = db.execute<{ athleteId: string; first: string }>(sql`select athlete_id as "athleteId", min(date) as first from session_log where athlete_id in ${ids} group by athlete_id`);
+  const firstLogsPending = db.execute<{ athleteId: string; first: string }>(
+    sql`select athlete_id as "athleteId", min(date) as first from session_log where athlete_id in ${ids} group by athlete_id`,
+  );
   const [zoneSets, tests, sessions, logs, seasons] = await Promise.all([
-    db.select({ athleteId: schema.zoneSet.athleteId, sport: schema.zoneSet.sport, effectiveFrom: schema.zoneSet.effectiveFrom }).from(schema.zoneSet).where(inArray(schema.zoneSet.athleteId, ids)),
-    db.select({ athleteId: schema.athleteTest.athleteId, date: schema.athleteTest.testDate }).from(schema.athleteTest).where(inArray(schema.athleteTest.athleteId, ids)),
+    db
+      .select({
+        athleteId: schema.zoneSet.athleteId,
+        sport: schema.zoneSet.sport,
+        effectiveFrom: schema.zoneSet.effectiveFrom,
+      })
+      .from(schema.zoneSet)
+      .where(inArray(schema.zoneSet.athleteId, ids)),
+    db
+      .select({ athleteId: schema.athleteTest.athleteId, date: schema.athleteTest.testDate })
+      .from(schema.athleteTest)
+      .where(inArray(schema.athleteTest.athleteId, ids)),
     // The two big reads skip the ORM's row mapping: plain rows, named as the pure code wants them.
     db.execute<PlannedRow>(sql`
       select p.id, p.athlete_id as "athleteId", p.date, p.title, p.kind, p.total_s as "totalS", p.minutes_by_zone as "minutesByZone"
@@ -107,7 +149,10 @@ async function computeRows(athletes: Athlete[], localToday: (tz: string | null) 
         l.planned_session_id as "plannedSessionId", l.sport, l.hr_avg_bpm as "hrAvgBpm", l.power_avg_w as "powerAvgW", l.speed_avg_kmh as "speedAvgKmh"
       from session_log l
       where l.athlete_id in ${ids} and l.date between ${addDays(today, -(EWMA_HISTORY_DAYS + 1))} and ${addDays(monday, 13)}`),
-    db.select({ athleteId: schema.season.athleteId, weeks: schema.season.weeks }).from(schema.season).where(inArray(schema.season.athleteId, ids)),
+    db
+      .select({ athleteId: schema.season.athleteId, weeks: schema.season.weeks })
+      .from(schema.season)
+      .where(inArray(schema.season.athleteId, ids)),
   ]);
   const group = <T extends { athleteId: string }>(rows: T[]) => {
     const m = new Map<string, T[]>();
@@ -118,7 +163,11 @@ async function computeRows(athletes: Athlete[], localToday: (tz: string | null) 
     }
     return m;
   };
-  const bySets = group(zoneSets), byTests = group(tests), bySessions = group([...sessions]), byLogs = group([...logs]), bySeasons = group(seasons);
+  const bySets = group(zoneSets),
+    byTests = group(tests),
+    bySessions = group([...sessions]),
+    byLogs = group([...logs]),
+    bySeasons = group(seasons);
   const readinessBy = await readinessPending;
   const firstLogBy = new Map([...(await firstLogsPending)].map((r) => [r.athleteId, r.first]));
   const rows = athletes.map((a) => {

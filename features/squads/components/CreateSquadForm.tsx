@@ -27,7 +27,9 @@ export function CreateSquadForm() {
     <form onSubmit={onSubmit} noValidate className="space-y-4">
       <FormAlert>{formState.errors.root?.message}</FormAlert>
       <div>
-        <label htmlFor="squad-name" className="field-label">Squad name</label>
+        <label htmlFor="squad-name" className="field-label">
+          Squad name
+        </label>
         <input id="squad-name" className="field-input" aria-describedby="squad-name-error" {...register("name")} />
         <FieldError id="squad-name-error" message={formState.errors.name?.message} />
       </div>

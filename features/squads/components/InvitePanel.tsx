@@ -31,21 +31,43 @@ export function InvitePanel({ squadId, fakeInbox }: { squadId: string; fakeInbox
   });
   return (
     <section aria-labelledby="invite-heading" className="card space-y-4">
-      <h2 id="invite-heading" className="text-lg font-bold">Invite to the squad</h2>
+      <h2 id="invite-heading" className="text-lg font-bold">
+        Invite to the squad
+      </h2>
       <form onSubmit={onSubmit} noValidate className="space-y-3">
         <FormAlert>{formState.errors.root?.message}</FormAlert>
         {sentTo ? (
           <FormNotice>
-            Invitation sent to {sentTo}.{fakeInbox ? <> On this local installation it arrives in the <a className="underline" href={fakeInbox}>e-mail fake&apos;s inbox</a>.</> : null}
+            Invitation sent to {sentTo}.
+            {fakeInbox ? (
+              <>
+                {" "}
+                On this local installation it arrives in the{" "}
+                <a className="underline" href={fakeInbox}>
+                  e-mail fake&apos;s inbox
+                </a>
+                .
+              </>
+            ) : null}
           </FormNotice>
         ) : null}
         <div>
-          <label htmlFor="invite-email" className="field-label">E-mail</label>
-          <input id="invite-email" type="email" className="field-input" aria-describedby="invite-email-error" {...register("email")} />
+          <label htmlFor="invite-email" className="field-label">
+            E-mail
+          </label>
+          <input
+            id="invite-email"
+            type="email"
+            className="field-input"
+            aria-describedby="invite-email-error"
+            {...register("email")}
+          />
           <FieldError id="invite-email-error" message={formState.errors.email?.message} />
         </div>
         <div>
-          <label htmlFor="invite-role" className="field-label">Role</label>
+          <label htmlFor="invite-role" className="field-label">
+            Role
+          </label>
           <select id="invite-role" className="field-input" {...register("role")}>
             <option value="athlete">Athlete</option>
             <option value="coach">Coach</option>
@@ -57,11 +79,19 @@ export function InvitePanel({ squadId, fakeInbox }: { squadId: string; fakeInbox
       </form>
       <div>
         <h3 className="text-sm font-semibold">Open invitations</h3>
-        {withdraw.isError ? <p role="alert" className="text-sm text-alert">The invitation could not be withdrawn: {withdraw.error.message}</p> : null}
+        {withdraw.isError ? (
+          <p role="alert" className="text-sm text-alert">
+            The invitation could not be withdrawn: {withdraw.error.message}
+          </p>
+        ) : null}
         {invitations.isPending ? (
-          <p role="status" className="text-sm text-ink-soft">Loading…</p>
+          <p role="status" className="text-sm text-ink-soft">
+            Loading…
+          </p>
         ) : invitations.isError ? (
-          <p role="alert" className="text-sm text-alert">Could not load the invitations: {invitations.error.message}</p>
+          <p role="alert" className="text-sm text-alert">
+            Could not load the invitations: {invitations.error.message}
+          </p>
         ) : invitations.data.length === 0 ? (
           <p className="text-sm text-ink-soft">None waiting.</p>
         ) : (
@@ -69,7 +99,8 @@ export function InvitePanel({ squadId, fakeInbox }: { squadId: string; fakeInbox
             {invitations.data.map((i) => (
               <li key={i.id} className="flex flex-wrap items-center gap-x-2">
                 <span>
-                  {i.email} · {ROLE_LABELS[i.role]} · expires <time dateTime={i.expiresAt}>{i.expiresAt.slice(0, 10)}</time>
+                  {i.email} · {ROLE_LABELS[i.role]} · expires{" "}
+                  <time dateTime={i.expiresAt}>{i.expiresAt.slice(0, 10)}</time>
                 </span>
                 <button
                   type="button"

@@ -17,7 +17,11 @@ export function hashToken(token: string): string {
 export async function describeMe(actor: SignedInActor) {
   const squadIds = actor.memberships.map((m) => m.squadId);
   const squads = squadIds.length
-    ? await getDb().select().from(schema.squad).where(inArray(schema.squad.id, squadIds)).orderBy(asc(schema.squad.name))
+    ? await getDb()
+        .select()
+        .from(schema.squad)
+        .where(inArray(schema.squad.id, squadIds))
+        .orderBy(asc(schema.squad.name))
     : [];
   const roleOf = new Map(actor.memberships.map((m) => [m.squadId, m.role]));
   return {

@@ -14,8 +14,13 @@ export function ZonesInForce({ inForce, emptyText }: { inForce: Record<string, Z
     <div className="space-y-6">
       {sets.map((z) => (
         <div key={z.id} className="space-y-3">
-          <ZoneTable zones={z.zones} caption={`${sportName(z.sport)} · effective from ${z.effectiveFrom} · from a ${z.source}`} />
-          {z.fiveZones ? <ZoneTable zones={z.fiveZones} caption={`${sportName(z.sport)} · five-zone subdivision`} /> : null}
+          <ZoneTable
+            zones={z.zones}
+            caption={`${sportName(z.sport)} · effective from ${z.effectiveFrom} · from a ${z.source}`}
+          />
+          {z.fiveZones ? (
+            <ZoneTable zones={z.fiveZones} caption={`${sportName(z.sport)} · five-zone subdivision`} />
+          ) : null}
         </div>
       ))}
     </div>
@@ -29,11 +34,21 @@ export function ZoneSetList({ history }: { history: ZoneSetView[] }) {
       <caption className="mb-2 text-left font-semibold">Zone history</caption>
       <thead>
         <tr className="border-b border-rule text-ink-soft">
-          <th scope="col" className="py-1 pr-3">Effective from</th>
-          <th scope="col" className="py-1 pr-3">Sport</th>
-          <th scope="col" className="py-1 pr-3">VT1</th>
-          <th scope="col" className="py-1 pr-3">VT2</th>
-          <th scope="col" className="py-1 pr-3">Source</th>
+          <th scope="col" className="py-1 pr-3">
+            Effective from
+          </th>
+          <th scope="col" className="py-1 pr-3">
+            Sport
+          </th>
+          <th scope="col" className="py-1 pr-3">
+            VT1
+          </th>
+          <th scope="col" className="py-1 pr-3">
+            VT2
+          </th>
+          <th scope="col" className="py-1 pr-3">
+            Source
+          </th>
         </tr>
       </thead>
       <tbody>
@@ -43,7 +58,15 @@ export function ZoneSetList({ history }: { history: ZoneSetView[] }) {
             <td className="py-1 pr-3">{sportName(z.sport)}</td>
             <td className="num py-1 pr-3">{describe(z.vt1)}</td>
             <td className="num py-1 pr-3">{describe(z.vt2)}</td>
-            <td className="py-1 pr-3">{z.testId ? <Link href={`/tests/${z.testId}`} className="text-tide underline">{z.source}</Link> : z.source}</td>
+            <td className="py-1 pr-3">
+              {z.testId ? (
+                <Link href={`/tests/${z.testId}`} className="text-tide underline">
+                  {z.source}
+                </Link>
+              ) : (
+                z.source
+              )}
+            </td>
           </tr>
         ))}
       </tbody>

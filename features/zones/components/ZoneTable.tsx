@@ -11,12 +11,32 @@ export function ZoneTable({ zones, caption }: { zones: Zone[]; caption: string }
       <caption className="mb-2 text-left text-sm font-semibold">{caption}</caption>
       <thead>
         <tr className="border-b border-rule text-ink-soft">
-          <th scope="col" className="py-2 pr-3 font-semibold">Zone</th>
-          {measures.includes("hrBpm") ? <th scope="col" className="py-2 pr-3 font-semibold">Heart rate</th> : null}
-          {measures.includes("powerW") ? <th scope="col" className="py-2 pr-3 font-semibold">Power</th> : null}
-          {measures.includes("speedKmh") ? <th scope="col" className="py-2 pr-3 font-semibold">Speed</th> : null}
-          {measures.includes("speedKmh") ? <th scope="col" className="py-2 pr-3 font-semibold">Pace</th> : null}
-          <th scope="col" className="py-2 pr-3 font-semibold">RPE (CR-10)</th>
+          <th scope="col" className="py-2 pr-3 font-semibold">
+            Zone
+          </th>
+          {measures.includes("hrBpm") ? (
+            <th scope="col" className="py-2 pr-3 font-semibold">
+              Heart rate
+            </th>
+          ) : null}
+          {measures.includes("powerW") ? (
+            <th scope="col" className="py-2 pr-3 font-semibold">
+              Power
+            </th>
+          ) : null}
+          {measures.includes("speedKmh") ? (
+            <th scope="col" className="py-2 pr-3 font-semibold">
+              Speed
+            </th>
+          ) : null}
+          {measures.includes("speedKmh") ? (
+            <th scope="col" className="py-2 pr-3 font-semibold">
+              Pace
+            </th>
+          ) : null}
+          <th scope="col" className="py-2 pr-3 font-semibold">
+            RPE (CR-10)
+          </th>
         </tr>
       </thead>
       <tbody>
@@ -24,15 +44,26 @@ export function ZoneTable({ zones, caption }: { zones: Zone[]; caption: string }
           <tr key={z.zone} className="border-b border-rule/70">
             <th scope="row" className="py-2 pr-3 font-semibold">
               <span className="flex items-center gap-2">
-                <span aria-hidden className={`inline-block h-4 w-4 rounded-sm border border-ink/20 ${SWATCH[z.parent]}`} />
+                <span
+                  aria-hidden
+                  className={`inline-block h-4 w-4 rounded-sm border border-ink/20 ${SWATCH[z.parent]}`}
+                />
                 {z.name}
               </span>
             </th>
-            {measures.includes("hrBpm") ? <td className="num py-2 pr-3">{rangeText("hrBpm", z.ranges.hrBpm)}</td> : null}
-            {measures.includes("powerW") ? <td className="num py-2 pr-3">{rangeText("powerW", z.ranges.powerW)}</td> : null}
-            {measures.includes("speedKmh") ? <td className="num py-2 pr-3">{rangeText("speedKmh", z.ranges.speedKmh)}</td> : null}
+            {measures.includes("hrBpm") ? (
+              <td className="num py-2 pr-3">{rangeText("hrBpm", z.ranges.hrBpm)}</td>
+            ) : null}
+            {measures.includes("powerW") ? (
+              <td className="num py-2 pr-3">{rangeText("powerW", z.ranges.powerW)}</td>
+            ) : null}
+            {measures.includes("speedKmh") ? (
+              <td className="num py-2 pr-3">{rangeText("speedKmh", z.ranges.speedKmh)}</td>
+            ) : null}
             {measures.includes("speedKmh") ? <td className="num py-2 pr-3">{paceText(z.ranges.speedKmh)}</td> : null}
-            <td className="num py-2 pr-3">{z.rpe[0]}–{z.rpe[1]}</td>
+            <td className="num py-2 pr-3">
+              {z.rpe[0]}–{z.rpe[1]}
+            </td>
           </tr>
         ))}
       </tbody>

@@ -28,6 +28,7 @@ export function targetText(zone: Zone | undefined, sport: string): string | null
   const parts: string[] = [];
   if (zone.ranges.hrBpm) parts.push(rangeText("hrBpm", zone.ranges.hrBpm));
   if (zone.ranges.powerW) parts.push(rangeText("powerW", zone.ranges.powerW));
-  if (zone.ranges.speedKmh) parts.push(sport === "cycling" ? rangeText("speedKmh", zone.ranges.speedKmh) : paceText(zone.ranges.speedKmh));
+  if (zone.ranges.speedKmh)
+    parts.push(sport === "cycling" ? rangeText("speedKmh", zone.ranges.speedKmh) : paceText(zone.ranges.speedKmh));
   return parts.length ? parts.join(" · ") : null;
 }

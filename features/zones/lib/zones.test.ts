@@ -7,7 +7,11 @@ const vt2 = { hrBpm: 172, powerW: 300, speedKmh: 15 };
 describe("zones from VT1 and VT2 (three-zone model, Seiler & Kjerland 2006)", () => {
   it("bounds zone 1 by VT1, zone 2 by VT1–VT2, zone 3 above VT2, in every measure", () => {
     const z = threeZones(vt1, vt2);
-    expect(z.map((x) => x.ranges.hrBpm)).toEqual([{ min: null, max: 150 }, { min: 150, max: 172 }, { min: 172, max: null }]);
+    expect(z.map((x) => x.ranges.hrBpm)).toEqual([
+      { min: null, max: 150 },
+      { min: 150, max: 172 },
+      { min: 172, max: null },
+    ]);
     expect(z[1]!.ranges.powerW).toEqual({ min: 220, max: 300 });
     expect(zoneOf(149, z, "hrBpm")).toBe(1);
     expect(zoneOf(150, z, "hrBpm")).toBe(2);
@@ -47,7 +51,10 @@ describe("zones from VT1 and VT2 (three-zone model, Seiler & Kjerland 2006)", ()
   });
 
   it("the zone set in force on a date is the latest effective on or before it", () => {
-    const sets = [{ id: "a", effectiveFrom: "2026-01-10" }, { id: "b", effectiveFrom: "2026-04-02" }];
+    const sets = [
+      { id: "a", effectiveFrom: "2026-01-10" },
+      { id: "b", effectiveFrom: "2026-04-02" },
+    ];
     expect(zoneSetInForce(sets, "2026-01-09")).toBeNull();
     expect(zoneSetInForce(sets, "2026-04-01")!.id).toBe("a");
     expect(zoneSetInForce(sets, "2026-04-02")!.id).toBe("b");

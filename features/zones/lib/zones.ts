@@ -44,7 +44,8 @@ export class ZoneError extends Error {}
 
 export function threeZones(vt1: ThresholdPoint, vt2: ThresholdPoint): Zone[] {
   const measures = presentMeasures(vt1, vt2);
-  if (!measures.length) throw new ZoneError("Both thresholds need at least one shared measure (heart rate, power or speed).");
+  if (!measures.length)
+    throw new ZoneError("Both thresholds need at least one shared measure (heart rate, power or speed).");
   for (const m of measures) {
     if (!(vt1[m]! < vt2[m]!)) throw new ZoneError(`VT1 must lie below VT2 (${m}: ${vt1[m]} vs ${vt2[m]}).`);
   }
@@ -54,7 +55,10 @@ export function threeZones(vt1: ThresholdPoint, vt2: ThresholdPoint): Zone[] {
     name: z.name,
     rpe: z.rpe,
     ranges: Object.fromEntries(
-      measures.map((m) => [m, i === 0 ? { min: null, max: vt1[m]! } : i === 1 ? { min: vt1[m]!, max: vt2[m]! } : { min: vt2[m]!, max: null }]),
+      measures.map((m) => [
+        m,
+        i === 0 ? { min: null, max: vt1[m]! } : i === 1 ? { min: vt1[m]!, max: vt2[m]! } : { min: vt2[m]!, max: null },
+      ]),
     ),
   }));
 }
@@ -70,7 +74,8 @@ export function threeZones(vt1: ThresholdPoint, vt2: ThresholdPoint): Zone[] {
 export function fiveZones(vt1: ThresholdPoint, vt2: ThresholdPoint): Zone[] {
   const three = threeZones(vt1, vt2);
   const measures = Object.keys(three[0]!.ranges) as Measure[];
-  const cut = (f: (m: Measure) => [number | null, number | null]) => Object.fromEntries(measures.map((m) => [m, { min: f(m)[0], max: f(m)[1] }]));
+  const cut = (f: (m: Measure) => [number | null, number | null]) =>
+    Object.fromEntries(measures.map((m) => [m, { min: f(m)[0], max: f(m)[1] }]));
   const mid = (m: Measure) => (vt1[m]! + vt2[m]!) / 2;
   const ref: Measure = measures.includes("powerW") ? "powerW" : measures.includes("speedKmh") ? "speedKmh" : "hrBpm";
   const easyEdgeRef = 0.85 * vt1[ref]!;

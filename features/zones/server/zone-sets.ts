@@ -46,7 +46,17 @@ function view(row: typeof schema.zoneSet.$inferSelect): ZoneSetView {
 /** Creates or replaces the zone set that a test produced (one per test), inside the caller's transaction. */
 export async function saveZoneSetForTest(
   tx: Tx,
-  p: { athleteId: string; sport: string; testId: string; effectiveFrom: string; vt1: ThresholdValues; vt2: ThresholdValues; five: boolean; source: string; createdBy: string },
+  p: {
+    athleteId: string;
+    sport: string;
+    testId: string;
+    effectiveFrom: string;
+    vt1: ThresholdValues;
+    vt2: ThresholdValues;
+    five: boolean;
+    source: string;
+    createdBy: string;
+  },
 ): Promise<void> {
   zonesFor(p.vt1, p.vt2); // validates the pair
   const values = {
@@ -78,7 +88,9 @@ export async function getZones(actor: Actor, athleteId: string, date?: string) {
   const day = date ?? new Date().toISOString().slice(0, 10);
   const inForce: Record<string, ZoneSetView> = {};
   // Oldest first, so that the latest effective date wins, and among sets of the same day the newest.
-  const chronological = [...history].sort((a, b) => a.effectiveFrom.localeCompare(b.effectiveFrom) || a.createdAt.getTime() - b.createdAt.getTime());
+  const chronological = [...history].sort(
+    (a, b) => a.effectiveFrom.localeCompare(b.effectiveFrom) || a.createdAt.getTime() - b.createdAt.getTime(),
+  );
   for (const row of chronological) {
     if (row.effectiveFrom <= day) inForce[row.sport] = view(row);
   }

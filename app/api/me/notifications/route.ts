@@ -9,6 +9,15 @@ export const GET = route(async (req) => json(await getNotificationSettings(await
 /** PATCH {timeZone?, coachDigest?}: the coach digest on or off and the time zone it follows. */
 export const PATCH = route(async (req) => {
   const actor = await requireActor(req.headers);
-  const body = await readJson(req, z.object({ timeZone: timeZoneSchema.optional(), coachDigest: z.boolean({ error: "coachDigest is true or false." }).optional() }).strict().refine((b) => Object.keys(b).length > 0, { message: "Nothing to change." }));
+  const body = await readJson(
+    req,
+    z
+      .object({
+        timeZone: timeZoneSchema.optional(),
+        coachDigest: z.boolean({ error: "coachDigest is true or false." }).optional(),
+      })
+      .strict()
+      .refine((b) => Object.keys(b).length > 0, { message: "Nothing to change." }),
+  );
   return json(await updateNotificationSettings(actor, body));
 });

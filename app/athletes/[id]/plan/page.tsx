@@ -19,7 +19,13 @@ import { ReadinessBanner } from "@/features/athlete-tests/components/ReadinessBa
 
 export const metadata = { title: "Plan" };
 
-export default async function PlanPage({ params, searchParams }: { params: Promise<{ id: string }>; searchParams: Promise<{ week?: string }> }) {
+export default async function PlanPage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ id: string }>;
+  searchParams: Promise<{ week?: string }>;
+}) {
   const { id } = await params;
   const { week } = await searchParams;
   const actor = await requirePageActor(`/athletes/${id}/plan`);
@@ -30,16 +36,26 @@ export default async function PlanPage({ params, searchParams }: { params: Promi
   const memberships = await membershipsOfAthlete(id);
   const canEdit = canCoachAthlete(actor, { userId: id, memberships });
   const athleteSquads = new Set(memberships.filter((m) => m.role === "athlete").map((m) => m.squadId));
-  const [seasons, templates, ready] = await Promise.all([listSeasons(actor, id), canEdit ? listTemplates(actor) : Promise.resolve([]), readinessOf(id)]);
+  const [seasons, templates, ready] = await Promise.all([
+    listSeasons(actor, id),
+    canEdit ? listTemplates(actor) : Promise.resolve([]),
+    readinessOf(id),
+  ]);
   const today = new Date().toISOString().slice(0, 10);
-  const current = seasons.find((s) => {
-    const w = s.weeks as unknown as SeasonWeek[];
-    return w.length && w[0]!.weekStart <= today && w[w.length - 1]!.weekStart >= mondayOf(today);
-  }) ?? seasons.at(-1);
+  const current =
+    seasons.find((s) => {
+      const w = s.weeks as unknown as SeasonWeek[];
+      return w.length && w[0]!.weekStart <= today && w[w.length - 1]!.weekStart >= mondayOf(today);
+    }) ?? seasons.at(-1);
   const seasonWeeks = (current?.weeks ?? []) as unknown as SeasonWeek[];
   const overBudget: Record<string, string[]> = {};
   if (seasonWeeks.length) {
-    const summaries = await weekSummaries(actor, id, seasonWeeks[0]!.weekStart, seasonWeeks[seasonWeeks.length - 1]!.weekStart);
+    const summaries = await weekSummaries(
+      actor,
+      id,
+      seasonWeeks[0]!.weekStart,
+      seasonWeeks[seasonWeeks.length - 1]!.weekStart,
+    );
     for (const s of summaries) if (s.flags.length) overBudget[s.weekStart] = s.flags.map((f) => f.message);
   }
   const initialDate = week && isoDate.safeParse(week).success ? week : today;
@@ -48,27 +64,59 @@ export default async function PlanPage({ params, searchParams }: { params: Promi
     <div className="space-y-6">
       <div className="flex flex-wrap items-end justify-between gap-3">
         <div>
-          <p className="text-sm font-semibold uppercase tracking-widest text-tide"><Link href={`/athletes/${id}`} className="hover:underline">{data.athlete.name}</Link></p>
+          <p className="text-sm font-semibold uppercase tracking-widest text-tide">
+            <Link href={`/athletes/${id}`} className="hover:underline">
+              {data.athlete.name}
+            </Link>
+          </p>
           <h1 className="text-2xl font-bold">Plan</h1>
         </div>
-        {canEdit ? <Link href="/templates" className="btn-quiet">Session templates</Link> : null}
+        {canEdit ? (
+          <Link href="/templates" className="btn-quiet">
+            Session templates
+          </Link>
+        ) : null}
       </div>
       <ReadinessBanner readiness={ready} athleteId={id} context="plan" />
       {current ? (
         <>
-          <div className="card"><SeasonRibbon athleteId={id} name={current.name} weeks={seasonWeeks} overBudget={overBudget} /></div>
-          {canEdit && openWeek ? <div className="card"><SeasonWeekEditor key={`${openWeek.weekStart}-${current.version}`} athleteId={id} seasonId={current.id} seasonVersion={current.version} week={openWeek} /></div> : null}
+          <div className="card">
+            <SeasonRibbon athleteId={id} name={current.name} weeks={seasonWeeks} overBudget={overBudget} />
+          </div>
+          {canEdit && openWeek ? (
+            <div className="card">
+              <SeasonWeekEditor
+                key={`${openWeek.weekStart}-${current.version}`}
+                athleteId={id}
+                seasonId={current.id}
+                seasonVersion={current.version}
+                week={openWeek}
+              />
+            </div>
+          ) : null}
         </>
       ) : canEdit ? (
         <section className="card space-y-3" aria-labelledby="season-h">
-          <h2 id="season-h" className="font-bold">No season yet</h2>
-          <p className="text-sm text-ink-soft">Generate a season toward the athlete&apos;s event: blocks, loading and unloading weeks, volume targets, intensity budgets and retests. Everything can be edited afterwards.</p>
+          <h2 id="season-h" className="font-bold">
+            No season yet
+          </h2>
+          <p className="text-sm text-ink-soft">
+            Generate a season toward the athlete&apos;s event: blocks, loading and unloading weeks, volume targets,
+            intensity budgets and retests. Everything can be edited afterwards.
+          </p>
           <SeasonFormLoader athleteId={id} today={today} sport={data.profile.sports[0] ?? "running"} />
         </section>
       ) : (
         <p className="text-ink-soft">No season planned yet.</p>
       )}
-      <PlanCalendar athleteId={id} templates={templates.filter((t) => athleteSquads.has(t.squadId)).map((t) => ({ id: t.id, name: t.name, sport: t.sport, totalS: t.totalS, minutesByZone: t.minutesByZone }))} initialDate={initialDate} canEdit={canEdit} />
+      <PlanCalendar
+        athleteId={id}
+        templates={templates
+          .filter((t) => athleteSquads.has(t.squadId))
+          .map((t) => ({ id: t.id, name: t.name, sport: t.sport, totalS: t.totalS, minutesByZone: t.minutesByZone }))}
+        initialDate={initialDate}
+        canEdit={canEdit}
+      />
     </div>
   );
 }

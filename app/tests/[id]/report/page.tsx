@@ -23,7 +23,10 @@ export default async function TestReportPage({ params }: { params: Promise<{ id:
       </div>
       <TestBody test={test} canEdit={false} interactive={false} />
       <TestCautions />
-      <p className="text-xs text-ink-soft">Report printed from Tidemark. Thresholds: V-slope (Beaver, Wasserman &amp; Whipp 1986) and ventilatory equivalents; talk test after Persinger, Foster et al. 2004; zones bounded by VT1 and VT2.</p>
+      <p className="text-xs text-ink-soft">
+        Report printed from Tidemark. Thresholds: V-slope (Beaver, Wasserman &amp; Whipp 1986) and ventilatory
+        equivalents; talk test after Persinger, Foster et al. 2004; zones bounded by VT1 and VT2.
+      </p>
     </article>
   );
 }

@@ -13,9 +13,20 @@ import { testAllowed } from "@/features/athlete-tests/lib/readiness";
 
 export const metadata = { title: "Record a test" };
 
-const TITLES = { gas: "Upload a gas-exchange test", talk: "Record a talk test", submax: "Submaximal VO2max estimate", manual: "Enter thresholds by hand" } as const;
+const TITLES = {
+  gas: "Upload a gas-exchange test",
+  talk: "Record a talk test",
+  submax: "Submaximal VO2max estimate",
+  manual: "Enter thresholds by hand",
+} as const;
 
-export default async function NewTestPage({ params, searchParams }: { params: Promise<{ id: string }>; searchParams: Promise<{ kind?: string }> }) {
+export default async function NewTestPage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ id: string }>;
+  searchParams: Promise<{ kind?: string }>;
+}) {
   const { id } = await params;
   const { kind: rawKind } = await searchParams;
   const kind = (rawKind && rawKind in TITLES ? rawKind : "gas") as keyof typeof TITLES;
@@ -37,12 +48,23 @@ export default async function NewTestPage({ params, searchParams }: { params: Pr
   return (
     <div className="space-y-6">
       <div>
-        <p className="text-sm font-semibold uppercase tracking-widest text-tide"><Link href={`/athletes/${id}`} className="hover:underline">{athlete.name}</Link></p>
+        <p className="text-sm font-semibold uppercase tracking-widest text-tide">
+          <Link href={`/athletes/${id}`} className="hover:underline">
+            {athlete.name}
+          </Link>
+        </p>
         <h1 className="text-2xl font-bold">{TITLES[kind]}</h1>
       </div>
       <nav aria-label="Kind of test" className="flex flex-wrap gap-2 text-sm">
         {(Object.keys(TITLES) as (keyof typeof TITLES)[]).map((k) => (
-          <Link key={k} href={`/athletes/${id}/tests/new?kind=${k}`} aria-current={k === kind ? "page" : undefined} className={k === kind ? "btn" : "btn-quiet"}>{TITLES[k]}</Link>
+          <Link
+            key={k}
+            href={`/athletes/${id}/tests/new?kind=${k}`}
+            aria-current={k === kind ? "page" : undefined}
+            className={k === kind ? "btn" : "btn-quiet"}
+          >
+            {TITLES[k]}
+          </Link>
         ))}
       </nav>
       <TestCautions />
@@ -54,7 +76,9 @@ export default async function NewTestPage({ params, searchParams }: { params: Pr
       ) : null}
       <div className="grid gap-6 lg:grid-cols-[2fr_1fr]">
         <div className="card">
-          {kind === "gas" ? <GasExchangeUpload athleteId={id} defaultMassKg={profile.bodyMassKg} today={today} /> : null}
+          {kind === "gas" ? (
+            <GasExchangeUpload athleteId={id} defaultMassKg={profile.bodyMassKg} today={today} />
+          ) : null}
           {kind === "talk" ? <TalkTestForm athleteId={id} today={today} /> : null}
           {kind === "submax" ? <SubmaxForm athleteId={id} today={today} massKg={profile.bodyMassKg} age={age} /> : null}
           {kind === "manual" ? <ManualThresholdsForm athleteId={id} today={today} /> : null}

@@ -15,6 +15,10 @@ export const GET = route<RouteContext<"/api/athletes/[id]/export/[file]">>(async
   const { filename, csv } = await exportCsv(actor, id, file, new Date().toISOString().slice(0, 10), range);
   // A byte-order mark so that spreadsheet programs read the file as UTF-8.
   return new Response(`\uFEFF${csv}\r\n`, {
-    headers: { "content-type": "text/csv; charset=utf-8", "content-disposition": `attachment; filename="${filename}"`, "cache-control": "private, no-store" },
+    headers: {
+      "content-type": "text/csv; charset=utf-8",
+      "content-disposition": `attachment; filename="${filename}"`,
+      "cache-control": "private, no-store",
+    },
   });
 });
