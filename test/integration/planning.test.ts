@@ -60,6 +60,28 @@ const plan = (body: unknown, who = s.coach.browser) =>
   who.call(sessionsRoute, "POST", `/api/athletes/${s.athleteA.id}/sessions`, { params: { id: s.athleteA.id }, body });
 
 describe("sessions and weekly budgets", () => {
+  it("answers with plain objects: no author ids or bookkeeping timestamps of the rows", async () => {
+    const created = await plan({ date: "2027-05-03", templateId: easyId });
+    expect(created.status).toBe(201);
+    const list = await s.coach.browser.call(sessionsRoute, "GET", `/api/athletes/${s.athleteA.id}/sessions`, {
+      params: { id: s.athleteA.id },
+      query: "?from=2027-05-03&to=2027-05-03",
+    });
+    const templates = await s.coach.browser.call(templatesRoute, "GET", "/api/templates", {});
+    const moved = await s.coach.browser.call(sessionRoute, "PATCH", `/api/sessions/${created.json.id}`, {
+      params: { id: created.json.id },
+      body: { date: "2027-05-04" },
+    });
+    for (const obj of [list.json[0], templates.json[0], moved.json]) {
+      expect(obj.id).toBeTruthy();
+      for (const key of ["createdBy", "createdAt", "updatedAt"]) expect(obj).not.toHaveProperty(key);
+    }
+    expect(moved.json.date).toBe("2027-05-04");
+    await s.coach.browser.call(sessionRoute, "DELETE", `/api/sessions/${created.json.id}`, {
+      params: { id: created.json.id },
+    });
+  });
+
   it("moving a session into another week changes both weeks' planned minutes and flags", async () => {
     for (const d of ["2027-03-01", "2027-03-03", "2027-03-05"])
       expect((await plan({ date: d, templateId: easyId })).status).toBe(201);

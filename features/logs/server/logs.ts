@@ -11,6 +11,16 @@ import type { logSchema, patchLogSchema, unplannedLogSchema } from "../schemas";
 
 export type LogRow = typeof schema.sessionLog.$inferSelect;
 
+/** A log as the API and the screens get it: no client key or bookkeeping timestamps, and the end of its edit window. */
+export type LogView = Omit<LogRow, "clientKey" | "createdAt" | "updatedAt"> & { editableUntil: string };
+
+export function logView(row: LogRow): LogView {
+  const { clientKey: _clientKey, createdAt, updatedAt: _updatedAt, ...rest } = row;
+  void _clientKey;
+  void _updatedAt;
+  return { ...rest, editableUntil: editableUntil(createdAt).toISOString() };
+}
+
 function clean(input: z.infer<typeof logSchema> | z.infer<typeof patchLogSchema>) {
   const skipped = input.status === "skipped";
   return {
@@ -35,7 +45,7 @@ export async function logPlannedSession(
   actor: Actor,
   sessionId: string,
   input: z.infer<typeof logSchema>,
-): Promise<{ log: LogRow; created: boolean }> {
+): Promise<{ log: LogView; created: boolean }> {
   const db = getDb();
   const [planned] = await db.select().from(schema.plannedSession).where(eq(schema.plannedSession.id, sessionId));
   if (!planned) throw notFound("No such session.");
@@ -57,12 +67,12 @@ export async function logPlannedSession(
     })
     .onConflictDoNothing({ target: schema.sessionLog.plannedSessionId })
     .returning();
-  if (inserted[0]) return { log: inserted[0], created: true };
+  if (inserted[0]) return { log: logView(inserted[0]), created: true };
   const [existing] = await db
     .select()
     .from(schema.sessionLog)
     .where(eq(schema.sessionLog.plannedSessionId, planned.id));
-  return { log: existing!, created: false };
+  return { log: logView(existing!), created: false };
 }
 
 /** Logs a session that was not planned. A repeated submit with the same client key returns the first log. */
@@ -70,7 +80,7 @@ export async function logUnplannedSession(
   actor: Actor,
   athleteId: string,
   input: z.infer<typeof unplannedLogSchema>,
-): Promise<{ log: LogRow; created: boolean }> {
+): Promise<{ log: LogView; created: boolean }> {
   await requireAthleteAccess(actor, athleteId, "edit");
   const db = getDb();
   const { date, sport, title, clientKey, ...rest } = input;
@@ -93,12 +103,12 @@ export async function logUnplannedSession(
         .onConflictDoNothing({ target: [schema.sessionLog.athleteId, schema.sessionLog.clientKey] })
         .returning()
     : await db.insert(schema.sessionLog).values(values).returning();
-  if (inserted[0]) return { log: inserted[0], created: true };
+  if (inserted[0]) return { log: logView(inserted[0]), created: true };
   const [existing] = await db
     .select()
     .from(schema.sessionLog)
     .where(and(eq(schema.sessionLog.athleteId, athleteId), eq(schema.sessionLog.clientKey, clientKey!)));
-  return { log: existing!, created: false };
+  return { log: logView(existing!), created: false };
 }
 
 async function loadLog(actor: Actor, id: string): Promise<LogRow> {
@@ -110,7 +120,7 @@ async function loadLog(actor: Actor, id: string): Promise<LogRow> {
   return row;
 }
 
-export async function updateLog(actor: Actor, id: string, patch: z.infer<typeof patchLogSchema>): Promise<LogRow> {
+export async function updateLog(actor: Actor, id: string, patch: z.infer<typeof patchLogSchema>): Promise<LogView> {
   const row = await loadLog(actor, id);
   const merged = {
     status: patch.status ?? row.status,
@@ -135,7 +145,7 @@ export async function updateLog(actor: Actor, id: string, patch: z.infer<typeof 
     .set({ ...clean({ ...patch, status: merged.status }), loggedBy: actor.userId })
     .where(eq(schema.sessionLog.id, id))
     .returning();
-  return updated!;
+  return logView(updated!);
 }
 
 /** Undoes a log (and its activity files): the planned session is open again. */
@@ -159,14 +169,10 @@ export async function listLogs(actor: Actor, athleteId: string, from: string, to
       ),
     )
     .orderBy(asc(schema.sessionLog.date), asc(schema.sessionLog.createdAt));
-  const byId = new Map<string, LogRow & { file: { id: string; filename: string } | null; editableUntil: string }>();
+  const byId = new Map<string, LogView & { file: { id: string; filename: string } | null }>();
   for (const r of rows) {
     if (byId.has(r.log.id)) continue;
-    byId.set(r.log.id, {
-      ...r.log,
-      file: r.fileId ? { id: r.fileId, filename: r.filename! } : null,
-      editableUntil: editableUntil(r.log.createdAt).toISOString(),
-    });
+    byId.set(r.log.id, { ...logView(r.log), file: r.fileId ? { id: r.fileId, filename: r.filename! } : null });
   }
   return [...byId.values()];
 }

@@ -10,6 +10,7 @@ import { addDays } from "@/features/platform/lib/days";
 import { planSeason, SeasonError, type SeasonWeek } from "../lib/season";
 import type { Block } from "../lib/session";
 import type { seasonSchema, seasonWeekPatchSchema } from "../schemas";
+import { seasonView } from "../lib/views";
 import { totals } from "./sessions";
 
 /** Seasons: generate one with its retest sessions, edit a week of it, list an athlete's seasons. */
@@ -170,9 +171,10 @@ export async function updateSeasonWeek(
 
 export async function listSeasons(actor: Actor, athleteId: string) {
   await requireAthleteAccess(actor, athleteId, "view");
-  return getDb()
+  const rows = await getDb()
     .select()
     .from(schema.season)
     .where(eq(schema.season.athleteId, athleteId))
     .orderBy(asc(schema.season.startDate));
+  return rows.map(seasonView);
 }

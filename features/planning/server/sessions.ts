@@ -12,6 +12,7 @@ import { zoneSetsOf } from "@/features/zones/server";
 import { expandDates, rruleText } from "../lib/recurrence";
 import { expand, type Block } from "../lib/session";
 import type { createSessionSchema, patchSessionSchema } from "../schemas";
+import { plannedSessionView } from "../lib/views";
 
 /** Planned sessions: list, create (one or a weekly series), move and edit, delete, copy; the next retest. */
 
@@ -73,7 +74,7 @@ export async function listSessions(actor: Actor, athleteId: string, from: string
     );
     const log = logOf.get(r.id) ?? null;
     return {
-      ...r,
+      ...plannedSessionView(r),
       rrule: r.seriesId ? (series.get(r.seriesId) ?? null) : null,
       zoneSet: zones ? { id: zones.id, effectiveFrom: zones.effectiveFrom, zones: zones.zones } : null,
       log: log
@@ -175,7 +176,8 @@ export async function updateSession(actor: Actor, id: string, patch: z.infer<typ
       .where(eq(schema.plannedSession.id, id))
       .for("update");
     if (!current) throw notFound("No such session.");
-    if (patch.version !== undefined && current.version !== patch.version) throw editConflict(current, "this session");
+    if (patch.version !== undefined && current.version !== patch.version)
+      throw editConflict(plannedSessionView(current), "this session");
     const bump = { version: sql`${schema.plannedSession.version} + 1` };
     if (patch.scope === "series" && row.seriesId) {
       const shift = patch.date ? Math.round((Date.parse(patch.date) - Date.parse(row.date)) / 86_400_000) : 0;
@@ -208,7 +210,7 @@ export async function updateSession(actor: Actor, id: string, patch: z.infer<typ
     }
   });
   const [updated] = await db.select().from(schema.plannedSession).where(eq(schema.plannedSession.id, id));
-  return updated!;
+  return plannedSessionView(updated!);
 }
 
 export async function deleteSession(actor: Actor, id: string, scope: "one" | "series") {

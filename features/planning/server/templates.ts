@@ -6,6 +6,7 @@ import { getDb, schema } from "@/db/client";
 import { coachedSquadIds, isCoachOf, type Actor } from "@/features/access/lib/rules";
 import { editConflict, notFound } from "@/features/platform/server/http";
 import { expand, type Block } from "../lib/session";
+import { templateView, type TemplateView } from "../lib/views";
 import type { templatePatchSchema, templateSchema } from "../schemas";
 
 function totals(structure: Block[]) {
@@ -16,17 +17,21 @@ function totals(structure: Block[]) {
   };
 }
 
-export async function listTemplates(actor: Actor, opts: { squadId?: string; q?: string } = {}) {
+export async function listTemplates(
+  actor: Actor,
+  opts: { squadId?: string; q?: string } = {},
+): Promise<TemplateView[]> {
   let squads = coachedSquadIds(actor);
   if (opts.squadId) squads = squads.filter((s) => s === opts.squadId);
   if (!squads.length) return [];
   const where = [inArray(schema.sessionTemplate.squadId, squads)];
   if (opts.q) where.push(ilike(schema.sessionTemplate.name, `%${opts.q.replace(/[%_\\]/g, (c) => `\\${c}`)}%`));
-  return getDb()
+  const rows = await getDb()
     .select()
     .from(schema.sessionTemplate)
     .where(and(...where))
     .orderBy(asc(schema.sessionTemplate.name));
+  return rows.map(templateView);
 }
 
 async function loadTemplate(actor: Actor, id: string) {
@@ -35,8 +40,8 @@ async function loadTemplate(actor: Actor, id: string) {
   return row;
 }
 
-export async function getTemplate(actor: Actor, id: string) {
-  return loadTemplate(actor, id);
+export async function getTemplate(actor: Actor, id: string): Promise<TemplateView> {
+  return templateView(await loadTemplate(actor, id));
 }
 
 export async function createTemplate(actor: Actor, input: z.infer<typeof templateSchema>) {
@@ -55,7 +60,7 @@ export async function createTemplate(actor: Actor, input: z.infer<typeof templat
       createdBy: actor.userId,
     })
     .returning();
-  return row!;
+  return templateView(row!);
 }
 
 export async function updateTemplate(actor: Actor, id: string, patch: z.infer<typeof templatePatchSchema>) {
@@ -75,8 +80,8 @@ export async function updateTemplate(actor: Actor, id: string, patch: z.infer<ty
     )
     .returning();
   // Nothing written: the template changed since the client read it (it exists; loadTemplate found it).
-  if (!row) throw editConflict(await loadTemplate(actor, id), "this template");
-  return row;
+  if (!row) throw editConflict(templateView(await loadTemplate(actor, id)), "this template");
+  return templateView(row);
 }
 
 export async function duplicateTemplate(actor: Actor, id: string) {
