@@ -65,8 +65,18 @@ describe("planning in the browser", () => {
     await band.waitFor();
     await expect(band.getAttribute("data-over")).resolves.toBe("no");
     // Three sessions of 4 × 8 min above VT2 (51 min zone 1, 32 min zone 3 each): 333 min zone 1, 96 min zone 3 → 22.4 %.
+    // They are cycling sessions for a runner: each drop asks first, and nothing is planned until the coach says yes.
     for (const d of [1, 2, 3]) {
       await dragTemplate(page, "4 × 8 min above VT2", plus(week, d));
+      const ask = page.getByRole("alertdialog");
+      await ask.getByText(/is a cycling template, and this athlete trains running/).waitFor();
+      if (d === 1) {
+        await ask.getByRole("button", { name: "Do not plan it" }).click();
+        await ask.waitFor({ state: "detached" });
+        await expect(page.locator(`td.fc-day[data-date="${plus(week, d)}"] .fc-event`).count()).resolves.toBe(0);
+        await dragTemplate(page, "4 × 8 min above VT2", plus(week, d));
+      }
+      await page.getByRole("alertdialog").getByRole("button", { name: "Plan it anyway" }).click();
       await page
         .locator(`td.fc-day[data-date="${plus(week, d)}"] .fc-event`, { hasText: "4 × 8 min above VT2" })
         .waitFor();
@@ -81,6 +91,55 @@ describe("planning in the browser", () => {
     await page.locator(`[data-testid="band-${week}"][data-over="no"]`).waitFor();
     await expect(page.getByTestId(`band-${week}`).textContent()).resolves.toMatch(/Within budget/);
     await shot(page, "plan-fixed");
+    expect(problems).toEqual([]);
+    await page.context().close();
+  });
+
+  it("the tray is a dock that stays in view, finds templates by name, sport and zones, folds, and plans from the keyboard", async () => {
+    const { page, problems } = await newPage(browser);
+    await page.setViewportSize({ width: 1440, height: 900 });
+    await signIn(page, "coach@northfold.test");
+    await page.getByRole("link", { name: "Jonas Okafor" }).click();
+    await page.waitForURL(/\/athletes\/[0-9a-f-]+$/);
+    const athleteId = page.url().split("/athletes/")[1]!;
+    await page.goto(`${BASE}/athletes/${athleteId}/plan`);
+    const dock = page.getByTestId("template-dock");
+    const cards = dock.locator("[data-template-id]");
+    await cards.first().waitFor();
+    // The cyclist's own sport first.
+    await expect(cards.first().getAttribute("data-sport")).resolves.toBe("cycling");
+    // In view at the bottom of the window while the page scrolls.
+    await page.mouse.wheel(0, 2000);
+    const box = (await dock.boundingBox())!;
+    expect(box.y + box.height).toBeLessThanOrEqual(900 + 1);
+    expect(box.y).toBeGreaterThan(450);
+    await dock.getByLabel("Search templates").fill("spin");
+    await expect(cards.allTextContents()).resolves.toEqual([expect.stringMatching(/^Recovery spin 45 min/)]);
+    await dock.getByLabel("Search templates").fill("");
+    await dock.getByLabel("Zones").selectOption("z3");
+    for (const text of await cards.allTextContents()) expect(text).toMatch(/z3 [1-9]/);
+    await dock.getByLabel("Sport").selectOption("rowing");
+    await expect(cards.allTextContents()).resolves.toEqual([expect.stringMatching(/^6 × 2 min pieces/)]);
+    await dock.getByLabel("Sport").selectOption("all");
+    await dock.getByLabel("Zones").selectOption("any");
+    await dock.getByRole("button", { name: "Fold the tray" }).click();
+    await expect(cards.first().isVisible()).resolves.toBe(false);
+    await dock.getByRole("button", { name: "Open the tray" }).click();
+    // Enter on a card opens the keyboard form with that template chosen.
+    const card = dock.locator("[data-template-id]", { hasText: "Endurance ride 2 h" });
+    await card.focus();
+    await page.keyboard.press("Enter");
+    const form = page.getByTestId("keyboard-planner");
+    await expect(form.getAttribute("open")).resolves.not.toBeNull();
+    await expect(form.getByLabel("Template").inputValue()).resolves.toBe(
+      (await card.getAttribute("data-template-id"))!,
+    );
+    const day = plus(mondayInWeeks(120 + (Math.floor(Date.now() / 1000) % 300)), 2);
+    await form.getByLabel("Day").fill(day);
+    await form.getByRole("button", { name: "Plan it" }).click();
+    await page.getByText(`Planned "Endurance ride 2 h" on ${day}.`).waitFor();
+    await page.locator(`td.fc-day[data-date="${day}"] .fc-event`, { hasText: "Endurance ride 2 h" }).waitFor();
+    await shot(page, "plan-tray-dock");
     expect(problems).toEqual([]);
     await page.context().close();
   });

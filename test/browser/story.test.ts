@@ -260,10 +260,11 @@ describe("the everyday story", () => {
 
     // Today's session for the athlete, planned with the keyboard planner.
     await c.goto(`${BASE}/athletes/${athleteId}/plan?week=${today}`);
+    await c.getByText("Plan without dragging").click();
     await c.getByLabel("Template", { exact: true }).selectOption({ label: "Harbour intervals 6 × 4 min" });
     await c.getByLabel("Day", { exact: true }).fill(today);
     await c.getByRole("button", { name: "Plan it" }).click();
-    await c.getByText(`Planned on ${today}.`).waitFor();
+    await c.getByText(`Planned "Harbour intervals 6 × 4 min" on ${today}.`).waitFor();
 
     step("4");
     // 4. The athlete opens today, sees targets in their own heart rate, logs it with RPE 6 and a FIT file.

@@ -82,14 +82,17 @@ export async function shot(page: Page, name: string) {
 }
 
 /**
- * Drags a template from the tray onto a day of the calendar with the mouse, as a coach does. The budget band above the
- * calendar previews the drop and may grow meanwhile, so the pointer aims at the day again before letting go.
+ * Drags a template from the tray (the dock along the bottom of the window) onto a day of the calendar with the mouse, as
+ * a coach does. The budget band above the calendar previews the drop and may grow meanwhile, so the pointer aims at the
+ * day again before letting go.
  */
 export async function dragTemplate(page: Page, name: string, date: string) {
+  const cell = page.locator(`td.fc-day[data-date="${date}"]`);
+  // The middle of the window: the dock covers its bottom edge.
+  await cell.evaluate((el) => el.scrollIntoView({ block: "center" }));
   const item = page.locator("[data-template-id]", { hasText: name }).first();
   await item.scrollIntoViewIfNeeded();
   const from = (await item.boundingBox())!;
-  const cell = page.locator(`td.fc-day[data-date="${date}"]`);
   await page.mouse.move(from.x + from.width / 2, from.y + from.height / 2);
   await page.mouse.down();
   await page.mouse.move(from.x + from.width / 2 - 20, from.y + from.height / 2, { steps: 5 });

@@ -20,13 +20,16 @@ const WEEKDAY_LABELS: Record<(typeof WEEKDAYS)[number], string> = {
 export function KeyboardPlanner({
   templates,
   defaultDate,
+  initialTemplateId,
   onPlan,
 }: {
   templates: TrayTemplate[];
   defaultDate: string;
+  /** A template chosen on the tray with the keyboard. */
+  initialTemplateId?: string;
   onPlan: (templateId: string, date: string, repeat?: Repeat) => void;
 }) {
-  const [templateId, setTemplateId] = useState("");
+  const [templateId, setTemplateId] = useState(initialTemplateId ?? "");
   const [date, setDate] = useState(defaultDate);
   const [repeats, setRepeats] = useState(false);
   const [days, setDays] = useState<(typeof WEEKDAYS)[number][]>([]);
@@ -38,7 +41,7 @@ export function KeyboardPlanner({
   if (!templates.length) return null;
   return (
     <form
-      className="space-y-2 rounded-md border border-rule p-2 text-sm"
+      className="mt-2 max-w-md space-y-2 text-sm"
       onSubmit={(e) => {
         e.preventDefault();
         setProblem("");
@@ -51,7 +54,6 @@ export function KeyboardPlanner({
         onPlan(templateId, date, endBy === "count" ? { byWeekday: days, count } : { byWeekday: days, until });
       }}
     >
-      <p className="font-semibold">Plan without dragging</p>
       <fieldset disabled={!hydrated} className="space-y-2">
         <div>
           <label htmlFor="kp-template" className="field-label">

@@ -10,9 +10,12 @@ import { ApiError } from "@/features/platform/lib/api-client";
 import { addDays } from "@/features/platform/lib/days";
 import { useCreateSession, useDeleteSession, useMoveSession, useSessions, useWeeks, type SessionDto } from "../api";
 import { BudgetBand } from "./BudgetBand";
+import { SPORT_LABELS, type Sport } from "@/features/platform/lib/sports";
+import type { Repeat } from "../lib/repeat";
 import { KeyboardPlanner } from "./KeyboardPlanner";
+import { TemplateDock } from "./TemplateDock";
 import { SelectedSession } from "./SelectedSession";
-import { LOG_MARK, LOG_WORD, zoneText } from "./session-text";
+import { LOG_MARK, LOG_WORD } from "./session-text";
 import { useDragPreview } from "./use-drag-preview";
 
 export interface TrayTemplate {
@@ -28,11 +31,14 @@ export function PlanCalendar({
   templates,
   initialDate,
   canEdit,
+  athleteSports = [],
 }: {
   athleteId: string;
   templates: TrayTemplate[];
   initialDate: string;
   canEdit: boolean;
+  /** The athlete's sports: the tray shows them first, and a template of another sport asks before it is planned. */
+  athleteSports?: string[];
 }) {
   const calendarRef = useRef<FullCalendar>(null);
   const trayRef = useRef<HTMLUListElement>(null);
@@ -40,6 +46,10 @@ export function PlanCalendar({
   const [message, setMessage] = useState<{ kind: "ok" | "error"; text: string }>();
   const [selected, setSelected] = useState<SessionDto | null>(null);
   const [scope, setScope] = useState<"one" | "series">("one");
+  /** A template of another sport, dropped or chosen: planned only once the coach confirms. */
+  const [pending, setPending] = useState<{ templateId: string; date: string; repeat?: Repeat } | null>(null);
+  const [picked, setPicked] = useState<{ id: string; n: number } | null>(null);
+  const plannerRef = useRef<HTMLDetailsElement>(null);
   const sessions = useSessions(athleteId, range.from, range.to);
   const weeks = useWeeks(athleteId, range.from, range.to);
   const move = useMoveSession(athleteId, range.from, range.to);
@@ -113,6 +123,30 @@ export function PlanCalendar({
     moveTo(info.event.extendedProps.session as SessionDto, info.event.startStr.slice(0, 10), () => info.revert());
   };
 
+  const otherSport = (templateId: string) => {
+    const t = templates.find((x) => x.id === templateId);
+    return t && athleteSports.length > 0 && !athleteSports.includes(t.sport) ? t : null;
+  };
+
+  /** Plans a template on a day (or as a weekly series); a template of another sport waits for the coach's yes. */
+  const planTemplate = (templateId: string, date: string, repeat?: Repeat, confirmed = false) => {
+    if (!confirmed && otherSport(templateId)) return setPending({ templateId, date, repeat });
+    setPending(null);
+    setMessage(undefined);
+    const name = templates.find((t) => t.id === templateId)?.name ?? "the template";
+    create.mutate(repeat ? { date, templateId, repeat } : { date, templateId }, {
+      onError: fail,
+      onSuccess: (r) => {
+        const n = (r as { ids?: string[] }).ids?.length ?? 1;
+        setMessage({
+          kind: "ok",
+          text: n > 1 ? `Planned ${n} sessions of "${name}" from ${date}.` : `Planned "${name}" on ${date}.`,
+        });
+        calendarRef.current?.getApi().gotoDate(date);
+      },
+    });
+  };
+
   const onReceive = (info: EventReceiveArg) => {
     clearPreview();
     const templateId = info.event.extendedProps.templateId as string | undefined;
@@ -123,16 +157,12 @@ export function PlanCalendar({
     // during the drag): that is a move, never a new session.
     if (existing) return moveTo(existing, date);
     if (!templateId) return setMessage({ kind: "error", text: "That drop was not a template; nothing was planned." });
-    setMessage(undefined);
-    create.mutate(
-      { date, templateId },
-      { onError: fail, onSuccess: () => setMessage({ kind: "ok", text: `Planned "${info.event.title}" on ${date}.` }) },
-    );
+    planTemplate(templateId, date);
   };
 
   const weekList = weeks.data ?? [];
   return (
-    <div className="grid gap-6 lg:grid-cols-[1fr_16rem]">
+    <div className="space-y-6">
       <div className="space-y-3">
         <div className="space-y-2" aria-live="polite">
           {weeks.isPending && range.from ? (
@@ -174,6 +204,32 @@ export function PlanCalendar({
           ) : (
             <FormAlert>{message.text}</FormAlert>
           )
+        ) : null}
+        {pending ? (
+          <div
+            role="alertdialog"
+            aria-labelledby="other-sport-q"
+            className="rounded-md border border-alert/60 bg-alert-wash/50 p-3 text-sm"
+          >
+            <p id="other-sport-q" className="font-semibold">
+              &quot;{otherSport(pending.templateId)?.name}&quot; is a{" "}
+              {SPORT_LABELS[otherSport(pending.templateId)?.sport as Sport]?.toLowerCase() ?? "different"} template, and
+              this athlete trains {athleteSports.map((x) => SPORT_LABELS[x as Sport]?.toLowerCase() ?? x).join(", ")}.
+              Plan it on {pending.date} anyway?
+            </p>
+            <div className="mt-2 flex gap-2">
+              <button
+                type="button"
+                className="btn py-1"
+                onClick={() => planTemplate(pending.templateId, pending.date, pending.repeat, true)}
+              >
+                Plan it anyway
+              </button>
+              <button type="button" className="btn-quiet py-1" onClick={() => setPending(null)}>
+                Do not plan it
+              </button>
+            </div>
+          </div>
         ) : null}
         {sessions.isError ? <FormAlert>The sessions could not be loaded: {sessions.error.message}</FormAlert> : null}
         {canEdit && (sessions.data ?? []).some((s) => s.seriesId) ? (
@@ -295,49 +351,28 @@ export function PlanCalendar({
         ) : null}
       </div>
       {canEdit ? (
-        <aside aria-labelledby="tray-heading" className="space-y-3">
-          <h2 id="tray-heading" className="font-bold">
-            Template tray
-          </h2>
-          <p className="text-xs text-ink-soft">
-            Drag a template onto a day. The band of the week shows the result before you drop.
-          </p>
-          {templates.length === 0 ? (
-            <p className="text-sm text-ink-soft">No templates yet. Build one on the templates page.</p>
-          ) : null}
-          <ul ref={trayRef} className="space-y-2">
-            {templates.map((t) => (
-              <li
-                key={t.id}
-                data-template-id={t.id}
-                data-title={t.name}
-                className="cursor-grab rounded-md border border-rule bg-paper p-2 text-sm shadow-sm hover:border-tide"
-              >
-                <p className="font-semibold">{t.name}</p>
-                <p className="num text-xs text-ink-soft">
-                  {Math.round(t.totalS / 60)} min · {zoneText(t.minutesByZone)}
-                </p>
-              </li>
-            ))}
-          </ul>
+        <details ref={plannerRef} className="card" data-testid="keyboard-planner">
+          <summary className="cursor-pointer font-semibold">Plan without dragging</summary>
           <KeyboardPlanner
+            key={picked ? `${picked.id}-${picked.n}` : "none"}
             templates={templates}
+            initialTemplateId={picked?.id}
             defaultDate={range.from || initialDate}
-            onPlan={(templateId, date, repeat) =>
-              create.mutate(repeat ? { date, templateId, repeat } : { date, templateId }, {
-                onError: fail,
-                onSuccess: (r) => {
-                  const n = (r as { ids?: string[] }).ids?.length ?? 1;
-                  setMessage({
-                    kind: "ok",
-                    text: n > 1 ? `Planned ${n} sessions from ${date}.` : `Planned on ${date}.`,
-                  });
-                  calendarRef.current?.getApi().gotoDate(date);
-                },
-              })
-            }
+            onPlan={(templateId, date, repeat) => planTemplate(templateId, date, repeat)}
           />
-        </aside>
+        </details>
+      ) : null}
+      {canEdit ? (
+        <TemplateDock
+          templates={templates}
+          athleteSports={athleteSports}
+          listRef={trayRef}
+          onChoose={(id) => {
+            setPicked((p) => ({ id, n: (p?.n ?? 0) + 1 }));
+            if (plannerRef.current) plannerRef.current.open = true;
+            setTimeout(() => document.getElementById("kp-day")?.focus(), 0);
+          }}
+        />
       ) : null}
     </div>
   );

@@ -116,6 +116,7 @@ export default async function PlanPage({
           .map((t) => ({ id: t.id, name: t.name, sport: t.sport, totalS: t.totalS, minutesByZone: t.minutesByZone }))}
         initialDate={initialDate}
         canEdit={canEdit}
+        athleteSports={data.profile.sports}
       />
     </div>
   );
