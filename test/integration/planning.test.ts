@@ -1,6 +1,7 @@
 // Planning through the real route handlers on real PostgreSQL.
 import { beforeAll, describe, expect, it } from "vitest";
 import * as templatesRoute from "@/app/api/templates/route";
+import * as templateRoute from "@/app/api/templates/[id]/route";
 import * as sessionsRoute from "@/app/api/athletes/[id]/sessions/route";
 import * as sessionRoute from "@/app/api/sessions/[id]/route";
 import * as weeksRoute from "@/app/api/athletes/[id]/weeks/route";
@@ -324,6 +325,36 @@ describe("sessions and weekly budgets", () => {
     // Outside the squad, its existence is not told.
     expect((await get(other.coach.browser)).status).toBe(404);
     expect((await get(s.coach.browser, "not-a-date")).status).toBe(400);
+  });
+
+  it("an over-budget week offers a swap for an easier template of the squad's library, and the stored answer follows the library", async () => {
+    // A week far from the others: one 5 × 4 min session (40 z1, 20 z3) and one easy hour: 20 of 120 min = 16.7 % zone 3,
+    // within 20 %; a second 5 × 4 min makes 40 of 180 = 22.2 %: over. Swapping it for "Easy 60" (60 min z1, within 25 % of
+    // its 60 min) gives 20 of 180 = 11.1 % (hand computation).
+    for (const [d, t] of [
+      ["2031-05-06", intervalsId],
+      ["2031-05-07", easyId],
+      ["2031-05-09", intervalsId],
+    ] as const)
+      expect((await plan({ date: d, templateId: t })).status).toBe(201);
+    const w = (await weeks("2031-05-05", "2031-05-05"))[0];
+    expect(w.overBudget).toBe(true);
+    const swap = w.fixes.find((f: { action: string }) => f.action === "swap");
+    expect(swap).toMatchObject({ action: "swap", templateId: easyId, templateName: "Easy 60" });
+    // The template changes: the stored answer is not served again (the library bumps the athlete's change counter).
+    const renamed = await s.coach.browser.call(templateRoute, "PATCH", `/api/templates/${easyId}`, {
+      params: { id: easyId },
+      body: { name: "Easy hour" },
+    });
+    expect(renamed.status).toBe(200);
+    const after = (await weeks("2031-05-05", "2031-05-05"))[0];
+    expect(after.fixes.find((f: { action: string }) => f.action === "swap")).toMatchObject({
+      templateName: "Easy hour",
+    });
+    await s.coach.browser.call(templateRoute, "PATCH", `/api/templates/${easyId}`, {
+      params: { id: easyId },
+      body: { name: "Easy 60" },
+    });
   });
 
   it("editing a session's steps recomputes its minutes per zone", async () => {

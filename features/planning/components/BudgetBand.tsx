@@ -1,5 +1,5 @@
 "use client";
-import type { WeekSummary } from "../lib/weeks";
+import type { Fix, WeekSummary } from "../lib/weeks";
 
 const ZONE_BG = ["bg-zone-1", "bg-zone-2", "bg-zone-3"];
 
@@ -12,7 +12,7 @@ export function BudgetBand({
 }: {
   week: WeekSummary;
   preview?: boolean;
-  onApplyFix?: () => void;
+  onApplyFix?: (fix: Fix) => void;
   busy?: boolean;
 }) {
   const total = week.plannedMinByZone.reduce((a, b) => a + b, 0);
@@ -106,13 +106,19 @@ export function BudgetBand({
       ) : (
         <p className="mt-1 text-sm text-ink-soft">Nothing planned yet.</p>
       )}
-      {week.fix && onApplyFix && !preview ? (
-        <p className="mt-1 flex flex-wrap items-center gap-2 text-sm">
-          <span>Suggested fix: {week.fix.message}</span>
-          <button type="button" className="btn-quiet py-1" onClick={onApplyFix} disabled={busy}>
-            Apply the fix
-          </button>
-        </p>
+      {week.fixes.length && onApplyFix && !preview ? (
+        <ul className="mt-1 space-y-1 text-sm" aria-label="Suggested fixes">
+          {week.fixes.map((fix, i) => (
+            <li key={`${fix.action}-${i}`} className="flex flex-wrap items-center gap-2">
+              <span>
+                {i === 0 ? "Suggested fix" : "Or"}: {fix.message}
+              </span>
+              <button type="button" className="btn-quiet py-1" onClick={() => onApplyFix(fix)} disabled={busy}>
+                {i === 0 ? "Apply the fix" : "Apply this one instead"}
+              </button>
+            </li>
+          ))}
+        </ul>
       ) : null}
     </section>
   );

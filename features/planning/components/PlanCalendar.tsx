@@ -6,9 +6,19 @@ import type { DatesSetArg, EventClickArg, EventDropArg, EventInput } from "@full
 import type { EventReceiveArg } from "@fullcalendar/interaction";
 import { useEffect, useMemo, useRef, useState } from "react";
 import { FormAlert, FormNotice } from "@/features/platform/components/form-bits";
-import { ApiError } from "@/features/platform/lib/api-client";
+import { useQueryClient } from "@tanstack/react-query";
+import { ApiError, apiFetch } from "@/features/platform/lib/api-client";
 import { addDays } from "@/features/platform/lib/days";
-import { useCreateSession, useDeleteSession, useMoveSession, useSessions, useWeeks, type SessionDto } from "../api";
+import {
+  invalidatePlan,
+  useCreateSession,
+  useDeleteSession,
+  useMoveSession,
+  useSessions,
+  useWeeks,
+  type SessionDto,
+} from "../api";
+import type { Fix } from "../lib/weeks";
 import { BudgetBand } from "./BudgetBand";
 import { SPORT_LABELS, type Sport } from "@/features/platform/lib/sports";
 import type { Repeat } from "../lib/repeat";
@@ -55,6 +65,7 @@ export function PlanCalendar({
   const move = useMoveSession(athleteId, range.from, range.to);
   const create = useCreateSession(athleteId);
   const remove = useDeleteSession(athleteId);
+  const qc = useQueryClient();
   const { preview, previewFor, clearPreview } = useDragPreview(sessions.data, weeks.data, templates);
 
   // A week chosen on the season ribbon arrives as a new initial date while the calendar stays mounted.
@@ -147,6 +158,36 @@ export function PlanCalendar({
     });
   };
 
+  /** Applies one of a week's fixes: move the session, swap it for the template, or add the easy session. */
+  const applyFix = async (fix: Fix) => {
+    setMessage(undefined);
+    const done = () => setMessage({ kind: "ok", text: `Applied: ${fix.message}` });
+    if (fix.action === "move")
+      return move.mutate({ id: fix.sessionId, date: fix.toDate }, { onError: fail, onSuccess: done });
+    if (fix.action === "add") {
+      const structure = [{ type: "step", kind: "work", durationS: fix.minutes * 60, zone: 1 }];
+      return create.mutate(
+        { date: fix.date, title: fix.title, sport: fix.sport, structure },
+        { onError: fail, onSuccess: done },
+      );
+    }
+    try {
+      const template = await apiFetch<{ name: string; structure: unknown }>(
+        `/api/templates/${encodeURIComponent(fix.templateId)}`,
+      );
+      const version = sessions.data?.find((x) => x.id === fix.sessionId)?.version;
+      await apiFetch(`/api/sessions/${encodeURIComponent(fix.sessionId)}`, {
+        method: "PATCH",
+        body: JSON.stringify({ title: template.name, structure: template.structure, version }),
+      });
+      await invalidatePlan(qc, athleteId);
+      done();
+    } catch (e) {
+      await invalidatePlan(qc, athleteId);
+      fail(e);
+    }
+  };
+
   const onReceive = (info: EventReceiveArg) => {
     clearPreview();
     const templateId = info.event.extendedProps.templateId as string | undefined;
@@ -174,22 +215,7 @@ export function PlanCalendar({
           {weekList.map((w) => (
             // The preview lies over the band instead of replacing it: the calendar must not move while something is dragged.
             <div key={w.weekStart} className="relative">
-              <BudgetBand
-                week={w}
-                busy={move.isPending}
-                onApplyFix={
-                  canEdit && w.fix
-                    ? () =>
-                        move.mutate(
-                          { id: w.fix!.sessionId, date: w.fix!.toDate },
-                          {
-                            onError: fail,
-                            onSuccess: () => setMessage({ kind: "ok", text: `Applied: ${w.fix!.message}` }),
-                          },
-                        )
-                    : undefined
-                }
-              />
+              <BudgetBand week={w} busy={move.isPending} onApplyFix={canEdit ? applyFix : undefined} />
               {preview && preview.weekStart === w.weekStart ? (
                 <div className="absolute inset-x-0 top-0 z-20 shadow-lg">
                   <BudgetBand week={preview} preview />

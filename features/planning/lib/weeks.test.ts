@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import ICAL from "ical.js";
 import { expandDates, rruleText } from "./recurrence";
-import { summariseWeeks, type WeekSession } from "./weeks";
+import { summariseWeeks, type Fix, type WeekSession } from "./weeks";
 
 describe("recurrence (RFC 5545 RRULE via rrule, cross-checked with ical.js)", () => {
   it("a weekly Tuesday/Thursday rule keeps its weekdays across the March daylight-saving change (Europe, 28 March 2027)", () => {
@@ -294,7 +294,7 @@ describe("the one-click fix does no harm", () => {
         },
       ],
       today: "2027-09-01",
-    })[0]!.fix;
+    })[0]!.fixes.find((f) => f.action === "move") as Extract<Fix, { action: "move" }> | undefined;
 
   it("moves a hard session into the next loading week, on a day with no hard session beside it", () => {
     const fix = fixFor(base)!;
@@ -304,15 +304,103 @@ describe("the one-click fix does no harm", () => {
   });
 
   it("never into a taper week (here the next week, and the week before is a taper too)", () => {
-    expect(fixFor(base, "taper")).toBeNull();
+    expect(fixFor(base, "taper")).toBeUndefined();
   });
 
   it("never back to back with a hard session already there", () => {
     const crowded = [...base, hard("b1", "2027-09-15")];
     // Tuesday 14 September (h1 + 7 days) would sit beside Wednesday's hard session, Friday 17 (h2) would break week B's
     // budget, the week before is a taper and a week holding only intervals breaks its own: no fix is offered.
-    expect(fixFor(crowded)).toBeNull();
+    expect(fixFor(crowded)).toBeUndefined();
     // Without Wednesday's session the same move is offered.
     expect(fixFor(base)).toMatchObject({ sessionId: "h1", toDate: "2027-09-14" });
+  });
+});
+
+describe("more kinds of fix (hand computations; budget polarised 80/5/15 ± 5 %)", () => {
+  // Week of 2027-10-04 (no season): two interval sessions of 75 min (40 z1, 35 z3) and two easy hours: 70 of 270 min in
+  // zone 3 = 25.9 % (over 15 + 5 %). The three weeks before hold 300 min each, so the volume ramp (+10 %) allows 330 min.
+  const run = (id: string, date: string, m: [number, number, number]) => ({
+    id,
+    date,
+    title: id,
+    kind: "training",
+    sport: "running",
+    totalS: (m[0] + m[1] + m[2]) * 60,
+    minutesByZone: m,
+  });
+  const before = ["2027-09-13", "2027-09-20", "2027-09-27"].flatMap((w, i) => [
+    run(`p${i}a`, w, [150, 0, 0]),
+    run(
+      `p${i}b`,
+      w.replace(/..$/, (d) => String(Number(d) + 2).padStart(2, "0")),
+      [150, 0, 0],
+    ),
+  ]);
+  const week = [
+    run("i1", "2027-10-05", [40, 0, 35]),
+    run("i2", "2027-10-07", [40, 0, 35]),
+    run("e1", "2027-10-09", [60, 0, 0]),
+    run("e2", "2027-10-10", [60, 0, 0]),
+  ];
+  const summarise = (
+    sessions: typeof week,
+    templates?: Parameters<typeof summariseWeeks>[0]["templates"],
+    today = "2027-10-01",
+  ) =>
+    summariseWeeks({ from: "2027-10-04", to: "2027-10-04", today, sessions: [...before, ...sessions], templates })[0]!;
+
+  it("swaps a hard session for an easier template of the same sport and similar length that keeps the budget", () => {
+    // Swapping one interval session for "Steady 75" (75 min zone 1) gives 35 of 270 min = 13.0 % (within 20 %); a
+    // 40-minute easy template is too short (beyond 25 % of 75 min), a cycling one the wrong sport.
+    const w = summarise(week, [
+      { id: "bike", name: "Easy ride 75", sport: "cycling", totalS: 4500, minutesByZone: [75, 0, 0] },
+      { id: "short", name: "Jog 40", sport: "running", totalS: 2400, minutesByZone: [40, 0, 0] },
+      { id: "steady", name: "Steady 75", sport: "running", totalS: 4500, minutesByZone: [75, 0, 0] },
+    ]);
+    expect(w.overBudget).toBe(true);
+    const swap = w.fixes.find((f) => f.action === "swap");
+    expect(swap).toMatchObject({ action: "swap", templateId: "steady", templateName: "Steady 75" });
+    expect(["i1", "i2"]).toContain((swap as Extract<Fix, { action: "swap" }>).sessionId);
+    // Applying it clears the week.
+    const applied = week.map((s) =>
+      s.id === (swap as Extract<Fix, { action: "swap" }>).sessionId
+        ? { ...s, minutesByZone: [75, 0, 0] as [number, number, number] }
+        : s,
+    );
+    expect(summarise(applied).overBudget).toBe(false);
+  });
+
+  it("adds the shortest easy session on a free day that makes the week keep every rule, the volume ramp included", () => {
+    // 70 / (270 + X) ≤ 20 % needs X ≥ 80 → 90 min (steps of 15), and 360 min breaks the volume ramp (330 min); so does
+    // every longer one: no add. A lighter week, one interval session and one easy hour: 35 of 135 min = 25.9 %;
+    // 35 / (135 + X) ≤ 20 % needs X ≥ 40 → 45 min, on the first free day on or after today.
+    expect(summarise(week).fixes.find((f) => f.action === "add")).toBeUndefined();
+    const light = [week[0]!, week[2]!];
+    const w = summarise(light);
+    expect(w.overBudget).toBe(true);
+    expect(w.fixes.find((f) => f.action === "add")).toMatchObject({
+      action: "add",
+      minutes: 45,
+      sport: "running",
+      date: "2027-10-04",
+    });
+    // Not before today: with today on Wednesday the first free day is Wednesday 6 October.
+    expect(summarise(light, undefined, "2027-10-06").fixes.find((f) => f.action === "add")).toMatchObject({
+      date: "2027-10-06",
+    });
+    // Applied, the week keeps its budget.
+    const added = [...light, run("add", "2027-10-04", [45, 0, 0])];
+    expect(summarise(added).overBudget).toBe(false);
+  });
+
+  it("offers at most two fixes, of different kinds, and the first is the week's fix", () => {
+    const w = summarise(
+      [week[0]!, week[2]!],
+      [{ id: "steady", name: "Steady 75", sport: "running", totalS: 4500, minutesByZone: [75, 0, 0] }],
+    );
+    expect(w.fixes.length).toBeLessThanOrEqual(2);
+    expect(new Set(w.fixes.map((f) => f.action)).size).toBe(w.fixes.length);
+    expect(w.fix).toEqual(w.fixes[0]);
   });
 });

@@ -11,6 +11,18 @@ export interface WeekSession {
   title: string;
   kind: string;
   minutesByZone: Shares;
+  /** The session's sport and length: a swap keeps the sport and a similar length. */
+  sport?: string;
+  totalS?: number;
+}
+
+/** A template a fix may swap a hard session for (the coach's own library). */
+export interface FixTemplate {
+  id: string;
+  name: string;
+  sport: string;
+  totalS: number;
+  minutesByZone: Shares;
 }
 
 export interface SeasonWeekInfo {
@@ -38,13 +50,11 @@ export const LOADING_VOLUME_TOLERANCE = 0.25;
 export const IN_PROGRESS_SHARE = 0.5;
 const SHARE_CODES = new Set(["too_much_high", "too_little_low", "too_much_moderate"]);
 
-export interface Fix {
-  action: "move";
-  sessionId: string;
-  title: string;
-  toDate: string;
-  message: string;
-}
+/** A concrete change that makes a week keep its budget, checked against every rule before it is offered. */
+export type Fix =
+  | { action: "move"; sessionId: string; title: string; toDate: string; message: string }
+  | { action: "swap"; sessionId: string; title: string; templateId: string; templateName: string; message: string }
+  | { action: "add"; date: string; sport: string; minutes: number; title: string; message: string };
 
 export interface WeekSummary {
   weekStart: string;
@@ -61,7 +71,10 @@ export interface WeekSummary {
   overBudget: boolean;
   /** The engine's reasons, each with its numbers (e.g. the minutes of zone 3 to remove). */
   flags: Pick<Breach, "code" | "message" | "numbers">[];
+  /** The best fix (the first of `fixes`). */
   fix: Fix | null;
+  /** Up to two fixes of different kinds, best first: move a hard session, swap it for an easier template, add easy time. */
+  fixes: Fix[];
   block: string | null;
 }
 
@@ -128,6 +141,10 @@ export interface SummariseInput {
   done?: { date: string; minutesByZone: Shares }[];
   /** Propose a fix for over-budget weeks (default); the roster only needs the state. */
   withFix?: boolean;
+  /** Templates a swap may use (the coach's library); without them no swap is proposed. */
+  templates?: FixTemplate[];
+  /** The sport of an added easy session when the week's sessions do not say (the athlete's first sport). */
+  defaultSport?: string;
 }
 
 const seasonWeekIndex = new WeakMap<SeasonWeekInfo[], Map<string, SeasonWeekInfo>>();
@@ -282,14 +299,17 @@ export function summariseWeeks(input: SummariseInput): WeekSummary[] {
       inProgress,
       overBudget: !inProgress && budgetBreaches.length > 0,
       flags: result.breaches.map((b) => ({ code: b.code, message: b.message, numbers: b.numbers })),
-      fix:
-        !inProgress &&
-        input.withFix !== false &&
-        budgetBreaches.some(
-          (b) => b.code !== "volume_ramp" && b.code !== "role_volume" && b.code !== "volume_off_target",
-        )
-          ? proposeFix(w, inWeek, input, weekOf)
-          : null,
+      ...(() => {
+        const fixes =
+          !inProgress &&
+          input.withFix !== false &&
+          budgetBreaches.some(
+            (b) => b.code !== "volume_ramp" && b.code !== "role_volume" && b.code !== "volume_off_target",
+          )
+            ? proposeFixes(w, inWeek, input, weekOf)
+            : [];
+        return { fix: fixes[0] ?? null, fixes };
+      })(),
       block,
     });
   }
@@ -305,12 +325,12 @@ export function isHardSession(s: Pick<WeekSession, "minutesByZone">): boolean {
   return s.minutesByZone[2] >= 10 || s.minutesByZone[1] >= 30;
 }
 
-export function proposeFix(
+function proposeMove(
   weekStart: string,
   inWeek: WeekSession[],
   input: SummariseInput,
   weekOf: WeekOf = indexByWeek(input.sessions),
-): Fix | null {
+): Extract<Fix, { action: "move" }> | null {
   // Never a retest or a race: those are placed on purpose.
   const candidates = inWeek
     .filter((s) => s.kind !== "retest" && s.kind !== "race" && s.kind !== "event")
@@ -362,4 +382,136 @@ export function proposeFix(
     }
   }
   return null;
+}
+
+/** The checks a fix must pass in a week: every rule but an overdue retest (a fix does not place tests). */
+function breachesAfter(week: string, of: WeekOf, input: SummariseInput) {
+  return check(week, of, input, previousTotals(week, of), false).result.breaches.filter(
+    (b) => b.code !== "retest_overdue",
+  );
+}
+
+const hardMinutes = (m: Shares) => m[1] + m[2];
+
+/**
+ * Swap a hard session for an easier template of the same sport and a similar length (within 25 %), the one nearest in
+ * length that makes the week keep every rule. Never a retest or a race.
+ */
+function proposeSwap(
+  weekStart: string,
+  inWeek: WeekSession[],
+  input: SummariseInput,
+  weekOf: WeekOf,
+): Extract<Fix, { action: "swap" }> | null {
+  const templates = input.templates ?? [];
+  if (!templates.length) return null;
+  const candidates = inWeek
+    .filter(
+      (s) =>
+        s.kind !== "retest" &&
+        s.kind !== "race" &&
+        s.kind !== "event" &&
+        s.sport &&
+        s.totalS &&
+        hardMinutes(s.minutesByZone) > 0,
+    )
+    .sort((a, b) => hardMinutes(b.minutesByZone) - hardMinutes(a.minutesByZone));
+  for (const s of candidates) {
+    const options = templates
+      .filter(
+        (t) =>
+          t.sport === s.sport &&
+          hardMinutes(t.minutesByZone) < hardMinutes(s.minutesByZone) &&
+          Math.abs(t.totalS - s.totalS!) <= 0.25 * s.totalS!,
+      )
+      .sort((a, b) => Math.abs(a.totalS - s.totalS!) - Math.abs(b.totalS - s.totalS!));
+    for (const t of options) {
+      const swapped: WeekOf = (w) =>
+        w === weekStart
+          ? weekOf(w).map((x) => (x.id === s.id ? { ...x, minutesByZone: t.minutesByZone, totalS: t.totalS } : x))
+          : weekOf(w);
+      if (breachesAfter(weekStart, swapped, input).length === 0) {
+        return {
+          action: "swap",
+          sessionId: s.id,
+          title: s.title,
+          templateId: t.id,
+          templateName: t.name,
+          message: `Swap "${s.title}" for "${t.name}" (same sport, ${Math.round(t.totalS / 60)} min): the week then keeps its budget.`,
+        };
+      }
+    }
+  }
+  return null;
+}
+
+/**
+ * Add an easy session (zone 1 only) on a free day of the week, not before today: the shortest of 30, 45, … 120 minutes
+ * that makes the week keep every rule, the volume ramp and its target included. Its sport is the week's most common one.
+ */
+function proposeAdd(
+  weekStart: string,
+  inWeek: WeekSession[],
+  input: SummariseInput,
+  weekOf: WeekOf,
+): Extract<Fix, { action: "add" }> | null {
+  const busy = new Set(inWeek.map((s) => s.date));
+  const count = new Map<string, number>();
+  for (const s of inWeek) if (s.sport) count.set(s.sport, (count.get(s.sport) ?? 0) + 1);
+  const sport = [...count].sort((a, b) => b[1] - a[1])[0]?.[0] ?? input.defaultSport;
+  if (!sport) return null;
+  const days = Array.from({ length: 7 }, (_, d) => addDays(weekStart, d)).filter(
+    (d) => !busy.has(d) && d >= input.today,
+  );
+  for (let minutes = 30; minutes <= 120; minutes += 15) {
+    for (const date of days) {
+      const added: WeekSession = {
+        id: "__added",
+        date,
+        title: `Easy ${minutes} min`,
+        kind: "training",
+        minutesByZone: [minutes, 0, 0],
+        sport,
+        totalS: minutes * 60,
+      };
+      const withIt: WeekOf = (w) => (w === weekStart ? [...weekOf(w), added] : weekOf(w));
+      if (breachesAfter(weekStart, withIt, input).length === 0) {
+        return {
+          action: "add",
+          date,
+          sport,
+          minutes,
+          title: added.title,
+          message: `Add an easy ${minutes}-minute session (zone 1) on ${date}: the week then keeps its budget.`,
+        };
+      }
+    }
+  }
+  return null;
+}
+
+/** Up to two fixes of different kinds, best first: moving keeps the training, a swap keeps the day, adding keeps both. */
+export function proposeFixes(
+  weekStart: string,
+  inWeek: WeekSession[],
+  input: SummariseInput,
+  weekOf: WeekOf = indexByWeek(input.sessions),
+): Fix[] {
+  const out: Fix[] = [];
+  for (const f of [proposeMove, proposeSwap, proposeAdd]) {
+    if (out.length >= 2) break;
+    const fix = f(weekStart, inWeek, input, weekOf);
+    if (fix) out.push(fix);
+  }
+  return out;
+}
+
+/** The best fix, or null. */
+export function proposeFix(
+  weekStart: string,
+  inWeek: WeekSession[],
+  input: SummariseInput,
+  weekOf: WeekOf = indexByWeek(input.sessions),
+): Fix | null {
+  return proposeFixes(weekStart, inWeek, input, weekOf)[0] ?? null;
 }

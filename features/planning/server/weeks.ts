@@ -75,6 +75,7 @@ async function loadWeekInputs(
         date: schema.plannedSession.date,
         title: schema.plannedSession.title,
         kind: schema.plannedSession.kind,
+        sport: schema.plannedSession.sport,
         minutesByZone: schema.plannedSession.minutesByZone,
         totalS: schema.plannedSession.totalS,
       })
@@ -142,9 +143,26 @@ async function computeWeekSummaries(athleteId: string, from: string, to: string,
     logsTo: addDays(mondayOf(to), 6),
   });
   const mine = inputs.byAthlete.get(athleteId)!;
+  // The library a swap may draw on: the templates of the athlete's squads (a change to them bumps the athlete's change
+  // counter, migration 0014, so a stored answer never names a changed template).
+  const templates = await getDb()
+    .select({
+      id: schema.sessionTemplate.id,
+      name: schema.sessionTemplate.name,
+      sport: schema.sessionTemplate.sport,
+      totalS: schema.sessionTemplate.totalS,
+      minutesByZone: schema.sessionTemplate.minutesByZone,
+    })
+    .from(schema.sessionTemplate)
+    .innerJoin(
+      schema.membership,
+      and(eq(schema.membership.squadId, schema.sessionTemplate.squadId), eq(schema.membership.role, "athlete")),
+    )
+    .where(eq(schema.membership.userId, athleteId));
   return summariseWeeks({
     from,
     to,
+    templates: templates.map((t) => ({ ...t, minutesByZone: t.minutesByZone as [number, number, number] })),
     sessions: mine.sessions,
     seasonWeeks: mine.seasonWeeks,
     testDates: mine.testDates,
