@@ -30,7 +30,8 @@ export type BreachCode =
   | "too_little_low"
   | "too_much_moderate"
   | "volume_ramp"
-  | "no_easy_day"
+  | "too_many_hard_days"
+  | "back_to_back_hard_days"
   | "retest_overdue"
   | "role_volume"
   | "volume_off_target";
@@ -51,7 +52,17 @@ export interface WeekInput {
   budget: Budget;
   rampCap?: number;
   retestOverdue?: boolean;
+  /** Hard days allowed in the week (default 3) and whether two may follow each other (default no). */
+  hardDays?: { max?: number; backToBack?: boolean };
 }
+
+/** Common practice for endurance training: two or three hard days a week, never two in a row (e.g. Seiler 2010, Int J
+ * Sports Physiol Perform 5:276–291, describes two to three high-intensity sessions a week in successful athletes). */
+export const DEFAULT_MAX_HARD_DAYS = 3;
+/** A day is hard with at least 10 min in zone 3 or 30 min in zone 2; short strides or pick-ups do not make it hard
+ * (common practice; the thresholds are ours). */
+export const HARD_Z3_MIN = 10;
+export const HARD_Z2_MIN = 30;
 
 export interface WeekCheck {
   totalMin: number;
@@ -63,9 +74,9 @@ export interface WeekCheck {
 const pct = (v: number) => Math.round(v * 1000) / 10;
 const r1 = (v: number) => Math.round(v * 10) / 10;
 
-/** A day counts as easy when it has no zone 2 or zone 3 minutes (rest days are easy). */
-export function isEasyDay(day: Shares): boolean {
-  return day[1] === 0 && day[2] === 0;
+/** A hard day: at least HARD_Z3_MIN minutes of zone 3 or HARD_Z2_MIN of zone 2 (strides alone keep a day easy). */
+export function isHardDay(day: Shares): boolean {
+  return day[2] >= HARD_Z3_MIN || day[1] >= HARD_Z2_MIN;
 }
 
 export function checkWeek(input: WeekInput): WeekCheck {
@@ -124,12 +135,27 @@ export function checkWeek(input: WeekInput): WeekCheck {
       });
     }
   }
-  if (input.days && input.days.length === 7 && !input.days.some(isEasyDay)) {
-    breaches.push({
-      code: "no_easy_day",
-      message: "Every day of the week has zone 2 or zone 3 work: plan at least one easy or rest day.",
-      numbers: { easyDays: 0 },
-    });
+  if (input.days && input.days.length === 7) {
+    const hard = input.days.map(isHardDay);
+    const count = hard.filter(Boolean).length;
+    const max = input.hardDays?.max ?? DEFAULT_MAX_HARD_DAYS;
+    if (count > max) {
+      breaches.push({
+        code: "too_many_hard_days",
+        message: `${count} hard days this week (zone 3 for ${HARD_Z3_MIN} min or more, or zone 2 for ${HARD_Z2_MIN} min or more); at most ${max}. Make ${count - max} of them easy or move them to another week.`,
+        numbers: { hardDays: count, maxHardDays: max },
+      });
+    }
+    if (!input.hardDays?.backToBack) {
+      const pairs = hard.map((h, i) => h && hard[i + 1] === true).filter(Boolean).length;
+      if (pairs > 0) {
+        breaches.push({
+          code: "back_to_back_hard_days",
+          message: `${pairs === 1 ? "Two hard days follow each other" : `${pairs} pairs of hard days follow each other`}: put an easy or rest day between hard days.`,
+          numbers: { pairs },
+        });
+      }
+    }
   }
   if (input.retestOverdue) {
     breaches.push({

@@ -114,7 +114,7 @@ describe("weekly intensity budget", () => {
     expect(over.breaches[0]!.numbers).toMatchObject({ risePct: 16.7, referenceMin: 600 });
   });
 
-  it("a week without an easy day and an overdue retest are flagged", () => {
+  it("a week of hard days every day and an overdue retest are flagged", () => {
     const hardDay: [number, number, number] = [60, 5, 10];
     const r = checkWeek({
       minutesByZone: [420, 35, 70],
@@ -122,7 +122,54 @@ describe("weekly intensity budget", () => {
       budget: BUDGET_PRESETS.polarised,
       retestOverdue: true,
     });
-    expect(r.breaches.map((b) => b.code)).toEqual(expect.arrayContaining(["no_easy_day", "retest_overdue"]));
+    expect(r.breaches.map((b) => b.code)).toEqual(
+      expect.arrayContaining(["too_many_hard_days", "back_to_back_hard_days", "retest_overdue"]),
+    );
+    expect(r.breaches.find((b) => b.code === "too_many_hard_days")!.numbers).toEqual({ hardDays: 7, maxHardDays: 3 });
+    expect(r.breaches.find((b) => b.code === "back_to_back_hard_days")!.numbers).toEqual({ pairs: 6 });
+  });
+
+  // Common practice: two or three hard days a week, none back to back; strides do not make a day hard.
+  const week = (days: [number, number, number][]) =>
+    checkWeek({
+      minutesByZone: days.reduce((a, d) => [a[0] + d[0], a[1] + d[1], a[2] + d[2]], [0, 0, 0]),
+      days,
+      budget: BUDGET_PRESETS.pyramidal,
+    })
+      .breaches.map((b) => b.code)
+      .filter((c) => c.includes("hard"));
+  const easy: [number, number, number] = [60, 0, 0];
+  const strides: [number, number, number] = [55, 0, 5];
+  const intervals: [number, number, number] = [45, 0, 20];
+  const tempo: [number, number, number] = [30, 40, 0];
+
+  it("seven easy runs with short strides are not hard days", () => {
+    expect(week([strides, strides, strides, strides, strides, strides, strides])).toEqual([]);
+  });
+
+  it("six interval days in a row are flagged: too many hard days, and back to back", () => {
+    expect(week([intervals, intervals, intervals, intervals, intervals, intervals, easy])).toEqual([
+      "too_many_hard_days",
+      "back_to_back_hard_days",
+    ]);
+  });
+
+  it("three hard days apart pass; two in a row are flagged; a long zone 2 session is a hard day", () => {
+    expect(week([intervals, easy, tempo, easy, intervals, easy, easy])).toEqual([]);
+    expect(week([intervals, tempo, easy, easy, easy, easy, easy])).toEqual(["back_to_back_hard_days"]);
+    // Four hard days (Monday, Wednesday, Friday, Sunday), none in a row within the week.
+    expect(week([intervals, easy, tempo, easy, intervals, easy, tempo])).toEqual(["too_many_hard_days"]);
+  });
+
+  it("the limits can be changed: four hard days, back to back allowed", () => {
+    const days = [intervals, tempo, easy, intervals, tempo, easy, easy];
+    const r = checkWeek({
+      minutesByZone: [210, 80, 40],
+      days,
+      budget: BUDGET_PRESETS.pyramidal,
+      hardDays: { max: 4, backToBack: true },
+    });
+    expect(r.breaches.map((b) => b.code).filter((c) => c.includes("hard"))).toEqual([]);
   });
 });
 

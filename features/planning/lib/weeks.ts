@@ -2,7 +2,15 @@
  * Weekly summaries for the calendar's budget band: planned (and later done) minutes per zone per ISO week, checked against
  * the week's intensity budget, with the reasons and a concrete fix when the week is over budget.
  */
-import { BUDGET_PRESETS, checkWeek, type Breach, type Budget, type BudgetPreset, type Shares } from "./budget";
+import {
+  BUDGET_PRESETS,
+  checkWeek,
+  isHardDay,
+  type Breach,
+  type Budget,
+  type BudgetPreset,
+  type Shares,
+} from "./budget";
 import { addDays, dayNumber, mondayOf } from "@/features/platform/lib/days";
 
 export interface WeekSession {
@@ -190,7 +198,7 @@ function check(
   // A week that holds nothing but its retest is not planned yet: the test alone is no mix of training to judge (common
   // practice: the budget governs training; the test's minutes count once training is planned around it).
   const judged: Shares = inWeek.some((s) => s.kind !== "retest") ? planned : [0, 0, 0];
-  // The easy-day rule applies only to weeks with training on most days; a week of two sessions has easy days by itself.
+  // The hard-day rules (at most three, none back to back: budget.ts) look at each day's minutes.
   const checked = checkWeek({
     minutesByZone: judged,
     days: daysOf(weekStart, inWeek),
@@ -322,7 +330,7 @@ export function summariseWeeks(input: SummariseInput): WeekSummary[] {
  */
 /** A hard session: meaningful zone 3 (10 min or more) or long zone 2 (30 min or more); short strides are not (common practice). */
 export function isHardSession(s: Pick<WeekSession, "minutesByZone">): boolean {
-  return s.minutesByZone[2] >= 10 || s.minutesByZone[1] >= 30;
+  return isHardDay(s.minutesByZone);
 }
 
 function proposeMove(
@@ -335,7 +343,7 @@ function proposeMove(
   const candidates = inWeek
     .filter((s) => s.kind !== "retest" && s.kind !== "race" && s.kind !== "event")
     .sort((a, b) => b.minutesByZone[2] + b.minutesByZone[1] - (a.minutesByZone[2] + a.minutesByZone[1]));
-  // The share and easy-day breaches are what a move can cure; a volume ramp needs shorter sessions instead.
+  // The share and hard-day breaches are what a move can cure; a volume ramp needs shorter sessions instead.
   const curable = (b: Breach) =>
     b.code !== "retest_overdue" &&
     b.code !== "volume_ramp" &&
@@ -349,7 +357,7 @@ function proposeMove(
   const sessionsOn = (of: WeekOf, date: string) => of(mondayOf(date)).filter((x) => x.date === date);
   for (const s of candidates) {
     if (s.minutesByZone[2] + s.minutesByZone[1] === 0) break;
-    // The week without this session: the checks that count here (shares, easy day) do not look at other weeks, so
+    // The week without this session: the checks that count here (shares, hard days) do not look at other weeks, so
     // whether it then keeps its budget does not depend on where the session goes.
     const without: WeekOf = (w) => (w === weekStart ? weekOf(w).filter((x) => x.id !== s.id) : weekOf(w));
     if (breachesOf(weekStart, without).length > 0) continue;
