@@ -2,7 +2,7 @@
 // mark clears. The week is far beyond the demo season, so its budget is the default polarised one (80/5/15 ± 5 %).
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, Page } from "playwright-core";
-import { BASE, dragTemplate, launch, newPage, shot, signIn } from "../support/browser";
+import { accessibilityProblems, BASE, dragTemplate, launch, newPage, shot, signIn } from "../support/browser";
 
 let browser: Browser;
 beforeAll(async () => {
@@ -140,6 +140,7 @@ describe("planning in the browser", () => {
     await page.getByText(`Planned "Endurance ride 2 h" on ${day}.`).waitFor();
     await page.locator(`td.fc-day[data-date="${day}"] .fc-event`, { hasText: "Endurance ride 2 h" }).waitFor();
     await shot(page, "plan-tray-dock");
+    expect(await accessibilityProblems(page)).toEqual([]);
     expect(problems).toEqual([]);
     await page.context().close();
   });

@@ -1,7 +1,7 @@
 // The demo in a real browser: Debian's chromium driven by playwright-core against the production build.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser } from "playwright-core";
-import { BASE, launch, newPage, shot, signIn } from "../support/browser";
+import { accessibilityProblems, BASE, launch, newPage, shot, signIn } from "../support/browser";
 
 let browser: Browser;
 
@@ -23,6 +23,7 @@ describe("demo sign-ins", () => {
     await expect(page.getByRole("heading", { level: 1 }).textContent()).resolves.toBe("Northfold Endurance");
     await expect(page.getByText("Ines Varga").isVisible()).resolves.toBe(true);
     await shot(page, "roster");
+    expect(await accessibilityProblems(page)).toEqual([]);
     expect(problems).toEqual([]);
     await page.context().close();
   });
@@ -33,6 +34,7 @@ describe("demo sign-ins", () => {
     expect(page.url()).toBe(`${BASE}/today`);
     await page.getByRole("heading", { name: "Hello, Ines" }).waitFor();
     await shot(page, "today");
+    expect(await accessibilityProblems(page)).toEqual([]);
     await page.goto(`${BASE}/roster`);
     await page.getByRole("heading", { name: "The roster is for coaches" }).waitFor();
     await expect(page.getByTestId("roster-row").count()).resolves.toBe(0);

@@ -4,7 +4,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser } from "playwright-core";
 import { syntheticRamp } from "@/features/gas-exchange/lib/synthetic-ramp";
-import { launch, newPage, shot, signIn } from "../support/browser";
+import { accessibilityProblems, launch, newPage, shot, signIn } from "../support/browser";
 
 let browser: Browser;
 beforeAll(async () => {
@@ -80,6 +80,7 @@ describe("gas-exchange test in the browser", () => {
     await page.getByText("Saved. The zone set now uses these thresholds").waitFor();
     await page.getByText(`below ${newHr} bpm`).first().waitFor();
     await shot(page, "test-result");
+    expect(await accessibilityProblems(page)).toEqual([]);
     expect(problems).toEqual([]);
     await page.context().close();
 
@@ -90,6 +91,7 @@ describe("gas-exchange test in the browser", () => {
     await athlete.page.getByText(`below ${newHr} bpm`).first().waitFor();
     await expect(athlete.page.getByText(/Cycling · effective from/).count()).resolves.toBe(1);
     await shot(athlete.page, "athlete-zones");
+    expect(await accessibilityProblems(athlete.page)).toEqual([]);
     expect(athlete.problems).toEqual([]);
     await athlete.page.context().close();
   });

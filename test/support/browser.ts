@@ -1,5 +1,6 @@
 /** Shared browser-test helpers: Debian's chromium through playwright-core, and a page that records every problem. */
 import fs from "node:fs";
+import { createRequire } from "node:module";
 import path from "node:path";
 import { chromium, type Browser, type Page } from "playwright-core";
 
@@ -75,6 +76,37 @@ export async function signIn(page: Page, email: string, password = "northfold-de
   await page.getByRole("button", { name: "Sign in" }).click();
   // Signing in lands on /home, which forwards to the role's home page.
   await page.waitForURL((u) => !u.pathname.startsWith("/sign-in") && u.pathname !== "/home");
+}
+
+const require = createRequire(import.meta.url);
+const AXE_SOURCE = fs.readFileSync(require.resolve("axe-core/axe.min.js"), "utf8");
+
+/**
+ * WCAG 2.2 A and AA checks of the page as it is now, with axe-core (injected through the browser's own evaluation, which
+ * the page's content security policy does not govern): every serious or critical violation, one line each, with the
+ * rule, its help text and the first offending elements.
+ */
+export async function accessibilityProblems(page: Page): Promise<string[]> {
+  await page.evaluate(AXE_SOURCE);
+  const violations = (await page.evaluate(async () => {
+    const axe = (
+      window as unknown as { axe: { run: (ctx: Document, opts: unknown) => Promise<{ violations: unknown[] }> } }
+    ).axe;
+    const r = await axe.run(document, {
+      runOnly: { type: "tag", values: ["wcag2a", "wcag2aa", "wcag21a", "wcag21aa", "wcag22aa"] },
+      resultTypes: ["violations"],
+    });
+    return r.violations;
+  })) as { id: string; impact: string | null; help: string; nodes: { target: string[] }[] }[];
+  return violations
+    .filter((v) => v.impact === "serious" || v.impact === "critical")
+    .map(
+      (v) =>
+        `a11y ${v.impact} ${v.id} on ${new URL(page.url()).pathname}: ${v.help} — ${v.nodes
+          .slice(0, 3)
+          .map((n) => n.target.join(" "))
+          .join(", ")}${v.nodes.length > 3 ? ` (+${v.nodes.length - 3} more)` : ""}`,
+    );
 }
 
 export async function shot(page: Page, name: string) {

@@ -121,7 +121,8 @@ export function ScatterChart({
         ref={svgRef}
         viewBox={`0 0 ${W} ${H}`}
         className="w-full touch-none select-none"
-        role="img"
+        // With markers that can be moved the chart is a group of controls, not a picture (an image holds no controls).
+        role={markers.some((m) => m.onMove || m.onStep) ? "group" : "img"}
         aria-labelledby={titleId}
       >
         <rect

@@ -68,6 +68,11 @@ export function PlanCalendar({
   const qc = useQueryClient();
   const { preview, previewFor, clearPreview } = useDragPreview(sessions.data, weeks.data, templates);
 
+  // The calendar's arrow icons are decoration (role img without a name): the buttons carry their names (buttonHints).
+  useEffect(() => {
+    document.querySelectorAll(".tm-calendar .fc-icon").forEach((el) => el.setAttribute("aria-hidden", "true"));
+  });
+
   // A week chosen on the season ribbon arrives as a new initial date while the calendar stays mounted.
   useEffect(() => {
     calendarRef.current?.getApi().gotoDate(initialDate);
@@ -203,7 +208,7 @@ export function PlanCalendar({
 
   const weekList = weeks.data ?? [];
   return (
-    <div className="space-y-6">
+    <div id="plan-calendar" tabIndex={-1} className="space-y-6 focus:outline-none">
       <div className="space-y-3">
         <div className="space-y-2" aria-live="polite">
           {weeks.isPending && range.from ? (
@@ -291,7 +296,12 @@ export function PlanCalendar({
             eventStartEditable={canEdit}
             eventDurationEditable={false}
             events={events}
+            buttonHints={{ prev: "Previous $0", next: "Next $0", today: "This $0" }}
             datesSet={(arg: DatesSetArg) => {
+              // The arrow icons are decoration: the buttons carry their names (buttonHints).
+              document
+                .querySelectorAll(".tm-calendar .fc-icon")
+                .forEach((el) => el.setAttribute("aria-hidden", "true"));
               const from = arg.startStr.slice(0, 10);
               const to = addDays(arg.endStr.slice(0, 10), -1);
               setRange((r) => (r.from === from && r.to === to ? r : { from, to }));

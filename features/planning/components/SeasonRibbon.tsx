@@ -1,13 +1,14 @@
 import Link from "next/link";
 import { BLOCK_LABELS, type BlockName, type SeasonWeek } from "../lib/season";
 
+/** The blocks' own palette (app/globals.css), apart from the zone colours; the competition block is dark with white text. */
 const BLOCK_STYLE: Record<BlockName, string> = {
-  general_preparation: "bg-tide-wash",
-  specific_preparation: "bg-zone-1",
-  pre_competition: "bg-zone-2/40",
-  taper: "bg-paper",
-  competition: "bg-zone-3 text-white",
-  transition: "bg-ground",
+  general_preparation: "bg-block-general",
+  specific_preparation: "bg-block-specific",
+  pre_competition: "bg-block-pre",
+  taper: "bg-block-taper border-dashed",
+  competition: "bg-block-competition text-white",
+  transition: "bg-block-transition",
 };
 
 /** The strip of a season's weeks: block, volume target, budget state and retest marks; a week opens in the calendar. */
@@ -49,13 +50,17 @@ export function SeasonRibbon({
                 href={`/athletes/${athleteId}/plan?week=${w.weekStart}`}
                 className={`block rounded border px-1 py-1 text-center text-[11px] leading-tight ${BLOCK_STYLE[w.block]} ${flags.length ? "border-alert" : "border-rule"}`}
                 title={`Week of ${w.weekStart}: ${BLOCK_LABELS[w.block]}, ${w.role}, ${w.volumeHours} h target${w.retest ? `, retest${w.retestNote ? ` (${w.retestNote})` : ""}` : ""}${w.events.length ? `, ${w.events.join(", ")}` : ""}${flags.length ? ` — ${flags.join("; ")}` : ""}`}
-                aria-label={`Week of ${w.weekStart}, ${BLOCK_LABELS[w.block]}, ${w.volumeHours} hours${w.retest ? ", retest" : ""}${flags.length ? ", over budget" : ""}`}
               >
                 <span className="block num">{w.weekStart.slice(5)}</span>
                 <span className="block num font-semibold">{w.volumeHours} h</span>
                 <span className="block">
                   {w.retest ? "⟳" : "\u00a0"}
                   {flags.length ? <span className="font-bold text-alert">!</span> : null}
+                </span>
+                <span className="sr-only">
+                  : week of {w.weekStart}, {BLOCK_LABELS[w.block]}
+                  {w.retest ? ", retest" : ""}
+                  {flags.length ? ", over budget" : ""}
                 </span>
               </Link>
             </li>

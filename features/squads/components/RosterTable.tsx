@@ -35,6 +35,16 @@ const compare: Record<SortKey, (a: RosterRow, b: RosterRow) => number> = {
   load: (a, b) => Number(!!b.loadFlag) - Number(!!a.loadFlag) || (b.acwr ?? 0) - (a.acwr ?? 0),
 };
 
+/** Which way each column sorts (what the header announces): attention first where a column is a state. */
+const DIRECTION: Record<SortKey, { aria: "ascending" | "descending" | "other"; glyph: string; says: string }> = {
+  name: { aria: "ascending", glyph: "▴", says: "A to Z" },
+  zones: { aria: "descending", glyph: "▾", says: "oldest zones first" },
+  retest: { aria: "ascending", glyph: "▴", says: "overdue first, then soonest" },
+  week: { aria: "other", glyph: "•", says: "over budget first" },
+  compliance: { aria: "ascending", glyph: "▴", says: "least done first" },
+  load: { aria: "descending", glyph: "▾", says: "flagged first, then highest ratio" },
+};
+
 function Fill({ value, label }: { value: number | null; label: string }) {
   if (value === null) return <span className="text-ink-soft">nothing planned</span>;
   const pct = Math.round(value * 100);
@@ -99,14 +109,19 @@ export function RosterTable({ squadId }: { squadId: string }) {
       </p>
     );
   const th = (key: SortKey, label: string) => (
-    <th scope="col" className="py-2 pr-3 font-semibold" aria-sort={sort === key ? "ascending" : "none"}>
+    <th scope="col" className="py-2 pr-3 font-semibold" aria-sort={sort === key ? DIRECTION[key].aria : "none"}>
       <button
         type="button"
         className={`underline-offset-2 hover:underline ${sort === key ? "text-ink" : ""}`}
         onClick={() => setSort(key)}
       >
         {label}
-        {sort === key ? " ▾" : ""}
+        {sort === key ? (
+          <>
+            <span aria-hidden> {DIRECTION[key].glyph}</span>
+            <span className="sr-only"> (sorted: {DIRECTION[key].says})</span>
+          </>
+        ) : null}
       </button>
     </th>
   );

@@ -80,6 +80,12 @@ export default async function PlanPage({
       <ReadinessBanner readiness={ready} athleteId={id} context="plan" />
       {current ? (
         <>
+          <a
+            href="#plan-calendar"
+            className="sr-only focus:not-sr-only focus:inline-block focus:rounded focus:bg-paper focus:p-2"
+          >
+            Skip the season&apos;s weeks to the calendar
+          </a>
           <div className="card">
             <SeasonRibbon athleteId={id} name={current.name} weeks={seasonWeeks} overBudget={overBudget} />
           </div>
