@@ -111,7 +111,9 @@ export const seasonWeekPatchSchema = z
       .max(40, "At most 40 hours a week.")
       .optional(),
     budget: z
-      .enum(["polarised", "pyramidal", "beginner", "recovery"], { error: "Choose an intensity budget." })
+      .enum(["polarised", "polarised_sessions", "pyramidal", "beginner", "recovery"], {
+        error: "Choose an intensity budget.",
+      })
       .optional(),
     retest: z.boolean().optional(),
     /** The season's version as the client read it; an older one answers 409. */

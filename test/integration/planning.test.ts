@@ -294,6 +294,12 @@ describe("sessions and weekly budgets", () => {
       ])
     )[0]!.weeks.find((w) => w.weekStart === plain)!;
     expect(stored.budget).toBe("recovery");
+    // A budget that counts sessions: the week is then judged and shown that way.
+    expect((await edit({ budget: "polarised_sessions" })).status).toBe(200);
+    const counted = (await weeks(plain, plain))[0];
+    expect(counted.budget).toMatchObject({ key: "polarised_sessions", counting: "session" });
+    expect(counted.budget.source).toMatch(/Seiler/);
+    expect((await edit({ budget: "recovery" })).status).toBe(200);
     expect((await edit({ retest: true })).status).toBe(200);
     expect(await retestsIn(plain)).toBe(1); // turning it on twice places one session
     expect((await edit({ retest: false })).status).toBe(200);

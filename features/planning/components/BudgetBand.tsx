@@ -41,8 +41,11 @@ export function BudgetBand({
         <p className="num text-ink-soft">
           {Math.round(total)} min planned · zone 1 {Math.round(week.plannedMinByZone[0])} · zone 2{" "}
           {Math.round(week.plannedMinByZone[1])} · zone 3 {Math.round(week.plannedMinByZone[2])} min ·{" "}
-          {week.budget.name} budget {week.budget.shares.map((s) => Math.round(s * 100)).join("/")} % ±{" "}
-          {Math.round(week.budget.tolerance * 100)}
+          <span title={week.budget.source}>
+            {week.budget.name} budget {week.budget.shares.map((s) => Math.round(s * 100)).join("/")} % ±{" "}
+            {Math.round(week.budget.tolerance * 100)},{" "}
+            {week.budget.counting === "session" ? "counted by session" : "counted by time"}
+          </span>
         </p>
       </div>
       <div

@@ -1,7 +1,7 @@
 "use client";
 import { useQueryClient } from "@tanstack/react-query";
 import { useRouter } from "next/navigation";
-import { useForm } from "react-hook-form";
+import { useForm, useWatch } from "react-hook-form";
 import { FieldError, FormAlert, FormNotice } from "@/features/platform/components/form-bits";
 import { ApiError, apiFetch } from "@/features/platform/lib/api-client";
 import { BUDGET_PRESETS, type BudgetPreset } from "../lib/budget";
@@ -39,7 +39,7 @@ export function SeasonWeekEditor({
 }) {
   const router = useRouter();
   const qc = useQueryClient();
-  const { register, handleSubmit, formState, setError } = useForm<Values>({
+  const { register, handleSubmit, formState, setError, control } = useForm<Values>({
     defaultValues: {
       block: week.block,
       role: week.role,
@@ -48,6 +48,7 @@ export function SeasonWeekEditor({
       retest: week.retest,
     },
   });
+  const chosenBudget = useWatch({ control, name: "budget" });
   const onSubmit = handleSubmit(async (v) => {
     if (!(v.volumeHours >= 0 && v.volumeHours <= 40))
       return setError("volumeHours", { message: "Give 0 to 40 hours." });
@@ -113,10 +114,14 @@ export function SeasonWeekEditor({
           <select className="field-input" {...register("budget")}>
             {Object.entries(BUDGET_PRESETS).map(([k, b]) => (
               <option key={k} value={k}>
-                {b.name} ({b.shares.map((x) => Math.round(x * 100)).join(" / ")} %)
+                {b.name} ({b.shares.map((x) => Math.round(x * 100)).join(" / ")} %,{" "}
+                {b.counting === "session" ? "by session" : "by time"})
               </option>
             ))}
           </select>
+          <span className="mt-1 block text-xs text-ink-soft" data-testid="budget-source">
+            {BUDGET_PRESETS[chosenBudget as BudgetPreset]?.source}
+          </span>
         </label>
         <label className="flex items-center gap-2 self-end pb-2">
           <input type="checkbox" {...register("retest")} /> Retest this week

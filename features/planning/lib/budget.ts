@@ -1,8 +1,11 @@
 /**
- * The intensity budget: a target share of time per zone with a tolerance, and the weekly check of planned or completed
- * minutes against it. Presets: polarised (about 80 % zone 1, mostly zone 3 for the rest; Seiler & Kjerland 2006, shares
- * from memory), pyramidal (intermediate athletes: about 10 % zone 3, 10–15 % zone 2; common practice) and beginner (common
- * practice). The volume ramp cap of 10 % a week is common practice with weak evidence (Buist et al. 2008): a caution.
+ * The intensity budget: a target share per zone with a tolerance, and the weekly check of planned or completed training
+ * against it. A budget counts either time in zone (minutes) or sessions by their goal (a session's goal is its hardest
+ * meaningful zone: zone 3 with 10 min or more of it, zone 2 with 30 min or more, else zone 1); the week is checked the
+ * way its budget counts. Shares reported by session goal are not shares of time: the classic "80/20" of endurance
+ * athletes counts sessions (Seiler & Kjerland 2006, Scand J Med Sci Sports 16:49–56; Seiler 2010, Int J Sports Physiol
+ * Perform 5:276–291), and the same training counted by time in zone puts even more in zone 1. The volume ramp cap of 10 %
+ * a week is common practice with weak evidence (Buist et al. 2008): a caution.
  */
 
 export type Shares = [number, number, number];
@@ -12,14 +15,56 @@ export interface Budget {
   shares: Shares;
   /** Allowed deviation of each share, as a fraction (0.05 = 5 percentage points). */
   tolerance: number;
+  /** What the shares count: minutes in each zone, or sessions by their goal zone. */
+  counting: "time" | "session";
+  /** Where the shares come from, as shown beside the preset. */
+  source: string;
 }
 
 export const BUDGET_PRESETS = {
-  polarised: { name: "Polarised", shares: [0.8, 0.05, 0.15], tolerance: 0.05 },
-  pyramidal: { name: "Pyramidal", shares: [0.77, 0.13, 0.1], tolerance: 0.05 },
-  beginner: { name: "Beginner", shares: [0.9, 0.07, 0.03], tolerance: 0.05 },
-  recovery: { name: "Recovery", shares: [0.97, 0.03, 0], tolerance: 0.03 },
+  polarised: {
+    name: "Polarised",
+    shares: [0.8, 0.05, 0.15],
+    tolerance: 0.05,
+    counting: "time",
+    source: "by time in zone; common practice, after the polarised model of Seiler & Kjerland 2006",
+  },
+  polarised_sessions: {
+    name: "Polarised by session",
+    shares: [0.8, 0, 0.2],
+    tolerance: 0.05,
+    counting: "session",
+    source: "by session goal: about 80 % of sessions easy, 20 % hard (Seiler & Kjerland 2006; Seiler 2010)",
+  },
+  pyramidal: {
+    name: "Pyramidal",
+    shares: [0.77, 0.13, 0.1],
+    tolerance: 0.05,
+    counting: "time",
+    source: "by time in zone; common practice for intermediate athletes",
+  },
+  beginner: {
+    name: "Beginner",
+    shares: [0.9, 0.07, 0.03],
+    tolerance: 0.05,
+    counting: "time",
+    source: "by time in zone; common practice",
+  },
+  recovery: {
+    name: "Recovery",
+    shares: [0.97, 0.03, 0],
+    tolerance: 0.03,
+    counting: "time",
+    source: "by time in zone; common practice for recovery weeks",
+  },
 } as const satisfies Record<string, Budget>;
+
+/** A session's goal zone, for budgets that count sessions (see the module comment). */
+export function sessionGoalZone(minutesByZone: Shares): 1 | 2 | 3 {
+  if (minutesByZone[2] >= HARD_Z3_MIN) return 3;
+  if (minutesByZone[1] >= HARD_Z2_MIN) return 2;
+  return 1;
+}
 
 export type BudgetPreset = keyof typeof BUDGET_PRESETS;
 
@@ -52,6 +97,8 @@ export interface WeekInput {
   budget: Budget;
   rampCap?: number;
   retestOverdue?: boolean;
+  /** Each session's minutes per zone: what a budget counting sessions counts. */
+  sessions?: Shares[];
   /** Hard days allowed in the week (default 3) and whether two may follow each other (default no). */
   hardDays?: { max?: number; backToBack?: boolean };
 }
@@ -79,6 +126,43 @@ export function isHardDay(day: Shares): boolean {
   return day[2] >= HARD_Z3_MIN || day[1] >= HARD_Z2_MIN;
 }
 
+/**
+ * The share checks of a budget that counts sessions: each share may exceed its target by the tolerance, rounded up to
+ * whole sessions (five sessions at 20 % ± 5 allow two hard ones: ceil(0.25 × 5)); zone 1 must reach its share less the
+ * tolerance, rounded down.
+ */
+function sessionShareBreaches(sessions: Shares[], budget: Budget): Breach[] {
+  const n = sessions.length;
+  const count = [0, 0, 0];
+  for (const s of sessions) count[sessionGoalZone(s) - 1]!++;
+  const out: Breach[] = [];
+  const allowed = (z: number) => Math.ceil((budget.shares[z]! + budget.tolerance) * n - 1e-9);
+  const name = budget.name.toLowerCase();
+  if (count[2]! > allowed(2)) {
+    out.push({
+      code: "too_much_high",
+      message: `${count[2]} of ${n} sessions are hard (zone 3); the ${name} budget allows ${allowed(2)} of ${n} (${pct(budget.shares[2] + budget.tolerance)} %). Make ${count[2]! - allowed(2)} of them easy or move them to another week.`,
+      numbers: { sessions: n, hardSessions: count[2]!, allowedSessions: allowed(2) },
+    });
+  }
+  if (count[1]! > allowed(1)) {
+    out.push({
+      code: "too_much_moderate",
+      message: `${count[1]} of ${n} sessions aim at zone 2; the ${name} budget allows ${allowed(1)} of ${n}. Make ${count[1]! - allowed(1)} of them easy, or hard, or move them.`,
+      numbers: { sessions: n, moderateSessions: count[1]!, allowedSessions: allowed(1) },
+    });
+  }
+  const needEasy = Math.floor((budget.shares[0] - budget.tolerance) * n + 1e-9);
+  if (count[0]! < needEasy) {
+    out.push({
+      code: "too_little_low",
+      message: `${count[0]} of ${n} sessions are easy (zone 1); the ${name} budget asks for at least ${needEasy}. Add an easy session or make one easy.`,
+      numbers: { sessions: n, easySessions: count[0]!, neededSessions: needEasy },
+    });
+  }
+  return out;
+}
+
 export function checkWeek(input: WeekInput): WeekCheck {
   const [z1, z2, z3] = input.minutesByZone;
   const total = z1 + z2 + z3;
@@ -86,7 +170,9 @@ export function checkWeek(input: WeekInput): WeekCheck {
   const { budget } = input;
   const tol = budget.tolerance;
   const breaches: Breach[] = [];
-  if (total > 0) {
+  if (budget.counting === "session" && input.sessions?.length) {
+    breaches.push(...sessionShareBreaches(input.sessions, budget));
+  } else if (total > 0) {
     if (shares[2] > budget.shares[2] + tol) {
       // Minutes of zone 3 to remove, or zone 1 minutes to add, to come back within the budget.
       const maxShare = budget.shares[2] + tol;

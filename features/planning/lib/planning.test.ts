@@ -274,3 +274,57 @@ describe("retest placement", () => {
     });
   }
 });
+
+describe("budgets counted by time or by session", () => {
+  // Seiler & Kjerland 2006 and Seiler 2010 count sessions by their goal: about 80 % easy, 20 % hard. Counted by session,
+  // five sessions at 20 % ± 5 allow ceil(0.25 × 5) = 2 hard sessions (hand computation).
+  const easy: [number, number, number] = [60, 0, 0];
+  const hard: [number, number, number] = [40, 0, 30];
+  const strides: [number, number, number] = [55, 0, 5];
+  const minutes = (list: [number, number, number][]) =>
+    list.reduce((a, d) => [a[0] + d[0], a[1] + d[1], a[2] + d[2]], [0, 0, 0]) as [number, number, number];
+  const bySession = (list: [number, number, number][]) =>
+    checkWeek({ minutesByZone: minutes(list), sessions: list, budget: BUDGET_PRESETS.polarised_sessions });
+
+  it("every preset states what it counts and where its shares come from", () => {
+    for (const b of Object.values(BUDGET_PRESETS)) {
+      expect(["time", "session"]).toContain(b.counting);
+      expect(b.source.length).toBeGreaterThan(10);
+    }
+    expect(BUDGET_PRESETS.polarised_sessions.counting).toBe("session");
+  });
+
+  it("two hard sessions of five pass by session, three are flagged with the counts", () => {
+    expect(bySession([hard, easy, hard, easy, easy]).breaches.map((b) => b.code)).toEqual([]);
+    const three = bySession([hard, easy, hard, easy, hard]);
+    expect(three.breaches.map((b) => b.code)).toContain("too_much_high");
+    expect(three.breaches.find((b) => b.code === "too_much_high")!.numbers).toEqual({
+      sessions: 5,
+      hardSessions: 3,
+      allowedSessions: 2,
+    });
+  });
+
+  it("the same week counted by time is judged on minutes instead: two hard sessions of five are 60 of 300 min zone 3", () => {
+    // 60 / 300 = 20 % zone 3: within the polarised-by-time 15 % ± 5 (hand computation).
+    const week = [hard, easy, hard, easy, easy];
+    expect(
+      checkWeek({ minutesByZone: minutes(week), sessions: week, budget: BUDGET_PRESETS.polarised }).breaches,
+    ).toEqual([]);
+    // Three hard sessions: 90 of 330 min = 27.3 %: over by time as well.
+    const three = [hard, easy, hard, easy, hard];
+    expect(
+      checkWeek({ minutesByZone: minutes(three), sessions: three, budget: BUDGET_PRESETS.polarised }).breaches.map(
+        (b) => b.code,
+      ),
+    ).toContain("too_much_high");
+  });
+
+  it("strides do not make a session hard; a session with 30 min of zone 2 aims at zone 2", () => {
+    expect(bySession([strides, strides, strides, strides, strides]).breaches).toEqual([]);
+    const tempo: [number, number, number] = [30, 40, 0];
+    // 0 % zone 2 ± 5 by session: ceil(0.05 × 5) = 1 tempo session allowed, two are flagged.
+    expect(bySession([tempo, easy, easy, easy, easy]).breaches).toEqual([]);
+    expect(bySession([tempo, easy, tempo, easy, easy]).breaches.map((b) => b.code)).toContain("too_much_moderate");
+  });
+});

@@ -69,7 +69,14 @@ export interface WeekSummary {
   plannedMinByZone: Shares;
   doneMinByZone: Shares;
   /** The week's budget: its preset key (what the season stores), display name, zone shares and tolerance. */
-  budget: { key: BudgetPreset; name: string; shares: Shares; tolerance: number };
+  budget: {
+    key: BudgetPreset;
+    name: string;
+    shares: Shares;
+    tolerance: number;
+    counting: "time" | "session";
+    source: string;
+  };
   /** The week's role in its season, when it has one; taper and event weeks are judged on volume, not zone shares. */
   role: WeekRole | null;
   /** The season's volume target for the week, in minutes, when it has one. */
@@ -201,6 +208,8 @@ function check(
   // The hard-day rules (at most three, none back to back: budget.ts) look at each day's minutes.
   const checked = checkWeek({
     minutesByZone: judged,
+    // A budget that counts sessions counts the training sessions (a retest is no session goal to judge).
+    sessions: inWeek.filter((s) => s.kind !== "retest").map((s) => s.minutesByZone),
     days: daysOf(weekStart, inWeek),
     previousWeeksMinutes: previousTotals,
     budget,
@@ -301,7 +310,14 @@ export function summariseWeeks(input: SummariseInput): WeekSummary[] {
           .filter((d) => d.date >= w && d.date < next)
           .map((d) => ({ id: "", date: d.date, title: "", kind: "", minutesByZone: d.minutesByZone })),
       ).map((v) => Math.round(v * 10) / 10) as Shares,
-      budget: { key: preset, name: budget.name, shares: [...budget.shares] as Shares, tolerance: budget.tolerance },
+      budget: {
+        key: preset,
+        name: budget.name,
+        shares: [...budget.shares] as Shares,
+        tolerance: budget.tolerance,
+        counting: budget.counting,
+        source: budget.source,
+      },
       role,
       targetMin: volumeHours !== null ? Math.round(volumeHours * 60) : null,
       inProgress,
