@@ -76,6 +76,7 @@ export const seasonSchema = z.object({
       z.object({
         date: isoDate,
         name: z.string().trim().min(1, "Name the event.").max(80).refine(isSingleLine, SINGLE_LINE_MESSAGE),
+        priority: z.enum(["A", "B", "C"], { error: "The priority is A, B or C." }).default("A"),
       }),
     )
     .min(1, "Give at least one event.")

@@ -198,6 +198,11 @@ describe("the everyday story", () => {
     await c.getByLabel("Start").fill(today);
     await c.getByLabel("Target event").fill("Harbour half marathon");
     await c.getByLabel("Event date").fill(plus(today, 26 * 7));
+    // A second event on the way, of priority B (a short taper, an easier week after).
+    await c.getByRole("button", { name: "Add an event" }).click();
+    await c.getByLabel("Event 2", { exact: true }).fill("Harbour 10 km");
+    await c.getByLabel("Event 2 date").fill(plus(today, 12 * 7));
+    await expect(c.getByLabel("Event 2 priority").inputValue()).resolves.toBe("B");
     await c.getByLabel("Weekly hours now (h)").fill("6");
     await c.getByRole("button", { name: "Generate the season" }).click();
     await c.getByRole("region", { name: /Season ribbon/ }).waitFor();
@@ -214,6 +219,12 @@ describe("the everyday story", () => {
       weeks: { weekStart: string; role: string; budget: string }[];
     }[];
     const sw = seasons[0]!.weeks;
+    // Both events are in the season: the B race week is an event week, the week after it an easier one.
+    const bWeek = sw.findIndex((w) => (w as unknown as { events: string[] }).events.includes("Harbour 10 km"));
+    expect(bWeek).toBeGreaterThan(0);
+    expect(sw[bWeek]!.role).toBe("event");
+    expect(sw[bWeek + 1]!.role).toBe("unloading");
+    expect(sw.some((w) => (w as unknown as { events: string[] }).events.includes("Harbour half marathon"))).toBe(true);
     const at = sw.findIndex(
       (w, i) =>
         i >= 1 &&

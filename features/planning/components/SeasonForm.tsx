@@ -1,7 +1,7 @@
 "use client";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
-import { useForm } from "react-hook-form";
+import { useFieldArray, useForm } from "react-hook-form";
 import { z } from "zod";
 import { SPORT_LABELS, SPORTS } from "@/features/platform/lib/sports";
 import { FieldError, FormAlert } from "@/features/platform/components/form-bits";
@@ -13,8 +13,16 @@ const form = z.object({
   name: z.string().trim().min(2, "Name the season."),
   sport: z.enum(SPORTS),
   startDate: isoDate,
-  eventName: z.string().trim().min(1, "Name the event."),
-  eventDate: isoDate,
+  events: z
+    .array(
+      z.object({
+        name: z.string().trim().min(1, "Name the event."),
+        date: isoDate,
+        priority: z.enum(["A", "B", "C"]),
+      }),
+    )
+    .min(1, "Give at least one event.")
+    .max(8, "At most eight events."),
   weeklyHours: z.number({ error: "Give weekly hours." }).positive("Above 0.").max(40, "At most 40 hours."),
   level: z.enum(["trained", "beginner"]),
   retestEveryWeeks: z.number().int().min(12, "12 to 16 weeks.").max(16, "12 to 16 weeks."),
@@ -23,20 +31,20 @@ type Values = z.infer<typeof form>;
 
 export function SeasonForm({ athleteId, today, sport }: { athleteId: string; today: string; sport: string }) {
   const router = useRouter();
-  const { register, handleSubmit, formState, setError } = useForm<Values>({
+  const { register, handleSubmit, formState, setError, control } = useForm<Values>({
     resolver: zodResolver(form),
     defaultValues: {
       name: "",
       sport: (SPORTS as readonly string[]).includes(sport) ? (sport as Values["sport"]) : "running",
       startDate: today,
-      eventName: "",
-      eventDate: "",
+      events: [{ name: "", date: "", priority: "A" }],
       weeklyHours: 6,
       level: "trained",
       retestEveryWeeks: 12,
     },
   });
   const e = formState.errors;
+  const events = useFieldArray({ control, name: "events" });
   const onSubmit = handleSubmit(async (v) => {
     try {
       await apiFetch(`/api/athletes/${athleteId}/seasons`, {
@@ -45,7 +53,7 @@ export function SeasonForm({ athleteId, today, sport }: { athleteId: string; tod
           name: v.name,
           sport: v.sport,
           startDate: v.startDate,
-          events: [{ date: v.eventDate, name: v.eventName }],
+          events: v.events,
           weeklyHours: v.weeklyHours,
           level: v.level,
           retestEveryWeeks: v.retestEveryWeeks,
@@ -56,7 +64,7 @@ export function SeasonForm({ athleteId, today, sport }: { athleteId: string; tod
       setError("root", { message: err instanceof Error ? err.message : "The season could not be created." });
     }
   });
-  const field = (name: keyof Values, label: string, type = "text", extra: object = {}) => (
+  const field = (name: Exclude<keyof Values, "events">, label: string, type = "text", extra: object = {}) => (
     <div>
       <label htmlFor={`season-${name}`} className="field-label">
         {label}
@@ -90,8 +98,68 @@ export function SeasonForm({ athleteId, today, sport }: { athleteId: string; tod
         </select>
       </div>
       {field("startDate", "Start", "date")}
-      {field("eventName", "Target event")}
-      {field("eventDate", "Event date", "date")}
+      <fieldset className="space-y-2 sm:col-span-3">
+        <legend className="field-label">
+          Events (A: the goal, full taper and recovery; B: short taper; C: trained through)
+        </legend>
+        {events.fields.map((f, i) => {
+          const label =
+            i === 0
+              ? { name: "Target event", date: "Event date", priority: "Priority" }
+              : { name: `Event ${i + 1}`, date: `Event ${i + 1} date`, priority: `Event ${i + 1} priority` };
+          const err = e.events?.[i];
+          return (
+            <div key={f.id} className="grid gap-2 sm:grid-cols-[2fr_1fr_1fr_auto]">
+              <div>
+                <label htmlFor={`season-event-${i}-name`} className="field-label">
+                  {label.name}
+                </label>
+                <input id={`season-event-${i}-name`} className="field-input" {...register(`events.${i}.name`)} />
+                <FieldError id={`season-event-${i}-name-e`} message={err?.name?.message} />
+              </div>
+              <div>
+                <label htmlFor={`season-event-${i}-date`} className="field-label">
+                  {label.date}
+                </label>
+                <input
+                  id={`season-event-${i}-date`}
+                  type="date"
+                  className="field-input num"
+                  {...register(`events.${i}.date`)}
+                />
+                <FieldError id={`season-event-${i}-date-e`} message={err?.date?.message} />
+              </div>
+              <div>
+                <label htmlFor={`season-event-${i}-priority`} className="field-label">
+                  {label.priority}
+                </label>
+                <select id={`season-event-${i}-priority`} className="field-input" {...register(`events.${i}.priority`)}>
+                  <option value="A">A: the goal</option>
+                  <option value="B">B: important</option>
+                  <option value="C">C: trained through</option>
+                </select>
+              </div>
+              <div className="flex items-end">
+                {events.fields.length > 1 ? (
+                  <button type="button" className="btn-quiet py-1 text-sm" onClick={() => events.remove(i)}>
+                    Remove
+                  </button>
+                ) : null}
+              </div>
+            </div>
+          );
+        })}
+        {events.fields.length < 8 ? (
+          <button
+            type="button"
+            className="btn-quiet py-1 text-sm"
+            onClick={() => events.append({ name: "", date: "", priority: "B" })}
+          >
+            Add an event
+          </button>
+        ) : null}
+        <FieldError id="season-events-e" message={e.events?.message ?? e.events?.root?.message} />
+      </fieldset>
       {field("weeklyHours", "Weekly hours now (h)", "number", { step: "0.5" })}
       <div>
         <label htmlFor="season-level" className="field-label">
@@ -110,7 +178,8 @@ export function SeasonForm({ athleteId, today, sport }: { athleteId: string; tod
       </div>
       <p className="text-xs text-ink-soft sm:col-span-3">
         Weekly volume rises at most 10 % over recent weeks (a common caution with weak evidence, not a law), with 3
-        loading weeks then 1 unloading week, a taper before the event and retests in unloading weeks.
+        loading weeks then 1 unloading week, a taper before each A event and a recovery week after it, a shorter taper
+        for B events, none for C events, and retests in unloading weeks.
       </p>
     </form>
   );

@@ -328,3 +328,68 @@ describe("budgets counted by time or by session", () => {
     expect(bySession([tempo, easy, tempo, easy, easy]).breaches.map((b) => b.code)).toContain("too_much_moderate");
   });
 });
+
+describe("several events with priorities A, B and C (common practice; A tapers after Mujika & Padilla 2003)", () => {
+  // Season from Monday 4 January 2027; events in weeks 12 (29 March), 20 (24 May) and 26 (5 July).
+  const plan = (p: ("A" | "B" | "C")[]) =>
+    planSeason({
+      startDate: "2027-01-04",
+      weeklyHours: 8,
+      events: [
+        { date: "2027-03-31", name: "Spring race", priority: p[0] },
+        { date: "2027-05-26", name: "Summer race", priority: p[1] },
+        { date: "2027-07-07", name: "Goal race", priority: p[2] },
+      ],
+    });
+  const at = (weeks: ReturnType<typeof plan>, start: string) => weeks.find((w) => w.weekStart === start)!;
+
+  it("every A event gets a taper before it and a recovery week after it", () => {
+    const weeks = plan(["A", "A", "A"]);
+    for (const [race, before, after] of [
+      ["2027-03-29", "2027-03-22", "2027-04-05"],
+      ["2027-05-24", "2027-05-17", "2027-05-31"],
+    ]) {
+      expect(at(weeks, race!).role).toBe("event");
+      expect(at(weeks, before!).role).toBe("taper");
+      expect(at(weeks, after!).role).toBe("recovery");
+      expect(at(weeks, after!).volumeHours).toBeLessThan(at(weeks, before!).volumeHours);
+    }
+    expect(at(weeks, "2027-07-05").role).toBe("event");
+    expect(at(weeks, "2027-07-12").block).toBe("transition");
+  });
+
+  it("a B event tapers inside its own week (no taper week before) and is followed by an easier week", () => {
+    const weeks = plan(["A", "B", "A"]);
+    const race = at(weeks, "2027-05-24"),
+      before = at(weeks, "2027-05-17"),
+      after = at(weeks, "2027-05-31");
+    expect(race.role).toBe("event");
+    expect(race.events).toEqual(["Summer race"]);
+    expect(before.role).not.toBe("taper");
+    expect(after.role).toBe("unloading");
+    // Its week keeps more volume than an A race week (70 % against 45 % of the last loading week).
+    expect(race.volumeHours).toBeGreaterThan(at(weeks, "2027-03-29").volumeHours);
+  });
+
+  it("a C event is trained through: its week keeps its ordinary role and lists the race", () => {
+    const weeks = plan(["C", "A", "A"]);
+    const race = at(weeks, "2027-03-29");
+    expect(["loading", "unloading"]).toContain(race.role);
+    expect(race.events).toEqual(["Spring race"]);
+    expect(at(weeks, "2027-03-22").role).not.toBe("taper");
+    expect(at(weeks, "2027-04-05").role).not.toBe("recovery");
+  });
+
+  it("an event without a priority is an A event (seasons saved before priorities read the same)", () => {
+    const weeks = planSeason({
+      startDate: "2027-01-04",
+      weeklyHours: 8,
+      events: [
+        { date: "2027-03-31", name: "Race" },
+        { date: "2027-05-26", name: "Race 2" },
+      ],
+    });
+    expect(at(weeks, "2027-03-22").role).toBe("taper");
+    expect(at(weeks, "2027-04-05").role).toBe("recovery");
+  });
+});

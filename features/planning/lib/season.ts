@@ -24,9 +24,20 @@ export const BLOCK_LABELS: Record<BlockName, string> = {
   transition: "Transition",
 };
 
+/**
+ * How much a season bends to an event (common practice of periodised plans; the taper lengths follow the taper
+ * meta-analyses of Mujika & Padilla 2003 and Bosquet et al. 2007 for A events):
+ * - A: the goal: a full taper (two weeks when there is room for eight weeks of preparation, else one) and a recovery week
+ *   after it;
+ * - B: a short taper inside the event week (its volume reduced) and an easier week after it;
+ * - C: trained through: the week keeps its role; the race is a hard session of that week.
+ */
+export type EventPriority = "A" | "B" | "C";
+
 export interface SeasonInput {
   startDate: string;
-  events: { date: string; name: string }[];
+  /** The season's events; the priority says how much the season bends to each (default A). */
+  events: { date: string; name: string; priority?: EventPriority }[];
   weeklyHours: number;
   level?: "trained" | "beginner";
   loadingWeeks?: 2 | 3;
@@ -90,17 +101,43 @@ export function planSeason(input: SeasonInput): SeasonWeek[] {
 
   const block: BlockName[] = new Array(total);
   const role: SeasonWeek["role"][] = new Array(total);
+  /** The priority of the event each event week holds (B events taper inside their week). */
+  const eventPriority: (EventPriority | undefined)[] = new Array(total);
   let previousEvent = -1;
+  let previousPriority: EventPriority | null = null;
+  let firstMain = true;
   for (let e = 0; e < eventWeeks.length; e++) {
     const ev = eventWeeks[e]!;
-    const room = ev - previousEvent - 1;
-    const taper = room >= 8 ? 2 : room >= 3 ? 1 : 0;
+    const priority = events[e]!.priority ?? "A";
+    if (ev === previousEvent) {
+      // Two events in one week: the week is the higher-priority one's (already placed, or placed now).
+      if (priority === "A" && previousPriority !== "A") role[ev] = "event";
+      continue;
+    }
+    // After an A event: a recovery week; after a B event: an unloading week (when the next event leaves room).
+    let prepStart = previousEvent + 1;
+    if (previousEvent >= 0 && previousPriority !== "C" && prepStart < ev) {
+      block[prepStart] = "transition";
+      role[prepStart] = previousPriority === "A" ? "recovery" : "unloading";
+      prepStart++;
+    }
+    if (priority === "C") {
+      // Trained through: the week is an ordinary week of its block; the race is one of its sessions.
+      previousEvent = ev;
+      previousPriority = "C";
+      for (let w = prepStart; w <= ev; w++)
+        if (!block[w]) block[w] = firstMain ? "general_preparation" : "specific_preparation";
+      continue;
+    }
+    const room = ev - prepStart;
+    const taper = priority === "A" ? (room >= 8 ? 2 : room >= 3 ? 1 : 0) : 0;
     const prepEnd = ev - taper; // exclusive
-    const prepStart = previousEvent + 1;
     const prep = prepEnd - prepStart;
     for (let w = prepStart; w < prepEnd; w++) {
+      if (block[w]) continue; // a C event's week already placed
       const f = (w - prepStart) / Math.max(1, prep);
-      if (e === 0) block[w] = f < 0.55 ? "general_preparation" : f < 0.85 ? "specific_preparation" : "pre_competition";
+      if (firstMain)
+        block[w] = f < 0.55 ? "general_preparation" : f < 0.85 ? "specific_preparation" : "pre_competition";
       else block[w] = f < 0.7 ? "specific_preparation" : "pre_competition";
     }
     for (let w = prepEnd; w < ev; w++) {
@@ -109,7 +146,10 @@ export function planSeason(input: SeasonInput): SeasonWeek[] {
     }
     block[ev] = "competition";
     role[ev] = "event";
+    eventPriority[ev] = priority;
     previousEvent = ev;
+    previousPriority = priority;
+    firstMain = false;
   }
   for (let w = previousEvent + 1; w < total; w++) {
     block[w] = "transition";
@@ -148,7 +188,8 @@ export function planSeason(input: SeasonInput): SeasonWeek[] {
         break;
       }
       case "event":
-        v = lastLoading * 0.45;
+        // A: the race week after a full taper; B: a short taper inside the week (common practice).
+        v = lastLoading * (eventPriority[w] === "B" ? 0.7 : 0.45);
         break;
       default:
         v = lastLoading * 0.4;
