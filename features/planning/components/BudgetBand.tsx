@@ -36,6 +36,12 @@ export function BudgetBand({
               · {week.role === "taper" ? "taper" : "race week"}: intensity kept, judged on volume
             </span>
           ) : null}
+          {week.rebuild ? (
+            <span className="font-normal text-ink-soft">
+              {" "}
+              · back after a break: week {week.rebuild.week} of {week.rebuild.of}, at most {week.rebuild.limitMin} min
+            </span>
+          ) : null}
           {preview ? <span className="ml-2 text-tide">preview of the drop</span> : null}
         </p>
         <p className="num text-ink-soft">

@@ -79,7 +79,8 @@ export type BreachCode =
   | "back_to_back_hard_days"
   | "retest_overdue"
   | "role_volume"
-  | "volume_off_target";
+  | "volume_off_target"
+  | "return_after_break";
 
 export interface Breach {
   code: BreachCode;

@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import ICAL from "ical.js";
 import { expandDates, rruleText } from "./recurrence";
+import { addDays } from "@/features/platform/lib/days";
 import { summariseWeeks, type Fix, type WeekSession } from "./weeks";
 
 describe("recurrence (RFC 5545 RRULE via rrule, cross-checked with ical.js)", () => {
@@ -402,5 +403,81 @@ describe("more kinds of fix (hand computations; budget polarised 80/5/15 ± 5 %)
     expect(w.fixes.length).toBeLessThanOrEqual(2);
     expect(new Set(w.fixes.map((f) => f.action)).size).toBe(w.fixes.length);
     expect(w.fix).toEqual(w.fixes[0]);
+  });
+});
+
+describe("volume after a break (common practice: rebuild over about as many weeks as were missed)", () => {
+  // Weeks from Monday 1 March 2027; today is Monday 5 April. Each week planned at 300 min (five 60-min runs).
+  const weekOf = (monday: string, min = 60) =>
+    [0, 1, 2, 3, 4].map((d) => ({
+      id: `${monday}-${d}`,
+      date: addDays(monday, d),
+      title: "Run",
+      kind: "training",
+      minutesByZone: [min, 0, 0] as [number, number, number],
+    }));
+  const mondays = [
+    "2027-02-01",
+    "2027-02-08",
+    "2027-02-15",
+    "2027-02-22",
+    "2027-03-01",
+    "2027-03-08",
+    "2027-03-15",
+    "2027-03-22",
+    "2027-03-29",
+  ];
+  const planned = mondays.flatMap((m) => weekOf(m));
+  const doneWeek = (monday: string, min = 60) =>
+    weekOf(monday, min).map((s) => ({ date: s.date, minutesByZone: s.minutesByZone }));
+  const summarise = (
+    done: { date: string; minutesByZone: [number, number, number]; totalMin?: number }[],
+    sessions = planned,
+    week = "2027-04-05",
+  ) =>
+    summariseWeeks({
+      from: week,
+      to: week,
+      today: "2027-04-05",
+      sessions: [...sessions, ...weekOf(week)],
+      done,
+      doneFrom: "2027-02-01",
+    })[0]!;
+
+  it("five weeks ill (planned, nothing done) and then a full week back is flagged, with its limit", () => {
+    // Done: four weeks of 300 min (February), then nothing in the five weeks of March. The week of 5 April is the first
+    // back (j = 1 of m = 5): at most max(30 %, 1/5) of 300 = 90 min; 300 min are planned (hand computation).
+    const done = ["2027-02-01", "2027-02-08", "2027-02-15", "2027-02-22"].flatMap((m) => doneWeek(m));
+    const w = summarise(done);
+    expect(w.rebuild).toEqual({ week: 1, of: 5, referenceMin: 300, limitMin: 90 });
+    expect(w.flags.find((f) => f.code === "return_after_break")!.numbers).toMatchObject({
+      limitMin: 90,
+      plannedMin: 300,
+    });
+    expect(w.overBudget).toBe(true);
+    // The same plan with every week done: no break, no flag.
+    const allDone = mondays.flatMap((m) => doneWeek(m));
+    expect(summarise(allDone).rebuild).toBeNull();
+    expect(summarise(allDone).flags.map((f) => f.code)).not.toContain("return_after_break");
+  });
+
+  it("the ramp compares with what was done: after weeks done at half the plan, a full week breaks the 10 % cap", () => {
+    // March weeks planned at 300 min, done at 150 (half: not missed). 300 over a reference of 150 is +100 %.
+    const done = mondays.flatMap((m) => doneWeek(m, m >= "2027-03-01" ? 30 : 60));
+    const w = summarise(done);
+    expect(w.rebuild).toBeNull();
+    expect(w.flags.find((f) => f.code === "volume_ramp")!.numbers).toMatchObject({ referenceMin: 150 });
+  });
+
+  it("logged time without zones still counts as done (a run logged as 60 min, no recording)", () => {
+    const done = mondays.flatMap((m) =>
+      weekOf(m).map((s) => ({ date: s.date, minutesByZone: [0, 0, 0] as [number, number, number], totalMin: 60 })),
+    );
+    expect(summarise(done).rebuild).toBeNull();
+  });
+
+  it("a single missed week is no break", () => {
+    const done = mondays.filter((m) => m !== "2027-03-29").flatMap((m) => doneWeek(m));
+    expect(summarise(done).rebuild).toBeNull();
   });
 });

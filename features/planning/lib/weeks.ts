@@ -91,6 +91,8 @@ export interface WeekSummary {
   /** Up to two fixes of different kinds, best first: move a hard session, swap it for an easier template, add easy time. */
   fixes: Fix[];
   block: string | null;
+  /** A week of the return after a break: which week back, of how many missed, and its volume limit. */
+  rebuild: { week: number; of: number; referenceMin: number; limitMin: number } | null;
 }
 
 function minutesOf(sessions: WeekSession[]): Shares {
@@ -115,12 +117,92 @@ function indexByWeek(sessions: WeekSession[]): WeekOf {
 }
 
 /** Total minutes of the four weeks before a week, oldest first. */
-function previousTotals(weekStart: string, weekOf: WeekOf): number[] {
-  return [4, 3, 2, 1].map((k) => {
-    const m = minutesOf(weekOf(addDays(weekStart, -7 * k)));
-    return m[0] + m[1] + m[2];
-  });
+const doneIndex = new WeakMap<object, Map<string, number>>();
+
+/** Minutes done per ISO week (by Monday), from the logs given. */
+function doneByWeek(input: SummariseInput): Map<string, number> {
+  const done = input.done ?? [];
+  let m = doneIndex.get(done);
+  if (!m) {
+    m = new Map();
+    for (const d of done) {
+      const w = mondayOf(d.date);
+      // The time logged counts even when its zones are not known (a log without a recording or plan).
+      m.set(w, (m.get(w) ?? 0) + (d.totalMin ?? d.minutesByZone[0] + d.minutesByZone[1] + d.minutesByZone[2]));
+    }
+    doneIndex.set(done, m);
+  }
+  return m;
 }
+
+/** Whether a week has ended and its logs are known: then what was done counts, not what was planned. */
+function doneCounts(week: string, input: SummariseInput): boolean {
+  return (
+    input.done !== undefined &&
+    input.doneFrom !== undefined &&
+    week >= input.doneFrom &&
+    addDays(week, 7) <= input.today
+  );
+}
+
+/** A week's volume as the volume checks see it: done for weeks that have ended (logs known), planned otherwise. */
+function weekVolume(week: string, weekOf: WeekOf, input: SummariseInput): number {
+  if (doneCounts(week, input)) return doneByWeek(input).get(week) ?? 0;
+  const m = minutesOf(weekOf(week));
+  return m[0] + m[1] + m[2];
+}
+
+function previousTotals(weekStart: string, weekOf: WeekOf, input: SummariseInput): number[] {
+  return [4, 3, 2, 1].map((k) => weekVolume(addDays(weekStart, -7 * k), weekOf, input));
+}
+
+/** A week missed (ill, injured, away): ended, and under a quarter of its plan done, or under 30 min with nothing planned.
+ * Two or more in a row are a break (common practice; the thresholds are ours). */
+const MISSED_SHARE = 0.25;
+const MISSED_MIN = 30;
+
+function isMissed(week: string, weekOf: WeekOf, input: SummariseInput): boolean {
+  if (!doneCounts(week, input)) return false;
+  const done = doneByWeek(input).get(week) ?? 0;
+  const p = minutesOf(weekOf(week));
+  const planned = p[0] + p[1] + p[2];
+  return planned > 0 ? done < MISSED_SHARE * planned : done < MISSED_MIN;
+}
+
+/**
+ * Return after a break (common practice: rebuild over about as many weeks as were missed): after m ≥ 2 missed weeks, the
+ * j-th week back (j < m) stays under j / m (at least 30 %) of the biggest week done in the four weeks before the break.
+ */
+export function rebuildAfterBreak(
+  weekStart: string,
+  weekOf: WeekOf,
+  input: SummariseInput,
+): { week: number; of: number; referenceMin: number; limitMin: number } | null {
+  if (!input.done || !input.doneFrom) return null;
+  for (let j = 1; j <= 16; j++) {
+    // Weeks between the break and this one (j − 1 of them) are the return so far; the week before them ends the break.
+    let m = 0;
+    while (m < 16 && isMissed(addDays(weekStart, -7 * (j + m)), weekOf, input)) m++;
+    if (m === 0) continue;
+    if (m < 2 || j >= m) return null;
+    const before = [1, 2, 3, 4]
+      .map((k) => addDays(weekStart, -7 * (j + m - 1 + k)))
+      .filter((w) => doneCounts(w, input));
+    const referenceMin = Math.max(0, ...before.map((w) => doneByWeek(input).get(w) ?? 0));
+    if (referenceMin <= 0) return null;
+    return {
+      week: j,
+      of: m,
+      referenceMin: Math.round(referenceMin),
+      limitMin: Math.floor(referenceMin * Math.max(0.3, j / m)),
+    };
+  }
+  return null;
+}
+
+/** How far back the volume checks look (the ramp's four weeks and a break with its reference): loaders fetch plans and
+ * logs from this many days before the first week they summarise, and pass that Monday as `doneFrom`. */
+export const VOLUME_HISTORY_DAYS = 56;
 
 /** Minutes per zone of each day of the week, Monday first. */
 function daysOf(weekStart: string, sessions: WeekSession[]): Shares[] {
@@ -153,7 +235,9 @@ export interface SummariseInput {
    * Required: the engine never reads a clock. */
   today: string;
   /** What was done (logged minutes per zone by day), shown beside the plan; it does not change the budget check. */
-  done?: { date: string; minutesByZone: Shares }[];
+  done?: { date: string; minutesByZone: Shares; totalMin?: number }[];
+  /** From this Monday on, `done` holds every log: weeks that have ended since count what was done in the volume checks. */
+  doneFrom?: string;
   /** Propose a fix for over-budget weeks (default); the roster only needs the state. */
   withFix?: boolean;
   /** Templates a swap may use (the coach's library); without them no swap is proposed. */
@@ -215,8 +299,31 @@ function check(
     budget,
     retestOverdue,
   });
-  const result = role ? judgeByRole(checked, role, judged, volumeHours) : checked;
-  return { inWeek, planned, preset, budget, block, role, volumeHours, result };
+  const byRole = role ? judgeByRole(checked, role, judged, volumeHours) : checked;
+  const rebuild = rebuildAfterBreak(weekStart, weekOf, input);
+  const total = judged[0] + judged[1] + judged[2];
+  const result =
+    rebuild && total > rebuild.limitMin
+      ? {
+          ...byRole,
+          ok: false,
+          breaches: [
+            ...byRole.breaches,
+            {
+              code: "return_after_break" as const,
+              message: `Week ${rebuild.week} back after ${rebuild.of} weeks with little or no training: rebuild over about as many weeks as were missed. Keep this week under ${rebuild.limitMin} min (${Math.round((100 * rebuild.limitMin) / rebuild.referenceMin)} % of the ${rebuild.referenceMin} min before the break); ${Math.round(total)} min are planned.`,
+              numbers: {
+                week: rebuild.week,
+                missedWeeks: rebuild.of,
+                limitMin: rebuild.limitMin,
+                referenceMin: rebuild.referenceMin,
+                plannedMin: Math.round(total),
+              },
+            },
+          ],
+        }
+      : byRole;
+  return { inWeek, planned, preset, budget, block, role, volumeHours, result, rebuild };
 }
 
 /** Role rules (see ROLE_VOLUME_TOLERANCE): taper and event weeks drop the zone-share checks; the reduced weeks get a volume check. */
@@ -288,9 +395,9 @@ export function summariseWeeks(input: SummariseInput): WeekSummary[] {
   const weekOf = indexByWeek(input.sessions);
   for (let w = first; w <= last; w = addDays(w, 7)) {
     const next = addDays(w, 7);
-    const previous = previousTotals(w, weekOf);
+    const previous = previousTotals(w, weekOf, input);
     const overdue = isRetestOverdue(w, input) && w <= input.today;
-    const { inWeek, planned, preset, budget, block, role, volumeHours, result } = check(
+    const { inWeek, planned, preset, budget, block, role, volumeHours, result, rebuild } = check(
       w,
       weekOf,
       input,
@@ -328,13 +435,18 @@ export function summariseWeeks(input: SummariseInput): WeekSummary[] {
           !inProgress &&
           input.withFix !== false &&
           budgetBreaches.some(
-            (b) => b.code !== "volume_ramp" && b.code !== "role_volume" && b.code !== "volume_off_target",
+            (b) =>
+              b.code !== "volume_ramp" &&
+              b.code !== "role_volume" &&
+              b.code !== "volume_off_target" &&
+              b.code !== "return_after_break",
           )
             ? proposeFixes(w, inWeek, input, weekOf)
             : [];
         return { fix: fixes[0] ?? null, fixes };
       })(),
       block,
+      rebuild,
     });
   }
   return out;
@@ -364,12 +476,15 @@ function proposeMove(
     b.code !== "retest_overdue" &&
     b.code !== "volume_ramp" &&
     b.code !== "role_volume" &&
-    b.code !== "volume_off_target";
+    b.code !== "volume_off_target" &&
+    b.code !== "return_after_break";
   const breachesOf = (week: string, of: WeekOf) =>
-    check(week, of, input, previousTotals(week, of), false).result.breaches.filter(curable);
+    check(week, of, input, previousTotals(week, of, input), false).result.breaches.filter(curable);
   // The week it lands in is checked against every rule, the volume ramp and its target included.
   const everyBreachOf = (week: string, of: WeekOf) =>
-    check(week, of, input, previousTotals(week, of), false).result.breaches.filter((b) => b.code !== "retest_overdue");
+    check(week, of, input, previousTotals(week, of, input), false).result.breaches.filter(
+      (b) => b.code !== "retest_overdue",
+    );
   const sessionsOn = (of: WeekOf, date: string) => of(mondayOf(date)).filter((x) => x.date === date);
   for (const s of candidates) {
     if (s.minutesByZone[2] + s.minutesByZone[1] === 0) break;
@@ -410,7 +525,7 @@ function proposeMove(
 
 /** The checks a fix must pass in a week: every rule but an overdue retest (a fix does not place tests). */
 function breachesAfter(week: string, of: WeekOf, input: SummariseInput) {
-  return check(week, of, input, previousTotals(week, of), false).result.breaches.filter(
+  return check(week, of, input, previousTotals(week, of, input), false).result.breaches.filter(
     (b) => b.code !== "retest_overdue",
   );
 }

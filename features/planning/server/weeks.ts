@@ -7,7 +7,13 @@ import { HttpError } from "@/features/platform/server/http";
 import { localDate } from "@/features/platform/lib/dates";
 import { addDays, mondayOf } from "@/features/platform/lib/days";
 import { logZoneMinutes } from "@/features/load/lib/report";
-import { summariseWeeks, type SeasonWeekInfo, type WeekSession, type WeekSummary } from "../lib/weeks";
+import {
+  summariseWeeks,
+  VOLUME_HISTORY_DAYS,
+  type SeasonWeekInfo,
+  type WeekSession,
+  type WeekSummary,
+} from "../lib/weeks";
 import { athleteMembershipsAndGeneration, cachedAnswer, storeAnswer } from "./week-cache";
 
 /** Weekly summaries against the budgets: one athlete's weeks (the planner's band) and one week of a whole squad. */
@@ -53,7 +59,7 @@ interface AthleteWeekInputs {
   sessions: (WeekSession & { totalS: number })[];
   seasonWeeks: SeasonWeekInfo[];
   testDates: string[];
-  done: { date: string; minutesByZone: Zones }[];
+  done: { date: string; minutesByZone: Zones; totalMin?: number }[];
 }
 
 /**
@@ -126,6 +132,7 @@ async function loadWeekInputs(
   for (const l of logs) {
     out.get(l.athleteId)?.done.push({
       date: l.date,
+      totalMin: l.status === "skipped" ? 0 : (l.durationMin ?? undefined),
       minutesByZone:
         logZoneMinutes(l, l.plannedSessionId ? plannedById.get(l.plannedSessionId) : undefined) ?? ([0, 0, 0] as Zones),
     });
@@ -137,9 +144,9 @@ async function loadWeekInputs(
 async function computeWeekSummaries(athleteId: string, from: string, to: string, today: string) {
   // Four weeks before the range (the volume ramp compares with them) and two beyond it (a fix may move a session there).
   const inputs = await loadWeekInputs([athleteId], {
-    sessionsFrom: addDays(mondayOf(from), -28),
+    sessionsFrom: addDays(mondayOf(from), -VOLUME_HISTORY_DAYS),
     sessionsTo: addDays(mondayOf(to), 6 + 14),
-    logsFrom: mondayOf(from),
+    logsFrom: addDays(mondayOf(from), -VOLUME_HISTORY_DAYS),
     logsTo: addDays(mondayOf(to), 6),
   });
   const mine = inputs.byAthlete.get(athleteId)!;
@@ -167,6 +174,7 @@ async function computeWeekSummaries(athleteId: string, from: string, to: string,
     seasonWeeks: mine.seasonWeeks,
     testDates: mine.testDates,
     done: mine.done,
+    doneFrom: addDays(mondayOf(from), -VOLUME_HISTORY_DAYS),
     today,
   });
 }
@@ -206,7 +214,12 @@ export async function squadWeek(actor: Actor, squadId: string, weekStart: string
   if (!athletes.length) return [];
   const { byAthlete, logStatusOf } = await loadWeekInputs(
     athletes.map((a) => a.id),
-    { sessionsFrom: addDays(monday, -28), sessionsTo: sunday, logsFrom: monday, logsTo: sunday },
+    {
+      sessionsFrom: addDays(monday, -VOLUME_HISTORY_DAYS),
+      sessionsTo: sunday,
+      logsFrom: addDays(monday, -VOLUME_HISTORY_DAYS),
+      logsTo: sunday,
+    },
   );
   const now = new Date();
   return athletes.map((a) => {
@@ -220,6 +233,7 @@ export async function squadWeek(actor: Actor, squadId: string, weekStart: string
       // The athlete's own day, as on the roster.
       today: localDate(now, timeZoneOf.get(a.id)!),
       done: own.done,
+      doneFrom: addDays(monday, -VOLUME_HISTORY_DAYS),
       withFix: false,
     });
     return {

@@ -3,9 +3,9 @@
  * week's budget state, the last four weeks' compliance, the load flag and zone drift. Pure; the server loads the rows.
  */
 import { driftAcrossSports } from "@/features/load/lib/drift";
-import { latestLoad, type ReportLog, type ReportPlanned } from "@/features/load/lib/report";
+import { latestLoad, logZoneMinutes, type ReportLog, type ReportPlanned } from "@/features/load/lib/report";
 import { mondayOf } from "@/features/platform/lib/days";
-import { summariseWeeks, type SeasonWeekInfo } from "@/features/planning/lib/weeks";
+import { summariseWeeks, VOLUME_HISTORY_DAYS, type SeasonWeekInfo } from "@/features/planning/lib/weeks";
 import { addDays } from "@/features/platform/lib/days";
 import { readiness, type ReadinessInput, type ReadinessStatus } from "@/features/athlete-tests/lib/readiness";
 
@@ -80,10 +80,15 @@ export function rosterRow(input: RosterInput): RosterRow {
     retestNote = `The zones are from ${latestSet}, more than ${RETEST_DUE_WEEKS} weeks ago.`;
   } else if (!latestSet) retestNote = "No zones yet: a first test is due.";
 
+  // What was done, as the planner's weeks count it (one truth): measured minutes, or the plan's scaled to the time
+  // logged; the time logged counts for volume even when its zones are not known.
+  const plannedById = new Map(input.sessions.map((s) => [s.id, s]));
   const done = input.logs.map((l) => ({
     date: l.date,
+    totalMin: l.status === "skipped" ? 0 : (l.durationMin ?? undefined),
     minutesByZone:
-      l.status === "skipped" ? ([0, 0, 0] as [number, number, number]) : (l.measuredMinByZone ?? [0, 0, 0]),
+      logZoneMinutes(l, l.plannedSessionId ? plannedById.get(l.plannedSessionId) : undefined) ??
+      ([0, 0, 0] as [number, number, number]),
   }));
   const [week] = summariseWeeks({
     from: monday,
@@ -93,6 +98,7 @@ export function rosterRow(input: RosterInput): RosterRow {
     testDates: lastTest ? input.testDates : [],
     today,
     done,
+    doneFrom: addDays(monday, -VOLUME_HISTORY_DAYS),
     withFix: false,
   });
   const latest = latestLoad(input.logs, today, input.firstLogDate);

@@ -6,7 +6,7 @@ import { forbidden, notFound } from "@/features/platform/server/http";
 import { localDate } from "@/features/platform/lib/dates";
 import type { ReportLog } from "@/features/load/lib/report";
 import { mondayOf } from "@/features/platform/lib/days";
-import { type SeasonWeekInfo } from "@/features/planning/lib/weeks";
+import { VOLUME_HISTORY_DAYS, type SeasonWeekInfo } from "@/features/planning/lib/weeks";
 import { addDays } from "@/features/platform/lib/days";
 import { rosterRow, type RosterRow } from "../lib/roster";
 import { readinessInputs } from "@/features/athlete-tests/server";
@@ -143,7 +143,7 @@ async function computeRows(
       select p.id, p.athlete_id as "athleteId", p.date, p.title, p.kind, p.total_s as "totalS", p.minutes_by_zone as "minutesByZone"
       from planned_session p
       where p.athlete_id in ${ids}
-        and ((p.date between ${addDays(monday, -28)} and ${addDays(monday, 13)}) or (p.kind = 'retest' and p.date >= ${addDays(today, -181)}))`),
+        and ((p.date between ${addDays(monday, -VOLUME_HISTORY_DAYS)} and ${addDays(monday, 13)}) or (p.kind = 'retest' and p.date >= ${addDays(today, -181)}))`),
     db.execute<LogRow>(sql`
       select l.athlete_id as "athleteId", l.date, l.status, l.duration_min as "durationMin", l.rpe, l.measured_min_by_zone as "measuredMinByZone", l.trimp,
         l.planned_session_id as "plannedSessionId", l.sport, l.hr_avg_bpm as "hrAvgBpm", l.power_avg_w as "powerAvgW", l.speed_avg_kmh as "speedAvgKmh"
