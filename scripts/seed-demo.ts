@@ -308,7 +308,10 @@ export async function seedDemo(): Promise<boolean> {
     for (const person of DEMO_PEOPLE) people.set(person.email, await account(person.name, person.email, passwordHash));
     await account(DEMO_ADMIN.name, DEMO_ADMIN.email, passwordHash, true);
     const coachId = people.get("coach@northfold.test")!;
-    const { id: squadId } = await createSquad(await actorForUser(coachId), DEMO_SQUAD_NAME);
+    // The demo brings its own library instead of the starter templates.
+    const { id: squadId } = await createSquad(await actorForUser(coachId), DEMO_SQUAD_NAME, {
+      starterTemplates: false,
+    });
     // Invitations are an e-mail round trip; the demo's members join directly.
     for (const person of DEMO_PEOPLE.filter((p) => p.role !== "head_coach"))
       await db.insert(schema.membership).values({ squadId, userId: people.get(person.email)!, role: person.role });

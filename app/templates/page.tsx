@@ -1,8 +1,7 @@
 import Link from "next/link";
 import { coachedSquadIds } from "@/features/access/lib/rules";
 import { requirePageActor } from "@/features/access/server/current";
-import { TemplateBuilder } from "@/features/planning/components/TemplateBuilder";
-import { TemplateList } from "@/features/planning/components/TemplateList";
+import { TemplatesWorkspace } from "@/features/planning/components/TemplatesWorkspace";
 import { listTemplates } from "@/features/planning/server/templates";
 
 export const metadata = { title: "Session templates" };
@@ -26,13 +25,7 @@ export default async function TemplatesPage() {
   return (
     <div className="space-y-6">
       <h1 className="text-2xl font-bold">Session templates</h1>
-      <TemplateList templates={templates} />
-      <section className="card space-y-3" aria-labelledby="new-tpl">
-        <h2 id="new-tpl" className="text-lg font-bold">
-          Build a template
-        </h2>
-        <TemplateBuilder squadId={squads[0]!} />
-      </section>
+      <TemplatesWorkspace squadId={squads[0]!} templates={templates} />
     </div>
   );
 }

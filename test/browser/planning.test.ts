@@ -145,6 +145,32 @@ describe("planning in the browser", () => {
     await page.context().close();
   });
 
+  it("a coach edits a template in the builder at the top of the templates page", async () => {
+    const { page, problems } = await newPage(browser);
+    await signIn(page, "coach@northfold.test");
+    await page.goto(`${BASE}/templates`);
+    // A copy to edit, so that the demo's own template stays as it is for the other tests.
+    const card = page.getByTestId("template-card").filter({ hasText: "Recovery jog 30 min" }).first();
+    await card.getByRole("button", { name: "Duplicate" }).click();
+    const copy = page.getByTestId("template-card").filter({ hasText: "Recovery jog 30 min (copy)" }).first();
+    await copy.waitFor();
+    await copy.getByRole("button", { name: "Edit" }).click();
+    await page.getByRole("heading", { name: 'Edit "Recovery jog 30 min (copy)"' }).waitFor();
+    await expect(page.getByLabel("Name").inputValue()).resolves.toBe("Recovery jog 30 min (copy)");
+    const name = `Shakeout jog ${Date.now() % 100000}`;
+    await page.getByLabel("Name").fill(name);
+    await page.getByRole("button", { name: "Save the changes" }).click();
+    await page.getByRole("heading", { name: "Build a template" }).waitFor();
+    await page.getByTestId("template-card").filter({ hasText: name }).waitFor();
+    expect(await accessibilityProblems(page)).toEqual([]);
+    await shot(page, "templates-edit");
+    // Clean up: the copy goes again.
+    await page.getByTestId("template-card").filter({ hasText: name }).getByRole("button", { name: "Delete" }).click();
+    await page.getByTestId("template-card").filter({ hasText: name }).waitFor({ state: "detached" });
+    expect(problems).toEqual([]);
+    await page.context().close();
+  });
+
   it("a move made on a session someone else has just changed shows the conflict and the calendar reloads", async () => {
     const { page, problems } = await newPage(browser);
     await signIn(page, "coach@northfold.test");

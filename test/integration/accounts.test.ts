@@ -50,6 +50,20 @@ describe("accounts, squads and invitations", () => {
     const s = await head.call(squadsRoute, "POST", "/api/squads", { body: { name: "Harbour Squad" } });
     expect(s.status).toBe(201);
     squadId = s.json.id;
+    // A new squad starts with the starter templates (planning/lib/starter-templates.ts): every sport has some.
+    const starters = await query<{ sport: string; n: number }>(
+      `select sport, count(*)::int as n from session_template where squad_id = $1 group by sport`,
+      [squadId],
+    );
+    expect(starters.map((r) => r.sport).sort()).toEqual([
+      "cross_country_skiing",
+      "cycling",
+      "rowing",
+      "running",
+      "swimming",
+      "triathlon",
+      "walking",
+    ]);
 
     await otherHead.signUp("Olaf Other", "olaf@example.test");
     otherSquadId = (await otherHead.call(squadsRoute, "POST", "/api/squads", { body: { name: "Other Squad" } })).json

@@ -252,37 +252,86 @@ export function StructureFields({
   );
 }
 
-export function TemplateBuilder({ squadId }: { squadId: string }) {
+/** A saved template opened in the builder to be changed. */
+export interface TemplateToEdit {
+  id: string;
+  version: number;
+  name: string;
+  sport: string;
+  description: string;
+  structure: Block[];
+}
+
+export function TemplateBuilder({
+  squadId,
+  editing,
+  onDone,
+}: {
+  squadId: string;
+  editing?: TemplateToEdit | null;
+  onDone?: () => void;
+}) {
   const router = useRouter();
+  const editBlocks = editing ? fromStructure(editing.structure) : null;
   const { register, control, handleSubmit, formState, setError, reset } = useForm<Values>({
     resolver: zodResolver(formSchema),
-    defaultValues: {
-      name: "",
-      sport: "running",
-      description: "",
-      blocks: [
-        { times: 1, steps: [{ kind: "warmup", amount: 15, unit: "min", zone: 1 }] },
-        {
-          times: 5,
-          steps: [
-            { kind: "work", amount: 4, unit: "min", zone: 3 },
-            { kind: "recovery", amount: 3, unit: "min", zone: 1 },
-          ],
-        },
-        { times: 1, steps: [{ kind: "cooldown", amount: 10, unit: "min", zone: 1 }] },
-      ],
-    },
+    defaultValues:
+      editing && editBlocks
+        ? {
+            name: editing.name,
+            sport: (SPORTS as readonly string[]).includes(editing.sport)
+              ? (editing.sport as Values["sport"])
+              : "running",
+            description: editing.description,
+            blocks: editBlocks,
+          }
+        : {
+            name: "",
+            sport: "running",
+            description: "",
+            blocks: [
+              { times: 1, steps: [{ kind: "warmup", amount: 15, unit: "min", zone: 1 }] },
+              {
+                times: 5,
+                steps: [
+                  { kind: "work", amount: 4, unit: "min", zone: 3 },
+                  { kind: "recovery", amount: 3, unit: "min", zone: 1 },
+                ],
+              },
+              { times: 1, steps: [{ kind: "cooldown", amount: 10, unit: "min", zone: 1 }] },
+            ],
+          },
   });
   const onSubmit = handleSubmit(async (v) => {
     const s = structureSchema.safeParse(toStructure(v));
     if (!s.success) return setError("root", { message: s.error.issues[0]!.message });
     try {
-      await apiFetch("/api/templates", {
-        method: "POST",
-        body: JSON.stringify({ squadId, name: v.name, sport: v.sport, description: v.description, structure: s.data }),
-      });
-      reset();
+      if (editing) {
+        await apiFetch(`/api/templates/${encodeURIComponent(editing.id)}`, {
+          method: "PATCH",
+          body: JSON.stringify({
+            name: v.name,
+            sport: v.sport,
+            description: v.description,
+            structure: s.data,
+            version: editing.version,
+          }),
+        });
+      } else {
+        await apiFetch("/api/templates", {
+          method: "POST",
+          body: JSON.stringify({
+            squadId,
+            name: v.name,
+            sport: v.sport,
+            description: v.description,
+            structure: s.data,
+          }),
+        });
+        reset();
+      }
       router.refresh();
+      onDone?.();
     } catch (err) {
       setError("root", { message: err instanceof Error ? err.message : "Saving failed." });
     }
@@ -317,10 +366,23 @@ export function TemplateBuilder({ squadId }: { squadId: string }) {
           <input id="tpl-desc" className="field-input" {...register("description")} />
         </div>
       </div>
+      {editing && !editBlocks ? (
+        <p className="text-sm text-alert">
+          This template nests repeats inside repeats, which the builder cannot show; duplicate it and rebuild the steps
+          instead.
+        </p>
+      ) : null}
       <StructureFields control={control} register={register} />
-      <SubmitButton className="btn" disabled={formState.isSubmitting}>
-        {formState.isSubmitting ? "Saving…" : "Save the template"}
-      </SubmitButton>
+      <div className="flex flex-wrap gap-2">
+        <SubmitButton className="btn" disabled={formState.isSubmitting || (!!editing && !editBlocks)}>
+          {formState.isSubmitting ? "Saving…" : editing ? "Save the changes" : "Save the template"}
+        </SubmitButton>
+        {editing ? (
+          <button type="button" className="btn-quiet" onClick={() => onDone?.()}>
+            Stop editing
+          </button>
+        ) : null}
+      </div>
     </form>
   );
 }

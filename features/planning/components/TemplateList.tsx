@@ -15,9 +15,10 @@ interface Row {
   totalS: number;
   minutesByZone: [number, number, number];
   structure: unknown[];
+  version: number;
 }
 
-export function TemplateList({ templates }: { templates: Row[] }) {
+export function TemplateList({ templates, onEdit }: { templates: Row[]; onEdit?: (t: Row) => void }) {
   const router = useRouter();
   const [q, setQ] = useState("");
   const [error, setError] = useState<string>();
@@ -48,7 +49,7 @@ export function TemplateList({ templates }: { templates: Row[] }) {
       <FormAlert>{error}</FormAlert>
       {shown.length === 0 ? (
         <p className="text-ink-soft">
-          {templates.length ? "No template matches the search." : "No templates yet: build the first one below."}
+          {templates.length ? "No template matches the search." : "No templates yet: build the first one above."}
         </p>
       ) : null}
       <ul className="grid gap-3 md:grid-cols-2">
@@ -67,6 +68,11 @@ export function TemplateList({ templates }: { templates: Row[] }) {
             </p>
             <SessionProfile structure={t.structure as Block[]} />
             <div className="flex gap-3 text-sm">
+              {onEdit ? (
+                <button type="button" className="text-tide underline" onClick={() => onEdit(t)}>
+                  Edit
+                </button>
+              ) : null}
               <button
                 type="button"
                 className="text-tide underline"

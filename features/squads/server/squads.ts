@@ -6,6 +6,8 @@ import { requireSquadManager, type SignedInActor } from "@/features/access/serve
 import { coachedSquadIds, type Actor } from "@/features/access/lib/rules";
 import { sendInvitation } from "@/features/messages/server";
 import { HttpError, notFound } from "@/features/platform/server/http";
+import { expand } from "@/features/planning/lib/session";
+import { STARTER_TEMPLATES } from "@/features/planning/lib/starter-templates";
 import { ROLE_LABELS, type InviteInput } from "../schemas";
 
 const INVITATION_DAYS = 14;
@@ -31,12 +33,31 @@ export async function describeMe(actor: SignedInActor) {
   };
 }
 
-/** Creates a squad; its creator becomes its head coach. */
-export async function createSquad(actor: Actor, name: string) {
+/** Creates a squad with the starter templates (planning/lib/starter-templates.ts); its creator becomes its head coach.
+ * One transaction. */
+export async function createSquad(actor: Actor, name: string, opts: { starterTemplates?: boolean } = {}) {
   const id = randomUUID();
   await getDb().transaction(async (tx) => {
     await tx.insert(schema.squad).values({ id, name });
     await tx.insert(schema.membership).values({ squadId: id, userId: actor.userId, role: "head_coach" });
+    if (opts.starterTemplates !== false) {
+      await tx.insert(schema.sessionTemplate).values(
+        STARTER_TEMPLATES.map((t) => {
+          const e = expand(t.structure);
+          return {
+            id: randomUUID(),
+            squadId: id,
+            name: t.name,
+            sport: t.sport,
+            description: t.description,
+            structure: t.structure,
+            totalS: Math.round(e.totalS),
+            minutesByZone: e.minutesByZone.map((m) => Math.round(m * 10) / 10) as [number, number, number],
+            createdBy: actor.userId,
+          };
+        }),
+      );
+    }
   });
   return { id, name };
 }
