@@ -15,11 +15,23 @@ import { totals } from "./sessions";
 
 /** Seasons: generate one with its retest sessions, edit a week of it, list an athlete's seasons. */
 
+/**
+ * The retest a season places: an incremental test in 3-minute stages from easy to hard, the shape a talk test or a field
+ * ramp needs to find both thresholds (a steady block in one zone cannot locate a zone edge). Stages of a few minutes as in
+ * the talk-test studies of Foster and colleagues (from memory); a laboratory ramp follows the laboratory's own protocol.
+ */
 const RETEST_STRUCTURE: Block[] = [
   { type: "step", kind: "warmup", durationS: 600, zone: 1 },
-  { type: "step", kind: "work", durationS: 900, zone: 2 },
+  { type: "step", kind: "work", durationS: 180, zone: 1 },
+  { type: "step", kind: "work", durationS: 180, zone: 1 },
+  { type: "step", kind: "work", durationS: 180, zone: 2 },
+  { type: "step", kind: "work", durationS: 180, zone: 2 },
+  { type: "step", kind: "work", durationS: 180, zone: 3 },
+  { type: "step", kind: "work", durationS: 180, zone: 3 },
   { type: "step", kind: "cooldown", durationS: 600, zone: 1 },
 ];
+const RETEST_NOTES =
+  "Retest to keep the zones in step with fitness: 3-minute stages, each a little harder, until speaking is no longer comfortable (a talk test) or as the laboratory's protocol says. Answer the readiness questions first; stop at any warning sign.";
 
 /** Generates a season and places its retest sessions (Wednesday of each retest week); one transaction. */
 export async function createSeason(actor: Actor, athleteId: string, input: z.infer<typeof seasonSchema>) {
@@ -60,11 +72,11 @@ export async function createSeason(actor: Actor, athleteId: string, input: z.inf
         date: addDays(w.weekStart, 2),
         kind: "retest",
         sport: input.sport,
-        title: "Retest: threshold test",
+        title: "Retest: stepped threshold test",
         structure: RETEST_STRUCTURE,
         ...totals(RETEST_STRUCTURE),
         createdBy: actor.userId,
-        notes: "Retest to keep the zones in step with fitness. Answer the readiness questions first.",
+        notes: RETEST_NOTES,
       });
     }
   });
@@ -131,11 +143,11 @@ export async function updateSeasonWeek(
           date: addDays(weekStart, 2),
           kind: "retest",
           sport: row.sport,
-          title: "Retest: threshold test",
+          title: "Retest: stepped threshold test",
           structure: RETEST_STRUCTURE,
           ...totals(RETEST_STRUCTURE),
           createdBy: actor.userId,
-          notes: "Retest to keep the zones in step with fitness. Answer the readiness questions first.",
+          notes: RETEST_NOTES,
         });
       }
     } else if (!after.retest && before.retest) {
