@@ -222,13 +222,8 @@ export const DEMO_PEOPLE: DemoPerson[] = [
 
 export const DEMO_SQUAD_NAME = "Northfold Endurance";
 
-export const st = (kind: "warmup" | "work" | "recovery" | "cooldown", min: number, zone: 1 | 2 | 3): Block => ({
-  type: "step",
-  kind,
-  durationS: min * 60,
-  zone,
-});
-export const rep = (times: number, ...steps: Block[]): Block => ({ type: "repeat", times, steps });
+export { step as st, repeat as rep } from "../features/planning/lib/starter-templates";
+import { step as st, repeat as rep } from "../features/planning/lib/starter-templates";
 
 export const DEMO_TEMPLATES: { key: string; name: string; sport: Sport; description: string; structure: Block[] }[] = [
   {

@@ -22,7 +22,7 @@ import { jsonTestSchema, screeningSchema, testMetaSchema } from "../features/ath
 import { saveScreening } from "../features/athlete-tests/server/screening";
 import { createGasExchangeTest, createJsonTest } from "../features/athlete-tests/server/tests";
 import { updateAthleteProfile } from "../features/athletes/server/profile";
-import { syntheticRamp } from "../features/gas-exchange/lib/synthetic-ramp";
+import { mulberry32, syntheticRamp } from "../features/gas-exchange/lib/synthetic-ramp";
 import { logSchema, unplannedLogSchema } from "../features/logs/schemas";
 import { logPlannedSession, logUnplannedSession, updateLog } from "../features/logs/server/logs";
 import { flatten, type Block } from "../features/planning/lib/session";
@@ -47,18 +47,6 @@ import {
   type DemoPerson,
   type DemoTest,
 } from "./demo-data";
-
-/** A deterministic pseudo-random number in [0, 1) (mulberry32), so that the demo is the same on every machine. */
-function rng(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 const utcToday = () => new Date().toISOString().slice(0, 10);
 const daysAgo = (n: number) => addDays(utcToday(), -n);
@@ -180,7 +168,7 @@ function recording(date: string, hour: number, sport: string, seconds: FitSecond
  * the cyclist's as recordings whose heart rate at the same power creeps up in the last three weeks (the demo's zone drift).
  */
 async function seedLogs(person: DemoPerson, athleteId: string) {
-  const random = rng(20261201 + DEMO_PEOPLE.indexOf(person));
+  const random = mulberry32(20261201 + DEMO_PEOPLE.indexOf(person));
   const athlete = await actorForUser(athleteId);
   const profile = person.profile!;
   const today = localDate(new Date(), profile.timeZone);

@@ -3,12 +3,11 @@ import { useRouter } from "next/navigation";
 import { useMemo, useState } from "react";
 import { ScatterChart, type Marker } from "@/features/charts/components/ScatterChart";
 import { valuesAt } from "@/features/gas-exchange/lib/analyze";
-import type { Breath } from "@/features/gas-exchange/lib/csv";
 import { FormAlert, FormNotice } from "@/features/platform/components/form-bits";
 import { mmss } from "@/features/platform/lib/format";
 import { patchThresholds } from "../api";
+import { fromRows, type PointRow } from "../lib/records";
 
-type PointRow = [number, number, number, number, number | null, number | null, number | null];
 interface Values {
   timeS?: number | null;
   vo2MlMin?: number | null;
@@ -44,19 +43,6 @@ const METHOD_NAMES: Record<string, string> = {
   "ve-vco2-slope": "VE–VCO2 slope",
   "ve-vco2-ratio": "VE/VCO2 rise",
 };
-
-function toBreaths(rows: PointRow[]): Breath[] {
-  return rows.map(([timeS, vo2MlMin, vco2MlMin, veLMin, hrBpm, powerW, speedKmh]) => ({
-    timeS,
-    vo2MlMin,
-    vco2MlMin,
-    veLMin,
-    hrBpm,
-    powerW,
-    speedKmh,
-    rfPerMin: null,
-  }));
-}
 
 function ThresholdCard({
   label,
@@ -142,7 +128,7 @@ function ThresholdCard({
 
 export function GasExchangeResult(p: GasExchangeResultProps) {
   const router = useRouter();
-  const points = useMemo(() => toBreaths(p.rows), [p.rows]);
+  const points = useMemo(() => fromRows(p.rows), [p.rows]);
   const exercise = useMemo(
     () => points.filter((b) => b.timeS >= p.onsetS && b.timeS <= p.endS),
     [points, p.onsetS, p.endS],

@@ -160,6 +160,15 @@ export interface Expansion {
 }
 
 /** Totals of a structure; distance steps are timed from `speedKmhByZone` when known. */
+/** A structure's stored totals: whole seconds, and minutes per zone to a tenth (what templates and sessions keep). */
+export function storedTotals(structure: Block[]): { totalS: number; minutesByZone: [number, number, number] } {
+  const e = expand(structure);
+  return {
+    totalS: Math.round(e.totalS),
+    minutesByZone: e.minutesByZone.map((m) => Math.round(m * 10) / 10) as [number, number, number],
+  };
+}
+
 export function expand(blocks: Block[], speedKmhByZone: Partial<Record<1 | 2 | 3, number>> = {}): Expansion {
   const steps = flatten(blocks);
   const secondsByZone: [number, number, number] = [0, 0, 0];

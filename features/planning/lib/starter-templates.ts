@@ -6,13 +6,14 @@
 import type { Sport } from "@/features/platform/lib/sports";
 import type { Block } from "./session";
 
-const step = (kind: "warmup" | "work" | "recovery" | "cooldown", min: number, zone: 1 | 2 | 3): Block => ({
+/** One timed step and a repeat group: shorthands for writing structures by hand. */
+export const step = (kind: "warmup" | "work" | "recovery" | "cooldown", min: number, zone: 1 | 2 | 3): Block => ({
   type: "step",
   kind,
   durationS: min * 60,
   zone,
 });
-const repeat = (times: number, ...steps: Block[]): Block => ({ type: "repeat", times, steps });
+export const repeat = (times: number, ...steps: Block[]): Block => ({ type: "repeat", times, steps });
 
 export interface StarterTemplate {
   name: string;

@@ -8,10 +8,9 @@ import type { Actor } from "@/features/access/lib/rules";
 import { editConflict, HttpError, notFound } from "@/features/platform/server/http";
 import { addDays } from "@/features/platform/lib/days";
 import { planSeason, SeasonError, type SeasonWeek } from "../lib/season";
-import type { Block } from "../lib/session";
+import { storedTotals, type Block } from "../lib/session";
 import type { seasonSchema, seasonWeekPatchSchema } from "../schemas";
 import { seasonView } from "../lib/views";
-import { totals } from "./sessions";
 
 /** Seasons: generate one with its retest sessions, edit a week of it, list an athlete's seasons. */
 
@@ -74,7 +73,7 @@ export async function createSeason(actor: Actor, athleteId: string, input: z.inf
         sport: input.sport,
         title: "Retest: stepped threshold test",
         structure: RETEST_STRUCTURE,
-        ...totals(RETEST_STRUCTURE),
+        ...storedTotals(RETEST_STRUCTURE),
         createdBy: actor.userId,
         notes: RETEST_NOTES,
       });
@@ -145,7 +144,7 @@ export async function updateSeasonWeek(
           sport: row.sport,
           title: "Retest: stepped threshold test",
           structure: RETEST_STRUCTURE,
-          ...totals(RETEST_STRUCTURE),
+          ...storedTotals(RETEST_STRUCTURE),
           createdBy: actor.userId,
           notes: RETEST_NOTES,
         });

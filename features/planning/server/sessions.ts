@@ -10,21 +10,13 @@ import { addDays } from "@/features/platform/lib/days";
 import { zoneSetInForce } from "@/features/zones/lib/zones";
 import { zoneSetsOf } from "@/features/zones/server";
 import { expandDates, rruleText } from "../lib/recurrence";
-import { expand, type Block } from "../lib/session";
+import { storedTotals, type Block } from "../lib/session";
 import type { createSessionSchema, patchSessionSchema } from "../schemas";
 import { plannedSessionView } from "../lib/views";
 
 /** Planned sessions: list, create (one or a weekly series), move and edit, delete, copy; the next retest. */
 
 type Tx = Pick<Database, "insert" | "update" | "select" | "delete">;
-
-export function totals(structure: Block[]) {
-  const e = expand(structure);
-  return {
-    totalS: Math.round(e.totalS),
-    minutesByZone: e.minutesByZone.map((m) => Math.round(m * 10) / 10) as [number, number, number],
-  };
-}
 
 export async function listSessions(actor: Actor, athleteId: string, from: string, to: string) {
   await requireAthleteAccess(actor, athleteId, "view");
@@ -145,7 +137,7 @@ export async function createSession(actor: Actor, athleteId: string, input: z.in
       ids.push(id);
       await tx
         .insert(schema.plannedSession)
-        .values({ id, athleteId, date, seriesId, createdBy: actor.userId, ...base, ...totals(base.structure) });
+        .values({ id, athleteId, date, seriesId, createdBy: actor.userId, ...base, ...storedTotals(base.structure) });
     }
   });
   return { id: ids[0]!, ids, dates };
@@ -166,7 +158,7 @@ export async function updateSession(actor: Actor, id: string, patch: z.infer<typ
   const fields = {
     ...(patch.title !== undefined ? { title: patch.title } : {}),
     ...(patch.notes !== undefined ? { notes: patch.notes } : {}),
-    ...(patch.structure !== undefined ? { structure: patch.structure, ...totals(patch.structure) } : {}),
+    ...(patch.structure !== undefined ? { structure: patch.structure, ...storedTotals(patch.structure) } : {}),
   };
   await db.transaction(async (tx: Tx) => {
     // The session as it is now, locked until the change is written: a change made on an older version is refused.

@@ -5,17 +5,9 @@ import type { z } from "zod";
 import { getDb, schema } from "@/db/client";
 import { coachedSquadIds, isCoachOf, type Actor } from "@/features/access/lib/rules";
 import { editConflict, notFound } from "@/features/platform/server/http";
-import { expand, type Block } from "../lib/session";
+import { storedTotals, type Block } from "../lib/session";
 import { templateView, type TemplateView } from "../lib/views";
 import type { templatePatchSchema, templateSchema } from "../schemas";
-
-function totals(structure: Block[]) {
-  const e = expand(structure);
-  return {
-    totalS: Math.round(e.totalS),
-    minutesByZone: e.minutesByZone.map((m) => Math.round(m * 10) / 10) as [number, number, number],
-  };
-}
 
 export async function listTemplates(
   actor: Actor,
@@ -56,7 +48,7 @@ export async function createTemplate(actor: Actor, input: z.infer<typeof templat
       sport: input.sport,
       description: input.description ?? "",
       structure: input.structure,
-      ...totals(input.structure),
+      ...storedTotals(input.structure),
       createdBy: actor.userId,
     })
     .returning();
@@ -70,7 +62,7 @@ export async function updateTemplate(actor: Actor, id: string, patch: z.infer<ty
     .update(schema.sessionTemplate)
     .set({
       ...changes,
-      ...(changes.structure ? totals(changes.structure) : {}),
+      ...(changes.structure ? storedTotals(changes.structure) : {}),
       version: sql`${schema.sessionTemplate.version} + 1`,
     })
     .where(

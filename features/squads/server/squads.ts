@@ -6,7 +6,7 @@ import { requireSquadManager, type SignedInActor } from "@/features/access/serve
 import { coachedSquadIds, type Actor } from "@/features/access/lib/rules";
 import { sendInvitation } from "@/features/messages/server";
 import { HttpError, notFound } from "@/features/platform/server/http";
-import { expand } from "@/features/planning/lib/session";
+import { storedTotals } from "@/features/planning/lib/session";
 import { STARTER_TEMPLATES } from "@/features/planning/lib/starter-templates";
 import { ROLE_LABELS, type InviteInput } from "../schemas";
 
@@ -42,20 +42,16 @@ export async function createSquad(actor: Actor, name: string, opts: { starterTem
     await tx.insert(schema.membership).values({ squadId: id, userId: actor.userId, role: "head_coach" });
     if (opts.starterTemplates !== false) {
       await tx.insert(schema.sessionTemplate).values(
-        STARTER_TEMPLATES.map((t) => {
-          const e = expand(t.structure);
-          return {
-            id: randomUUID(),
-            squadId: id,
-            name: t.name,
-            sport: t.sport,
-            description: t.description,
-            structure: t.structure,
-            totalS: Math.round(e.totalS),
-            minutesByZone: e.minutesByZone.map((m) => Math.round(m * 10) / 10) as [number, number, number],
-            createdBy: actor.userId,
-          };
-        }),
+        STARTER_TEMPLATES.map((t) => ({
+          id: randomUUID(),
+          squadId: id,
+          name: t.name,
+          sport: t.sport,
+          description: t.description,
+          structure: t.structure,
+          ...storedTotals(t.structure),
+          createdBy: actor.userId,
+        })),
       );
     }
   });
