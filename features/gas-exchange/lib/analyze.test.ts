@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { syntheticRamp } from "@/features/gas-exchange/lib/synthetic-ramp";
-import { analyzeCsv } from "./analyze";
+import { analyzeBreaths, analyzeCsv } from "./analyze";
 
 // Threshold detection against synthetic ramps whose thresholds are known by construction (model documented in
 // features/gas-exchange/lib/synthetic-ramp.ts: ACSM leg-cycling VO2, V-slope and VE/VCO2 breakpoints after Beaver, Wasserman & Whipp 1986).
@@ -104,4 +104,54 @@ describe("threshold detection on synthetic ramp tests", () => {
     expect(a.breathsRemoved).toBeGreaterThan(0);
     expect(a.breathsRemoved).toBeLessThan(a.breathsRead * 0.12);
   });
+});
+
+// The CO2 the body makes reaches the mouth through its CO2 stores, a first-order response (Whipp & Ward 1990), so on a ramp
+// VCO2 trails the O2 uptake. VT1 in VO2 terms does not depend on the ramp's slope (Davis et al. 1982, Med Sci Sports Exerc
+// 14:339–343). Noise-free ramps built here: VO2 from the ACSM leg-cycling equation with first-order kinetics (τ 35 s),
+// VCO2 two lines of VO2 meeting at VT1 (slopes 0.9 and 1.4) passed through a 15-s store, VE two lines of VCO2.
+describe("VT1 on ramps of different slopes, with VCO2 trailing through the CO2 stores", () => {
+  function ramp(wPerMin: number, storeS: number) {
+    const mass = 70,
+      vt1 = 2300,
+      vt2 = 3100;
+    const ss = (w: number) => 7 * mass + 1.8 * 6.12 * w;
+    const co2Made = (v: number) => 0.85 * 600 + 0.9 * (v - 600) + 0.5 * Math.max(0, v - vt1);
+    const breaths = [];
+    let vo2 = ss(50),
+      co2 = co2Made(vo2);
+    const rampS = (300 / wPerMin) * 60;
+    for (let t = 0; t <= 180 + rampS; t++) {
+      const w = t < 180 ? 50 : 50 + (wPerMin / 60) * (t - 180);
+      vo2 += (ss(w) - vo2) * (1 - Math.exp(-1 / 35));
+      co2 += (co2Made(vo2) - co2) * (1 - Math.exp(-1 / storeS));
+      const co2AtVt2 = co2Made(vt2);
+      const ve = 4 + 0.025 * co2 + 0.025 * Math.max(0, co2 - co2AtVt2);
+      if (t % 2 === 0)
+        breaths.push({
+          timeS: t,
+          vo2MlMin: vo2,
+          vco2MlMin: co2,
+          veLMin: ve,
+          hrBpm: null,
+          powerW: w,
+          speedKmh: null,
+          rfPerMin: null,
+        });
+    }
+    return { breaths, vt1 };
+  }
+
+  for (const [wPerMin, storeS] of [
+    [20, 10],
+    [20, 15],
+    [30, 15],
+    [30, 20],
+  ] as const)
+    it(`finds VT1 within 2 % of its VO2 on a ${wPerMin} W/min ramp with a ${storeS}-s CO2 store`, () => {
+      const { breaths, vt1 } = ramp(wPerMin, storeS);
+      const a = analyzeBreaths(breaths);
+      expect(a.vt1).not.toBeNull();
+      expect(Math.abs(a.vt1!.vo2MlMin / vt1 - 1)).toBeLessThanOrEqual(0.02);
+    });
 });

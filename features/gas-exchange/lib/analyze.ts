@@ -407,7 +407,7 @@ function detectVt2(
   };
 }
 
-/** VT1: V-slope below VT2, cross-checked with the ventilatory equivalents. */
+/** VT1: V-slope up to VT2, cross-checked with the ventilatory equivalents. */
 /**
  * Plausible V-slope lower slopes: Beaver, Wasserman & Whipp 1986 describe a lower segment with a slope near 1 (slightly
  * below it) and an upper one clearly above 1. A lower slope far from 1 means the fit bent around something else (the
@@ -421,6 +421,66 @@ const VSLOPE_LOWER = [0.6, 1.15] as const;
 const VT1_ONSET_S = 60;
 /** Half-width of the time window over which VO2 is smoothed for the V-slope axis. */
 const SMOOTH_HALF_S = 45;
+/** Half-width of the time window of the local line whose slope says how fast VCO2 and VE are changing. */
+const SLOPE_HALF_S = 60;
+/**
+ * The CO2 the muscles produce reaches the mouth later than the O2 they take up changes there: the body's CO2 stores fill
+ * first (Whipp & Ward 1990, Med Sci Sports Exerc 22:62–71). The delay is modelled as a first-order response with this time
+ * constant (s; from memory, about 10–20 s). `npm run validate` shows the suite at 10, 15 and 20 s alike (docs/thresholds.md).
+ */
+const CO2_STORE_S = 15;
+
+/** Slope (per second) of the local straight line through the points within ±halfS of each point. */
+function localSlope(points: Breath[], halfS: number, values: number[]): number[] {
+  return points.map((p) => {
+    let n = 0,
+      st = 0,
+      sv = 0,
+      stt = 0,
+      stv = 0;
+    for (let k = 0; k < points.length; k++) {
+      const d = points[k]!.timeS - p.timeS;
+      if (d < -halfS) continue;
+      if (d > halfS) break;
+      const v = values[k]!;
+      n++;
+      st += d;
+      sv += v;
+      stt += d * d;
+      stv += d * v;
+    }
+    const den = n * stt - st * st;
+    return den > 1e-9 ? (n * stv - st * sv) / den : 0;
+  });
+}
+
+/**
+ * The V-slope axes. x is VO2 smoothed over time (±SMOOTH_HALF_S). co2 and ve are each breath's VCO2/VO2 and VE/VO2 times
+ * that smoothed VO2 (breath-to-breath changes of tidal volume move the gases together, so their ratios are far steadier than
+ * any gas alone), corrected for the CO2 stores: a signal that trails another through a first-order response of time
+ * constant τ lags it by τ × its rate of change, so CO2_STORE_S × the local slope is added back. Without this the lag rounds
+ * the V-slope's corner and, wherever the workload rises unevenly (steps, a walk-to-run change), draws loops that pull the
+ * breakpoint about.
+ */
+function vSlopeAxes(points: Breath[]): { x: number[]; co2: number[]; ve: number[] } {
+  const smooth = localLinear(points, SMOOTH_HALF_S, (p) => p.vo2MlMin);
+  // The slopes of the gases as measured (not of the ratios), which follow the smooth course of the test.
+  const dVco2 = localSlope(
+    points,
+    SLOPE_HALF_S,
+    points.map((p) => p.vco2MlMin),
+  );
+  const dVe = localSlope(
+    points,
+    SLOPE_HALF_S,
+    points.map((p) => p.veLMin),
+  );
+  return {
+    x: smooth,
+    co2: points.map((p, i) => (p.vco2MlMin / p.vo2MlMin) * smooth[i]! + CO2_STORE_S * dVco2[i]!),
+    ve: points.map((p, i) => (p.veLMin / p.vo2MlMin) * smooth[i]! + CO2_STORE_S * dVe[i]!),
+  };
+}
 
 function detectVt1(
   points: Breath[],
@@ -429,28 +489,34 @@ function detectVt1(
   mrtS: number,
   minPoints = MIN_POINTS,
 ): { vt1: Threshold | null; reason: string | null } {
-  const all = (vt2 ? points.filter((p) => p.timeS < vt2.timeS) : points).filter(
-    (p) => p.timeS >= points[0]!.timeS + VT1_ONSET_S,
-  );
-  if (all.length < minPoints / 2)
+  const axes = vSlopeAxes(points);
+  const first = points.findIndex((p) => p.timeS >= points[0]!.timeS + VT1_ONSET_S);
+  const endBelow = vt2 ? points.findIndex((p) => p.timeS >= vt2.timeS) : points.length;
+  const belowCount = (endBelow < 0 ? points.length : endBelow) - Math.max(0, first);
+  if (first < 0 || belowCount < minPoints / 2)
     return { vt1: null, reason: "VT1 not found: too few points below the respiratory compensation point." };
+  // Points above VT2 stay in the fit with a knot of their own at VT2 (VCO2 and VE bend again there): they steady the
+  // upper segment, which below VT2 alone is often short.
+  const knot = vt2 && endBelow > 0 ? axes.x[endBelow]! : undefined;
+  // Near peak VO2 levels off or even falls while VCO2 still climbs: the points after the highest smoothed VO2 are left out.
+  let top = 0;
+  for (let i = 1; i < axes.x.length; i++) if (axes.x[i]! > axes.x[top]!) top = i;
+  const stopAll = Math.max(top + 1, endBelow < 0 ? points.length : endBelow);
   let fit: HingeFit | null = null;
-  let below = all;
+  let from = first;
+  let below: Breath[] = [];
   let axis: number[] = [];
   let rejected: string | null = null;
   // Try the whole stretch below VT2, then without its first 15 % and 30 % (exercise-onset kinetics).
   for (const skip of [0, 0.15, 0.3]) {
-    below = all.slice(Math.floor(all.length * skip));
-    if (below.length < 10) break;
-    // Breath-to-breath changes of tidal volume move VO2 and VCO2 together, so their ratio is far steadier than either:
-    // the V-slope is fitted to VCO2 = RER × VO2 against VO2, with VO2 smoothed over time (the same line when there is no
-    // noise; most of the breath noise cancels).
-    axis = localLinear(below, SMOOTH_HALF_S, (p) => p.vo2MlMin);
-    const xs = axis;
-    const ys = below.map((p, i) => (p.vco2MlMin / p.vo2MlMin) * xs[i]!);
-    const lo = Math.min(...xs),
-      hi = Math.max(...xs);
-    const f = fitHinge(xs, ys, { minSegment: 4, range: [lo + 0.1 * (hi - lo), lo + 0.9 * (hi - lo)] });
+    from = first + Math.floor(belowCount * skip);
+    if (belowCount - (from - first) < Math.max(8, minPoints / 2)) break;
+    below = points.slice(from, first + belowCount);
+    axis = axes.x.slice(from, stopAll);
+    const ys = axes.co2.slice(from, stopAll);
+    const lo = Math.min(...axis.slice(0, below.length)),
+      hi = knot ?? Math.max(...axis);
+    const f = fitHinge(axis, ys, { minSegment: 4, range: [lo + 0.1 * (hi - lo), lo + 0.9 * (hi - lo)], knot });
     if (!f) break;
     if (f.slopeAfter <= 1 || f.slopeAfter - f.slopeBefore < 0.1 || f.gain < 0.1) {
       // No breakpoint at all: dropping early points would only find one in the noise.
@@ -480,20 +546,23 @@ function detectVt1(
   const warnings: string[] = [];
   let agreement: Threshold["agreement"] = null;
   // Ventilatory equivalents: VE/VO2 starts to rise (VE against VO2 on the same axis, with its own breakpoint) while
-  // VE/VCO2 stays flat. VE is measured apart from VCO2, so its noise is its own: when the two agree, their mean is reported
-  // (combining methods is more accurate than either alone: Gaskill et al. 2001, Med Sci Sports Exerc 33:1841–1848).
-  const lo = Math.min(...axis),
-    hi = Math.max(...axis);
-  const eqO2 = fitHinge(
-    axis,
-    below.map((p, i) => (p.veLMin / p.vo2MlMin) * axis[i]!),
-    { minSegment: 4, range: [lo + 0.1 * (hi - lo), lo + 0.9 * (hi - lo)] },
-  );
+  // VE/VCO2 stays flat. It confirms the V-slope (two methods that agree are more trustworthy than either alone: Gaskill et
+  // al. 2001, Med Sci Sports Exerc 33:1841–1848) but is not averaged in: VE scatters more from breath to breath than VCO2,
+  // and on the validation suite its breakpoint scatters about 1.5 times as widely around the truth as the V-slope's.
+  const axisBelow = axis.slice(0, below.length);
+  const lo = Math.min(...axisBelow),
+    hi = Math.max(...axisBelow);
+  // VE's slope from the points below VT2 only: above it VE climbs steeply, which would inflate the last minute below it.
+  const veBelow = vSlopeAxes(below);
+  const eqO2 = fitHinge(veBelow.x, veBelow.ve, {
+    minSegment: 4,
+    range: [lo + 0.1 * (hi - lo), lo + 0.9 * (hi - lo)],
+  });
   let eqFound = false;
-  let reported = vslopeVo2;
+  const reported = vslopeVo2;
   if (eqO2 && eqO2.slopeAfter > 1.1 * eqO2.slopeBefore && eqO2.gain >= 0.1) {
     const after = below.filter((_, i) => axis[i]! >= eqO2.x0);
-    const afterAxis = axis.filter((x) => x >= eqO2.x0);
+    const afterAxis = axis.slice(0, below.length).filter((x) => x >= eqO2.x0);
     // VE/VCO2 should stay flat above it: its relative rise must be well below that of VE/VO2.
     const co2 =
       after.length >= 4
@@ -539,7 +608,6 @@ function detectVt1(
         warnings.push(
           `V-slope and the ventilatory equivalents differ by ${agreement.differenceMlMin} mL/min (${agreement.differencePct} %); VT1 is the V-slope value. Check the curves.`,
         );
-      else reported = (vslopeVo2 + eqO2.x0) / 2;
     }
   }
   if (!eqFound) {

@@ -42,6 +42,34 @@ function bruteForceHinge(xs: number[], ys: number[], minSeg: number) {
 }
 
 describe("continuous two-segment regression", () => {
+  it("with a fixed knot above, finds the first breakpoint on data that bend twice, and its rss matches a direct fit", () => {
+    // Three lines meeting at 2000 and 3000 (by construction), with deterministic noise.
+    const r = rng(7);
+    const xs = Array.from({ length: 90 }, (_, i) => 1000 + i * 30);
+    const ys = xs.map((x) => 0.9 * x + 0.5 * Math.max(0, x - 2000) + 1.5 * Math.max(0, x - 3000) + 20 * (r() - 0.5));
+    const withKnot = fitHinge(xs, ys, { knot: 3000 })!;
+    expect(Math.abs(withKnot.x0 - 2000)).toBeLessThan(30);
+    expect(withKnot.slopeBefore).toBeCloseTo(0.9, 1);
+    expect(withKnot.slopeAfter).toBeCloseTo(1.4, 1);
+    // A direct least-squares fit with the four terms at the breakpoint found gives the same residual sum of squares.
+    const x0 = withKnot.x0;
+    const rows = xs.map((x) => [1, x, Math.max(0, x - x0), Math.max(0, x - 3000)]);
+    const A = [0, 1, 2, 3].map((i) => [0, 1, 2, 3].map((j) => rows.reduce((s, row) => s + row[i]! * row[j]!, 0)));
+    const b = [0, 1, 2, 3].map((i) => rows.reduce((s, row, q) => s + row[i]! * ys[q]!, 0));
+    const M = A.map((row, i) => [...row, b[i]!]);
+    for (let p = 0; p < 4; p++)
+      for (let q = 0; q < 4; q++) {
+        if (q === p) continue;
+        const f = M[q]![p]! / M[p]![p]!;
+        for (let c = p; c < 5; c++) M[q]![c]! -= f * M[p]![c]!;
+      }
+    const beta = M.map((row, i) => row[4]! / row[i]!);
+    const rss = rows.reduce((s, row, q) => s + (ys[q]! - row.reduce((t, v, k) => t + v * beta[k]!, 0)) ** 2, 0);
+    expect(withKnot.rss).toBeCloseTo(rss, 3);
+    // Without the knot the second bend pulls the single breakpoint away from 2000.
+    expect(Math.abs(fitHinge(xs, ys)!.x0 - 2000)).toBeGreaterThan(200);
+  });
+
   it("recovers an exact breakpoint and both slopes from noise-free data", () => {
     const xs = Array.from({ length: 60 }, (_, i) => 1000 + i * 50);
     const ys = xs.map((x) => -100 + 0.95 * x + 0.4 * Math.max(0, x - 2500));

@@ -10,7 +10,8 @@ export interface HingeFit {
   intercept: number;
   slopeBefore: number;
   slopeAfter: number;
-  /** Residual sum of squares of the hinge fit and of one straight line through all points. */
+  /** Residual sum of squares of the hinge fit and of one straight line through all points (with a knot: of the line bent
+   * at the knot only). */
   rss: number;
   rssLine: number;
   /** Share of the straight line's residual that the breakpoint removes, 0–1. */
@@ -79,6 +80,41 @@ export interface HingeOptions {
   minSegment?: number;
   /** Only consider breakpoints with x0 inside [lo, hi]. */
   range?: [number, number];
+  /**
+   * A second, fixed breakpoint (a known change of slope further up, such as the respiratory compensation point): the model
+   * gains a term d·max(0, x − knot), so points above it still inform the first segments without bending them. Breakpoints
+   * are searched below the knot only.
+   */
+  knot?: number;
+}
+
+/** Solves the 4×4 system m·β = r (m row-major, 16 values; r 4 values) by Gaussian elimination with partial pivoting, in the
+ * scratch array `w` (20 values); null when singular. */
+function solve4(m: ArrayLike<number>, r: ArrayLike<number>, w: Float64Array, out: Float64Array): Float64Array | null {
+  for (let i = 0; i < 4; i++) {
+    for (let j = 0; j < 4; j++) w[i * 5 + j] = m[i * 4 + j]!;
+    w[i * 5 + 4] = r[i]!;
+  }
+  for (let c = 0; c < 4; c++) {
+    let p = c;
+    for (let i = c + 1; i < 4; i++) if (Math.abs(w[i * 5 + c]!) > Math.abs(w[p * 5 + c]!)) p = i;
+    if (p !== c)
+      for (let j = 0; j < 5; j++) {
+        const t = w[c * 5 + j]!;
+        w[c * 5 + j] = w[p * 5 + j]!;
+        w[p * 5 + j] = t;
+      }
+    const d = w[c * 5 + c]!;
+    if (!Number.isFinite(d) || Math.abs(d) < 1e-12) return null;
+    for (let i = 0; i < 4; i++) {
+      if (i === c) continue;
+      const f = w[i * 5 + c]! / d;
+      if (f === 0) continue;
+      for (let j = c; j < 5; j++) w[i * 5 + j] = w[i * 5 + j]! - f * w[c * 5 + j]!;
+    }
+  }
+  for (let i = 0; i < 4; i++) out[i] = w[i * 5 + 4]! / w[i * 5 + i]!;
+  return out;
 }
 
 /** Breakpoints tried between two neighbouring data points (the first at the left point): the breakpoint is not bound to
@@ -136,7 +172,31 @@ export function fitHinge(xsIn: ArrayLike<number>, ysIn: ArrayLike<number>, opts:
     sxy[k] = sxy[k + 1]! + x[k]! * y[k]!;
   }
   const lo = opts.range ? (opts.range[0] - mx) / sdx : -Infinity;
-  const hi = opts.range ? (opts.range[1] - mx) / sdx : Infinity;
+  let hi = opts.range ? (opts.range[1] - mx) / sdx : Infinity;
+  // The fixed knot's term g = max(0, x − knot), its sums, and suffix sums of g and x·g.
+  const knot = opts.knot === undefined ? null : (opts.knot - mx) / sdx;
+  let Sg = 0,
+    Sxg = 0,
+    Sgg = 0,
+    Sgy = 0;
+  const sg = new Float64Array(n + 1),
+    sxg = new Float64Array(n + 1);
+  if (knot !== null) {
+    hi = Math.min(hi, knot);
+    for (let k = n - 1; k >= 0; k--) {
+      const g = Math.max(0, x[k]! - knot);
+      Sg += g;
+      Sxg += x[k]! * g;
+      Sgg += g * g;
+      Sgy += g * y[k]!;
+      sg[k] = sg[k + 1]! + g;
+      sxg[k] = sxg[k + 1]! + x[k]! * g;
+    }
+  }
+  const m4 = new Float64Array(16),
+    r4 = new Float64Array(4),
+    w4 = new Float64Array(20),
+    o4 = new Float64Array(4);
   let best: { rss: number; k: number; beta: [number, number, number]; x0: number } | null = null;
   for (let k = minSeg; k <= n - minSeg; k++) {
     // Breakpoint between x[k-1] and x[k]: points k..n-1 form the right segment (h = x − x0 > 0 there).
@@ -149,13 +209,30 @@ export function fitHinge(xsIn: ArrayLike<number>, ysIn: ArrayLike<number>, opts:
       const Shh = s2[k]! - 2 * x0 * s1[k]! + m * x0 * x0;
       const Sxh = s2[k]! - x0 * s1[k]!;
       const Shy = sxy[k]! - x0 * sy[k]!;
-      const beta = solve3(n, Sx, Sh, Sxx, Sxh, Shh, Sy, Sxy, Shy);
+      if (knot === null) {
+        const beta = solve3(n, Sx, Sh, Sxx, Sxh, Shh, Sy, Sxy, Shy);
+        if (!beta) continue;
+        const rss = Syy - (beta[0] * Sy + beta[1] * Sxy + beta[2] * Shy);
+        if (!best || rss < best.rss) best = { rss, k, beta, x0 };
+        continue;
+      }
+      // With the knot above x0, every point with g > 0 also has h > 0: Σ h·g = Σ_{i≥k} (x − x0)·g.
+      const Shg = sxg[k]! - x0 * sg[k]!;
+      m4.set([n, Sx, Sh, Sg, Sx, Sxx, Sxh, Sxg, Sh, Sxh, Shh, Shg, Sg, Sxg, Shg, Sgg]);
+      r4.set([Sy, Sxy, Shy, Sgy]);
+      const beta = solve4(m4, r4, w4, o4);
       if (!beta) continue;
-      const rss = Syy - (beta[0] * Sy + beta[1] * Sxy + beta[2] * Shy);
-      if (!best || rss < best.rss) best = { rss, k, beta, x0 };
+      const rss = Syy - (beta[0]! * Sy + beta[1]! * Sxy + beta[2]! * Shy + beta[3]! * Sgy);
+      if (!best || rss < best.rss) best = { rss, k, beta: [beta[0]!, beta[1]!, beta[2]!], x0 };
     }
   }
   if (!best) return null;
+  // What the breakpoint is measured against: one straight line, or with a knot the line bent at the knot alone.
+  let base = line.rss;
+  if (knot !== null) {
+    const lk = solve3(n, Sx, Sg, Sxx, Sxg, Sgg, Sy, Sxy, Sgy);
+    if (lk) base = Math.max(0, Syy - (lk[0] * Sy + lk[1] * Sxy + lk[2] * Sgy));
+  }
   const [a, b, cc] = best.beta;
   const x0 = best.x0 * sdx + mx;
   const slopeBefore = b / sdx;
@@ -168,8 +245,8 @@ export function fitHinge(xsIn: ArrayLike<number>, ysIn: ArrayLike<number>, opts:
     slopeBefore,
     slopeAfter,
     rss,
-    rssLine: line.rss,
-    gain: line.rss > 0 ? Math.max(0, 1 - rss / line.rss) : 0,
+    rssLine: base,
+    gain: base > 0 ? Math.max(0, 1 - rss / base) : 0,
     n,
     nBefore: best.k,
   };

@@ -7,10 +7,10 @@
  *   running demand × mass × a personal economy factor (0.9–1.1) for treadmills (ACSM's Guidelines for Exercise Testing and
  *   Prescription).
  * - VO2 follows the steady state with first-order kinetics (time constant 25–45 s; common practice, from memory).
- * - The metabolic CO2 output is two straight lines of VO2 meeting at VT1 (slopes about 0.9 below and 1.3–1.5 above, the
- *   picture of Beaver, Wasserman & Whipp 1986); the measured VCO2 follows the workload's steady-state CO2 output with a
- *   time constant 15 s longer than VO2's (the body's CO2 stores; from memory), so the onset of exercise bends the lower
- *   slope as real tests do. The true VT1 is that steady-state breakpoint.
+ * - The metabolic CO2 output is two straight lines of the VO2 of the moment meeting at VT1 (slopes about 0.9 below and
+ *   1.3–1.5 above, the picture of Beaver, Wasserman & Whipp 1986); the measured VCO2 trails it with a first-order response
+ *   of 10–20 s (the body's CO2 stores; from memory), so the onset of exercise and every step bend the V-slope as real tests
+ *   do. The true VT1 is that breakpoint in VO2: the same on any ramp slope, as Davis et al. 1982 found.
  * - VE is two straight lines of VCO2 meeting at VT2 (VE/VCO2 slope 22–30 below, ×1.7–2.2 above; from memory).
  * - Breath noise: a shared tidal-volume factor (SD 6–9 %) and independent noise per gas (BREATH_NOISE, matched to the real
  *   files); 2 % aberrant breaths; some tests
@@ -224,15 +224,16 @@ export function labTest(c: LabCase): { rows: Record<string, number | null>[]; tr
     veRise = 1.7 + 0.5 * r();
   const co2AtVt2 = co2Target(vt2);
   const veOf = (co2: number) => 4 + veSlope * co2 + veSlope * (veRise - 1) * Math.max(0, co2 - co2AtVt2);
-  const tauCo2 = tau + 15;
   const hyper = r() < 0.3;
   const exerciseStart = starts[segs.findIndex((s) => (s.at(0).w ?? s.at(0).kmh ?? 0) > 0)] ?? 0;
-  // VCO2 follows the workload's steady-state CO2 output with its own (slower) time constant, as VO2 follows its steady
-  // state: relative to VO2 it lags by tauCo2 − tau = 15 s.
+  // The CO2 the body produces follows its actual metabolic rate (the VO2 of the moment, so VT1 in VO2 terms does not depend
+  // on the ramp's slope: Davis et al. 1982, Med Sci Sports Exerc 14:339–343); what reaches the mouth trails it by the
+  // filling of the CO2 stores, a first-order response with a time constant of 10–20 s (from memory).
+  const co2StoreS = 10 + 10 * r();
   const vco2 = new Float64Array(n);
-  let co2 = co2Target(vo2ss(loadAt(0)));
+  let co2 = co2Target(vo2[0]!);
   for (let t = 0; t < n; t++) {
-    co2 += (co2Target(vo2ss(loadAt(t))) - co2) * (1 - Math.exp(-1 / tauCo2));
+    co2 += (co2Target(vo2[t]!) - co2) * (1 - Math.exp(-1 / co2StoreS));
     vco2[t] = co2;
   }
   // VE answers the measured (lagged) VCO2, so on a ramp VT2 shows in VO2 terms where that VCO2 reaches its breakpoint:

@@ -2,7 +2,8 @@
 // and export style appears). The full table comes from `npm run validate`.
 // The floors below guard against regressions: they are the rates measured on this subset on 2026-12-03 minus about five
 // points (VT2 and peak at the product targets minus five, as asked) (command: npx vitest run --project unit validation).
-// VT1's floor is BELOW the product target minus five (VT1 95 %, VT2 97 %, peak 98 %): the engine does not yet meet it.
+// VT1's floor (85) is below the product target minus five (90): the whole suite meets VT1 95 % on 576 tests but not on
+// 1728 (93.0 %), and this subset measures 89.6 %.
 import { describe, expect, it } from "vitest";
 import { labCases } from "./lab-generator";
 import { rates, runCase } from "./validation";
@@ -27,5 +28,5 @@ describe("threshold detection on generated lab tests", () => {
   });
 });
 
-// Measured on this subset: VT1 75.0 %, VT2 96.9 %, peak 99.0 %, no test (of 96) with a threshold before its ramp.
-const FLOORS = { vt1: 70, vt2: 92, peak: 93, early: 1 };
+// Measured on this subset: VT1 89.6 %, VT2 96.9 %, peak 99.0 %, no test (of 96) with a threshold before its ramp.
+const FLOORS = { vt1: 85, vt2: 92, peak: 93, early: 1 };
