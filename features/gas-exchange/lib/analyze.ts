@@ -106,11 +106,11 @@ export interface AnalysisOptions {
 
 export type CsvAnalysis = ({ ok: true } & Analysis) | { ok: false; error: string; headers: string[] };
 
-/** Fewest averaged points (of 15 s) for a threshold search: five minutes of exercise. Coarser rows need fewer (see
- * `minPointsFor`). */
-const MIN_POINTS = 20;
-/** The same five minutes in rows `spacingS` apart (a file already averaged every 30 s has half as many rows). */
-const minPointsFor = (spacingS: number) => Math.max(10, Math.ceil((MIN_POINTS * 15) / Math.max(15, spacingS)));
+/** Fewest averaged points (of 15 s) for a threshold search: four minutes of exercise (a test segment this short is
+ * searched, with the short-test warning below). Coarser rows need fewer (see `minPointsFor`). */
+const MIN_POINTS = 16;
+/** The same four minutes in rows `spacingS` apart (a file already averaged every 30 s has half as many rows). */
+const minPointsFor = (spacingS: number) => Math.max(8, Math.ceil((MIN_POINTS * 15) / Math.max(15, spacingS)));
 /**
  * A test segment shorter than this (minutes) gets a warning: ramps of 8–12 minutes give the clearest thresholds (Buchfuhrer
  * et al. 1983, J Appl Physiol 55:1558–1564). `npm run validate` shows VT1 detection by ramp length.
@@ -731,7 +731,7 @@ export function analyzeBreaths(breaths: Breath[], opts: AnalysisOptions = {}): A
     );
   }
   if (detection.length < minPoints) {
-    const reason = "Too few points during exercise to find thresholds.";
+    const reason = `Too few points during exercise to find thresholds: the test segment holds ${detection.length} points (${round((endS - onsetS) / 60, 1)} min); at least ${minPoints} (about 4 minutes of exercise) are needed. Check the test segment and the time column, or place the thresholds by hand.`;
     warnings.push(reason);
     return { ...base, onsetS, endS, segmentSource, vt1: null, vt1Reason: reason, vt2: null, vt2Reason: reason, peak };
   }
