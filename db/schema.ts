@@ -196,9 +196,16 @@ export const athleteProfile = pgTable(
     reminderTime: text("reminder_time").notNull().default("19:00"),
     remindSessions: boolean("remind_sessions").notNull().default(true),
     remindRetests: boolean("remind_retests").notNull().default(true),
+    /** Planning rules a coach sets (features/planning/lib/rules.ts): hard days a week, hard days back to back, and how
+     * far a week's planned volume may stray from its target before it is flagged. */
+    maxHardDays: integer("max_hard_days").notNull().default(3),
+    hardDaysBackToBack: boolean("hard_days_back_to_back").notNull().default(false),
+    volumeTolerancePct: integer("volume_tolerance_pct").notNull().default(15),
     updatedAt: updatedAt(),
   },
   (t) => [
+    check("athlete_profile_hard_days", sql`${t.maxHardDays} between 1 and 7`),
+    check("athlete_profile_volume_tolerance", sql`${t.volumeTolerancePct} between 5 and 50`),
     check("athlete_profile_mass", sql`${t.bodyMassKg} is null or (${t.bodyMassKg} > 20 and ${t.bodyMassKg} < 300)`),
     check(
       "athlete_profile_hr",

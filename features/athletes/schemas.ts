@@ -37,6 +37,17 @@ export const profileSchema = z
     reminderTime: z.string().regex(/^([01]\d|2[0-3]):[0-5]\d$/, "Enter the reminder time as HH:MM (24-hour clock)."),
     remindSessions: z.boolean(),
     remindRetests: z.boolean(),
+    maxHardDays: z
+      .number({ error: "Enter the hard days allowed a week as a number." })
+      .int("Enter a whole number of days.")
+      .min(1, "Allow at least one hard day a week.")
+      .max(7, "A week has seven days."),
+    hardDaysBackToBack: z.boolean(),
+    volumeTolerancePct: z
+      .number({ error: "Enter the volume tolerance in %." })
+      .int("Enter a whole percentage.")
+      .min(5, "The volume tolerance must be at least 5 %.")
+      .max(50, "The volume tolerance must be at most 50 %."),
   })
   .refine((p) => p.restingHrBpm == null || p.maxHrBpm == null || p.restingHrBpm < p.maxHrBpm, {
     path: ["maxHrBpm"],
@@ -61,6 +72,9 @@ export const profilePatchSchema = z
     /** The profile's version as the client read it; an older one answers 409. */
     version: versionField,
     remindRetests: z.unknown(),
+    maxHardDays: z.unknown(),
+    hardDaysBackToBack: z.unknown(),
+    volumeTolerancePct: z.unknown(),
   })
   .partial()
   .strict();

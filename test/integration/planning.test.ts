@@ -365,6 +365,41 @@ describe("sessions and weekly budgets", () => {
     });
   });
 
+  it("the coach's planning rules on the athlete's profile decide the hard-day checks; the athlete cannot change them", async () => {
+    // Two interval days with a rest day between (2027-11-02 and 2027-11-04): allowed by the default rules (three hard
+    // days, none back to back).
+    for (const d of ["2027-11-02", "2027-11-04"])
+      expect((await plan({ date: d, templateId: intervalsId })).status).toBe(201);
+    const codes = async () =>
+      (await weeks("2027-11-01", "2027-11-01"))[0].flags.map((f: { code: string }) => f.code) as string[];
+    expect(await codes()).not.toContain("too_many_hard_days");
+    const profileOf = { params: { id: s.athleteA.id } };
+    const own = await s.athleteA.browser.call(profileRoute, "PATCH", `/api/athletes/${s.athleteA.id}/profile`, {
+      ...profileOf,
+      body: { maxHardDays: 1 },
+    });
+    expect(own.status).toBe(403);
+    expect(own.json.error).toMatch(/coach sets the planning rules/);
+    const byCoach = await s.coach.browser.call(profileRoute, "PATCH", `/api/athletes/${s.athleteA.id}/profile`, {
+      ...profileOf,
+      body: { maxHardDays: 1 },
+    });
+    expect(byCoach.status).toBe(200);
+    // The stored weeks answer follows the change (the profile bumps the athlete's change counter).
+    expect(await codes()).toContain("too_many_hard_days");
+    expect((await weeks("2027-11-01", "2027-11-01"))[0].rules.maxHardDays).toBe(1);
+    const bad = await s.coach.browser.call(profileRoute, "PATCH", `/api/athletes/${s.athleteA.id}/profile`, {
+      ...profileOf,
+      body: { volumeTolerancePct: 80 },
+    });
+    expect(bad.status).toBe(400);
+    expect(bad.json.fieldErrors.volumeTolerancePct[0]).toMatch(/at most 50 %/);
+    await s.coach.browser.call(profileRoute, "PATCH", `/api/athletes/${s.athleteA.id}/profile`, {
+      ...profileOf,
+      body: { maxHardDays: 3 },
+    });
+  });
+
   it("editing a session's steps recomputes its minutes per zone", async () => {
     const r = await plan({ date: "2028-10-03", templateId: easyId });
     const patched = await s.coach.browser.call(sessionRoute, "PATCH", `/api/sessions/${r.json.id}`, {

@@ -159,6 +159,62 @@ export function ProfileForm({
           <input type="checkbox" {...register("remindRetests")} /> E-mail me before a retest
         </label>
       </fieldset>
+      {isSelf ? (
+        <p className="text-sm text-ink-soft">
+          Your coach&apos;s planning rules: at most {initial.maxHardDays} hard{" "}
+          {initial.maxHardDays === 1 ? "day" : "days"} a week,{" "}
+          {initial.hardDaysBackToBack ? "hard days may follow each other" : "never two in a row"}; a week may stray{" "}
+          {initial.volumeTolerancePct} % from its planned volume.
+        </p>
+      ) : (
+        <fieldset className="grid gap-4 sm:grid-cols-2">
+          <legend className="mb-2 text-lg font-bold">Planning rules</legend>
+          <p className="text-sm text-ink-soft sm:col-span-2">
+            The week checks use these for this athlete. A hard day holds 10 min or more of zone 3, or 30 min or more of
+            zone 2; two or three a week, never two in a row, is common practice.
+          </p>
+          <div>
+            <label htmlFor="maxHardDays" className="field-label">
+              Hard days a week, at most
+            </label>
+            <input
+              id="maxHardDays"
+              type="number"
+              min={1}
+              max={7}
+              step={1}
+              inputMode="numeric"
+              className="field-input num"
+              aria-invalid={!!errors.maxHardDays}
+              aria-describedby="maxHardDays-error"
+              {...register("maxHardDays", { valueAsNumber: true })}
+            />
+            <FieldError id="maxHardDays-error" message={errors.maxHardDays?.message} />
+          </div>
+          <div>
+            <label htmlFor="volumeTolerancePct" className="field-label">
+              Flag a week this far off its volume target{" "}
+              <span className="font-normal text-ink-soft">(%, either way)</span>
+            </label>
+            <input
+              id="volumeTolerancePct"
+              type="number"
+              min={5}
+              max={50}
+              step={1}
+              inputMode="numeric"
+              className="field-input num"
+              aria-invalid={!!errors.volumeTolerancePct}
+              aria-describedby="volumeTolerancePct-error"
+              {...register("volumeTolerancePct", { valueAsNumber: true })}
+            />
+            <FieldError id="volumeTolerancePct-error" message={errors.volumeTolerancePct?.message} />
+          </div>
+          <label className="flex items-center gap-2 text-sm sm:col-span-2">
+            <input type="checkbox" {...register("hardDaysBackToBack")} /> Hard days may follow each other
+          </label>
+        </fieldset>
+      )}
       <SubmitButton className="btn" disabled={isSubmitting}>
         {isSubmitting ? "Saving…" : isSelf ? "Save my profile" : "Save the athlete's profile"}
       </SubmitButton>

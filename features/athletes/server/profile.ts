@@ -4,6 +4,7 @@ import { getDb, schema } from "@/db/client";
 import { requireAthleteAccess } from "@/features/access/server";
 import type { Actor } from "@/features/access/lib/rules";
 import { editConflict, fieldErrors, HttpError, notFound } from "@/features/platform/server/http";
+import { DEFAULT_PLANNING_RULES } from "@/features/planning/lib/rules";
 import { profileSchema, type ProfileInput } from "../schemas";
 
 const DEFAULTS: ProfileInput = {
@@ -18,7 +19,11 @@ const DEFAULTS: ProfileInput = {
   reminderTime: "19:00",
   remindSessions: true,
   remindRetests: true,
+  ...DEFAULT_PLANNING_RULES,
 };
+
+/** The fields only the athlete's coaches set (an athlete's own edit may not change them). */
+const COACH_FIELDS = ["maxHardDays", "hardDaysBackToBack", "volumeTolerancePct"] as const;
 
 function toProfile(row: typeof schema.athleteProfile.$inferSelect | undefined): ProfileInput {
   if (!row) return { ...DEFAULTS };
@@ -34,6 +39,9 @@ function toProfile(row: typeof schema.athleteProfile.$inferSelect | undefined): 
     reminderTime: row.reminderTime,
     remindSessions: row.remindSessions,
     remindRetests: row.remindRetests,
+    maxHardDays: row.maxHardDays,
+    hardDaysBackToBack: row.hardDaysBackToBack,
+    volumeTolerancePct: row.volumeTolerancePct,
   };
 }
 
@@ -66,7 +74,10 @@ export async function updateAthleteProfile(
       .for("update");
     if (version !== undefined && (row?.version ?? 1) !== version)
       throw editConflict({ ...toProfile(row), version: row?.version ?? 1 }, "this profile");
-    const merged = { ...toProfile(row), ...changes };
+    const current = toProfile(row);
+    if (actor.userId === athleteId && COACH_FIELDS.some((f) => f in changes && changes[f] !== current[f]))
+      throw new HttpError(403, "Your coach sets the planning rules (hard days and volume tolerance).");
+    const merged = { ...current, ...changes };
     const parsed = profileSchema.safeParse(merged);
     if (!parsed.success)
       throw new HttpError(400, "Some fields are not valid.", { fieldErrors: fieldErrors(parsed.error) });

@@ -19,9 +19,12 @@ describe("zone drift", () => {
     expect(r.message).toMatch(/195 W/);
   });
 
-  it("flags a fall (fitness gained) and stays quiet for noise under the threshold", () => {
+  it("flags a fall, naming both readings (gained fitness or overreaching), and stays quiet for noise under the threshold", () => {
     const down = [180, 200, 190].map((x, i) => ({ date: day(40 + i * 3), x, hrAvgBpm: line(x) - 7 }));
-    expect(detectDrift([...baseline, ...down], day(0), day(50), "W")!.direction).toBe("down");
+    const fall = detectDrift([...baseline, ...down], day(0), day(50), "W")!;
+    expect(fall.direction).toBe("down");
+    // Overreaching can blunt heart rate too (Meeusen et al. 2013 consensus statement).
+    expect(fall.message).toMatch(/Gained fitness.*overreaching.*RPE and load/);
     const noise = [180, 200, 190].map((x, i) => ({ date: day(40 + i * 3), x, hrAvgBpm: line(x) + (i - 1) * 3 }));
     expect(detectDrift([...baseline, ...noise], day(0), day(50), "W")!.drifted).toBe(false);
   });

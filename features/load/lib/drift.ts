@@ -5,7 +5,7 @@
  * an ordinary least-squares line of average heart rate on average power (or speed) is fitted to them. Each later session
  * whose power lies within the baseline's range (±10 %) — "the same power" — is compared with the line. When at least
  * `minRecent` such sessions of the last `recentDays` differ from it by `thresholdBpm` or more on average, the zones have
- * probably drifted: a rise suggests fatigue, illness, heat or lost fitness, a fall suggests gained fitness. Either way an
+ * probably drifted: a rise suggests fatigue, illness, heat or lost fitness, a fall gained fitness or overreaching. Either way an
  * earlier retest re-aligns the zones. A few beats of day-to-day variation are common, so the default threshold is 5 bpm
  * (common practice, from memory).
  */
@@ -85,7 +85,7 @@ export function detectDrift(
   const seen = expected + meanDiff;
   const at = unit === "W" ? `${Math.round(atX)} W` : `${atX.toFixed(1)} km/h`;
   const message = drifted
-    ? `Heart rate at ${at} is ${Math.round(seen)} bpm over the last ${recent.length} sessions, against ${Math.round(expected)} bpm when the zones were set (${meanDiff > 0 ? "+" : ""}${Math.round(meanDiff)} bpm). ${direction === "up" ? "Fatigue, illness, heat or lost fitness can do this" : "Fitness has probably improved"}; consider an earlier retest.`
+    ? `Heart rate at ${at} is ${Math.round(seen)} bpm over the last ${recent.length} sessions, against ${Math.round(expected)} bpm when the zones were set (${meanDiff > 0 ? "+" : ""}${Math.round(meanDiff)} bpm). ${direction === "up" ? "Fatigue, illness, heat or lost fitness can do this; consider an earlier retest" : "Gained fitness can do this, and so can overreaching (heart rate that no longer rises as usual: Meeusen et al. 2013, Eur J Sport Sci 13:1–24); look at the athlete's RPE and load beside it before retesting"}.`
     : `Heart rate at the same ${unit === "W" ? "power" : "speed"} is within ${thresholdBpm} bpm of the baseline (${meanDiff > 0 ? "+" : ""}${meanDiff.toFixed(1)} bpm).`;
   return {
     drifted,

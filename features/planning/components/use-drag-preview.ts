@@ -8,7 +8,8 @@ import type { TrayTemplate } from "./PlanCalendar";
 
 /**
  * The budget band's preview while a session or a template is dragged: the week as it would be after the drop, judged by
- * the same engine as the server's band, with each week's budget, role and volume target as the server gave them. The
+ * the same engine as the server's band, with each week's budget, role and volume target and the athlete's planning rules
+ * as the server gave them. The
  * preview ends whenever a drag ends, wherever that is.
  */
 export function useDragPreview(
@@ -58,7 +59,15 @@ export function useDragPreview(
     const week = mondayOf(date);
     // The coach's own day stands in for the athlete's (at most a day apart): it decides only whether the week has begun.
     const today = localDate(new Date(), Intl.DateTimeFormat().resolvedOptions().timeZone);
-    const [summary] = summariseWeeks({ from: week, to: week, sessions: next, seasonWeeks, today, withFix: false });
+    const [summary] = summariseWeeks({
+      from: week,
+      to: week,
+      sessions: next,
+      seasonWeeks,
+      today,
+      withFix: false,
+      rules: weeks?.[0]?.rules,
+    });
     setPreview(summary ?? null);
   }
 

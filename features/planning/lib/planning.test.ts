@@ -182,7 +182,11 @@ describe("season planning", () => {
 
   it("orders the blocks toward the event and ends with transition", () => {
     const order = season.map((w) => w.block).filter((b, i, a) => a[i - 1] !== b);
+    // 37 weeks of preparation: two macrocycles of at most 26 weeks (MAX_MACROCYCLE_WEEKS), then taper and race.
     expect(order).toEqual([
+      "general_preparation",
+      "specific_preparation",
+      "pre_competition",
       "general_preparation",
       "specific_preparation",
       "pre_competition",
@@ -192,7 +196,48 @@ describe("season planning", () => {
     ]);
     expect(season[0]!.weekStart).toBe("2027-01-04");
     expect(season.find((w) => w.block === "competition")!.events).toEqual(["Autumn marathon"]);
-    expect(season.filter((w) => w.block === "taper")).toHaveLength(2);
+    // A Sunday race: one taper week, so 7 + 6 = 13 days of reduced volume (8–14 days: Bosquet et al. 2007).
+    expect(season.filter((w) => w.block === "taper")).toHaveLength(1);
+  });
+
+  it("tapers 8–14 days before an A race: a Monday race gets two taper weeks (14 days), a Saturday one (12)", () => {
+    const taperWeeks = (date: string) =>
+      planSeason({ startDate: "2027-01-06", events: [{ date, name: "Race" }], weeklyHours: 8 }).filter(
+        (w) => w.role === "taper",
+      ).length;
+    expect(taperWeeks("2027-06-07")).toBe(2); // Monday: 2 × 7 + 0 days
+    expect(taperWeeks("2027-06-12")).toBe(1); // Saturday: 7 + 5 days
+  });
+
+  it("loading volume peaks in general preparation and eases in specific preparation and pre-competition", () => {
+    // Bompa & Haff 2009's traditional model; the easing (10 % and 20 % of the cycle's peak) is ours.
+    const peakOf = (block: string) =>
+      Math.max(...season.filter((w) => w.block === block && w.role === "loading").map((w) => w.volumeHours));
+    expect(peakOf("specific_preparation")).toBeLessThan(peakOf("general_preparation"));
+    expect(peakOf("pre_competition")).toBeLessThan(peakOf("specific_preparation"));
+    // Not flat: the loading weeks of the last eight weeks before the taper differ from the general preparation's top.
+    const long = planSeason({
+      startDate: "2027-01-04",
+      events: [{ date: "2027-12-19", name: "Race" }],
+      weeklyHours: 8,
+    });
+    const loading = long.filter((w) => w.role === "loading").map((w) => w.volumeHours);
+    expect(new Set(loading.slice(8)).size).toBeGreaterThan(3);
+  });
+
+  it("a 104-week season is several macrocycles, not one long general preparation", () => {
+    const two = planSeason({ startDate: "2027-01-04", events: [{ date: "2028-12-17", name: "Race" }], weeklyHours: 8 });
+    const starts = two.filter(
+      (w, i) => w.block === "general_preparation" && two[i - 1]?.block !== "general_preparation",
+    );
+    expect(starts.length).toBeGreaterThanOrEqual(4);
+    let run = 0,
+      longest = 0;
+    for (const w of two) {
+      run = w.block === "general_preparation" ? run + 1 : 0;
+      longest = Math.max(longest, run);
+    }
+    expect(longest).toBeLessThanOrEqual(15);
   });
 
   it("loads 3:1 and never raises volume more than 10 % over the biggest of the last four weeks", () => {

@@ -3,10 +3,13 @@
  * role, volume target, intensity budget and retests.
  * - Loading pattern 3:1 by default (or 2:1): loading weeks rise 5 % each, never more than the ramp cap over the biggest of
  *   the last four weeks; unloading weeks at 65 % of the week before (common practice).
- * - Taper before each event: two weeks (75 %, then 55 % of the last loading week) when there is room, one otherwise — a
- *   40–60 % volume reduction over about two weeks (Bosquet et al. 2007, from memory).
- * - Blocks before the first taper: general preparation ≈ 55 %, specific ≈ 30 %, pre-competition ≈ 15 % of the weeks;
- *   the event week is competition; two transition weeks after the last event.
+ * - Taper before an A event: 8–14 days of reduced volume before the race, a 41–60 % reduction (Bosquet et al. 2007, Med
+ *   Sci Sports Exerc 39:1358–1365): one taper week (55 % of the last loading week) before a race week whose race falls
+ *   on Tuesday to Sunday, two (75 %, then 55 %) before a Monday race; the race week at 45 %.
+ * - Blocks before the first taper: general preparation ≈ 55 %, specific ≈ 30 %, pre-competition ≈ 15 % of the weeks,
+ *   in macrocycles of at most 26 weeks; loading volume peaks in general preparation and eases by 10 % in specific
+ *   preparation and 20 % in pre-competition (BLOCK_VOLUME); the event week is competition; two transition weeks after
+ *   the last event.
  * - Retests every 12 weeks by default (12–16), each placed in an unloading week at or before the due week.
  */
 import { BUDGET_PRESETS, DEFAULT_RAMP_CAP, type BudgetPreset } from "./budget";
@@ -33,6 +36,17 @@ export const BLOCK_LABELS: Record<BlockName, string> = {
  * - C: trained through: the week keeps its role; the race is a hard session of that week.
  */
 export type EventPriority = "A" | "B" | "C";
+
+/** The longest macrocycle (weeks of preparation from general preparation to pre-competition); a longer run-up to an event
+ * gets several (common practice: two cycles a year in a long season). */
+export const MAX_MACROCYCLE_WEEKS = 26;
+
+/**
+ * Loading volume of the later blocks of a macrocycle as a share of its highest week (our numbers for the traditional
+ * model of Bompa & Haff 2009, Periodization: Theory and Methodology of Training, 5th ed.: volume peaks in general
+ * preparation and falls as intensity rises toward competition).
+ */
+export const BLOCK_VOLUME: Partial<Record<BlockName, number>> = { specific_preparation: 0.9, pre_competition: 0.8 };
 
 export interface SeasonInput {
   startDate: string;
@@ -130,13 +144,23 @@ export function planSeason(input: SeasonInput): SeasonWeek[] {
       continue;
     }
     const room = ev - prepStart;
-    const taper = priority === "A" ? (room >= 8 ? 2 : room >= 3 ? 1 : 0) : 0;
+    // An A race's taper: 8–14 days of reduced volume before it (Bosquet et al. 2007). The event week's own days before
+    // the race count, so a race from Tuesday to Sunday tapers one week before its week, a Monday race two.
+    const raceDay = (dayOf(events[e]!.date) - dayOf(weekMonday(events[e]!.date))) % 7;
+    const taperWanted = raceDay >= 1 ? 1 : 2;
+    const taper = priority === "A" ? (room >= 4 + taperWanted ? taperWanted : room >= 3 ? 1 : 0) : 0;
     const prepEnd = ev - taper; // exclusive
     const prep = prepEnd - prepStart;
+    // A long run-up is split into macrocycles of at most MAX_MACROCYCLE_WEEKS, each from general preparation to
+    // pre-competition (Bompa & Haff 2009: two or more cycles a year when the preparation is long).
+    const cycles = Math.max(1, Math.ceil(prep / MAX_MACROCYCLE_WEEKS));
     for (let w = prepStart; w < prepEnd; w++) {
       if (block[w]) continue; // a C event's week already placed
-      const f = (w - prepStart) / Math.max(1, prep);
-      if (firstMain)
+      const c = Math.min(cycles - 1, Math.floor(((w - prepStart) * cycles) / Math.max(1, prep)));
+      const cStart = prepStart + Math.round((c * prep) / cycles),
+        cEnd = prepStart + Math.round(((c + 1) * prep) / cycles);
+      const f = (w - cStart) / Math.max(1, cEnd - cStart);
+      if (firstMain || c > 0 || prep >= MAX_MACROCYCLE_WEEKS / 2)
         block[w] = f < 0.55 ? "general_preparation" : f < 0.85 ? "specific_preparation" : "pre_competition";
       else block[w] = f < 0.7 ? "specific_preparation" : "pre_competition";
     }
@@ -170,15 +194,23 @@ export function planSeason(input: SeasonInput): SeasonWeek[] {
   const ceiling = base * 1.3;
   const volumes: number[] = [];
   let lastLoading = base / 1.05;
+  // The highest loading volume of the current macrocycle: specific preparation and pre-competition ease from it as the
+  // intensity rises (BLOCK_VOLUME; Bompa & Haff 2009's traditional model).
+  let cyclePeak = 0;
   for (let w = 0; w < total; w++) {
     const recent = volumes.slice(-4);
     const reference = recent.length ? Math.max(...recent) : base;
+    if (block[w] === "general_preparation" && w > 0 && block[w - 1] !== "general_preparation") cyclePeak = 0;
     let v: number;
     switch (role[w]) {
-      case "loading":
-        v = Math.min(lastLoading * 1.05, ceiling, reference * (1 + cap));
+      case "loading": {
+        const grown = Math.min(lastLoading * 1.05, ceiling, reference * (1 + cap));
+        const easing = BLOCK_VOLUME[block[w]!];
+        v = easing !== undefined && cyclePeak > 0 ? Math.min(grown, cyclePeak * easing) : grown;
+        cyclePeak = Math.max(cyclePeak, v);
         lastLoading = v;
         break;
+      }
       case "unloading":
         v = lastLoading * 0.65;
         break;

@@ -2,6 +2,7 @@ import { describe, expect, it } from "vitest";
 import ICAL from "ical.js";
 import { expandDates, rruleText } from "./recurrence";
 import { addDays } from "@/features/platform/lib/days";
+import { DEFAULT_PLANNING_RULES, type PlanningRules } from "./rules";
 import { summariseWeeks, type Fix, type WeekSession } from "./weeks";
 
 describe("recurrence (RFC 5545 RRULE via rrule, cross-checked with ical.js)", () => {
@@ -184,7 +185,7 @@ describe("weeks judged by their role in the season", () => {
     const tooLong = week("taper", 2.5);
     expect(tooLong.flags.map((f) => f.code)).toEqual(["role_volume"]);
     // 200 min planned against 150 min (at most 172.5 min): hand calculation.
-    expect(tooLong.flags[0]!.numbers).toEqual({ plannedMin: 200, targetMin: 150, limitMin: 173 });
+    expect(tooLong.flags[0]!.numbers).toEqual({ plannedMin: 200, targetMin: 150, limitMin: 173, tolerancePct: 15 });
     expect(tooLong.fix).toBeNull();
   });
 
@@ -198,8 +199,15 @@ describe("weeks judged by their role in the season", () => {
 });
 
 describe("volume against the week's target", () => {
-  const one = (minutes: [number, number, number], volumeHours: number, today: string) =>
+  const one = (
+    minutes: [number, number, number],
+    volumeHours: number,
+    today: string,
+    role: "loading" | "taper" | "event" = "loading",
+    rules?: PlanningRules,
+  ) =>
     summariseWeeks({
+      rules,
       from: "2027-09-13",
       to: "2027-09-13",
       sessions: [{ id: "a", date: "2027-09-14", title: "Long", kind: "training", minutesByZone: minutes }],
@@ -209,19 +217,40 @@ describe("volume against the week's target", () => {
           budget: "polarised",
           block: "general_preparation",
           retest: false,
-          role: "loading",
+          role,
           volumeHours,
         },
       ],
       today,
     })[0]!;
 
+  // Common practice: a week more than about 15 % off its target either way is flagged; the coach may change the tolerance.
+  it("a loading week 20 % under its target is flagged, 10 % under is not; a wider tolerance lets 20 % pass", () => {
+    // Target 5 h = 300 min. 240 min is 20 % under; 270 min is 10 % under (hand calculation).
+    const short = one([240, 0, 0], 5, "2027-09-14");
+    expect(short.flags.map((f) => f.code)).toContain("volume_off_target");
+    expect(short.flags.find((f) => f.code === "volume_off_target")!.message).toMatch(
+      /4 h against its target of 5 h \(20 % less/,
+    );
+    expect(one([270, 0, 0], 5, "2027-09-14").flags.map((f) => f.code)).not.toContain("volume_off_target");
+    const wide = one([240, 0, 0], 5, "2027-09-14", "loading", { ...DEFAULT_PLANNING_RULES, volumeTolerancePct: 25 });
+    expect(wide.flags.map((f) => f.code)).not.toContain("volume_off_target");
+    expect(wide.rules.volumeTolerancePct).toBe(25);
+  });
+
+  it("a taper planned at loading volume is flagged; a race week lighter than its target is not", () => {
+    // Taper target 3 h; 5 h planned is 67 % more (over +15 %).
+    expect(one([280, 0, 20], 3, "2027-09-14", "taper").flags.map((f) => f.code)).toContain("role_volume");
+    // A race week of 1 h against 3 h: lighter than planned does no harm.
+    expect(one([60, 0, 0], 3, "2027-09-14", "event").flags.map((f) => f.code)).not.toContain("volume_off_target");
+  });
+
   it("a loading week planned far above its target (8.5 h against 5.75 h) is flagged", () => {
     const w = one([480, 0, 30], 5.75, "2027-09-14");
     expect(w.flags.map((f) => f.code)).toContain("volume_off_target");
     // 510 min against 345 min: 48 % more (hand calculation).
     expect(w.flags.find((f) => f.code === "volume_off_target")!.message).toMatch(
-      /8\.5 h against its target of 5\.75 h \(48 % more\)/,
+      /8\.5 h against its target of 5\.75 h \(48 % more; the limit is 15 % either way\)/,
     );
   });
 
@@ -479,5 +508,32 @@ describe("volume after a break (common practice: rebuild over about as many week
   it("a single missed week is no break", () => {
     const done = mondays.filter((m) => m !== "2027-03-29").flatMap((m) => doneWeek(m));
     expect(summarise(done).rebuild).toBeNull();
+  });
+});
+
+describe("the coach's hard-day rules for an athlete", () => {
+  // Common practice: two or three hard days a week, none back to back (a hard day: 10 min of zone 3 or more). Three hard
+  // days, Tuesday and Wednesday back to back, with easy days between the rest (no season, budget checks apart).
+  const day = (id: string, date: string, z3: number) => ({
+    id,
+    date,
+    title: id,
+    kind: "training",
+    minutesByZone: [60, 0, z3] as [number, number, number],
+  });
+  const sessions = [day("a", "2027-09-14", 12), day("b", "2027-09-15", 12), day("c", "2027-09-18", 12)];
+  const codes = (rules?: PlanningRules) =>
+    summariseWeeks({ from: "2027-09-13", to: "2027-09-13", sessions, today: "2027-09-01", rules })[0]!.flags.map(
+      (f) => f.code,
+    );
+
+  it("by default three hard days pass but two in a row do not", () => {
+    expect(codes()).not.toContain("too_many_hard_days");
+    expect(codes()).toContain("back_to_back_hard_days");
+  });
+
+  it("a limit of two flags the third hard day; allowing back to back drops that flag", () => {
+    expect(codes({ ...DEFAULT_PLANNING_RULES, maxHardDays: 2 })).toContain("too_many_hard_days");
+    expect(codes({ ...DEFAULT_PLANNING_RULES, hardDaysBackToBack: true })).not.toContain("back_to_back_hard_days");
   });
 });

@@ -2,6 +2,7 @@
  * Weekly summaries for the calendar's budget band: planned (and later done) minutes per zone per ISO week, checked against
  * the week's intensity budget, with the reasons and a concrete fix when the week is over budget.
  */
+import { DEFAULT_PLANNING_RULES, type PlanningRules } from "./rules";
 import {
   BUDGET_PRESETS,
   checkWeek,
@@ -49,11 +50,11 @@ export type WeekRole = "loading" | "unloading" | "taper" | "event" | "recovery";
  * How a week is judged depends on its role. A taper keeps its intensity and cuts volume (Mujika & Padilla 2003; Bosquet
  * et al. 2007), and a race week holds the race itself, so neither is judged on zone shares: both are judged on volume
  * against the season's target for the week. An unloading or recovery week is judged on its reduced volume too, as well as
- * on its (easy) budget. A week's volume may exceed its target by ROLE_VOLUME_TOLERANCE (common practice).
+ * on its (easy) budget. Every week with a target is flagged when its planned minutes stray more than the athlete's volume
+ * tolerance from it (PlanningRules, 15 % by default; common practice): above it in every role, below it in loading,
+ * unloading and taper weeks (a race or recovery week that ends up lighter than planned does no harm).
  */
-export const ROLE_VOLUME_TOLERANCE = 0.15;
-/** A loading week planned more than this far above its target is flagged too (common practice). */
-export const LOADING_VOLUME_TOLERANCE = 0.25;
+const UNDER_TARGET_ROLES = new Set<WeekRole>(["loading", "unloading", "taper"]);
 /** A future week with less than this share of its target planned is still being filled: "in progress", not red. */
 export const IN_PROGRESS_SHARE = 0.5;
 const SHARE_CODES = new Set(["too_much_high", "too_little_low", "too_much_moderate"]);
@@ -93,6 +94,8 @@ export interface WeekSummary {
   block: string | null;
   /** A week of the return after a break: which week back, of how many missed, and its volume limit. */
   rebuild: { week: number; of: number; referenceMin: number; limitMin: number } | null;
+  /** The planning rules the week was judged by (a drag preview judges with the same). */
+  rules: PlanningRules;
 }
 
 function minutesOf(sessions: WeekSession[]): Shares {
@@ -244,6 +247,8 @@ export interface SummariseInput {
   templates?: FixTemplate[];
   /** The sport of an added easy session when the week's sessions do not say (the athlete's first sport). */
   defaultSport?: string;
+  /** The coach's planning rules for the athlete (hard days, volume tolerance); the defaults when absent. */
+  rules?: PlanningRules;
 }
 
 const seasonWeekIndex = new WeakMap<SeasonWeekInfo[], Map<string, SeasonWeekInfo>>();
@@ -286,6 +291,7 @@ function check(
   const inWeek = weekOf(weekStart);
   const planned = minutesOf(inWeek);
   const { preset, budget, block, role, volumeHours } = weekBudget(weekStart, input);
+  const rules = input.rules ?? DEFAULT_PLANNING_RULES;
   // A week that holds nothing but its retest is not planned yet: the test alone is no mix of training to judge (common
   // practice: the budget governs training; the test's minutes count once training is planned around it).
   const judged: Shares = inWeek.some((s) => s.kind !== "retest") ? planned : [0, 0, 0];
@@ -298,8 +304,9 @@ function check(
     previousWeeksMinutes: previousTotals,
     budget,
     retestOverdue,
+    hardDays: { max: rules.maxHardDays, backToBack: rules.hardDaysBackToBack },
   });
-  const byRole = role ? judgeByRole(checked, role, judged, volumeHours) : checked;
+  const byRole = role ? judgeByRole(checked, role, judged, volumeHours, rules.volumeTolerancePct / 100) : checked;
   const rebuild = rebuildAfterBreak(weekStart, weekOf, input);
   const total = judged[0] + judged[1] + judged[2];
   const result =
@@ -326,53 +333,61 @@ function check(
   return { inWeek, planned, preset, budget, block, role, volumeHours, result, rebuild };
 }
 
-/** Role rules (see ROLE_VOLUME_TOLERANCE): taper and event weeks drop the zone-share checks; the reduced weeks get a volume check. */
+/** Role rules (see UNDER_TARGET_ROLES): taper and event weeks drop the zone-share checks; every week with a volume target
+ * is held to it within the tolerance. */
 function judgeByRole(
   checked: ReturnType<typeof checkWeek>,
   role: WeekRole,
   minutes: Shares,
   volumeHours: number | null,
+  tolerance: number,
 ): ReturnType<typeof checkWeek> {
   let breaches = checked.breaches;
   if (role === "taper" || role === "event") breaches = breaches.filter((b) => !SHARE_CODES.has(b.code));
-  if (role === "loading" && volumeHours !== null && volumeHours > 0) {
-    const total = minutes[0] + minutes[1] + minutes[2];
-    if (total > volumeHours * 60 * (1 + LOADING_VOLUME_TOLERANCE)) {
-      const hours = (m: number) => `${Math.round((m / 60) * 100) / 100} h`;
-      breaches = [
-        ...breaches,
-        {
-          code: "volume_off_target",
-          message: `This week plans ${hours(total)} against its target of ${hours(volumeHours * 60)} (${Math.round((100 * total) / (volumeHours * 60) - 100)} % more).`,
-          numbers: { plannedMin: Math.round(total), targetMin: Math.round(volumeHours * 60) },
-        },
-      ];
-    }
-  }
-  if (role !== "loading" && volumeHours !== null && volumeHours > 0) {
-    const total = minutes[0] + minutes[1] + minutes[2];
-    const limit = volumeHours * 60 * (1 + ROLE_VOLUME_TOLERANCE);
-    if (total > limit) {
-      const what =
-        role === "taper"
-          ? "A taper keeps its intensity and cuts volume"
-          : role === "event"
-            ? "A race week keeps the volume low around the race"
-            : "An easier week rests by its lower volume";
-      const hours = (m: number) => `${Math.round((m / 60) * 100) / 100} h`;
-      breaches = [
-        ...breaches,
-        {
-          code: "role_volume",
-          message: `${what}: this week plans ${hours(total)} against a target of ${hours(volumeHours * 60)} (at most ${hours(limit)}). Remove about ${Math.ceil(total - volumeHours * 60)} min, easy minutes first.`,
-          numbers: {
-            plannedMin: Math.round(total),
-            targetMin: Math.round(volumeHours * 60),
-            limitMin: Math.round(limit),
+  if (volumeHours === null || volumeHours <= 0) return { ...checked, breaches, ok: breaches.length === 0 };
+  const total = minutes[0] + minutes[1] + minutes[2];
+  const target = volumeHours * 60;
+  const hours = (m: number) => `${Math.round((m / 60) * 100) / 100} h`;
+  const tol = Math.round(tolerance * 100);
+  const off = Math.round((100 * total) / target - 100);
+  const high = target * (1 + tolerance),
+    low = target * (1 - tolerance);
+  if (total > high + 1e-9) {
+    breaches = [
+      ...breaches,
+      role === "loading"
+        ? {
+            code: "volume_off_target",
+            message: `This week plans ${hours(total)} against its target of ${hours(target)} (${off} % more; the limit is ${tol} % either way). Remove about ${Math.ceil(total - target)} min, easy minutes first, or raise the season's target.`,
+            numbers: { plannedMin: Math.round(total), targetMin: Math.round(target), offPct: off, tolerancePct: tol },
+          }
+        : {
+            code: "role_volume",
+            message: `${
+              role === "taper"
+                ? "A taper keeps its intensity and cuts volume"
+                : role === "event"
+                  ? "A race week keeps the volume low around the race"
+                  : "An easier week rests by its lower volume"
+            }: this week plans ${hours(total)} against a target of ${hours(target)} (at most ${hours(high)}). Remove about ${Math.ceil(total - target)} min, easy minutes first.`,
+            numbers: {
+              plannedMin: Math.round(total),
+              targetMin: Math.round(target),
+              limitMin: Math.round(high),
+              tolerancePct: tol,
+            },
           },
-        },
-      ];
-    }
+    ];
+  } else if (UNDER_TARGET_ROLES.has(role) && total > 0 && total < low - 1e-9) {
+    // (A week with nothing planned is not a plan off its target: it is not planned yet.)
+    breaches = [
+      ...breaches,
+      {
+        code: "volume_off_target",
+        message: `This week plans ${hours(total)} against its target of ${hours(target)} (${-off} % less; the limit is ${tol} % either way). Add about ${Math.ceil(target - total)} min of easy training, or lower the season's target for the week.`,
+        numbers: { plannedMin: Math.round(total), targetMin: Math.round(target), offPct: off, tolerancePct: tol },
+      },
+    ];
   }
   return { ...checked, breaches, ok: breaches.length === 0 };
 }
@@ -447,6 +462,7 @@ export function summariseWeeks(input: SummariseInput): WeekSummary[] {
       })(),
       block,
       rebuild,
+      rules: input.rules ?? DEFAULT_PLANNING_RULES,
     });
   }
   return out;
@@ -480,11 +496,13 @@ function proposeMove(
     b.code !== "return_after_break";
   const breachesOf = (week: string, of: WeekOf) =>
     check(week, of, input, previousTotals(week, of, input), false).result.breaches.filter(curable);
-  // The week it lands in is checked against every rule, the volume ramp and its target included.
+  // The week it lands in is checked against every rule, the volume ramp and its target included; a shortfall there only
+  // shrinks with the minutes it gains.
   const everyBreachOf = (week: string, of: WeekOf) =>
     check(week, of, input, previousTotals(week, of, input), false).result.breaches.filter(
-      (b) => b.code !== "retest_overdue",
+      (b) => b.code !== "retest_overdue" && !isShortfall(b),
     );
+  const shortHere = fallsShort(weekStart, input, weekOf);
   const sessionsOn = (of: WeekOf, date: string) => of(mondayOf(date)).filter((x) => x.date === date);
   for (const s of candidates) {
     if (s.minutesByZone[2] + s.minutesByZone[1] === 0) break;
@@ -492,6 +510,8 @@ function proposeMove(
     // whether it then keeps its budget does not depend on where the session goes.
     const without: WeekOf = (w) => (w === weekStart ? weekOf(w).filter((x) => x.id !== s.id) : weekOf(w));
     if (breachesOf(weekStart, without).length > 0) continue;
+    // Nor may the week it leaves fall short of its volume target because of the move.
+    if (!shortHere && fallsShort(weekStart, input, without)) continue;
     for (const shift of [7, -7, 14]) {
       const toDate = addDays(s.date, shift);
       if (toDate < input.today) continue;
@@ -523,10 +543,22 @@ function proposeMove(
   return null;
 }
 
-/** The checks a fix must pass in a week: every rule but an overdue retest (a fix does not place tests). */
-function breachesAfter(week: string, of: WeekOf, input: SummariseInput) {
+/** A week planned below its volume target (the tolerance's lower side). */
+const isShortfall = (b: Pick<Breach, "code" | "numbers">) =>
+  b.code === "volume_off_target" && (b.numbers.offPct ?? 0) < 0;
+
+/** Whether a week, as planned now, falls short of its volume target. */
+function fallsShort(week: string, input: SummariseInput, of: WeekOf) {
+  return check(week, of, input, previousTotals(week, of, input), false).result.breaches.some(isShortfall);
+}
+
+/**
+ * The checks a fix must pass in a week: every rule but an overdue retest (a fix does not place tests). A shortfall the
+ * week already had before the change does not block it when the change does not deepen it (`shortBefore`).
+ */
+function breachesAfter(week: string, of: WeekOf, input: SummariseInput, shortBefore = false) {
   return check(week, of, input, previousTotals(week, of, input), false).result.breaches.filter(
-    (b) => b.code !== "retest_overdue",
+    (b) => b.code !== "retest_overdue" && !(shortBefore && isShortfall(b)),
   );
 }
 
@@ -555,6 +587,7 @@ function proposeSwap(
         hardMinutes(s.minutesByZone) > 0,
     )
     .sort((a, b) => hardMinutes(b.minutesByZone) - hardMinutes(a.minutesByZone));
+  const shortBefore = fallsShort(weekStart, input, weekOf);
   for (const s of candidates) {
     const options = templates
       .filter(
@@ -569,7 +602,7 @@ function proposeSwap(
         w === weekStart
           ? weekOf(w).map((x) => (x.id === s.id ? { ...x, minutesByZone: t.minutesByZone, totalS: t.totalS } : x))
           : weekOf(w);
-      if (breachesAfter(weekStart, swapped, input).length === 0) {
+      if (breachesAfter(weekStart, swapped, input, shortBefore && t.totalS >= s.totalS!).length === 0) {
         return {
           action: "swap",
           sessionId: s.id,
@@ -614,7 +647,8 @@ function proposeAdd(
         totalS: minutes * 60,
       };
       const withIt: WeekOf = (w) => (w === weekStart ? [...weekOf(w), added] : weekOf(w));
-      if (breachesAfter(weekStart, withIt, input).length === 0) {
+      // Added minutes only shrink a shortfall, so one the week has does not block the fix.
+      if (breachesAfter(weekStart, withIt, input, true).length === 0) {
         return {
           action: "add",
           date,

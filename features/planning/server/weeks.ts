@@ -14,6 +14,7 @@ import {
   type WeekSession,
   type WeekSummary,
 } from "../lib/weeks";
+import { DEFAULT_PLANNING_RULES, type PlanningRules } from "../lib/rules";
 import { athleteMembershipsAndGeneration, cachedAnswer, storeAnswer } from "./week-cache";
 
 /** Weekly summaries against the budgets: one athlete's weeks (the planner's band) and one week of a whole squad. */
@@ -60,20 +61,21 @@ interface AthleteWeekInputs {
   seasonWeeks: SeasonWeekInfo[];
   testDates: string[];
   done: { date: string; minutesByZone: Zones; totalMin?: number }[];
+  rules: PlanningRules;
 }
 
 /**
  * The one loader behind the athlete's weeks and the squad week: for each athlete, their planned sessions from
  * `sessionsFrom` to `sessionsTo`, their seasons' weeks, their test dates and what they logged from `logsFrom` to `logsTo`
- * (as minutes per zone: measured, or the plan's minutes scaled to the time logged). Four queries, whatever the number of
- * athletes.
+ * (as minutes per zone: measured, or the plan's minutes scaled to the time logged), and the coach's planning rules for
+ * each. Five queries, whatever the number of athletes.
  */
 async function loadWeekInputs(
   athleteIds: string[],
   range: { sessionsFrom: string; sessionsTo: string; logsFrom: string; logsTo: string },
 ): Promise<{ byAthlete: Map<string, AthleteWeekInputs>; logStatusOf: Map<string, "done" | "partial" | "skipped"> }> {
   const db = getDb();
-  const [sessions, seasons, tests, logs] = await Promise.all([
+  const [sessions, seasons, tests, logs, profiles] = await Promise.all([
     db
       .select({
         id: schema.plannedSession.id,
@@ -121,10 +123,26 @@ async function loadWeekInputs(
           lte(schema.sessionLog.date, range.logsTo),
         ),
       ),
+    db
+      .select({
+        athleteId: schema.athleteProfile.userId,
+        maxHardDays: schema.athleteProfile.maxHardDays,
+        hardDaysBackToBack: schema.athleteProfile.hardDaysBackToBack,
+        volumeTolerancePct: schema.athleteProfile.volumeTolerancePct,
+      })
+      .from(schema.athleteProfile)
+      .where(inArray(schema.athleteProfile.userId, athleteIds)),
   ]);
   const out = new Map<string, AthleteWeekInputs>(
-    athleteIds.map((id) => [id, { sessions: [], seasonWeeks: [], testDates: [], done: [] }]),
+    athleteIds.map((id) => [
+      id,
+      { sessions: [], seasonWeeks: [], testDates: [], done: [], rules: DEFAULT_PLANNING_RULES },
+    ]),
   );
+  for (const { athleteId, ...rules } of profiles) {
+    const own = out.get(athleteId);
+    if (own) own.rules = rules;
+  }
   const plannedById = new Map(sessions.map((x) => [x.id, x]));
   for (const x of sessions) out.get(x.athleteId)?.sessions.push(x);
   for (const x of seasons) out.get(x.athleteId)?.seasonWeeks.push(...(x.weeks as unknown as SeasonWeekInfo[]));
@@ -176,6 +194,7 @@ async function computeWeekSummaries(athleteId: string, from: string, to: string,
     done: mine.done,
     doneFrom: addDays(mondayOf(from), -VOLUME_HISTORY_DAYS),
     today,
+    rules: mine.rules,
   });
 }
 
@@ -235,6 +254,7 @@ export async function squadWeek(actor: Actor, squadId: string, weekStart: string
       done: own.done,
       doneFrom: addDays(monday, -VOLUME_HISTORY_DAYS),
       withFix: false,
+      rules: own.rules,
     });
     return {
       athlete: a,

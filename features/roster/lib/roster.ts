@@ -5,6 +5,7 @@
 import { driftAcrossSports } from "@/features/load/lib/drift";
 import { latestLoad, logZoneMinutes, type ReportLog, type ReportPlanned } from "@/features/load/lib/report";
 import { mondayOf } from "@/features/platform/lib/days";
+import type { PlanningRules } from "@/features/planning/lib/rules";
 import { summariseWeeks, VOLUME_HISTORY_DAYS, type SeasonWeekInfo } from "@/features/planning/lib/weeks";
 import { addDays } from "@/features/platform/lib/days";
 import { readiness, type ReadinessInput, type ReadinessStatus } from "@/features/athlete-tests/lib/readiness";
@@ -29,6 +30,8 @@ export interface RosterInput {
   firstLogDate?: string | null;
   /** The latest screening answers and the clearances (features/athlete-tests/lib/readiness.ts); absent means none. */
   readiness?: Omit<ReadinessInput, "today">;
+  /** The coach's planning rules for the athlete (hard days, volume tolerance); the defaults when absent. */
+  rules?: PlanningRules;
 }
 
 export interface RosterRow {
@@ -100,6 +103,7 @@ export function rosterRow(input: RosterInput): RosterRow {
     done,
     doneFrom: addDays(monday, -VOLUME_HISTORY_DAYS),
     withFix: false,
+    rules: input.rules,
   });
   const latest = latestLoad(input.logs, today, input.firstLogDate);
   // Compliance over the sessions planned up to today in the last four weeks.

@@ -8,6 +8,7 @@ import type { ReportLog } from "@/features/load/lib/report";
 import { mondayOf } from "@/features/platform/lib/days";
 import { VOLUME_HISTORY_DAYS, type SeasonWeekInfo } from "@/features/planning/lib/weeks";
 import { addDays } from "@/features/platform/lib/days";
+import { DEFAULT_PLANNING_RULES } from "@/features/planning/lib/rules";
 import { rosterRow, type RosterRow } from "../lib/roster";
 import { readinessInputs } from "@/features/athlete-tests/server";
 import { EWMA_HISTORY_DAYS } from "@/features/load/lib/report";
@@ -36,6 +37,10 @@ interface Athlete {
   email: string;
   sports: string[];
   timeZone: string | null;
+  /** The coach's planning rules (null without a profile: the defaults). */
+  maxHardDays: number | null;
+  hardDaysBackToBack: boolean | null;
+  volumeTolerancePct: number | null;
 }
 
 /**
@@ -69,6 +74,9 @@ export async function squadRoster(
       email: schema.user.email,
       sports: sql<string[]>`coalesce(${schema.athleteProfile.sports}, '{}'::text[])`,
       timeZone: schema.athleteProfile.timeZone,
+      maxHardDays: schema.athleteProfile.maxHardDays,
+      hardDaysBackToBack: schema.athleteProfile.hardDaysBackToBack,
+      volumeTolerancePct: schema.athleteProfile.volumeTolerancePct,
       generation: schema.rosterCache.generation,
       computedGeneration: schema.rosterCache.computedGeneration,
       computedFor: schema.rosterCache.computedFor,
@@ -182,6 +190,11 @@ async function computeRows(
       seasonWeeks: (bySeasons.get(a.id) ?? []).flatMap((s) => s.weeks as unknown as SeasonWeekInfo[]),
       readiness: readinessBy.get(a.id),
       firstLogDate: firstLogBy.get(a.id) ?? null,
+      rules: {
+        maxHardDays: a.maxHardDays ?? DEFAULT_PLANNING_RULES.maxHardDays,
+        hardDaysBackToBack: a.hardDaysBackToBack ?? DEFAULT_PLANNING_RULES.hardDaysBackToBack,
+        volumeTolerancePct: a.volumeTolerancePct ?? DEFAULT_PLANNING_RULES.volumeTolerancePct,
+      },
     });
   });
   return rows;
