@@ -122,3 +122,51 @@ export const seasonWeekPatchSchema = z
   })
   .strict()
   .refine((p) => Object.keys(p).filter((k) => k !== "version").length > 0, { message: "Nothing to change." });
+
+const athleteIds = z
+  .array(z.string().min(1), { error: "Choose the athletes." })
+  .min(1, "Choose at least one athlete.")
+  .max(100, "Plan for at most 100 athletes at once.")
+  .refine((ids) => new Set(ids).size === ids.length, "An athlete is listed twice.");
+const monday = isoDate.refine((d) => new Date(`${d}T00:00:00Z`).getUTCDay() === 1, "Give the Monday of the week.");
+const targetWeeks = z
+  .array(monday, { error: "Choose the weeks." })
+  .min(1, "Choose at least one week.")
+  .max(26, "Copy to at most 26 weeks at once.")
+  .refine((w) => new Set(w).size === w.length, "A week is listed twice.");
+
+/**
+ * One action for several athletes of a squad: a template on one day, or one athlete's week copied into later weeks. With
+ * `preview` nothing is written and each athlete's week is answered as it would be after the action.
+ */
+export const groupPlanSchema = z.discriminatedUnion(
+  "mode",
+  [
+    z
+      .object({
+        mode: z.literal("template"),
+        templateId: z.string().min(1, "Choose a template."),
+        date: isoDate,
+        athleteIds,
+        preview: z.boolean().default(false),
+      })
+      .strict(),
+    z
+      .object({
+        mode: z.literal("week"),
+        sourceAthleteId: z.string().min(1, "Choose whose week to copy."),
+        sourceWeek: monday,
+        targetWeeks,
+        athleteIds,
+        preview: z.boolean().default(false),
+      })
+      .strict(),
+  ],
+  {
+    error:
+      'Send mode "template" ({templateId, date, athleteIds}) or "week" ({sourceAthleteId, sourceWeek, targetWeeks, athleteIds}).',
+  },
+);
+
+/** Copy an athlete's week into later weeks of their own plan. */
+export const copyWeekSchema = z.object({ targetWeeks, preview: z.boolean().default(false) }).strict();

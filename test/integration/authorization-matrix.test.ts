@@ -327,6 +327,24 @@ const MATRIX: Record<string, Cell> = {
       return { member: u.id };
     },
   },
+  "POST /api/squads/[id]/plan": {
+    ok: ["coach"],
+    path: () => "/api/squads/x/plan",
+    params: (i) => ({ id: i.squad! }),
+    body: (i) => ({
+      mode: "template",
+      templateId: i.template,
+      date: "2027-04-07",
+      athleteIds: [i.athleteA],
+      preview: true,
+    }),
+  },
+  "POST /api/athletes/[id]/weeks/[weekStart]/copy": {
+    ok: ["coach"],
+    path: () => "/api/athletes/x/weeks/2027-04-05/copy",
+    params: (i) => ({ id: i.athleteA!, weekStart: "2027-04-05" }),
+    body: () => ({ targetWeeks: ["2027-04-12"], preview: true }),
+  },
   "GET /api/squads/[id]/week": {
     ok: ["coach"],
     path: () => "/api/squads/x/week",

@@ -9,6 +9,8 @@ import * as seasonsRoute from "@/app/api/athletes/[id]/seasons/route";
 import * as testsRoute from "@/app/api/athletes/[id]/tests/route";
 import * as seasonWeekRoute from "@/app/api/seasons/[id]/weeks/[weekStart]/route";
 import * as squadWeekRoute from "@/app/api/squads/[id]/week/route";
+import * as squadPlanRoute from "@/app/api/squads/[id]/plan/route";
+import * as copyWeekRoute from "@/app/api/athletes/[id]/weeks/[weekStart]/copy/route";
 import { makeSquad } from "../support/squad";
 import { query, resetDatabase } from "../support/db";
 import * as profileRoute from "@/app/api/athletes/[id]/profile/route";
@@ -333,6 +335,87 @@ describe("sessions and weekly budgets", () => {
     // Outside the squad, its existence is not told.
     expect((await get(other.coach.browser)).status).toBe(404);
     expect((await get(s.coach.browser, "not-a-date")).status).toBe(400);
+  });
+
+  it("plans a template for several athletes in one action, with a preview of each athlete's week that writes nothing", async () => {
+    const squadPlan = (body: unknown, who = s.coach.browser) =>
+      who.call(squadPlanRoute, "POST", `/api/squads/${s.squadId}/plan`, { params: { id: s.squadId }, body });
+    const body = {
+      mode: "template",
+      templateId: intervalsId,
+      date: "2029-03-06",
+      athleteIds: [s.athleteA.id, s.athleteB.id],
+    };
+    const countOn = async (date: string) =>
+      Number(
+        ((await query(`select count(*) as n from planned_session where date = $1`, [date])) as { n: string }[])[0]!.n,
+      );
+    const preview = await squadPlan({ ...body, preview: true });
+    expect(preview.status).toBe(200);
+    expect(await countOn("2029-03-06")).toBe(0);
+    const a = preview.json.athletes.find((x: { athleteId: string }) => x.athleteId === s.athleteA.id);
+    // The week after it: the template's 40 min zone 1 and 20 min zone 3 (hand sum); before it: nothing planned.
+    expect(a.weeks[0].weekStart).toBe("2029-03-05");
+    expect(a.weeks[0].before.plannedMinByZone).toEqual([0, 0, 0]);
+    expect(a.weeks[0].after.plannedMinByZone).toEqual([40, 0, 20]);
+    const done = await squadPlan(body);
+    expect(done.status).toBe(201);
+    expect(done.json.created).toBe(2);
+    expect(await countOn("2029-03-06")).toBe(2);
+    // An athlete of another squad, the athlete themselves and another squad's coach are refused, and nothing is written.
+    const stranger = await squadPlan({ ...body, date: "2029-03-07", athleteIds: [other.athleteA.id] });
+    expect(stranger.status).toBe(400);
+    expect(stranger.json.fieldErrors.athleteIds[0]).toMatch(/not an athlete of this squad/);
+    expect((await squadPlan({ ...body, date: "2029-03-07" }, s.athleteA.browser)).status).toBe(403);
+    expect((await squadPlan({ ...body, date: "2029-03-07" }, other.coach.browser)).status).toBe(404);
+    expect((await squadPlan({ ...body, date: "2029-03-07", athleteIds: [] })).status).toBe(400);
+    expect(await countOn("2029-03-07")).toBe(0);
+  });
+
+  it("copies one athlete's week into later weeks, for that athlete and for others, in one action", async () => {
+    // Week of 2029-06-04: the interval session on Tuesday and an easy hour on Thursday (athlete A).
+    await plan({ date: "2029-06-05", templateId: intervalsId });
+    await plan({ date: "2029-06-07", templateId: easyId });
+    const copy = await s.coach.browser.call(
+      copyWeekRoute,
+      "POST",
+      `/api/athletes/${s.athleteA.id}/weeks/2029-06-04/copy`,
+      {
+        params: { id: s.athleteA.id, weekStart: "2029-06-04" },
+        body: { targetWeeks: ["2029-06-11", "2029-06-18"] },
+      },
+    );
+    expect(copy.status).toBe(201);
+    expect(copy.json.created).toBe(4);
+    const dates = (
+      await query(
+        `select date from planned_session where athlete_id = $1 and date between '2029-06-11' and '2029-06-24' order by date`,
+        [s.athleteA.id],
+      )
+    ).map((r) => (r as { date: string }).date);
+    expect(dates).toEqual(["2029-06-12", "2029-06-14", "2029-06-19", "2029-06-21"]);
+    // The same week for athlete B through the squad: their week then holds the same minutes per zone (40 + 60 z1, 20 z3).
+    const forB = await s.coach.browser.call(squadPlanRoute, "POST", `/api/squads/${s.squadId}/plan`, {
+      params: { id: s.squadId },
+      body: {
+        mode: "week",
+        sourceAthleteId: s.athleteA.id,
+        sourceWeek: "2029-06-04",
+        targetWeeks: ["2029-06-04"],
+        athleteIds: [s.athleteB.id],
+      },
+    });
+    expect(forB.status).toBe(201);
+    expect(forB.json.athletes[0].weeks[0].after.plannedMinByZone).toEqual([100, 0, 20]);
+    // Onto itself, a Tuesday as a week, and an empty week are refused with the reason.
+    const bad = (targetWeeks: string[], week = "2029-06-04") =>
+      s.coach.browser.call(copyWeekRoute, "POST", `/api/athletes/${s.athleteA.id}/weeks/${week}/copy`, {
+        params: { id: s.athleteA.id, weekStart: week },
+        body: { targetWeeks },
+      });
+    expect((await bad(["2029-06-04"])).json.fieldErrors.targetWeeks[0]).toMatch(/other than the one copied/);
+    expect((await bad(["2029-06-12"])).status).toBe(400);
+    expect((await bad(["2029-07-02"], "2029-06-25")).json.error).toMatch(/no training sessions/);
   });
 
   it("an over-budget week offers a swap for an easier template of the squad's library, and the stored answer follows the library", async () => {

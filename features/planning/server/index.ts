@@ -2,3 +2,4 @@
 export * from "./sessions";
 export * from "./seasons";
 export * from "./weeks";
+export * from "./group-plan";

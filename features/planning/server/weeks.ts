@@ -62,6 +62,7 @@ interface AthleteWeekInputs {
   testDates: string[];
   done: { date: string; minutesByZone: Zones; totalMin?: number }[];
   rules: PlanningRules;
+  timeZone: string;
 }
 
 /**
@@ -129,6 +130,7 @@ async function loadWeekInputs(
         maxHardDays: schema.athleteProfile.maxHardDays,
         hardDaysBackToBack: schema.athleteProfile.hardDaysBackToBack,
         volumeTolerancePct: schema.athleteProfile.volumeTolerancePct,
+        timeZone: schema.athleteProfile.timeZone,
       })
       .from(schema.athleteProfile)
       .where(inArray(schema.athleteProfile.userId, athleteIds)),
@@ -136,12 +138,15 @@ async function loadWeekInputs(
   const out = new Map<string, AthleteWeekInputs>(
     athleteIds.map((id) => [
       id,
-      { sessions: [], seasonWeeks: [], testDates: [], done: [], rules: DEFAULT_PLANNING_RULES },
+      { sessions: [], seasonWeeks: [], testDates: [], done: [], rules: DEFAULT_PLANNING_RULES, timeZone: "UTC" },
     ]),
   );
-  for (const { athleteId, ...rules } of profiles) {
+  for (const { athleteId, timeZone, ...rules } of profiles) {
     const own = out.get(athleteId);
-    if (own) own.rules = rules;
+    if (own) {
+      own.rules = rules;
+      own.timeZone = timeZone;
+    }
   }
   const plannedById = new Map(sessions.map((x) => [x.id, x]));
   for (const x of sessions) out.get(x.athleteId)?.sessions.push(x);
@@ -272,4 +277,50 @@ export async function squadWeek(actor: Actor, squadId: string, weekStart: string
       week: week!,
     };
   });
+}
+
+/**
+ * Each athlete's week as it is and as it would be with `additions` (sessions not yet written), for a preview before a
+ * squad-wide action: the same loader and engine as the band, every athlete judged on their own day and rules.
+ */
+export async function weeksWithAdditions(
+  athleteIds: string[],
+  additions: Map<string, WeekSession[]>,
+  now = new Date(),
+): Promise<Map<string, { weekStart: string; before: WeekSummary; after: WeekSummary }[]>> {
+  const weeksOf = (id: string) => [...new Set((additions.get(id) ?? []).map((s) => mondayOf(s.date)))].sort();
+  const all = athleteIds.flatMap(weeksOf);
+  const out = new Map<string, { weekStart: string; before: WeekSummary; after: WeekSummary }[]>();
+  if (!all.length) return out;
+  const first = all.reduce((a, b) => (a < b ? a : b)),
+    last = all.reduce((a, b) => (a > b ? a : b));
+  const { byAthlete } = await loadWeekInputs(athleteIds, {
+    sessionsFrom: addDays(first, -VOLUME_HISTORY_DAYS),
+    sessionsTo: addDays(last, 6),
+    logsFrom: addDays(first, -VOLUME_HISTORY_DAYS),
+    logsTo: addDays(last, 6),
+  });
+  for (const id of athleteIds) {
+    const own = byAthlete.get(id)!;
+    const today = localDate(now, own.timeZone);
+    const judge = (sessions: WeekSession[], week: string) =>
+      summariseWeeks({
+        from: week,
+        to: week,
+        sessions,
+        seasonWeeks: own.seasonWeeks,
+        testDates: own.testDates,
+        today,
+        done: own.done,
+        doneFrom: addDays(week, -VOLUME_HISTORY_DAYS),
+        withFix: false,
+        rules: own.rules,
+      })[0]!;
+    const withNew = [...own.sessions, ...(additions.get(id) ?? [])];
+    out.set(
+      id,
+      weeksOf(id).map((w) => ({ weekStart: w, before: judge(own.sessions, w), after: judge(withNew, w) })),
+    );
+  }
+  return out;
 }
