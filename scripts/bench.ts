@@ -3,7 +3,8 @@
  * - Gas-exchange analysis of a 60-minute 1 Hz CSV against papaparse parsing the same file (target ≤ 1.5).
  * - Expanding a structured session, and checking a season's weekly budgets, against the same floor.
  * - A 3-hour FIT import against the FIT SDK's decode; the 300-athlete roster against one aggregate query (bench-roster.ts);
- *   the weeks of a season at 50 connections against a bare one-query handler, as a p95 ratio (bench-weeks.ts); the
+ *   the weeks of a season at 50 connections against a bare one-query handler, as a p95 ratio (bench-weeks.ts); a week
+ *   copied to 30 athletes in one action against one session planned (bench-group-plan.ts); the
  *   planner page's first-load JavaScript in kB gzip (bench-planner-js.ts; builds the app when its sources changed).
  */
 import Papa from "papaparse";
@@ -167,7 +168,7 @@ console.log(
 
 // The roster needs PostgreSQL and the server modules: a child process with the react-server condition.
 const { spawnSync } = await import("node:child_process");
-for (const script of ["./bench-roster.ts", "./bench-weeks.ts", "./bench-planner-js.ts"]) {
+for (const script of ["./bench-roster.ts", "./bench-weeks.ts", "./bench-group-plan.ts", "./bench-planner-js.ts"]) {
   const child = spawnSync(
     process.execPath,
     ["--conditions=react-server", "--import", "tsx", new URL(script, import.meta.url).pathname],

@@ -284,4 +284,62 @@ describe("planning in the browser", () => {
     expect(problems).toEqual([]);
     await page.context().close();
   });
+
+  it("plans a template for two athletes from the squad week after a preview, and copies a week into the next weeks", async () => {
+    const { page, problems } = await newPage(browser);
+    await signIn(page, "coach@northfold.test");
+    // A week far beyond the demo season, different on each run.
+    const week = mondayInWeeks(120 + (Math.floor(Date.now() / 1000) % 400));
+    await page.goto(`${BASE}/roster/week?week=${week}`);
+    const planner = page.getByRole("region", { name: "Plan for several athletes" });
+    await planner.getByLabel("Template", { exact: true }).selectOption({ label: "Long run 90 min (Running)" });
+    await planner.getByLabel("Day", { exact: true }).selectOption(plus(week, 2));
+    await planner.getByLabel("Ines Varga").check();
+    await planner.getByLabel("Jonas Okafor").check();
+    await planner.getByRole("button", { name: "Show each athlete's week" }).click();
+    const preview = page.getByTestId("group-preview");
+    await preview.waitFor();
+    // The long run's 90 minutes in zone 1 on an empty week, for each of the two (template's minutes).
+    await expect(preview.getByRole("row").filter({ hasText: "Ines Varga" }).textContent()).resolves.toContain("90 min");
+    await expect(preview.getByRole("row").filter({ hasText: "Jonas Okafor" }).textContent()).resolves.toContain(
+      "90 min",
+    );
+    expect(await accessibilityProblems(page)).toEqual([]);
+    await shot(page, "squad-week-group-plan");
+    await planner.getByRole("button", { name: "Plan it for 2 athletes" }).click();
+    await page.getByText("Planned 2 sessions for 2 athletes.").waitFor();
+    // The squad week's rows now show the session on that day for both.
+    await page.getByTestId("squad-week-row").filter({ hasText: "Ines Varga" }).getByText("Long run 90 min").waitFor();
+    await page.getByTestId("squad-week-row").filter({ hasText: "Jonas Okafor" }).getByText("Long run 90 min").waitFor();
+
+    // On Ines's plan: copy that week into the next two weeks.
+    await page
+      .getByTestId("squad-week-row")
+      .filter({ hasText: "Ines Varga" })
+      .getByRole("link", { name: "Ines Varga" })
+      .click();
+    await page.waitForURL(/\/plan\?week=/);
+    const athleteId = page.url().split("/athletes/")[1]!.split("/")[0]!;
+    await page.getByText("Copy a week into the next weeks").click();
+    await page.getByLabel("Copy the training sessions of the week of").selectOption(week);
+    await page.getByLabel("Into").selectOption({ label: "the next 2 weeks" });
+    await page.getByRole("button", { name: "Show those weeks after it" }).click();
+    await page
+      .getByTestId("copy-preview")
+      .getByText(`Week of ${plus(week, 14)}`)
+      .waitFor();
+    await page.getByRole("button", { name: "Copy it" }).click();
+    await page.getByText("Copied 2 sessions into 2 weeks.").waitFor();
+    const dates = (
+      (await (
+        await page.request.get(`${BASE}/api/athletes/${athleteId}/sessions?from=${week}&to=${plus(week, 20)}`)
+      ).json()) as { title: string; date: string }[]
+    )
+      .filter((x) => x.title === "Long run 90 min")
+      .map((x) => x.date)
+      .sort();
+    expect(dates).toEqual([plus(week, 2), plus(week, 9), plus(week, 16)]);
+    expect(problems).toEqual([]);
+    await page.context().close();
+  });
 });

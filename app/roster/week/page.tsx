@@ -7,6 +7,8 @@ import { mondayOf } from "@/features/platform/lib/days";
 import { addDays } from "@/features/platform/lib/days";
 import { isoDate } from "@/features/planning/schemas";
 import { squadWeek } from "@/features/planning/server";
+import { listTemplates } from "@/features/planning/server/templates";
+import { GroupPlanner } from "@/features/planning/components/GroupPlanner";
 import { describeMe } from "@/features/squads/server/squads";
 
 export const metadata = { title: "Squad week" };
@@ -34,7 +36,10 @@ export default async function SquadWeekPage({
   }
   const squad = squads.find((s) => s.id === q.squad) ?? squads[0]!;
   const monday = mondayOf(q.week && isoDate.safeParse(q.week).success ? q.week : new Date().toISOString().slice(0, 10));
-  const rows = await squadWeek(actor, squad.id, monday);
+  const [rows, templates] = await Promise.all([
+    squadWeek(actor, squad.id, monday),
+    listTemplates(actor, { squadId: squad.id }),
+  ]);
   const days = Array.from({ length: 7 }, (_, i) => addDays(monday, i));
   const link = (week: string) => `/roster/week?squad=${squad.id}&week=${week}`;
   const over = rows.filter((r) => r.week.overBudget).length;
@@ -64,6 +69,14 @@ export default async function SquadWeekPage({
           </Link>
         </nav>
       </div>
+      {rows.length > 0 ? (
+        <GroupPlanner
+          squadId={squad.id}
+          monday={monday}
+          athletes={rows.map((r) => r.athlete)}
+          templates={templates.map((t) => ({ id: t.id, name: t.name, sport: t.sport }))}
+        />
+      ) : null}
       {rows.length === 0 ? (
         <p className="card text-ink-soft">No athletes in this squad yet. Invite them from the roster.</p>
       ) : (

@@ -7,6 +7,7 @@ import type { EventReceiveArg } from "@fullcalendar/interaction";
 import { useEffect, useMemo, useRef, useState } from "react";
 import { FormAlert, FormNotice } from "@/features/platform/components/form-bits";
 import { useQueryClient } from "@tanstack/react-query";
+import { CopyWeek } from "./CopyWeek";
 import { ApiError, apiFetch } from "@/features/platform/lib/api-client";
 import { addDays } from "@/features/platform/lib/days";
 import {
@@ -229,6 +230,13 @@ export function PlanCalendar({
             </div>
           ))}
         </div>
+        {canEdit && weekList.length ? (
+          <CopyWeek
+            athleteId={athleteId}
+            weekStarts={weekList.map((w) => w.weekStart)}
+            onCopied={() => invalidatePlan(qc, athleteId)}
+          />
+        ) : null}
         {message ? (
           message.kind === "ok" ? (
             <FormNotice>{message.text}</FormNotice>

@@ -1,10 +1,28 @@
 import { describe, expect, it } from "vitest";
-import { fiveZones, formatPace, paceSPerKm, threeZones, zoneOf, zoneSetInForce, ZoneError } from "./zones";
+import { fiveZones, formatPace, paceSPerKm, RPE_ANCHORS, threeZones, zoneOf, zoneSetInForce, ZoneError } from "./zones";
 
 const vt1 = { hrBpm: 150, powerW: 220, speedKmh: 12 };
 const vt2 = { hrBpm: 172, powerW: 300, speedKmh: 15 };
 
 describe("zones from VT1 and VT2 (three-zone model, Seiler & Kjerland 2006)", () => {
+  it("gives each zone the CR-10 band of its verbal anchors (Foster et al. 2001: 3 moderate, 4 somewhat hard, 5 hard, 7 very hard)", () => {
+    const z = threeZones(vt1, vt2);
+    expect(z.map((x) => x.rpe)).toEqual([
+      [1, 3],
+      [4, 6],
+      [7, 10],
+    ]);
+    // Foster et al. 2001's anchors at the zone edges: zone 1 ends at "moderate", zone 2 starts at "somewhat hard" and
+    // zone 3 at "very hard" (our placement of the anchors; common practice).
+    expect([RPE_ANCHORS[3], RPE_ANCHORS[4], RPE_ANCHORS[7]]).toEqual(["moderate", "somewhat hard", "very hard"]);
+    // The five zones stay inside their parents' bands.
+    for (const f of fiveZones(vt1, vt2)) {
+      const parent = z[f.parent - 1]!.rpe;
+      expect(f.rpe[0]).toBeGreaterThanOrEqual(parent[0]);
+      expect(f.rpe[1]).toBeLessThanOrEqual(parent[1]);
+    }
+  });
+
   it("bounds zone 1 by VT1, zone 2 by VT1–VT2, zone 3 above VT2, in every measure", () => {
     const z = threeZones(vt1, vt2);
     expect(z.map((x) => x.ranges.hrBpm)).toEqual([
