@@ -368,6 +368,9 @@ export const zoneSet = pgTable(
     vt1: jsonb("vt1").$type<ThresholdValues>().notNull(),
     vt2: jsonb("vt2").$type<ThresholdValues>().notNull(),
     source: text("source").notNull(),
+    /** When a coach chose this set over another of the same sport and day; among such sets the latest chosen (else the
+     * newest) is in force. */
+    chosenAt: timestamp("chosen_at", { withTimezone: true }),
     createdBy: text("created_by").references(() => user.id, { onDelete: "set null" }),
     createdAt: createdAt(),
     updatedAt: updatedAt(),

@@ -327,6 +327,11 @@ const MATRIX: Record<string, Cell> = {
       return { member: u.id };
     },
   },
+  "POST /api/zone-sets/[id]/choose": {
+    ok: ["coach"],
+    path: () => "/api/zone-sets/x/choose",
+    params: (i) => ({ id: i.zoneSet! }),
+  },
   "POST /api/squads/[id]/plan": {
     ok: ["coach"],
     path: () => "/api/squads/x/plan",
@@ -437,6 +442,9 @@ beforeAll(async () => {
     { params: { id: s.athleteA.id }, form: gasForm() },
   );
   ids.test = test.json.id ?? test.json.test?.id;
+  ids.zoneSet =
+    ((await query(`select id from zone_set where athlete_id = $1 limit 1`, [s.athleteA.id])) as { id: string }[])[0]
+      ?.id ?? "";
   const feed = await s.athleteA.browser.call(
     modules["/app/api/me/calendar-feed/route.ts"]!,
     "POST",
@@ -454,7 +462,7 @@ beforeAll(async () => {
   );
   ids.invitation = inv!.meta.url.split("/invite/")[1]!;
   ids.unsubscribe = unsubscribeToken(process.env.BETTER_AUTH_SECRET ?? "", s.athleteA.id, "coach_digest");
-  for (const k of ["session", "log", "template", "season", "test"]) expect(ids[k], k).toBeTruthy();
+  for (const k of ["session", "log", "template", "season", "test", "zoneSet"]) expect(ids[k], k).toBeTruthy();
 });
 
 afterAll(async () => {

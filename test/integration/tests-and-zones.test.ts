@@ -7,6 +7,7 @@ import * as testRoute from "@/app/api/tests/[id]/route";
 import * as thresholdsRoute from "@/app/api/tests/[id]/thresholds/route";
 import * as fileRoute from "@/app/api/tests/[id]/file/route";
 import * as segmentRoute from "@/app/api/tests/[id]/segment/route";
+import * as chooseRoute from "@/app/api/zone-sets/[id]/choose/route";
 import { syntheticRamp } from "@/features/gas-exchange/lib/synthetic-ramp";
 import { makeSquad } from "../support/squad";
 import { query, resetDatabase } from "../support/db";
@@ -269,6 +270,37 @@ describe("talk tests, hand-entered thresholds and zones on a date", () => {
     });
     expect(bad.status).toBe(400);
     expect(bad.json.error).toMatch(/VT1 must lie below VT2/);
+  });
+
+  it("two tests on the same day: the newest sets the zones until a coach chooses the other, which every view then reads", async () => {
+    const meta = { sport: "running", protocol: "manual entry", date: "2026-08-10", endedBy: "plan" };
+    const make = (vt1: number, vt2: number) =>
+      s.coach.browser.call(testsRoute, "POST", `/api/athletes/${s.athleteB.id}/tests`, {
+        params: { id: s.athleteB.id },
+        body: { kind: "manual", meta, vt1: { hrBpm: vt1, speedKmh: 12 }, vt2: { hrBpm: vt2, speedKmh: 14 } },
+      });
+    expect((await make(151, 167)).status).toBe(201);
+    expect((await make(153, 169)).status).toBe(201);
+    const zones = async () =>
+      (
+        await s.athleteB.browser.call(zonesRoute, "GET", `/api/athletes/${s.athleteB.id}/zones`, {
+          params: { id: s.athleteB.id },
+          query: "?date=2026-08-10",
+        })
+      ).json;
+    expect((await zones()).inForce.running.vt1.hrBpm).toBe(153);
+    const older = (await zones()).history.find((z: { vt1: { hrBpm: number } }) => z.vt1.hrBpm === 151);
+    const choose = (id: string, who = s.coach.browser) =>
+      who.call(chooseRoute, "POST", `/api/zone-sets/${id}/choose`, { params: { id } });
+    expect((await choose(older.id, s.athleteB.browser)).status).toBe(403);
+    expect((await choose("no-such-set")).status).toBe(404);
+    const chosen = await choose(older.id);
+    expect(chosen.status).toBe(200);
+    expect(chosen.json.chosenAt).toBeTruthy();
+    expect((await zones()).inForce.running.vt1.hrBpm).toBe(151);
+    // The history lists the chosen set first on its day (what the zone pages and the sessions' targets read).
+    const sameDay = (await zones()).history.filter((z: { effectiveFrom: string }) => z.effectiveFrom === "2026-08-10");
+    expect(sameDay.map((z: { vt1: { hrBpm: number } }) => z.vt1.hrBpm)).toEqual([151, 153]);
   });
 
   it("a submaximal estimate is stored with its error band and makes no zones", async () => {

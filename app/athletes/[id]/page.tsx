@@ -103,7 +103,7 @@ export default async function AthletePage({ params }: { params: Promise<{ id: st
           Zones in force today
         </h2>
         <ZonesInForce inForce={zones.inForce} emptyText="No zones yet. Record a test to derive them." />
-        <ZoneSetList history={zones.history} />
+        <ZoneSetList history={zones.history} canChoose={coaches} />
       </section>
       <section className="card space-y-3" aria-labelledby="tests-heading">
         <div className="flex flex-wrap items-center justify-between gap-3">

@@ -12,7 +12,7 @@ import { readGasExchangeFile } from "@/features/gas-exchange/lib/workbook";
 import { fromRows, gasExchangeRecord, talkTestRecord, type PointRow } from "../lib/records";
 import { fuelProfile } from "@/features/physiology/lib/fuel";
 import { HttpError, notFound } from "@/features/platform/server/http";
-import { saveZoneSetForTest, zonesFor, type ZoneSetView } from "@/features/zones/server";
+import { saveZoneSetForTest, zonesFor, zoneSetView, type ZoneSetView } from "@/features/zones/server";
 import type { z } from "zod";
 import type { JsonTestInput, segmentSchema, testMetaSchema, ThresholdPatch } from "../schemas";
 import type { TestView } from "../lib/views";
@@ -183,22 +183,7 @@ export async function getTest(actor: Actor, testId: string): Promise<TestView> {
     .select({ filename: schema.testFile.filename, sizeBytes: schema.testFile.sizeBytes })
     .from(schema.testFile)
     .where(eq(schema.testFile.testId, row.id));
-  let zoneSet: ZoneSetView | null = null;
-  if (zs) {
-    const z = zonesFor(zs.vt1, zs.vt2);
-    zoneSet = {
-      id: zs.id,
-      sport: zs.sport,
-      effectiveFrom: zs.effectiveFrom,
-      model: zs.model === "five" ? "five" : "three",
-      source: zs.source,
-      testId: zs.testId,
-      vt1: zs.vt1,
-      vt2: zs.vt2,
-      zones: z.three,
-      fiveZones: zs.model === "five" ? z.five : null,
-    };
-  }
+  const zoneSet: ZoneSetView | null = zs ? zoneSetView(zs) : null;
   let fuel = null;
   if (row.kind === "gas_exchange") {
     const points = fromRows((row.result.points as PointRow[]) ?? []);

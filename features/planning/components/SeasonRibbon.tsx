@@ -1,5 +1,9 @@
+"use client";
+import { useQuery } from "@tanstack/react-query";
 import Link from "next/link";
+import { planQueries } from "../api";
 import { BLOCK_LABELS, type BlockName, type SeasonWeek } from "../lib/season";
+import type { WeekSummary } from "../lib/weeks";
 
 /** The blocks' own palette (app/globals.css), apart from the zone colours; the competition block is dark with white text. */
 const BLOCK_STYLE: Record<BlockName, string> = {
@@ -11,18 +15,31 @@ const BLOCK_STYLE: Record<BlockName, string> = {
   transition: "bg-block-transition",
 };
 
-/** The strip of a season's weeks: block, volume target, budget state and retest marks; a week opens in the calendar. */
+/**
+ * The strip of a season's weeks: block, volume target, budget state and retest marks; a week opens in the calendar. The
+ * budget state is the planner's own weeks query over the season (the server's answer to start with), so a change made in
+ * the calendar marks and clears the ribbon's weeks together with the band.
+ */
 export function SeasonRibbon({
   athleteId,
   name,
   weeks,
-  overBudget,
+  initialSummaries,
 }: {
   athleteId: string;
   name: string;
   weeks: SeasonWeek[];
-  overBudget: Record<string, string[]>;
+  initialSummaries: WeekSummary[];
 }) {
+  const first = weeks[0]?.weekStart ?? "",
+    last = weeks.at(-1)?.weekStart ?? "";
+  const summaries = useQuery({
+    ...planQueries.weeks(athleteId, first, last),
+    initialData: initialSummaries,
+    staleTime: 30_000,
+  }).data;
+  const overBudget: Record<string, string[]> = {};
+  for (const s of summaries ?? []) if (s.overBudget) overBudget[s.weekStart] = s.flags.map((f) => f.message);
   const blocks = [...new Set(weeks.map((w) => w.block))];
   return (
     <section aria-label={`Season ribbon: ${name}`} className="space-y-2">

@@ -1,6 +1,7 @@
 import Link from "next/link";
 import { SPORT_LABELS } from "@/features/platform/lib/sports";
 import type { ZoneSetView } from "../lib/views";
+import { ChooseZoneSet } from "./ChooseZoneSet";
 import { ZoneTable } from "./ZoneTable";
 
 function sportName(s: string): string {
@@ -27,8 +28,21 @@ export function ZonesInForce({ inForce, emptyText }: { inForce: Record<string, Z
   );
 }
 
-export function ZoneSetList({ history }: { history: ZoneSetView[] }) {
+/**
+ * The athlete's zone sets, newest first. Where two sets of one sport share a day, the one in force is marked and, for a
+ * coach, each other one offers to take its place (they would otherwise be chosen silently).
+ */
+export function ZoneSetList({ history, canChoose = false }: { history: ZoneSetView[]; canChoose?: boolean }) {
   if (!history.length) return null;
+  // The list is newest first with the chosen set first on its day: the first of each sport and day is in force.
+  const firstOfDay = new Map<string, string>();
+  const count = new Map<string, number>();
+  for (const z of history) {
+    const k = `${z.sport}|${z.effectiveFrom}`;
+    if (!firstOfDay.has(k)) firstOfDay.set(k, z.id);
+    count.set(k, (count.get(k) ?? 0) + 1);
+  }
+  const shared = history.some((z) => (count.get(`${z.sport}|${z.effectiveFrom}`) ?? 0) > 1);
   return (
     <table className="w-full text-left text-sm">
       <caption className="mb-2 text-left font-semibold">Zone history</caption>
@@ -49,6 +63,11 @@ export function ZoneSetList({ history }: { history: ZoneSetView[] }) {
           <th scope="col" className="py-1 pr-3">
             Source
           </th>
+          {shared ? (
+            <th scope="col" className="py-1 pr-3">
+              Same day
+            </th>
+          ) : null}
         </tr>
       </thead>
       <tbody>
@@ -67,6 +86,19 @@ export function ZoneSetList({ history }: { history: ZoneSetView[] }) {
                 z.source
               )}
             </td>
+            {shared ? (
+              <td className="py-1 pr-3">
+                {(count.get(`${z.sport}|${z.effectiveFrom}`) ?? 0) < 2 ? null : firstOfDay.get(
+                    `${z.sport}|${z.effectiveFrom}`,
+                  ) === z.id ? (
+                  <span className="font-semibold">In force{z.chosenAt ? " (chosen)" : " (the newest)"}</span>
+                ) : canChoose ? (
+                  <ChooseZoneSet id={z.id} date={z.effectiveFrom} />
+                ) : (
+                  <span className="text-ink-soft">Not used</span>
+                )}
+              </td>
+            ) : null}
           </tr>
         ))}
       </tbody>

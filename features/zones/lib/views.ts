@@ -13,4 +13,6 @@ export interface ZoneSetView {
   vt2: ThresholdValues;
   zones: Zone[];
   fiveZones: Zone[] | null;
+  /** When a coach chose this set over another of the same sport and day (ISO time), else null. */
+  chosenAt: string | null;
 }

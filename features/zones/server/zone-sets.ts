@@ -1,11 +1,11 @@
 import "server-only";
 import { randomUUID } from "node:crypto";
-import { desc, eq } from "drizzle-orm";
+import { desc, eq, sql } from "drizzle-orm";
 import { getDb, schema, type Database } from "@/db/client";
 import type { ThresholdValues } from "@/features/zones/lib/thresholds";
 import { requireAthleteAccess } from "@/features/access/server";
 import type { Actor } from "@/features/access/lib/rules";
-import { HttpError } from "@/features/platform/server/http";
+import { HttpError, notFound } from "@/features/platform/server/http";
 import { fiveZones, threeZones, ZoneError, type Zone } from "../lib/zones";
 import type { ZoneSetView } from "../lib/views";
 
@@ -27,7 +27,8 @@ export function zonesFor(vt1: ThresholdValues, vt2: ThresholdValues): { three: Z
   }
 }
 
-function view(row: typeof schema.zoneSet.$inferSelect): ZoneSetView {
+/** A zone set row as the API and the pages show it, with its zones. */
+export function zoneSetView(row: typeof schema.zoneSet.$inferSelect): ZoneSetView {
   const z = zonesFor(row.vt1, row.vt2);
   return {
     id: row.id,
@@ -40,8 +41,16 @@ function view(row: typeof schema.zoneSet.$inferSelect): ZoneSetView {
     vt2: row.vt2,
     zones: z.three,
     fiveZones: row.model === "five" ? z.five : null,
+    chosenAt: row.chosenAt ? row.chosenAt.toISOString() : null,
   };
 }
+
+/** Among sets of the same sport and day, the one in force: the latest chosen by a coach, else the newest. */
+const standing = (row: typeof schema.zoneSet.$inferSelect) => (row.chosenAt ?? row.createdAt).getTime();
+const newestFirst = [
+  desc(schema.zoneSet.effectiveFrom),
+  desc(sql`coalesce(${schema.zoneSet.chosenAt}, ${schema.zoneSet.createdAt})`),
+] as const;
 
 /** Creates or replaces the zone set that a test produced (one per test), inside the caller's transaction. */
 export async function saveZoneSetForTest(
@@ -84,28 +93,46 @@ export async function getZones(actor: Actor, athleteId: string, date?: string) {
     .select()
     .from(schema.zoneSet)
     .where(eq(schema.zoneSet.athleteId, athleteId))
-    .orderBy(desc(schema.zoneSet.effectiveFrom), desc(schema.zoneSet.createdAt));
+    .orderBy(...newestFirst);
   const day = date ?? new Date().toISOString().slice(0, 10);
   const inForce: Record<string, ZoneSetView> = {};
-  // Oldest first, so that the latest effective date wins, and among sets of the same day the newest.
+  // Oldest first, so that the latest effective date wins, and among sets of the same day the chosen one, else the newest.
   const chronological = [...history].sort(
-    (a, b) => a.effectiveFrom.localeCompare(b.effectiveFrom) || a.createdAt.getTime() - b.createdAt.getTime(),
+    (a, b) => a.effectiveFrom.localeCompare(b.effectiveFrom) || standing(a) - standing(b),
   );
   for (const row of chronological) {
-    if (row.effectiveFrom <= day) inForce[row.sport] = view(row);
+    if (row.effectiveFrom <= day) inForce[row.sport] = zoneSetView(row);
   }
-  return { date: day, inForce, history: history.map(view) };
+  return { date: day, inForce, history: history.map(zoneSetView) };
 }
 
 /**
  * For other features (no permission check: callers check): every zone set of an athlete, newest first, so that
- * `zoneSetInForce` from the pure library picks the set in force on any date, the newest winning on a shared date.
+ * `zoneSetInForce` from the pure library picks the set in force on any date; on a shared date the first in this order
+ * wins: the one a coach chose, else the newest.
  */
 export async function zoneSetsOf(athleteId: string): Promise<ZoneSetView[]> {
   const rows = await getDb()
     .select()
     .from(schema.zoneSet)
     .where(eq(schema.zoneSet.athleteId, athleteId))
-    .orderBy(desc(schema.zoneSet.effectiveFrom), desc(schema.zoneSet.createdAt));
-  return rows.map(view);
+    .orderBy(...newestFirst);
+  return rows.map(zoneSetView);
+}
+
+/**
+ * A coach chooses which of two (or more) zone sets of the same sport and day is in force: POST /api/zone-sets/:id/choose.
+ * Every view reads the choice (sessions' targets, today, the roster: the zone set's trigger bumps the athlete's counter).
+ */
+export async function chooseZoneSet(actor: Actor, id: string) {
+  const db = getDb();
+  const [row] = await db.select().from(schema.zoneSet).where(eq(schema.zoneSet.id, id));
+  if (!row) throw notFound("No such zone set.");
+  await requireAthleteAccess(actor, row.athleteId, "coach");
+  const [updated] = await db
+    .update(schema.zoneSet)
+    .set({ chosenAt: new Date() })
+    .where(eq(schema.zoneSet.id, id))
+    .returning();
+  return zoneSetView(updated!);
 }

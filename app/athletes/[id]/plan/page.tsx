@@ -48,16 +48,9 @@ export default async function PlanPage({
       return w.length && w[0]!.weekStart <= today && w[w.length - 1]!.weekStart >= mondayOf(today);
     }) ?? seasons.at(-1);
   const seasonWeeks = (current?.weeks ?? []) as unknown as SeasonWeek[];
-  const overBudget: Record<string, string[]> = {};
-  if (seasonWeeks.length) {
-    const summaries = await weekSummaries(
-      actor,
-      id,
-      seasonWeeks[0]!.weekStart,
-      seasonWeeks[seasonWeeks.length - 1]!.weekStart,
-    );
-    for (const s of summaries) if (s.flags.length) overBudget[s.weekStart] = s.flags.map((f) => f.message);
-  }
+  const summaries = seasonWeeks.length
+    ? await weekSummaries(actor, id, seasonWeeks[0]!.weekStart, seasonWeeks[seasonWeeks.length - 1]!.weekStart)
+    : [];
   const initialDate = week && isoDate.safeParse(week).success ? week : today;
   const openWeek = week ? seasonWeeks.find((w) => w.weekStart === mondayOf(initialDate)) : undefined;
   return (
@@ -87,7 +80,7 @@ export default async function PlanPage({
             Skip the season&apos;s weeks to the calendar
           </a>
           <div className="card">
-            <SeasonRibbon athleteId={id} name={current.name} weeks={seasonWeeks} overBudget={overBudget} />
+            <SeasonRibbon athleteId={id} name={current.name} weeks={seasonWeeks} initialSummaries={summaries} />
           </div>
           {canEdit && openWeek ? (
             <div className="card">

@@ -1,0 +1,1 @@
+ALTER TABLE "zone_set" ADD COLUMN "chosen_at" timestamp with time zone;
