@@ -37,6 +37,11 @@ export interface TrayTemplate {
   minutesByZone: [number, number, number];
 }
 
+const WEEKDAYS = ["Mon", "Tue", "Wed", "Thu", "Fri", "Sat", "Sun"];
+/** A calendar day (a local Date at midnight) as YYYY-MM-DD. */
+const localIso = (d: Date) =>
+  `${d.getFullYear()}-${String(d.getMonth() + 1).padStart(2, "0")}-${String(d.getDate()).padStart(2, "0")}`;
+
 export function PlanCalendar({
   athleteId,
   templates,
@@ -208,6 +213,7 @@ export function PlanCalendar({
   };
 
   const weekList = weeks.data ?? [];
+  const weekByStart = new Map(weekList.map((w) => [w.weekStart, w]));
   return (
     <div id="plan-calendar" tabIndex={-1} className="space-y-6 focus:outline-none">
       <div className="space-y-3">
@@ -297,6 +303,42 @@ export function PlanCalendar({
               right: "dayGridWeek,dayGridFourWeek,dayGridMonth",
             }}
             buttonText={{ today: "This week", week: "Week", month: "Month" }}
+            // One date format everywhere in Tidemark: ISO dates (YYYY-MM-DD), weekdays in English.
+            titleFormat={(arg) => {
+              const iso = (m: { year: number; month: number; day: number }) =>
+                `${m.year}-${String(m.month + 1).padStart(2, "0")}-${String(m.day).padStart(2, "0")}`;
+              return arg.end && iso(arg.end) !== iso(arg.start)
+                ? `${iso(arg.start)} – ${iso(arg.end)}`
+                : iso(arg.start);
+            }}
+            dayHeaderContent={(arg) =>
+              arg.view.type === "dayGridWeek"
+                ? `${WEEKDAYS[(arg.date.getDay() + 6) % 7]} ${localIso(arg.date).slice(5)}`
+                : WEEKDAYS[(arg.date.getDay() + 6) % 7]
+            }
+            dayCellContent={(arg) => {
+              const iso = localIso(arg.date);
+              const w = arg.view.type !== "dayGridWeek" && arg.date.getDay() === 1 ? weekByStart.get(iso) : undefined;
+              return (
+                <span className="flex w-full items-center justify-between gap-1">
+                  {w ? (
+                    <span
+                      className={`rounded px-1 text-[10px] font-semibold ${w.overBudget ? "bg-alert-wash text-alert" : "text-ink-soft"}`}
+                      title={w.overBudget ? w.flags.map((f) => f.message).join(" ") : "Within its budget"}
+                    >
+                      {w.overBudget ? "! over budget" : w.inProgress ? "in progress" : "✓ budget"}
+                    </span>
+                  ) : (
+                    <span />
+                  )}
+                  <span className="num">
+                    {arg.date.getDate() === 1 || iso === localIso(arg.view.activeStart)
+                      ? iso.slice(5)
+                      : arg.date.getDate()}
+                  </span>
+                </span>
+              );
+            }}
             firstDay={1}
             height="auto"
             editable={canEdit}
@@ -332,7 +374,7 @@ export function PlanCalendar({
                   data-testid="calendar-event"
                   data-log={s?.log?.status ?? "none"}
                 >
-                  <p className="truncate">{arg.event.title}</p>
+                  <p className="tm-event-title">{arg.event.title}</p>
                   {s?.log ? (
                     <div
                       className="mt-0.5 h-1 w-full rounded bg-white/40"
@@ -349,6 +391,43 @@ export function PlanCalendar({
             }}
           />
         </div>
+        {/* Phones: the week as a list (the grid is too narrow to read), each session opening like a calendar entry. */}
+        <ol className="space-y-2 sm:hidden" aria-label="The sessions of these days" data-testid="week-agenda">
+          {Array.from(
+            { length: range.from ? Math.round((Date.parse(range.to) - Date.parse(range.from)) / 86_400_000) + 1 : 0 },
+            (_, i) => addDays(range.from, i),
+          ).map((day) => {
+            const list = (sessions.data ?? []).filter((x) => x.date === day);
+            const wd = WEEKDAYS[(new Date(`${day}T00:00:00Z`).getUTCDay() + 6) % 7];
+            return (
+              <li key={day} className="rounded-md border border-rule bg-paper px-3 py-2">
+                <p className="num text-sm font-semibold">
+                  {wd} {day}
+                </p>
+                {list.length ? (
+                  <ul className="mt-1 space-y-1">
+                    {list.map((x) => (
+                      <li key={x.id}>
+                        <button
+                          type="button"
+                          className="w-full rounded px-1 py-0.5 text-left text-sm hover:bg-tide/10"
+                          onClick={() => setSelected(x)}
+                        >
+                          {x.log ? `${LOG_MARK[x.log.status]} ` : ""}
+                          {x.kind === "retest" ? "⟳ " : ""}
+                          {x.title} · {Math.round(x.totalS / 60)} min
+                          {x.minutesByZone[2] > 0 ? ` · zone 3 ${Math.round(x.minutesByZone[2])} min` : ""}
+                        </button>
+                      </li>
+                    ))}
+                  </ul>
+                ) : (
+                  <p className="text-xs text-ink-soft">Rest day</p>
+                )}
+              </li>
+            );
+          })}
+        </ol>
         {selected ? (
           <SelectedSession
             key={selected.id}
