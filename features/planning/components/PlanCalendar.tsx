@@ -183,13 +183,16 @@ export function PlanCalendar({
       );
     }
     try {
-      const template = await apiFetch<{ name: string; structure: unknown }>(
-        `/api/templates/${encodeURIComponent(fix.templateId)}`,
-      );
       const version = sessions.data?.find((x) => x.id === fix.sessionId)?.version;
+      const change =
+        fix.action === "shorten"
+          ? { structure: fix.structure }
+          : await apiFetch<{ name: string; structure: unknown }>(
+              `/api/templates/${encodeURIComponent(fix.templateId)}`,
+            ).then((t) => ({ title: t.name, structure: t.structure }));
       await apiFetch(`/api/sessions/${encodeURIComponent(fix.sessionId)}`, {
         method: "PATCH",
-        body: JSON.stringify({ title: template.name, structure: template.structure, version }),
+        body: JSON.stringify({ ...change, version }),
       });
       await invalidatePlan(qc, athleteId);
       done();

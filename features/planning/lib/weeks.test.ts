@@ -537,3 +537,39 @@ describe("the coach's hard-day rules for an athlete", () => {
     expect(codes({ ...DEFAULT_PLANNING_RULES, hardDaysBackToBack: true })).not.toContain("back_to_back_hard_days");
   });
 });
+
+describe("a fix that shortens the hard set (hand computations; budget polarised 80/5/15 ± 5 %)", () => {
+  // Week of 2027-10-04, no season: "10 × 4 min" = 15 min warm-up, 10 × (4 min zone 3, 3 min zone 1), 10 min cool-down
+  // (55 min zone 1, 40 min zone 3), and two easy sessions of 45 min: zone 3 is 40 of 185 min = 21.6 % (over 20 %).
+  // Nine repeats: 36 of 178 = 20.2 % (still over); eight: 32 of 171 = 18.7 % (within), zone 1 81 %. No other week holds
+  // anything, so moving the session anywhere makes that week all but intervals; there is no template library to swap.
+  const step = (kind: "warmup" | "work" | "recovery" | "cooldown", min: number, zone: 1 | 2 | 3) =>
+    ({ type: "step", kind, durationS: min * 60, zone }) as const;
+  const structure = [
+    step("warmup", 15, 1),
+    { type: "repeat" as const, times: 10, steps: [step("work", 4, 3), step("recovery", 3, 1)] },
+    step("cooldown", 10, 1),
+  ];
+  const sessions: WeekSession[] = [
+    { id: "h", date: "2027-10-05", title: "10 × 4 min", kind: "training", minutesByZone: [55, 0, 40], structure },
+    { id: "e1", date: "2027-10-07", title: "Easy", kind: "training", minutesByZone: [45, 0, 0] },
+    { id: "e2", date: "2027-10-09", title: "Easy", kind: "training", minutesByZone: [45, 0, 0] },
+  ];
+
+  it("offers the fewest repeats removed that make the week keep its budget, with the steps to save", () => {
+    const [week] = summariseWeeks({ from: "2027-10-04", to: "2027-10-04", sessions, today: "2027-09-20" });
+    expect(week!.overBudget).toBe(true);
+    const fix = week!.fixes.find((f) => f.action === "shorten");
+    expect(fix).toMatchObject({ action: "shorten", sessionId: "h", fromTimes: 10, toTimes: 8 });
+    const repeat = (fix as Extract<Fix, { action: "shorten" }>).structure[1] as { times: number };
+    expect(repeat.times).toBe(8);
+    // Applied, the week keeps its budget.
+    const after = summariseWeeks({
+      from: "2027-10-04",
+      to: "2027-10-04",
+      sessions: sessions.map((s) => (s.id === "h" ? { ...s, minutesByZone: [49, 0, 32] } : s)),
+      today: "2027-09-20",
+    })[0]!;
+    expect(after.overBudget).toBe(false);
+  });
+});

@@ -13,6 +13,7 @@ import {
   type Shares,
 } from "./budget";
 import { addDays, dayNumber, mondayOf } from "@/features/platform/lib/days";
+import { storedTotals, type Block } from "./session";
 
 export interface WeekSession {
   id: string;
@@ -23,6 +24,8 @@ export interface WeekSession {
   /** The session's sport and length: a swap keeps the sport and a similar length. */
   sport?: string;
   totalS?: number;
+  /** Its steps, when the fix search may shorten its hard repeats. */
+  structure?: Block[];
 }
 
 /** A template a fix may swap a hard session for (the coach's own library). */
@@ -63,7 +66,16 @@ const SHARE_CODES = new Set(["too_much_high", "too_little_low", "too_much_modera
 export type Fix =
   | { action: "move"; sessionId: string; title: string; toDate: string; message: string }
   | { action: "swap"; sessionId: string; title: string; templateId: string; templateName: string; message: string }
-  | { action: "add"; date: string; sport: string; minutes: number; title: string; message: string };
+  | { action: "add"; date: string; sport: string; minutes: number; title: string; message: string }
+  | {
+      action: "shorten";
+      sessionId: string;
+      title: string;
+      fromTimes: number;
+      toTimes: number;
+      structure: Block[];
+      message: string;
+    };
 
 export interface WeekSummary {
   weekStart: string;
@@ -664,6 +676,54 @@ function proposeAdd(
 }
 
 /** Up to two fixes of different kinds, best first: moving keeps the training, a swap keeps the day, adding keeps both. */
+/** Whether a block holds work in zone 3 (or zone 2) directly or in a nested repeat. */
+function holdsHard(blocks: Block[]): boolean {
+  return blocks.some((b) => (b.type === "repeat" ? holdsHard(b.steps) : b.zone >= 2));
+}
+
+/**
+ * Shorten a hard session: fewer repeats of its hard set (the fewest removed that make the week keep every rule, at least
+ * one repeat kept). The session's warm-up and cool-down stay. Never a retest or a race.
+ */
+function proposeShorten(
+  weekStart: string,
+  inWeek: WeekSession[],
+  input: SummariseInput,
+  weekOf: WeekOf,
+): Extract<Fix, { action: "shorten" }> | null {
+  const candidates = inWeek
+    .filter((s) => s.kind !== "retest" && s.kind !== "race" && s.kind !== "event" && s.structure?.length)
+    .sort((a, b) => hardMinutes(b.minutesByZone) - hardMinutes(a.minutesByZone));
+  for (const s of candidates) {
+    const structure = s.structure!;
+    const at = structure.findIndex((b) => b.type === "repeat" && b.times >= 2 && holdsHard(b.steps));
+    if (at < 0) continue;
+    const group = structure[at] as Extract<Block, { type: "repeat" }>;
+    for (let times = group.times - 1; times >= 1; times--) {
+      const next = structure.map((b, i) => (i === at ? { ...group, times } : b));
+      const totals = storedTotals(next);
+      const shortened: WeekOf = (w) =>
+        w === weekStart
+          ? weekOf(w).map((x) =>
+              x.id === s.id ? { ...x, minutesByZone: totals.minutesByZone, totalS: totals.totalS } : x,
+            )
+          : weekOf(w);
+      if (breachesAfter(weekStart, shortened, input).length === 0) {
+        return {
+          action: "shorten",
+          sessionId: s.id,
+          title: s.title,
+          fromTimes: group.times,
+          toTimes: times,
+          structure: next,
+          message: `Shorten "${s.title}" from ${group.times} to ${times} repeats of its hard set (${Math.round(totals.totalS / 60)} min): the week then keeps its budget.`,
+        };
+      }
+    }
+  }
+  return null;
+}
+
 export function proposeFixes(
   weekStart: string,
   inWeek: WeekSession[],
@@ -671,7 +731,7 @@ export function proposeFixes(
   weekOf: WeekOf = indexByWeek(input.sessions),
 ): Fix[] {
   const out: Fix[] = [];
-  for (const f of [proposeMove, proposeSwap, proposeAdd]) {
+  for (const f of [proposeMove, proposeShorten, proposeSwap, proposeAdd]) {
     if (out.length >= 2) break;
     const fix = f(weekStart, inWeek, input, weekOf);
     if (fix) out.push(fix);

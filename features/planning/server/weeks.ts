@@ -15,6 +15,7 @@ import {
   type WeekSummary,
 } from "../lib/weeks";
 import { DEFAULT_PLANNING_RULES, type PlanningRules } from "../lib/rules";
+import type { Block } from "../lib/session";
 import { athleteMembershipsAndGeneration, cachedAnswer, storeAnswer } from "./week-cache";
 
 /** Weekly summaries against the budgets: one athlete's weeks (the planner's band) and one week of a whole squad. */
@@ -87,6 +88,7 @@ async function loadWeekInputs(
         sport: schema.plannedSession.sport,
         minutesByZone: schema.plannedSession.minutesByZone,
         totalS: schema.plannedSession.totalS,
+        structure: schema.plannedSession.structure,
       })
       .from(schema.plannedSession)
       .where(
@@ -149,7 +151,7 @@ async function loadWeekInputs(
     }
   }
   const plannedById = new Map(sessions.map((x) => [x.id, x]));
-  for (const x of sessions) out.get(x.athleteId)?.sessions.push(x);
+  for (const x of sessions) out.get(x.athleteId)?.sessions.push({ ...x, structure: x.structure as Block[] });
   for (const x of seasons) out.get(x.athleteId)?.seasonWeeks.push(...(x.weeks as unknown as SeasonWeekInfo[]));
   for (const t of tests) out.get(t.athleteId)?.testDates.push(t.date);
   for (const l of logs) {
