@@ -232,7 +232,12 @@ describe("volume against the week's target", () => {
     expect(short.flags.find((f) => f.code === "volume_off_target")!.message).toMatch(
       /4 h against its target of 5 h \(20 % less/,
     );
+    expect(short.overBudget).toBe(true);
     expect(one([270, 0, 0], 5, "2027-09-14").flags.map((f) => f.code)).not.toContain("volume_off_target");
+    // Before the week begins the shortfall is shown but does not mark the week: it is still being filled.
+    const ahead = one([240, 0, 0], 5, "2027-09-01");
+    expect(ahead.flags.map((f) => f.code)).toContain("volume_off_target");
+    expect(ahead.overBudget).toBe(false);
     const wide = one([240, 0, 0], 5, "2027-09-14", "loading", { ...DEFAULT_PLANNING_RULES, volumeTolerancePct: 25 });
     expect(wide.flags.map((f) => f.code)).not.toContain("volume_off_target");
     expect(wide.rules.volumeTolerancePct).toBe(25);

@@ -431,7 +431,11 @@ export function summariseWeeks(input: SummariseInput): WeekSummary[] {
       previous,
       overdue,
     );
-    const budgetBreaches = result.breaches.filter((b) => b.code !== "retest_overdue");
+    // A week not yet begun that falls short of its volume target is still being filled: the shortfall is shown, but
+    // the week is not marked over budget for it until it begins.
+    const budgetBreaches = result.breaches.filter(
+      (b) => b.code !== "retest_overdue" && !(w > input.today && isShortfall(b)),
+    );
     // A week not yet begun and planned to less than half its target is still being filled: in progress, not red.
     const plannedTotal = planned[0] + planned[1] + planned[2];
     const inProgress =
