@@ -556,7 +556,15 @@ describe("a fix that shortens the hard set (hand computations; budget polarised 
     step("cooldown", 10, 1),
   ];
   const sessions: WeekSession[] = [
-    { id: "h", date: "2027-10-05", title: "10 × 4 min", kind: "training", minutesByZone: [55, 0, 40], structure },
+    {
+      id: "h",
+      date: "2027-10-05",
+      title: "10 × 4 min",
+      kind: "training",
+      minutesByZone: [55, 0, 40],
+      totalS: 95 * 60,
+      structure,
+    },
     { id: "e1", date: "2027-10-07", title: "Easy", kind: "training", minutesByZone: [45, 0, 0] },
     { id: "e2", date: "2027-10-09", title: "Easy", kind: "training", minutesByZone: [45, 0, 0] },
   ];
@@ -566,6 +574,8 @@ describe("a fix that shortens the hard set (hand computations; budget polarised 
     expect(week!.overBudget).toBe(true);
     const fix = week!.fixes.find((f) => f.action === "shorten");
     expect(fix).toMatchObject({ action: "shorten", sessionId: "h", fromTimes: 10, toTimes: 8 });
+    // 15 + 8 × 7 + 10 = 81 min.
+    expect(fix!.message).toMatch(/from 10 to 8 repeats of its hard set \(81 min\)/);
     const repeat = (fix as Extract<Fix, { action: "shorten" }>).structure[1] as { times: number };
     expect(repeat.times).toBe(8);
     // Applied, the week keeps its budget.

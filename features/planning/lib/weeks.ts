@@ -13,7 +13,8 @@ import {
   type Shares,
 } from "./budget";
 import { addDays, dayNumber, mondayOf } from "@/features/platform/lib/days";
-import { storedTotals, type Block } from "./session";
+// Types only: the steps' schemas (zod) stay out of the planner's client bundle, which runs this engine for the drag preview.
+import type { Block } from "./session";
 
 export interface WeekSession {
   id: string;
@@ -685,6 +686,19 @@ function holdsHard(blocks: Block[]): boolean {
   return blocks.some((b) => (b.type === "repeat" ? holdsHard(b.steps) : b.zone >= 2));
 }
 
+/** Minutes per zone of timed steps (as session.ts's `expand` counts them without speeds: distance steps add none). */
+function timedMinutes(blocks: Block[]): Shares {
+  const m: Shares = [0, 0, 0];
+  for (const b of blocks) {
+    const inner: Shares =
+      b.type === "repeat"
+        ? (timedMinutes(b.steps).map((v) => v * b.times) as Shares)
+        : ([0, 0, 0].map((_, z) => (b.zone === z + 1 ? (b.durationS ?? 0) / 60 : 0)) as Shares);
+    for (let z = 0; z < 3; z++) m[z]! += inner[z]!;
+  }
+  return m;
+}
+
 /**
  * Shorten a hard session: fewer repeats of its hard set (the fewest removed that make the week keep every rule, at least
  * one repeat kept). The session's warm-up and cool-down stay. Never a retest or a race.
@@ -703,15 +717,16 @@ function proposeShorten(
     const at = structure.findIndex((b) => b.type === "repeat" && b.times >= 2 && holdsHard(b.steps));
     if (at < 0) continue;
     const group = structure[at] as Extract<Block, { type: "repeat" }>;
+    const perRepeat = timedMinutes(group.steps);
     for (let times = group.times - 1; times >= 1; times--) {
       const next = structure.map((b, i) => (i === at ? { ...group, times } : b));
-      const totals = storedTotals(next);
+      const cut = group.times - times;
+      const totals = {
+        minutesByZone: s.minutesByZone.map((v, z) => Math.round((v - cut * perRepeat[z]!) * 10) / 10) as Shares,
+        totalS: Math.round((s.totalS ?? 0) - cut * 60 * (perRepeat[0] + perRepeat[1] + perRepeat[2])),
+      };
       const shortened: WeekOf = (w) =>
-        w === weekStart
-          ? weekOf(w).map((x) =>
-              x.id === s.id ? { ...x, minutesByZone: totals.minutesByZone, totalS: totals.totalS } : x,
-            )
-          : weekOf(w);
+        w === weekStart ? weekOf(w).map((x) => (x.id === s.id ? { ...x, ...totals } : x)) : weekOf(w);
       if (breachesAfter(weekStart, shortened, input).length === 0) {
         return {
           action: "shorten",
