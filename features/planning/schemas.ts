@@ -77,6 +77,12 @@ export const seasonSchema = z.object({
         date: isoDate,
         name: z.string().trim().min(1, "Name the event.").max(80).refine(isSingleLine, SINGLE_LINE_MESSAGE),
         priority: z.enum(["A", "B", "C"], { error: "The priority is A, B or C." }).default("A"),
+        durationMin: z
+          .number({ error: "Give the race's expected length in minutes." })
+          .int("Give the race's length in whole minutes.")
+          .min(5, "A race lasts at least 5 minutes.")
+          .max(1440, "A race lasts at most 24 hours.")
+          .optional(),
       }),
     )
     .min(1, "Give at least one event.")

@@ -254,6 +254,37 @@ describe("sessions and weekly budgets", () => {
       },
     });
     expect(bad.status).toBe(400);
+    // A race length scales the recovery after it (3.5 h A race on a Sunday: two recovery weeks; season.ts), and a length
+    // that is no race's is refused with the reason.
+    const withLength = await s.coach.browser.call(seasonsRoute, "POST", `/api/athletes/${s.athleteB.id}/seasons`, {
+      params: { id: s.athleteB.id },
+      body: {
+        name: "Two marathons",
+        sport: "running",
+        startDate: "2030-01-07",
+        events: [
+          { date: "2030-05-05", name: "Spring", priority: "A", durationMin: 210 },
+          { date: "2030-09-29", name: "Autumn", priority: "A", durationMin: 210 },
+        ],
+        weeklyHours: 7,
+      },
+    });
+    expect(withLength.status).toBe(201);
+    const ws = withLength.json.weeks as { role: string; events: string[] }[];
+    const race = ws.findIndex((w) => w.events.includes("Spring"));
+    expect(ws.slice(race + 1, race + 3).map((w) => w.role)).toEqual(["recovery", "recovery"]);
+    const tooLong = await s.coach.browser.call(seasonsRoute, "POST", `/api/athletes/${s.athleteB.id}/seasons`, {
+      params: { id: s.athleteB.id },
+      body: {
+        name: "x",
+        sport: "running",
+        startDate: "2030-01-07",
+        events: [{ date: "2030-05-05", name: "Spring", durationMin: 5000 }],
+        weeklyHours: 7,
+      },
+    });
+    expect(tooLong.status).toBe(400);
+    expect(JSON.stringify(tooLong.json)).toMatch(/at most 24 hours/);
   });
 
   it("a coach edits a generated season week: volume, budget and the retest, which adds or removes that week's retest session", async () => {

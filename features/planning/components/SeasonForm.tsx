@@ -19,6 +19,10 @@ const form = z.object({
         name: z.string().trim().min(1, "Name the event."),
         date: isoDate,
         priority: z.enum(["A", "B", "C"]),
+        length: z
+          .string()
+          .trim()
+          .regex(/^(\d{1,2}:[0-5]\d)?$/, "Give the length as h:mm, e.g. 3:30, or leave it empty."),
       }),
     )
     .min(1, "Give at least one event.")
@@ -37,7 +41,7 @@ export function SeasonForm({ athleteId, today, sport }: { athleteId: string; tod
       name: "",
       sport: (SPORTS as readonly string[]).includes(sport) ? (sport as Values["sport"]) : "running",
       startDate: today,
-      events: [{ name: "", date: "", priority: "A" }],
+      events: [{ name: "", date: "", priority: "A", length: "" }],
       weeklyHours: 6,
       level: "trained",
       retestEveryWeeks: 12,
@@ -53,7 +57,10 @@ export function SeasonForm({ athleteId, today, sport }: { athleteId: string; tod
           name: v.name,
           sport: v.sport,
           startDate: v.startDate,
-          events: v.events,
+          events: v.events.map(({ length, ...ev }) => {
+            const [h, m] = length ? length.split(":").map(Number) : [];
+            return length ? { ...ev, durationMin: h! * 60 + m! } : ev;
+          }),
           weeklyHours: v.weeklyHours,
           level: v.level,
           retestEveryWeeks: v.retestEveryWeeks,
@@ -100,16 +107,22 @@ export function SeasonForm({ athleteId, today, sport }: { athleteId: string; tod
       {field("startDate", "Start", "date")}
       <fieldset className="space-y-2 sm:col-span-3">
         <legend className="field-label">
-          Events (A: the goal, full taper and recovery; B: short taper; C: trained through)
+          Events (A: the goal, full taper and recovery; B: short taper; C: trained through). A race length scales the
+          recovery after it (about three days per hour raced after an A race, two after a B race).
         </legend>
         {events.fields.map((f, i) => {
           const label =
             i === 0
-              ? { name: "Target event", date: "Event date", priority: "Priority" }
-              : { name: `Event ${i + 1}`, date: `Event ${i + 1} date`, priority: `Event ${i + 1} priority` };
+              ? { name: "Target event", date: "Event date", priority: "Priority", length: "Race length" }
+              : {
+                  name: `Event ${i + 1}`,
+                  date: `Event ${i + 1} date`,
+                  priority: `Event ${i + 1} priority`,
+                  length: `Event ${i + 1} length`,
+                };
           const err = e.events?.[i];
           return (
-            <div key={f.id} className="grid gap-2 sm:grid-cols-[2fr_1fr_1fr_auto]">
+            <div key={f.id} className="grid gap-2 sm:grid-cols-[2fr_1fr_1fr_1fr_auto]">
               <div>
                 <label htmlFor={`season-event-${i}-name`} className="field-label">
                   {label.name}
@@ -139,6 +152,20 @@ export function SeasonForm({ athleteId, today, sport }: { athleteId: string; tod
                   <option value="C">C: trained through</option>
                 </select>
               </div>
+              <div>
+                <label htmlFor={`season-event-${i}-length`} className="field-label">
+                  {label.length} <span className="font-normal text-ink-soft">(h:mm, optional)</span>
+                </label>
+                <input
+                  id={`season-event-${i}-length`}
+                  className="field-input num"
+                  inputMode="numeric"
+                  placeholder="3:30"
+                  aria-describedby={`season-event-${i}-length-e`}
+                  {...register(`events.${i}.length`)}
+                />
+                <FieldError id={`season-event-${i}-length-e`} message={err?.length?.message} />
+              </div>
               <div className="flex items-end">
                 {events.fields.length > 1 ? (
                   <button type="button" className="btn-quiet py-1 text-sm" onClick={() => events.remove(i)}>
@@ -153,7 +180,7 @@ export function SeasonForm({ athleteId, today, sport }: { athleteId: string; tod
           <button
             type="button"
             className="btn-quiet py-1 text-sm"
-            onClick={() => events.append({ name: "", date: "", priority: "B" })}
+            onClick={() => events.append({ name: "", date: "", priority: "B", length: "" })}
           >
             Add an event
           </button>

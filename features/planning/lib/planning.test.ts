@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { BUDGET_PRESETS, checkWeek } from "./budget";
 import { expand, structureSchema } from "./session";
-import { planSeason, SeasonError } from "./season";
+import { planSeason, recoveryDays, recoveryWeeksAfter, SeasonError } from "./season";
 
 describe("structured sessions", () => {
   const intervals = structureSchema.parse([
@@ -223,6 +223,40 @@ describe("season planning", () => {
     });
     const loading = long.filter((w) => w.role === "loading").map((w) => w.volumeHours);
     expect(new Set(loading.slice(8)).size).toBeGreaterThan(3);
+  });
+
+  it("recovery after a race scales with its length: a 3.5-hour A race on a Sunday two recovery weeks, a 40-min 10 km one easier week", () => {
+    // Our rule of thumb (common practice): about 3 days per hour raced after an A race, at least 3, at most 21.
+    expect(recoveryDays("A", 210)).toBe(11); // 3 × 3.5 h = 10.5 → 11 days
+    expect(recoveryDays("A", 40)).toBe(3); // 2 days, raised to the minimum of 3
+    expect(recoveryDays("B", 90)).toBe(3); // 2 × 1.5 h
+    expect(recoveryDays("C", 600)).toBe(0);
+    // Sunday race (day 6): no days left in its week; 11 days = a week of 7 and a week of 4 (both recovery weeks).
+    expect(recoveryWeeksAfter("A", 210, 6)).toEqual(["recovery", "recovery"]);
+    // Saturday 10 km: 3 days, 1 of them the Sunday: 2 days in the next week, an unloading week.
+    expect(recoveryWeeksAfter("A", 40, 5)).toEqual(["unloading"]);
+    const two = planSeason({
+      startDate: "2027-01-04",
+      events: [
+        { date: "2027-05-02", name: "Spring marathon", priority: "A", durationMin: 210 },
+        { date: "2027-09-26", name: "Autumn marathon", priority: "A", durationMin: 210 },
+      ],
+      weeklyHours: 8,
+    });
+    const race = two.findIndex((w) => w.events.includes("Spring marathon"));
+    expect(two.slice(race + 1, race + 3).map((w) => w.role)).toEqual(["recovery", "recovery"]);
+    expect(two[race + 3]!.role).not.toBe("recovery");
+    // Without a length: one recovery week, as before.
+    const plain = planSeason({
+      startDate: "2027-01-04",
+      events: [
+        { date: "2027-05-02", name: "Spring marathon" },
+        { date: "2027-09-26", name: "Autumn marathon" },
+      ],
+      weeklyHours: 8,
+    });
+    expect(plain.slice(race + 1, race + 3).map((w) => w.role)[0]).toBe("recovery");
+    expect(plain[race + 2]!.role).not.toBe("recovery");
   });
 
   it("a 104-week season is several macrocycles, not one long general preparation", () => {

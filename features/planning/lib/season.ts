@@ -50,8 +50,9 @@ export const BLOCK_VOLUME: Partial<Record<BlockName, number>> = { specific_prepa
 
 export interface SeasonInput {
   startDate: string;
-  /** The season's events; the priority says how much the season bends to each (default A). */
-  events: { date: string; name: string; priority?: EventPriority }[];
+  /** The season's events; the priority says how much the season bends to each (default A); the expected race length
+   * (minutes) scales the recovery after it. */
+  events: { date: string; name: string; priority?: EventPriority; durationMin?: number }[];
   weeklyHours: number;
   level?: "trained" | "beginner";
   loadingWeeks?: 2 | 3;
@@ -96,6 +97,40 @@ function weekMonday(iso: string): string {
   return mondayOf(iso);
 }
 
+/**
+ * Days of recovery after a race (common practice, our rule of thumb: about three days per hour raced after an A race,
+ * two after a B race, at least three and two days, at most three and two weeks; a C race is trained through). Without a
+ * race length: a recovery week after an A race, an unloading week after a B race.
+ */
+export function recoveryDays(priority: EventPriority, durationMin: number | undefined): number {
+  if (priority === "C") return 0;
+  if (durationMin === undefined) return priority === "A" ? 7 : 3;
+  const perHour = priority === "A" ? 3 : 2;
+  const [lo, hi] = priority === "A" ? [3, 21] : [2, 14];
+  return Math.max(lo, Math.min(hi, Math.round((perHour * durationMin) / 60)));
+}
+
+/**
+ * The weeks after a race week that its recovery takes: the race week's own days after the race count first; a later week
+ * holding four or more recovery days is a recovery week, fewer an unloading week. Without a race length: one recovery
+ * week after an A race, one unloading week after a B race (as before race lengths were asked for).
+ */
+export function recoveryWeeksAfter(
+  priority: EventPriority,
+  durationMin: number | undefined,
+  raceDay: number,
+): SeasonWeek["role"][] {
+  if (priority === "C") return [];
+  if (durationMin === undefined) return [priority === "A" ? "recovery" : "unloading"];
+  let left = recoveryDays(priority, durationMin) - (6 - raceDay);
+  const out: SeasonWeek["role"][] = [];
+  while (left > 0) {
+    out.push(left >= 4 ? "recovery" : "unloading");
+    left -= 7;
+  }
+  return out;
+}
+
 export function planSeason(input: SeasonInput): SeasonWeek[] {
   const cap = input.rampCap ?? DEFAULT_RAMP_CAP;
   const every = input.retestEveryWeeks ?? 12;
@@ -109,7 +144,14 @@ export function planSeason(input: SeasonInput): SeasonWeek[] {
   const eventWeeks = events.map((e) => eventWeek(e.date));
   if (eventWeeks[0]! < 3) throw new SeasonError("The first event must be at least three weeks after the start.");
   if (eventWeeks[eventWeeks.length - 1]! > 104) throw new SeasonError("A season spans at most two years.");
-  const total = eventWeeks[eventWeeks.length - 1]! + 3; // two transition weeks after the last event
+  // Two transition weeks after the last event, or its recovery when that is longer.
+  const lastEvent = events[events.length - 1]!;
+  const lastRecovery = recoveryWeeksAfter(
+    lastEvent.priority ?? "A",
+    lastEvent.durationMin,
+    (dayOf(lastEvent.date) - dayOf(weekMonday(lastEvent.date))) % 7,
+  ).length;
+  const total = eventWeeks[eventWeeks.length - 1]! + 1 + Math.max(2, lastRecovery);
   const trained = (input.level ?? "trained") === "trained";
   const loadingWeeks = input.loadingWeeks ?? 3;
 
@@ -117,6 +159,8 @@ export function planSeason(input: SeasonInput): SeasonWeek[] {
   const role: SeasonWeek["role"][] = new Array(total);
   /** The priority of the event each event week holds (B events taper inside their week). */
   const eventPriority: (EventPriority | undefined)[] = new Array(total);
+  /** The recovery weeks after each event week. */
+  const recoveryAfter: SeasonWeek["role"][][] = new Array(total);
   let previousEvent = -1;
   let previousPriority: EventPriority | null = null;
   let firstMain = true;
@@ -128,13 +172,15 @@ export function planSeason(input: SeasonInput): SeasonWeek[] {
       if (priority === "A" && previousPriority !== "A") role[ev] = "event";
       continue;
     }
-    // After an A event: a recovery week; after a B event: an unloading week (when the next event leaves room).
+    // After an A or B event: its recovery weeks (recoveryWeeksAfter), as far as the next event leaves room.
     let prepStart = previousEvent + 1;
-    if (previousEvent >= 0 && previousPriority !== "C" && prepStart < ev) {
-      block[prepStart] = "transition";
-      role[prepStart] = previousPriority === "A" ? "recovery" : "unloading";
-      prepStart++;
-    }
+    if (previousEvent >= 0 && previousPriority !== "C")
+      for (const r of recoveryAfter[previousEvent] ?? []) {
+        if (prepStart >= ev) break;
+        block[prepStart] = "transition";
+        role[prepStart] = r;
+        prepStart++;
+      }
     if (priority === "C") {
       // Trained through: the week is an ordinary week of its block; the race is one of its sessions.
       previousEvent = ev;
@@ -171,13 +217,16 @@ export function planSeason(input: SeasonInput): SeasonWeek[] {
     block[ev] = "competition";
     role[ev] = "event";
     eventPriority[ev] = priority;
+    recoveryAfter[ev] = recoveryWeeksAfter(priority, events[e]!.durationMin, raceDay);
     previousEvent = ev;
     previousPriority = priority;
     firstMain = false;
   }
+  // After the last event: its recovery, then transition weeks at recovery volume to the season's end.
+  const after = recoveryAfter[previousEvent] ?? [];
   for (let w = previousEvent + 1; w < total; w++) {
     block[w] = "transition";
-    role[w] = "recovery";
+    role[w] = after[w - previousEvent - 1] ?? "recovery";
   }
   // Loading cycles within the preparation weeks (reset at each block change after competition).
   let cyclePos = 0;
