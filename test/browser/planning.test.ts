@@ -1,8 +1,17 @@
 // The coach drags interval templates onto a week until it breaks its budget, sees the reason, applies the fix, and the
 // mark clears. The week is far beyond the demo season, so its budget is the default polarised one (80/5/15 ± 5 %).
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { Browser, Page } from "playwright-core";
-import { accessibilityProblems, BASE, dragTemplate, launch, newPage, shot, signIn } from "../support/browser";
+import type { Browser } from "playwright-core";
+import {
+  accessibilityProblems,
+  BASE,
+  dragEvent,
+  dragTemplate,
+  launch,
+  newPage,
+  shot,
+  signIn,
+} from "../support/browser";
 
 let browser: Browser;
 beforeAll(async () => {
@@ -21,23 +30,6 @@ function mondayInWeeks(weeks: number): string {
 }
 const plus = (iso: string, n: number) =>
   new Date(Date.parse(`${iso}T00:00:00Z`) + n * 86_400_000).toISOString().slice(0, 10);
-
-/** Drags a calendar event with the mouse from its day to another day's cell, as a coach does. */
-async function dragEvent(page: Page, title: string, fromDate: string, toDate: string) {
-  const event = page.locator(`td.fc-day[data-date="${fromDate}"] .fc-event`, { hasText: title }).first();
-  await event.waitFor();
-  const from = (await event.boundingBox())!;
-  const cell = page.locator(`td.fc-day[data-date="${toDate}"]`);
-  await page.mouse.move(from.x + from.width / 2, from.y + from.height / 2);
-  await page.mouse.down();
-  await page.mouse.move(from.x + from.width / 2 + 10, from.y + from.height / 2, { steps: 5 });
-  for (let i = 0; i < 3; i++) {
-    const to = (await cell.boundingBox())!;
-    await page.mouse.move(to.x + to.width / 2, to.y + to.height / 2 + 10, { steps: 10 });
-    await page.waitForTimeout(150);
-  }
-  await page.mouse.up();
-}
 
 describe("planning in the browser", () => {
   it("drag intervals until the week is over budget, then apply the fix and see the mark clear", async () => {

@@ -1,6 +1,6 @@
 // The everyday story on a fresh account, end to end: a head coach signs up, builds a squad and invites an athlete (the
 // invitation arrives through the e-mail fake), tests the athlete, plans a season and a week that breaks its budget and is
-// fixed, the athlete logs today's session with a FIT file, and seven days before the retest the reminder job sends the
+// fixed, moves a planned session with the mouse, plans a template for the squad from the squad week, the athlete logs today's session with a FIT file, and seven days before the retest the reminder job sends the
 // retest reminder, whose unsubscribe link works. Every page is screenshotted; any console error, failed request or bare
 // number without a label or unit fails the story. Check values: the budget maths in features/planning (Seiler &
 // Kjerland 2006 shares, "common practice" tolerance), the synthetic ramp model (features/gas-exchange/lib/synthetic-ramp.ts).
@@ -11,7 +11,7 @@ import { syntheticRamp } from "@/features/gas-exchange/lib/synthetic-ramp";
 import { deliverPending } from "@/features/messages/server/deliver";
 import { queueRetestReminders } from "@/features/reminders/server/jobs";
 import { query } from "../support/db";
-import { accessibilityProblems, BASE, dragTemplate, launch, newPage, shot } from "../support/browser";
+import { accessibilityProblems, BASE, dragEvent, dragTemplate, launch, newPage, shot } from "../support/browser";
 
 const FAKE = process.env.FAKE_EMAIL_URL ?? "";
 const tag = Date.now().toString(36);
@@ -270,6 +270,36 @@ describe("the everyday story", () => {
     await band.getByRole("button", { name: "Apply the fix" }).click();
     await c.locator(`[data-testid="band-${week}"][data-over="no"]`).waitFor();
     await visit(c, "13-week-fixed", coach.problems);
+
+    // A planned session moves to another day with the mouse, and the server has it there.
+    await dragEvent(c, "Easy long run", plus(week, 5), plus(week, 4));
+    await c.getByText(`Moved "Easy long run" to ${plus(week, 4)}.`).waitFor();
+    const inWeek = (await (
+      await c.request.get(`${BASE}/api/athletes/${athleteId}/sessions?from=${week}&to=${plus(week, 6)}`)
+    ).json()) as { title: string; date: string }[];
+    expect(inWeek.filter((x) => x.title === "Easy long run").map((x) => x.date)).toEqual([
+      plus(week, 4),
+      plus(week, 6),
+    ]);
+
+    // Planning for the squad: from the squad week, a template for the squad's athletes on one day, after the preview.
+    const squadDay = plus(week, 7 * 8 + 2);
+    await c.goto(`${BASE}/roster/week?week=${plus(week, 7 * 8)}`);
+    const planner = c.getByRole("region", { name: "Plan for several athletes" });
+    await planner
+      .getByLabel("Template", { exact: true })
+      .selectOption({ label: "Harbour intervals 6 × 4 min (Running)" });
+    await planner.getByLabel("Day", { exact: true }).selectOption(squadDay);
+    await planner.getByLabel(/^All /).check();
+    await planner.getByRole("button", { name: "Show each athlete's week" }).click();
+    await c.getByTestId("group-preview").getByRole("row").filter({ hasText: ATHLETE.name }).waitFor();
+    await visit(c, "13b-squad-week-preview", coach.problems);
+    await planner.getByRole("button", { name: /^Plan it for 1 athlete$/ }).click();
+    await c.getByText("Planned 1 session for 1 athlete.").waitFor();
+    const squadPlanned = (await (
+      await c.request.get(`${BASE}/api/athletes/${athleteId}/sessions?from=${squadDay}&to=${squadDay}`)
+    ).json()) as { title: string }[];
+    expect(squadPlanned.map((x) => x.title)).toEqual(["Harbour intervals 6 × 4 min"]);
 
     // Today's session for the athlete, planned with the keyboard planner.
     await c.goto(`${BASE}/athletes/${athleteId}/plan?week=${today}`);

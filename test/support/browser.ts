@@ -135,3 +135,20 @@ export async function dragTemplate(page: Page, name: string, date: string) {
   }
   await page.mouse.up();
 }
+
+/** Drags a calendar event with the mouse from its day to another day's cell, as a coach does. */
+export async function dragEvent(page: Page, title: string, fromDate: string, toDate: string) {
+  const event = page.locator(`td.fc-day[data-date="${fromDate}"] .fc-event`, { hasText: title }).first();
+  await event.waitFor();
+  const from = (await event.boundingBox())!;
+  const cell = page.locator(`td.fc-day[data-date="${toDate}"]`);
+  await page.mouse.move(from.x + from.width / 2, from.y + from.height / 2);
+  await page.mouse.down();
+  await page.mouse.move(from.x + from.width / 2 + 10, from.y + from.height / 2, { steps: 5 });
+  for (let i = 0; i < 3; i++) {
+    const to = (await cell.boundingBox())!;
+    await page.mouse.move(to.x + to.width / 2, to.y + to.height / 2 + 10, { steps: 10 });
+    await page.waitForTimeout(150);
+  }
+  await page.mouse.up();
+}

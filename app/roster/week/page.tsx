@@ -30,7 +30,12 @@ export default async function SquadWeekPage({
     return (
       <div className="mx-auto max-w-lg card space-y-3" role="alert">
         <h1 className="text-xl font-bold">The squad week is for coaches</h1>
-        <p>Your account is not a coach of any squad.</p>
+        <p>Your account is not a coach of any squad, so there is no squad week to show.</p>
+        <p>
+          <Link href="/squads/new" className="btn-quiet">
+            Start a squad of your own
+          </Link>
+        </p>
       </div>
     );
   }
