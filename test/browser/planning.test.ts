@@ -277,7 +277,7 @@ describe("planning in the browser", () => {
     await page.context().close();
   });
 
-  it("plans a template for two athletes from the squad week after a preview, and copies a week into the next weeks", async () => {
+  it("plans a template for two athletes from the squad week after a preview, takes a template dropped on one athlete's day, and copies a week into the next weeks", async () => {
     const { page, problems } = await newPage(browser);
     await signIn(page, "coach@northfold.test");
     // A week far beyond the demo season, different on each run.
@@ -304,6 +304,31 @@ describe("planning in the browser", () => {
     await page.getByTestId("squad-week-row").filter({ hasText: "Ines Varga" }).getByText("Long run 90 min").waitFor();
     await page.getByTestId("squad-week-row").filter({ hasText: "Jonas Okafor" }).getByText("Long run 90 min").waitFor();
 
+    // The squad week is editable: a template chip dragged onto Jonas's Friday, and the keyboard path on Ines's Thursday.
+    const jonasFriday = page
+      .getByTestId("squad-week-row")
+      .filter({ hasText: "Jonas Okafor" })
+      .locator(`[data-testid="squad-day"][data-date="${plus(week, 4)}"]`);
+    const chip = page.getByTestId("squad-template").filter({ hasText: "Long run 90 min" });
+    await jonasFriday.scrollIntoViewIfNeeded();
+    await chip.dragTo(jonasFriday);
+    await jonasFriday.getByText("Long run 90 min").waitFor();
+    await page.getByRole("button", { name: `+ Plan a template for Ines Varga on ${plus(week, 3)}` }).click();
+    await page.getByLabel(`Template for Ines Varga on ${plus(week, 3)}`).selectOption({ label: "Long run 90 min" });
+    await page
+      .getByTestId("squad-week-row")
+      .filter({ hasText: "Ines Varga" })
+      .locator(`[data-testid="squad-day"][data-date="${plus(week, 3)}"]`)
+      .getByRole("button", { name: "Plan it" })
+      .click();
+    await page
+      .getByTestId("squad-week-row")
+      .filter({ hasText: "Ines Varga" })
+      .locator(`[data-testid="squad-day"][data-date="${plus(week, 3)}"]`)
+      .getByText("Long run 90 min")
+      .waitFor();
+    expect(await accessibilityProblems(page)).toEqual([]);
+
     // On Ines's plan: copy that week into the next two weeks.
     await page
       .getByTestId("squad-week-row")
@@ -321,7 +346,7 @@ describe("planning in the browser", () => {
       .getByText(`Week of ${plus(week, 14)}`)
       .waitFor();
     await page.getByRole("button", { name: "Copy it" }).click();
-    await page.getByText("Copied 2 sessions into 2 weeks.").waitFor();
+    await page.getByText("Copied 4 sessions into 2 weeks.").waitFor();
     const dates = (
       (await (
         await page.request.get(`${BASE}/api/athletes/${athleteId}/sessions?from=${week}&to=${plus(week, 20)}`)
@@ -330,7 +355,14 @@ describe("planning in the browser", () => {
       .filter((x) => x.title === "Long run 90 min")
       .map((x) => x.date)
       .sort();
-    expect(dates).toEqual([plus(week, 2), plus(week, 9), plus(week, 16)]);
+    expect(dates).toEqual([
+      plus(week, 2),
+      plus(week, 3),
+      plus(week, 9),
+      plus(week, 10),
+      plus(week, 16),
+      plus(week, 17),
+    ]);
     expect(problems).toEqual([]);
     await page.context().close();
   });

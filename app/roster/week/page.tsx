@@ -9,6 +9,7 @@ import { isoDate } from "@/features/planning/schemas";
 import { squadWeek } from "@/features/planning/server";
 import { listTemplates } from "@/features/planning/server/templates";
 import { GroupPlanner } from "@/features/planning/components/GroupPlanner";
+import { SquadDayCell, SquadTemplateStrip } from "@/features/planning/components/SquadWeekEditing";
 import { describeMe } from "@/features/squads/server/squads";
 
 export const metadata = { title: "Squad week" };
@@ -45,6 +46,7 @@ export default async function SquadWeekPage({
     squadWeek(actor, squad.id, monday),
     listTemplates(actor, { squadId: squad.id }),
   ]);
+  const templateOptions = templates.map((t) => ({ id: t.id, name: t.name, sport: t.sport }));
   const days = Array.from({ length: 7 }, (_, i) => addDays(monday, i));
   const link = (week: string) => `/roster/week?squad=${squad.id}&week=${week}`;
   const over = rows.filter((r) => r.week.overBudget).length;
@@ -79,9 +81,10 @@ export default async function SquadWeekPage({
           squadId={squad.id}
           monday={monday}
           athletes={rows.map((r) => r.athlete)}
-          templates={templates.map((t) => ({ id: t.id, name: t.name, sport: t.sport }))}
+          templates={templateOptions}
         />
       ) : null}
+      {rows.length > 0 ? <SquadTemplateStrip templates={templateOptions} /> : null}
       {rows.length === 0 ? (
         <p className="card text-ink-soft">No athletes in this squad yet. Invite them from the roster.</p>
       ) : (
@@ -113,7 +116,7 @@ export default async function SquadWeekPage({
                       </Link>
                     </th>
                     {days.map((d) => (
-                      <td key={d} className="px-1">
+                      <SquadDayCell key={d} squadId={squad.id} athlete={r.athlete} date={d} templates={templateOptions}>
                         <ul className="space-y-1">
                           {r.sessions
                             .filter((x) => x.date === d)
@@ -133,7 +136,7 @@ export default async function SquadWeekPage({
                               </li>
                             ))}
                         </ul>
-                      </td>
+                      </SquadDayCell>
                     ))}
                   </tr>
                   <tr>
