@@ -5,6 +5,7 @@ import { CalendarFeedSettings, CoachDigestSettings } from "@/features/messages/c
 import { getNotificationSettings } from "@/features/messages/server/preferences";
 import { FormNotice } from "@/features/platform/components/form-bits";
 import { publicOrigin } from "@/features/platform/server/origin";
+import { AccountSettings } from "@/features/auth/components/AccountSettings";
 
 export const metadata = { title: "Settings" };
 
@@ -55,6 +56,12 @@ export default async function SettingsPage({ searchParams }: { searchParams: Pro
         </section>
       ) : null}
       {!isAthlete && !isCoach ? <p className="card">Join a squad to set up reminders and e-mail.</p> : null}
+      <section className="card space-y-2" aria-labelledby="account-h">
+        <h2 id="account-h" className="text-lg font-bold">
+          Your account
+        </h2>
+        <AccountSettings name={actor.name} email={actor.email} />
+      </section>
     </div>
   );
 }

@@ -29,3 +29,13 @@ export const forgotPasswordSchema = z.object({ email });
 export const resetPasswordSchema = z
   .object({ password: passwordSchema, confirm: z.string() })
   .refine((v) => v.password === v.confirm, { path: ["confirm"], message: "The two passwords differ." });
+
+export const changeNameSchema = z.object({ name: personNameSchema });
+
+export const changePasswordSchema = z
+  .object({
+    currentPassword: z.string().min(1, "Enter your current password."),
+    password: passwordSchema,
+    confirm: z.string(),
+  })
+  .refine((v) => v.password === v.confirm, { path: ["confirm"], message: "The two new passwords differ." });

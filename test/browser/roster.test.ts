@@ -28,6 +28,25 @@ describe("demo sign-ins", () => {
     await page.context().close();
   });
 
+  it("settings offer every account its own name and a password change, readable and accessible", async () => {
+    const { page, problems } = await newPage(browser);
+    await signIn(page, "coach@northfold.test");
+    await page.goto(`${BASE}/settings`);
+    const account = page.getByRole("region", { name: "Your account" });
+    await expect(account.getByLabel("Your name").inputValue()).resolves.toBe("Maren Holt");
+    await account.getByLabel("Current password").waitFor();
+    // The client checks before anything is sent: the two new passwords must match.
+    await account.getByLabel("Current password").fill("northfold-demo");
+    await account.getByLabel(/^New password \(/).fill("a-long-new-password");
+    await account.getByLabel("New password again").fill("a-different-password");
+    await account.getByRole("button", { name: "Change my password" }).click();
+    await account.getByText("The two new passwords differ.").waitFor();
+    await shot(page, "settings-account");
+    expect(await accessibilityProblems(page)).toEqual([]);
+    expect(problems).toEqual([]);
+    await page.context().close();
+  });
+
   it("an athlete lands on today and is refused the roster", async () => {
     const { page, problems } = await newPage(browser);
     await signIn(page, "runner@northfold.test");

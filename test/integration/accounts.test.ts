@@ -285,6 +285,36 @@ describe("accounts, squads and invitations", () => {
     expect((await other.call(meRoute, "GET", "/api/me")).status).toBe(401);
   });
 
+  it("a person changes their own name and password (the settings page's calls); a wrong current password changes nothing", async () => {
+    const b = new Browser("198.51.100.40");
+    await b.signUp("Mara Lind", "mara@example.test");
+    const other = new Browser("198.51.100.41");
+    expect((await other.signIn("mara@example.test")).status).toBe(200);
+    expect((await other.call(meRoute, "GET", "/api/me")).status).toBe(200);
+    expect((await b.auth("POST", "/update-user", { name: "Mara Lind-Holm" })).status).toBe(200);
+    expect((await b.call(meRoute, "GET", "/api/me")).json.user.name).toBe("Mara Lind-Holm");
+    // A name the sign-up would refuse is refused here too (auth.ts checks names on every change).
+    expect((await b.auth("POST", "/update-user", { name: "x" })).status).toBeGreaterThanOrEqual(400);
+    const wrong = await b.auth("POST", "/change-password", {
+      currentPassword: "not-the-password",
+      newPassword: "another-long-password",
+      revokeOtherSessions: true,
+    });
+    expect(wrong.status).toBeGreaterThanOrEqual(400);
+    expect((await new Browser("198.51.100.42").signIn("mara@example.test")).status).toBe(200);
+    const right = await b.auth("POST", "/change-password", {
+      currentPassword: "correct-horse-battery",
+      newPassword: "another-long-password",
+      revokeOtherSessions: true,
+    });
+    expect(right.status).toBe(200);
+    expect((await new Browser("198.51.100.43").signIn("mara@example.test", "another-long-password")).status).toBe(200);
+    expect((await new Browser("198.51.100.44").signIn("mara@example.test")).status).toBe(401);
+    // The other device is signed out; this one stays signed in.
+    expect((await other.call(meRoute, "GET", "/api/me")).status).toBe(401);
+    expect((await b.call(meRoute, "GET", "/api/me")).status).toBe(200);
+  });
+
   it("a signed-out session cookie, replayed, no longer signs anyone in", async () => {
     const b = new Browser("198.51.100.34");
     await b.signUp("Replay", "replay@example.test");
