@@ -38,6 +38,11 @@ describe("today and logging", () => {
     // Step targets are in the athlete's own numbers.
     await expect(card.innerText()).resolves.toMatch(/bpm/);
     await shot(athlete.page, "today-phone");
+    // Before anything is logged: no answer is pre-selected and no share of the planned time is claimed.
+    await card.getByText("Not logged yet.").waitFor();
+    await expect(card.getByLabel("Done", { exact: true }).isChecked()).resolves.toBe(false);
+    await card.getByRole("button", { name: "Save the log" }).click();
+    await card.getByText("Choose how it went: done, partly done or skipped.").waitFor();
     await card.getByLabel("Done", { exact: true }).check();
     await card.getByLabel("Effort, whole session (RPE 0–10)").selectOption("6");
     await card.getByRole("button", { name: "Save the log" }).click();

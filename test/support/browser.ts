@@ -87,6 +87,9 @@ const AXE_SOURCE = fs.readFileSync(require.resolve("axe-core/axe.min.js"), "utf8
  * rule, its help text and the first offending elements.
  */
 export async function accessibilityProblems(page: Page): Promise<string[]> {
+  // A page refreshed in place (router.refresh) streams its head again: check once it has settled and has its title.
+  await page.waitForLoadState("networkidle");
+  await page.waitForFunction(() => document.title.trim().length > 0, undefined, { timeout: 5000 }).catch(() => {});
   await page.evaluate(AXE_SOURCE);
   const violations = (await page.evaluate(async () => {
     const axe = (

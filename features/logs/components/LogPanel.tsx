@@ -48,7 +48,8 @@ export function LogPanel({
 }) {
   const router = useRouter();
   const [editing, setEditing] = useState(!log);
-  const [status, setStatus] = useState<LogView["status"]>(log?.status ?? "done");
+  // Nothing is chosen before the athlete says how it went (a pre-selected "Done" would log sessions never done).
+  const [status, setStatus] = useState<LogView["status"] | null>(log?.status ?? null);
   const [error, setError] = useState<string>();
   const [notice, setNotice] = useState<string>();
   const [busy, setBusy] = useState(false);
@@ -60,6 +61,7 @@ export function LogPanel({
   async function submit(e: FormEvent<HTMLFormElement>) {
     e.preventDefault();
     if (busy) return;
+    if (!status) return setError("Choose how it went: done, partly done or skipped.");
     const f = new FormData(e.currentTarget);
     const num = (k: string) => (f.get(k) === "" || f.get(k) === null ? null : Number(f.get(k)));
     const body =
@@ -178,7 +180,7 @@ export function LogPanel({
               </label>
             ))}
           </fieldset>
-          {status === "skipped" ? (
+          {status === null ? null : status === "skipped" ? (
             <label className="block">
               <span className="field-label">Why was it skipped?</span>
               <input

@@ -78,21 +78,25 @@ export function SessionCard({ s, canLog }: { s: SessionCardData; canLog: boolean
       {s.zoneSet ? (
         <p className="text-xs text-ink-soft">Targets from the zones in force since {s.zoneSet.effectiveFrom}.</p>
       ) : null}
-      <div>
-        <p className="text-xs font-semibold text-ink-soft">
-          Done: <span className="num">{Math.round(s.compliance * 100)} % of the planned time</span>
-        </p>
-        <div
-          className="mt-1 h-2 overflow-hidden rounded bg-ground"
-          role="meter"
-          aria-label="Share of the planned time done"
-          aria-valuemin={0}
-          aria-valuemax={100}
-          aria-valuenow={Math.round(s.compliance * 100)}
-        >
-          <div className="h-full bg-ink/70" style={{ width: `${fill * 100}%` }} />
+      {s.log ? (
+        <div>
+          <p className="text-xs font-semibold text-ink-soft">
+            Done: <span className="num">{Math.round(s.compliance * 100)} % of the planned time</span>
+          </p>
+          <div
+            className="mt-1 h-2 overflow-hidden rounded bg-ground"
+            role="meter"
+            aria-label="Share of the planned time done"
+            aria-valuemin={0}
+            aria-valuemax={100}
+            aria-valuenow={Math.round(s.compliance * 100)}
+          >
+            <div className="h-full bg-ink/70" style={{ width: `${fill * 100}%` }} />
+          </div>
         </div>
-      </div>
+      ) : (
+        <p className="text-xs font-semibold text-ink-soft">Not logged yet.</p>
+      )}
       {canLog ? <LogPanel sessionId={s.id} athleteId={s.athleteId} plannedMin={plannedMin} log={s.log} /> : null}
     </article>
   );

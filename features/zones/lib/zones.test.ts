@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { fiveZones, formatPace, paceSPerKm, RPE_ANCHORS, threeZones, zoneOf, zoneSetInForce, ZoneError } from "./zones";
+import { anchorOf } from "@/features/logs/lib/cr10";
+import { fiveZones, formatPace, paceSPerKm, threeZones, zoneOf, zoneSetInForce, ZoneError } from "./zones";
 
 const vt1 = { hrBpm: 150, powerW: 220, speedKmh: 12 };
 const vt2 = { hrBpm: 172, powerW: 300, speedKmh: 15 };
@@ -14,7 +15,7 @@ describe("zones from VT1 and VT2 (three-zone model, Seiler & Kjerland 2006)", ()
     ]);
     // Foster et al. 2001's anchors at the zone edges: zone 1 ends at "moderate", zone 2 starts at "somewhat hard" and
     // zone 3 at "very hard" (our placement of the anchors; common practice).
-    expect([RPE_ANCHORS[3], RPE_ANCHORS[4], RPE_ANCHORS[7]]).toEqual(["moderate", "somewhat hard", "very hard"]);
+    expect([anchorOf(3), anchorOf(4), anchorOf(7)]).toEqual(["Moderate", "Somewhat hard", "Very hard"]);
     // The five zones stay inside their parents' bands.
     for (const f of fiveZones(vt1, vt2)) {
       const parent = z[f.parent - 1]!.rpe;

@@ -29,23 +29,11 @@ export interface Zone {
   /**
    * Perceived exertion band on the CR-10 scale with the verbal anchors of Foster et al. 2001 (J Strength Cond Res
    * 15:109–115, after Borg): 1 very, very easy · 2 easy · 3 moderate · 4 somewhat hard · 5 hard · 7 very hard · 10
-   * maximal (see RPE_ANCHORS). Zone 1 spans "very, very easy" to "moderate", zone 2 "somewhat hard" to "hard", zone 3
+   * maximal (the scale of the logs, features/logs/lib/cr10.ts). Zone 1 spans "very, very easy" to "moderate", zone 2 "somewhat hard" to "hard", zone 3
    * "very hard" up; placing the anchors in the three zones is common practice.
    */
   rpe: [number, number];
 }
-
-/** The verbal anchors of the CR-10 scale as Foster et al. 2001 give them for session RPE (the numbers between carry none). */
-export const RPE_ANCHORS: Record<number, string> = {
-  0: "rest",
-  1: "very, very easy",
-  2: "easy",
-  3: "moderate",
-  4: "somewhat hard",
-  5: "hard",
-  7: "very hard",
-  10: "maximal",
-};
 
 const THREE: { name: string; rpe: [number, number] }[] = [
   { name: "Zone 1 · low", rpe: [1, 3] },
