@@ -6,20 +6,29 @@ function fmt(measure: Measure, v: number): string {
 
 export const MEASURE_UNITS: Record<Measure, string> = { hrBpm: "bpm", powerW: "W", speedKmh: "km/h" };
 
+/** The step of the numbers shown: whole bpm and W, tenths of km/h. */
+const STEP: Record<Measure, number> = { hrBpm: 1, powerW: 1, speedKmh: 0.1 };
+
+/**
+ * A zone's range as read: a zone holds its lower edge and stops below the next zone's (zones.ts `zoneOf`), so a closed
+ * range ends one shown step below its upper edge ("150–171 bpm", then "172 bpm and above"): no value reads as two zones.
+ */
 export function rangeText(measure: Measure, r: Range | undefined): string {
   if (!r) return "—";
   const unit = MEASURE_UNITS[measure];
   if (r.min === null && r.max !== null) return `below ${fmt(measure, r.max)} ${unit}`;
   if (r.max === null && r.min !== null) return `${fmt(measure, r.min)} ${unit} and above`;
-  return `${fmt(measure, r.min!)}–${fmt(measure, r.max!)} ${unit}`;
+  const top = Number(fmt(measure, r.max!)) - STEP[measure];
+  return `${fmt(measure, r.min!)}–${fmt(measure, Math.max(Number(fmt(measure, r.min!)), top))} ${unit}`;
 }
 
+/** The same for pace (faster speed = shorter pace, so the bounds swap): a closed range stops a second short of the next
+ * zone's pace. */
 export function paceText(r: Range | undefined): string {
   if (!r) return "—";
-  // Faster speed = shorter pace: the bounds swap.
   if (r.min === null && r.max !== null) return `slower than ${formatPace(paceSPerKm(r.max))}`;
   if (r.max === null && r.min !== null) return `${formatPace(paceSPerKm(r.min))} and faster`;
-  return `${formatPace(paceSPerKm(r.max!))} – ${formatPace(paceSPerKm(r.min!))}`;
+  return `${formatPace(paceSPerKm(r.max!) + 1)} – ${formatPace(paceSPerKm(r.min!))}`;
 }
 
 /** A step's target in the athlete's own numbers: heart rate, power and, for speed sports, pace. */
