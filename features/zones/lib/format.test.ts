@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { paceText, rangeText } from "./format";
+import { paceText, rangeText, targetText } from "./format";
 import { threeZones, zoneOf } from "./zones";
 
 // Zones from VT1 150 bpm / 220 W / 10 km/h and VT2 172 bpm / 300 W / 12 km/h (invented thresholds; the edges follow
@@ -25,5 +25,14 @@ describe("zone ranges as read: no value belongs to two zones", () => {
       "5:01 /km – 6:00 /km",
       "5:00 /km and faster",
     ]);
+  });
+});
+
+describe("a step's target names the sport's own measure first (common practice)", () => {
+  const z = threeZones({ hrBpm: 150, powerW: 220, speedKmh: 10 }, { hrBpm: 172, powerW: 300, speedKmh: 12 });
+  it("a runner reads pace first and power last; a cyclist power first; other sports heart rate first", () => {
+    expect(targetText(z[1], "running")).toBe("5:01 /km – 6:00 /km · 150–171 bpm · 220–299 W");
+    expect(targetText(z[1], "cycling")).toBe("220–299 W · 150–171 bpm · 10.0–11.9 km/h");
+    expect(targetText(z[1], "triathlon")!.startsWith("150–171 bpm")).toBe(true);
   });
 });

@@ -31,13 +31,25 @@ export function paceText(r: Range | undefined): string {
   return `${formatPace(paceSPerKm(r.max!) + 1)} – ${formatPace(paceSPerKm(r.min!))}`;
 }
 
-/** A step's target in the athlete's own numbers: heart rate, power and, for speed sports, pace. */
+/** The measures a sport trains with, first to last (common practice): runners, walkers and skiers by pace, then heart
+ * rate; cyclists and rowers by power, then heart rate; speed last on the bike. */
+const MEASURE_ORDER: Record<string, Measure[]> = {
+  running: ["speedKmh", "hrBpm", "powerW"],
+  walking: ["speedKmh", "hrBpm", "powerW"],
+  cross_country_skiing: ["speedKmh", "hrBpm", "powerW"],
+  cycling: ["powerW", "hrBpm", "speedKmh"],
+  rowing: ["powerW", "hrBpm", "speedKmh"],
+};
+
+/** A step's target in the athlete's own numbers, the sport's own measure first: heart rate, power and, for speed sports,
+ * pace. */
 export function targetText(zone: Zone | undefined, sport: string): string | null {
   if (!zone) return null;
   const parts: string[] = [];
-  if (zone.ranges.hrBpm) parts.push(rangeText("hrBpm", zone.ranges.hrBpm));
-  if (zone.ranges.powerW) parts.push(rangeText("powerW", zone.ranges.powerW));
-  if (zone.ranges.speedKmh)
-    parts.push(sport === "cycling" ? rangeText("speedKmh", zone.ranges.speedKmh) : paceText(zone.ranges.speedKmh));
+  for (const m of MEASURE_ORDER[sport] ?? (["hrBpm", "powerW", "speedKmh"] as Measure[])) {
+    const r = zone.ranges[m];
+    if (!r) continue;
+    parts.push(m === "speedKmh" && sport !== "cycling" ? paceText(r) : rangeText(m, r));
+  }
   return parts.length ? parts.join(" · ") : null;
 }
