@@ -118,6 +118,8 @@ export function CopyWeek({
                   Week of {w.weekStart}: {Math.round(m[0] + m[1] + m[2])} min planned ·{" "}
                   {w.after.overBudget ? (
                     <span className="font-semibold text-alert">over budget: {w.after.flags[0]?.message}</span>
+                  ) : w.after.inProgress ? (
+                    "in progress (under half its target)"
                   ) : (
                     "within budget"
                   )}

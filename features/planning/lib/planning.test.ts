@@ -259,6 +259,7 @@ describe("season planning", () => {
     expect(plain[race + 2]!.role).not.toBe("recovery");
   });
 
+  // Several macrocycles in a long season: Bompa & Haff 2009 describe two or more a year; the 26-week limit is ours.
   it("a 104-week season is several macrocycles, not one long general preparation", () => {
     const two = planSeason({ startDate: "2027-01-04", events: [{ date: "2028-12-17", name: "Race" }], weeklyHours: 8 });
     const starts = two.filter(
