@@ -296,6 +296,8 @@ describe("planning in the browser", () => {
     await expect(preview.getByRole("row").filter({ hasText: "Jonas Okafor" }).textContent()).resolves.toContain(
       "90 min",
     );
+    // Jonas rides: the preview names the running template as another sport before anything is planned.
+    await expect(page.getByTestId("other-sport").textContent()).resolves.toContain("Jonas Okafor trains cycling");
     expect(await accessibilityProblems(page)).toEqual([]);
     await shot(page, "squad-week-group-plan");
     await planner.getByRole("button", { name: "Plan it for 2 athletes" }).click();
@@ -312,6 +314,14 @@ describe("planning in the browser", () => {
     const chip = page.getByTestId("squad-template").filter({ hasText: "Long run 90 min" });
     await jonasFriday.scrollIntoViewIfNeeded();
     await chip.dragTo(jonasFriday);
+    // A running template on a cyclist's day asks first; "Do not plan it" plans nothing, "Plan it anyway" plans it.
+    const question = jonasFriday.getByRole("alertdialog");
+    await expect(question.textContent()).resolves.toContain("Jonas Okafor trains cycling");
+    await question.getByRole("button", { name: "Do not plan it" }).click();
+    await question.waitFor({ state: "detached" });
+    expect(await jonasFriday.getByText("Long run 90 min").count()).toBe(0);
+    await chip.dragTo(jonasFriday);
+    await jonasFriday.getByRole("button", { name: "Plan it anyway" }).click();
     await jonasFriday.getByText("Long run 90 min").waitFor();
     await page.getByRole("button", { name: `+ Plan a template for Ines Varga on ${plus(week, 3)}` }).click();
     await page.getByLabel(`Template for Ines Varga on ${plus(week, 3)}`).selectOption({ label: "Long run 90 min" });

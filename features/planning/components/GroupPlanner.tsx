@@ -33,7 +33,7 @@ export function GroupPlanner({
 }: {
   squadId: string;
   monday: string;
-  athletes: { id: string; name: string }[];
+  athletes: { id: string; name: string; sports: string[] }[];
   templates: { id: string; name: string; sport: string }[];
 }) {
   const router = useRouter();
@@ -74,6 +74,14 @@ export function GroupPlanner({
       setBusy(false);
     }
   }
+
+  const template = templates.find((t) => t.id === templateId);
+  // A template of another sport than an athlete trains is named before it is planned (the preview is the question).
+  const otherSport =
+    mode === "template" && template
+      ? athletes.filter((a) => chosen.includes(a.id) && a.sports.length > 0 && !a.sports.includes(template.sport))
+      : [];
+  const sportName = (s: string) => SPORT_LABELS[s as Sport]?.toLowerCase() ?? s;
 
   const toggle = (list: string[], v: string) => (list.includes(v) ? list.filter((x) => x !== v) : [...list, v]);
   const reset = () => setAnswer(null);
@@ -235,6 +243,17 @@ export function GroupPlanner({
             : "Plan it (after the preview)"}
         </button>
       </div>
+      {answer?.preview && otherSport.length > 0 ? (
+        <p
+          role="alert"
+          className="rounded-md border border-alert/60 bg-alert-wash/50 p-3 text-sm"
+          data-testid="other-sport"
+        >
+          &quot;{template!.name}&quot; is a {sportName(template!.sport)} template, and{" "}
+          {otherSport.map((a) => `${a.name} trains ${a.sports.map(sportName).join(", ")}`).join("; ")}. &quot;Plan
+          it&quot; plans it for them too; untick them to leave them out.
+        </p>
+      ) : null}
       {answer && !answer.preview ? (
         <FormNotice>
           Planned {answer.created} session{answer.created === 1 ? "" : "s"} for {answer.athletes.length} athlete

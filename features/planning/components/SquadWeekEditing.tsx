@@ -72,7 +72,7 @@ export function SquadDayCell({
   children,
 }: {
   squadId: string;
-  athlete: { id: string; name: string };
+  athlete: { id: string; name: string; sports: string[] };
   date: string;
   templates: TemplateOption[];
   children: ReactNode;
@@ -83,9 +83,19 @@ export function SquadDayCell({
   const [choice, setChoice] = useState(templates[0]?.id ?? "");
   const [status, setStatus] = useState<{ ok: boolean; text: string } | null>(null);
   const [busy, setBusy] = useState(false);
+  /** A template of another sport than the athlete trains, waiting for the coach's yes. */
+  const [pending, setPending] = useState<TemplateOption | null>(null);
+  const sportName = (s: string) => SPORT_LABELS[s as Sport]?.toLowerCase() ?? s;
 
-  async function plan(templateId: string) {
-    const name = templates.find((t) => t.id === templateId)?.name ?? "The template";
+  async function plan(templateId: string, confirmed = false) {
+    const template = templates.find((t) => t.id === templateId);
+    const name = template?.name ?? "The template";
+    if (!confirmed && template && athlete.sports.length > 0 && !athlete.sports.includes(template.sport)) {
+      setStatus(null);
+      setPending(template);
+      return;
+    }
+    setPending(null);
     setBusy(true);
     setStatus(null);
     try {
@@ -127,6 +137,31 @@ export function SquadDayCell({
       }}
     >
       {children}
+      {pending ? (
+        <div
+          role="alertdialog"
+          aria-labelledby={`other-sport-${athlete.id}-${date}`}
+          className="mt-1 space-y-1 text-xs"
+        >
+          <p id={`other-sport-${athlete.id}-${date}`}>
+            &quot;{pending.name}&quot; is a {sportName(pending.sport)} template, and {athlete.name} trains{" "}
+            {athlete.sports.map(sportName).join(", ")}. Plan it on {date} anyway?
+          </p>
+          <div className="flex gap-1">
+            <button
+              type="button"
+              className="btn px-2 py-0.5 text-xs"
+              disabled={busy}
+              onClick={() => plan(pending.id, true)}
+            >
+              Plan it anyway
+            </button>
+            <button type="button" className="btn-quiet px-2 py-0.5 text-xs" onClick={() => setPending(null)}>
+              Do not plan it
+            </button>
+          </div>
+        </div>
+      ) : null}
       {templates.length ? (
         open ? (
           <div className="mt-1 space-y-1">

@@ -206,7 +206,7 @@ async function computeWeekSummaries(athleteId: string, from: string, to: string,
 }
 
 export interface SquadWeekRow {
-  athlete: { id: string; name: string };
+  athlete: { id: string; name: string; sports: string[] };
   sessions: {
     id: string;
     date: string;
@@ -229,13 +229,18 @@ export async function squadWeek(actor: Actor, squadId: string, weekStart: string
   const monday = mondayOf(weekStart);
   const sunday = addDays(monday, 6);
   const rows = await db
-    .select({ id: schema.user.id, name: schema.user.name, timeZone: schema.athleteProfile.timeZone })
+    .select({
+      id: schema.user.id,
+      name: schema.user.name,
+      timeZone: schema.athleteProfile.timeZone,
+      sports: schema.athleteProfile.sports,
+    })
     .from(schema.membership)
     .innerJoin(schema.user, eq(schema.user.id, schema.membership.userId))
     .leftJoin(schema.athleteProfile, eq(schema.athleteProfile.userId, schema.user.id))
     .where(and(eq(schema.membership.squadId, squadId), eq(schema.membership.role, "athlete")))
     .orderBy(asc(schema.user.name));
-  const athletes = rows.map(({ id, name }) => ({ id, name }));
+  const athletes = rows.map(({ id, name, sports }) => ({ id, name, sports: sports ?? [] }));
   const timeZoneOf = new Map(rows.map((r) => [r.id, r.timeZone ?? "UTC"]));
   if (!athletes.length) return [];
   const { byAthlete, logStatusOf } = await loadWeekInputs(
