@@ -1,8 +1,8 @@
 import "server-only";
 import { randomUUID } from "node:crypto";
-import { desc, eq, inArray } from "drizzle-orm";
+import { desc, eq, sql } from "drizzle-orm";
 import type { z } from "zod";
-import { getDb, schema } from "@/db/client";
+import { anyOf, getDb, schema } from "@/db/client";
 import { requireAthleteAccess } from "@/features/access/server";
 import type { Actor } from "@/features/access/lib/rules";
 import { addDays } from "@/features/platform/lib/days";
@@ -26,9 +26,12 @@ export async function readinessInputs(athleteIds: string[]): Promise<Map<string,
         createdAt: schema.screening.createdAt,
       })
       .from(schema.screening)
-      .where(inArray(schema.screening.athleteId, athleteIds))
+      .where(sql`${schema.screening.athleteId} = ${anyOf(athleteIds)}`)
       .orderBy(schema.screening.athleteId, desc(schema.screening.createdAt)),
-    db.select().from(schema.screeningClearance).where(inArray(schema.screeningClearance.athleteId, athleteIds)),
+    db
+      .select()
+      .from(schema.screeningClearance)
+      .where(sql`${schema.screeningClearance.athleteId} = ${anyOf(athleteIds)}`),
   ]);
   for (const s of screenings)
     out.get(s.athleteId)!.latest = { answeredAt: s.createdAt.toISOString(), answers: s.answers };

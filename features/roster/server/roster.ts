@@ -1,6 +1,6 @@
 import "server-only";
-import { and, asc, eq, inArray, sql } from "drizzle-orm";
-import { getDb, schema } from "@/db/client";
+import { and, asc, eq, sql } from "drizzle-orm";
+import { anyOf, getDb, schema } from "@/db/client";
 import { canViewRoster, coachedSquadIds, type Actor } from "@/features/access/lib/rules";
 import { forbidden, notFound } from "@/features/platform/server/http";
 import { localDate } from "@/features/platform/lib/dates";
@@ -78,9 +78,10 @@ export async function squadRoster(
       hardDaysBackToBack: schema.athleteProfile.hardDaysBackToBack,
       volumeTolerancePct: schema.athleteProfile.volumeTolerancePct,
       generation: schema.rosterCache.generation,
-      computedGeneration: schema.rosterCache.computedGeneration,
       computedFor: schema.rosterCache.computedFor,
-      row: schema.rosterCache.row,
+      // The stored row only when it is still current (same generation); whether it is for the athlete's today is
+      // checked below. A stale row is not sent at all.
+      row: sql<RosterRow | null>`case when ${schema.rosterCache.computedGeneration} = ${schema.rosterCache.generation} then ${schema.rosterCache.row} end`,
     })
     .from(schema.membership)
     .innerJoin(schema.user, eq(schema.user.id, schema.membership.userId))
@@ -95,9 +96,7 @@ export async function squadRoster(
     if (!d) todayIn.set(zone, (d = localDate(now, zone)));
     return d;
   };
-  const stale = athletes.filter(
-    (a) => !(a.row && a.computedGeneration === a.generation && a.computedFor === localToday(a.timeZone)),
-  );
+  const stale = athletes.filter((a) => !(a.row && a.computedFor === localToday(a.timeZone)));
   const fresh = new Map<string, RosterRow>();
   if (stale.length) {
     const computed = await computeRows(stale, localToday, now);
@@ -131,7 +130,7 @@ async function computeRows(
   const monday = mondayOf(today);
   const readinessPending = readinessInputs(ids);
   const firstLogsPending = db.execute<{ athleteId: string; first: string }>(
-    sql`select athlete_id as "athleteId", min(date) as first from session_log where athlete_id in ${ids} group by athlete_id`,
+    sql`select athlete_id as "athleteId", min(date) as first from session_log where athlete_id = ${anyOf(ids)} group by athlete_id`,
   );
   const [zoneSets, tests, sessions, logs, seasons] = await Promise.all([
     db
@@ -141,26 +140,26 @@ async function computeRows(
         effectiveFrom: schema.zoneSet.effectiveFrom,
       })
       .from(schema.zoneSet)
-      .where(inArray(schema.zoneSet.athleteId, ids)),
+      .where(sql`${schema.zoneSet.athleteId} = ${anyOf(ids)}`),
     db
       .select({ athleteId: schema.athleteTest.athleteId, date: schema.athleteTest.testDate })
       .from(schema.athleteTest)
-      .where(inArray(schema.athleteTest.athleteId, ids)),
+      .where(sql`${schema.athleteTest.athleteId} = ${anyOf(ids)}`),
     // The two big reads skip the ORM's row mapping: plain rows, named as the pure code wants them.
     db.execute<PlannedRow>(sql`
       select p.id, p.athlete_id as "athleteId", p.date, p.title, p.kind, p.total_s as "totalS", p.minutes_by_zone as "minutesByZone"
       from planned_session p
-      where p.athlete_id in ${ids}
+      where p.athlete_id = ${anyOf(ids)}
         and ((p.date between ${addDays(monday, -VOLUME_HISTORY_DAYS)} and ${addDays(monday, 13)}) or (p.kind = 'retest' and p.date >= ${addDays(today, -181)}))`),
     db.execute<LogRow>(sql`
       select l.athlete_id as "athleteId", l.date, l.status, l.duration_min as "durationMin", l.rpe, l.measured_min_by_zone as "measuredMinByZone", l.trimp,
         l.planned_session_id as "plannedSessionId", l.sport, l.hr_avg_bpm as "hrAvgBpm", l.power_avg_w as "powerAvgW", l.speed_avg_kmh as "speedAvgKmh"
       from session_log l
-      where l.athlete_id in ${ids} and l.date between ${addDays(today, -(EWMA_HISTORY_DAYS + 1))} and ${addDays(monday, 13)}`),
+      where l.athlete_id = ${anyOf(ids)} and l.date between ${addDays(today, -(EWMA_HISTORY_DAYS + 1))} and ${addDays(monday, 13)}`),
     db
       .select({ athleteId: schema.season.athleteId, weeks: schema.season.weeks })
       .from(schema.season)
-      .where(inArray(schema.season.athleteId, ids)),
+      .where(sql`${schema.season.athleteId} = ${anyOf(ids)}`),
   ]);
   const group = <T extends { athleteId: string }>(rows: T[]) => {
     const m = new Map<string, T[]>();
