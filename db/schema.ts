@@ -240,9 +240,15 @@ export const outbox = pgTable(
     lastError: text("last_error"),
     providerId: text("provider_id"),
     sentAt: timestamp("sent_at", { withTimezone: true }),
+    /** The batch a message was last sent in, with the batch's idempotency key: a retry sends the same batch again. */
+    batchKey: text("batch_key"),
     createdAt: createdAt(),
   },
-  (t) => [index("outbox_to_idx").on(t.to), index("outbox_pending_idx").on(t.status, t.nextAttemptAt)],
+  (t) => [
+    index("outbox_to_idx").on(t.to),
+    index("outbox_pending_idx").on(t.status, t.nextAttemptAt),
+    index("outbox_batch_idx").on(t.batchKey),
+  ],
 );
 
 /** Per-account e-mail and feed settings that are not part of an athlete profile (coaches have no profile). */

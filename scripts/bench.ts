@@ -5,7 +5,8 @@
  * - A 3-hour FIT import against the FIT SDK's decode; the 300-athlete roster against one aggregate query (bench-roster.ts);
  *   the weeks of a season at 50 connections against a bare one-query handler, as a p95 ratio (bench-weeks.ts); a week
  *   copied to 30 athletes in one action against one session planned (bench-group-plan.ts); the
- *   planner page's first-load JavaScript in kB gzip (bench-planner-js.ts; builds the app when its sources changed).
+ *   planner page's first-load JavaScript in kB gzip (bench-planner-js.ts; builds the app when its sources changed); 10 000
+ *   session reminders queued and delivered against the same e-mails POSTed one by one (bench-reminders.ts).
  */
 import Papa from "papaparse";
 import { analyzeCsv, analyzeRead } from "../features/gas-exchange/lib/analyze";
@@ -172,6 +173,22 @@ for (const script of ["./bench-roster.ts", "./bench-weeks.ts", "./bench-group-pl
   const child = spawnSync(
     process.execPath,
     ["--conditions=react-server", "--import", "tsx", new URL(script, import.meta.url).pathname],
+    { stdio: "inherit" },
+  );
+  if (child.status !== 0) process.exitCode = child.status ?? 1;
+}
+// Reminders in bulk render e-mails with react-dom/server, which the react-server condition refuses: loaded as the
+// scheduler loads the jobs (server-only hooks instead).
+{
+  const child = spawnSync(
+    process.execPath,
+    [
+      "--import",
+      "tsx",
+      "--import",
+      new URL("./register-server.mjs", import.meta.url).pathname,
+      new URL("./bench-reminders.ts", import.meta.url).pathname,
+    ],
     { stdio: "inherit" },
   );
   if (child.status !== 0) process.exitCode = child.status ?? 1;

@@ -3,7 +3,8 @@
  * batch-send and fetch a message (answering with ids and the service's error shapes, honouring its Idempotency-Key
  * header, 429 or 5xx when told to), an SMTP catcher (smtp-server) for the nodemailer transport, and an outbox of what
  * arrived: a page (list and message view, HTML and text) and `GET /outbox.json` (newest first) for tests.
- * Control for tests: `POST /_fake/fail {"status": 429|503, "count"?: n, "forMs"?: ms}` and `POST /_fake/reset`.
+ * Control for tests: `POST /_fake/fail {"status": 429|503, "count"?: n, "forMs"?: ms, "afterSending"?: true}` (with
+ * afterSending the message is taken but the answer is an error, as when it is lost) and `POST /_fake/reset`.
  * Run alone: `tsx scripts/fake-email.ts` (FAKE_EMAIL_PORT, default 4010; FAKE_SMTP_PORT, default 2525).
  */
 import { randomUUID } from "node:crypto";
@@ -98,7 +99,7 @@ export async function startFakeEmail(
 ): Promise<FakeEmail> {
   const messages: FakeMessage[] = [];
   const byKey = new Map<string, { body: string; id: string }>();
-  let failure: { status: number; count: number | null; until: number | null } | null = null;
+  let failure: { status: number; count: number | null; until: number | null; afterSending: boolean } | null = null;
 
   const store = (p: Payload, via: FakeMessage["via"]): FakeMessage => {
     const tags = Array.isArray(p.tags) ? (p.tags as { name?: string; value?: string }[]) : [];
@@ -141,8 +142,18 @@ export async function startFakeEmail(
       const url = new URL(req.url ?? "/", "http://localhost");
       const path = url.pathname;
       if (req.method === "POST" && path === "/_fake/fail") {
-        const b = JSON.parse((await readBody(req)) || "{}") as { status?: number; count?: number; forMs?: number };
-        failure = { status: b.status ?? 503, count: b.count ?? null, until: b.forMs ? Date.now() + b.forMs : null };
+        const b = JSON.parse((await readBody(req)) || "{}") as {
+          status?: number;
+          count?: number;
+          forMs?: number;
+          afterSending?: boolean;
+        };
+        failure = {
+          status: b.status ?? 503,
+          count: b.count ?? null,
+          until: b.forMs ? Date.now() + b.forMs : null,
+          afterSending: b.afterSending === true,
+        };
         return json(res, 200, { ok: true });
       }
       if (req.method === "POST" && path === "/_fake/reset") {
@@ -202,7 +213,15 @@ ${rows.length ? `<table><thead><tr><th>Received</th><th>Kind</th><th>To</th><th>
             name: "missing_api_key",
             message: "Missing API key in the authorization header.",
           });
-        const fail = req.method === "POST" ? failing() : null;
+        // "afterSending": the message is taken (and kept under its idempotency key), but the answer is an error, as when
+        // the answer is lost on the way back.
+        const afterSending = failure?.afterSending === true;
+        const failed = req.method === "POST" ? failing() : null;
+        const fail = afterSending ? null : failed;
+        const answer = (status: number, body: unknown) =>
+          afterSending && failed
+            ? json(res, failed, { statusCode: failed, name: "application_error", message: "The answer was lost." })
+            : json(res, status, body);
         if (fail === 429)
           return json(
             res,
@@ -248,10 +267,23 @@ ${rows.length ? `<table><thead><tr><th>Received</th><th>Kind</th><th>To</th><th>
           if (invalid) return json(res, invalid.statusCode, invalid);
           const m = store(p, "api");
           if (typeof key === "string" && key) byKey.set(key, { body: raw, id: m.id });
-          return json(res, 200, { id: m.id });
+          return answer(200, { id: m.id });
         }
         if (req.method === "POST" && path === "/emails/batch") {
-          const list = JSON.parse((await readBody(req)) || "[]") as Payload[];
+          const raw = await readBody(req);
+          const batchKey = req.headers["idempotency-key"];
+          if (typeof batchKey === "string" && batchKey) {
+            const seen = byKey.get(`batch ${batchKey}`);
+            if (seen)
+              return seen.body === raw
+                ? json(res, 200, { data: JSON.parse(seen.id) as { id: string }[] })
+                : json(res, 409, {
+                    statusCode: 409,
+                    name: "invalid_idempotent_request",
+                    message: "Same idempotency key used with a different request payload.",
+                  });
+          }
+          const list = JSON.parse(raw || "[]") as Payload[];
           if (!Array.isArray(list) || list.length > 100)
             return json(res, 422, {
               statusCode: 422,
@@ -260,7 +292,11 @@ ${rows.length ? `<table><thead><tr><th>Received</th><th>Kind</th><th>To</th><th>
             });
           const invalid = list.map(validate).find(Boolean);
           if (invalid) return json(res, invalid.statusCode, invalid);
-          return json(res, 200, { data: list.map((p) => ({ id: store(p, "api").id })) });
+          const data = list.map((p) => ({ id: store(p, "api").id }));
+          // The batch's ids are kept under its key, so that a retry of the same batch answers them again.
+          if (typeof batchKey === "string" && batchKey)
+            byKey.set(`batch ${batchKey}`, { body: raw, id: JSON.stringify(data) });
+          return answer(200, { data });
         }
         const one = /^\/emails\/([\w-]+)$/.exec(path);
         if (req.method === "GET" && one) {

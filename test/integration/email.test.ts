@@ -8,7 +8,9 @@ import * as calendarRoute from "@/app/api/calendar/[feed]/route";
 import * as feedRoute from "@/app/api/me/calendar-feed/route";
 import * as notificationsRoute from "@/app/api/me/notifications/route";
 import * as unsubscribeRoute from "@/app/api/unsubscribe/[token]/route";
+import { getDb } from "@/db/client";
 import { deliverPending } from "@/features/messages/server/deliver";
+import { queueMessages } from "@/features/messages/server/outbox";
 import { queueCoachDigests, queueRetestReminders, queueSessionReminders } from "@/features/reminders/server/jobs";
 import { startFakeEmail, type FakeEmail } from "../../scripts/fake-email";
 import { Browser } from "../support/api";
@@ -224,5 +226,75 @@ describe("retest reminders, the coach digest and the calendar feed", () => {
       delete process.env.TIDEMARK_EMAIL_TRANSPORT;
       resetConfig();
     }
+  });
+});
+
+describe("delivery in batches, exactly once", () => {
+  const message = (n: number, to = `batch${n}@mail.test`) => ({
+    kind: "batch_check",
+    to,
+    subject: `Batch check ${n}`,
+    text: `Message ${n}.`,
+    html: `<p>Message ${n}.</p>`,
+    idempotencyKey: `batch_check:${n}:${to}`,
+  });
+  const arrived = () => fake.messages.filter((m) => m.kind === "batch_check");
+
+  it("a batch whose answer is lost is sent again as the same batch, and the service keeps one copy of each message", async () => {
+    await fetch(`${fake.url}/_fake/reset`, { method: "POST" });
+    const t0 = new Date("2027-04-01T06:00:00Z");
+    expect(await deliverPending(t0)).toMatchObject({ sent: 0, retrying: 0 });
+    expect(
+      await queueMessages(
+        getDb(),
+        [1, 2, 3].map((n) => message(n)),
+      ),
+    ).toHaveLength(3);
+    // The service takes the batch, but its answer does not come back.
+    await fetch(`${fake.url}/_fake/fail`, {
+      method: "POST",
+      body: JSON.stringify({ status: 503, count: 1, afterSending: true }),
+    });
+    expect(await deliverPending(t0)).toMatchObject({ sent: 0, retrying: 3 });
+    expect(arrived()).toHaveLength(3);
+    // The retry is the same request under the same key: answered with the same ids, nothing sent twice.
+    expect(await deliverPending(new Date(t0.getTime() + 60_000))).toMatchObject({ sent: 3, retrying: 0 });
+    expect(arrived()).toHaveLength(3);
+    const rows = await query<{ provider_id: string; batch_key: string }>(
+      `select provider_id, batch_key from outbox where kind = 'batch_check' order by subject`,
+    );
+    expect(rows.map((r) => r.provider_id).sort()).toEqual(
+      arrived()
+        .map((m) => m.id)
+        .sort(),
+    );
+    expect(new Set(rows.map((r) => r.batch_key)).size).toBe(1);
+  });
+
+  it("a batch the service refuses is sent one message at a time: the good ones arrive, the bad one is marked failed", async () => {
+    await fetch(`${fake.url}/_fake/reset`, { method: "POST" });
+    await queueMessages(getDb(), [message(4), message(5, "not an address"), message(6)]);
+    const t0 = new Date("2027-04-02T06:00:00Z");
+    expect(await deliverPending(t0)).toMatchObject({ sent: 2, failed: 1 });
+    expect(
+      arrived()
+        .map((m) => m.subject)
+        .sort(),
+    ).toEqual(["Batch check 4", "Batch check 6"]);
+    expect(await deliverPending(new Date(t0.getTime() + 60_000))).toMatchObject({ sent: 0, failed: 0 });
+  });
+
+  it("messages a worker claimed but never finished are sent once the worker's hold has passed", async () => {
+    await fetch(`${fake.url}/_fake/reset`, { method: "POST" });
+    await queueMessages(getDb(), [message(7)]);
+    const t0 = new Date("2027-04-03T06:00:00Z");
+    // A worker claimed the message (batch key and a five-minute hold) and stopped before sending.
+    await query(
+      `update outbox set batch_key = 'batch-stopped-worker', next_attempt_at = $1 where kind = 'batch_check' and status = 'pending'`,
+      [new Date(t0.getTime() + 300_000).toISOString()],
+    );
+    expect(await deliverPending(t0)).toMatchObject({ sent: 0 });
+    expect(await deliverPending(new Date(t0.getTime() + 301_000))).toMatchObject({ sent: 1 });
+    expect(arrived().map((m) => m.subject)).toEqual(["Batch check 7"]);
   });
 });

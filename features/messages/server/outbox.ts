@@ -22,20 +22,36 @@ type Executor = Pick<Database, "insert">;
  * the new id, or null when a message with the same idempotency key was already queued.
  */
 export async function queueMessage(db: Executor, message: OutgoingMessage): Promise<string | null> {
-  const id = randomUUID();
-  // A subject is one header line: names that reached it from older data cannot add headers (names are checked at entry).
-  message = { ...message, subject: message.subject.replace(/[\u0000-\u001F\u007F]+/g, " ").trim() };
-  const rows = await db
-    .insert(schema.outbox)
-    .values({
-      id,
+  return (await queueMessages(db, [message]))[0] ?? null;
+}
+
+/** Rows per insert statement when many messages are queued at once (well under PostgreSQL's 65 535 parameters). */
+const QUEUE_CHUNK = 500;
+
+/**
+ * Writes many messages in a few statements (one per QUEUE_CHUNK), in the caller's transaction when one is given. Returns
+ * the new ids of the messages written; a message whose idempotency key was already queued is skipped.
+ */
+export async function queueMessages(db: Executor, messages: OutgoingMessage[]): Promise<string[]> {
+  const ids: string[] = [];
+  for (let i = 0; i < messages.length; i += QUEUE_CHUNK) {
+    const values = messages.slice(i, i + QUEUE_CHUNK).map((message) => ({
+      id: randomUUID(),
       ...message,
+      // A subject is one header line: names that reached it from older data cannot add headers (names are checked at
+      // entry).
+      subject: message.subject.replace(/[\u0000-\u001F\u007F]+/g, " ").trim(),
       meta: message.meta ?? {},
       headers: message.headers ?? {},
       idempotencyKey: message.idempotencyKey ?? null,
       userId: message.userId ?? null,
-    })
-    .onConflictDoNothing({ target: schema.outbox.idempotencyKey })
-    .returning({ id: schema.outbox.id });
-  return rows[0]?.id ?? null;
+    }));
+    const rows = await db
+      .insert(schema.outbox)
+      .values(values)
+      .onConflictDoNothing({ target: schema.outbox.idempotencyKey })
+      .returning({ id: schema.outbox.id });
+    ids.push(...rows.map((r) => r.id));
+  }
+  return ids;
 }

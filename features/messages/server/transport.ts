@@ -32,37 +32,67 @@ export async function sendEmail(e: Envelope): Promise<SendResult> {
 let resend: Resend | undefined;
 let resendFor = "";
 
-async function sendResend(e: Envelope): Promise<SendResult> {
+/** The SDK client for the configured service (or its local fake), or why there is none. */
+function resendClient(): Resend | string {
   const { resend: settings } = config().mail;
   const baseUrl = settings.baseUrl ?? "https://api.resend.com";
   const key = settings.apiKey ?? (settings.baseUrl ? "re_local_fake_key" : "");
-  if (!key)
-    return {
-      ok: false,
-      retry: false,
-      error: "No RESEND_API_KEY is set and no local fake (RESEND_BASE_URL) is configured.",
-    };
+  if (!key) return "No RESEND_API_KEY is set and no local fake (RESEND_BASE_URL) is configured.";
   if (!resend || resendFor !== `${baseUrl} ${key}`) {
     resend = new Resend(key, { baseUrl });
     resendFor = `${baseUrl} ${key}`;
   }
-  const { data, error } = await resend.emails.send(
-    {
-      from: fromAddress(),
-      to: [e.to],
-      subject: e.subject,
-      html: e.html,
-      text: e.text,
-      headers: e.headers,
-      tags: [{ name: "kind", value: e.kind }],
-    },
-    { idempotencyKey: e.idempotencyKey },
-  );
-  if (data?.id) return { ok: true, providerId: data.id };
-  const status = (error as { statusCode?: number | null } | null)?.statusCode ?? null;
-  // Unreachable (no status), rate-limited or a server error: try again later. A refused message (4xx) will not improve.
+  return resend;
+}
+
+const payload = (e: Envelope) => ({
+  from: fromAddress(),
+  to: [e.to],
+  subject: e.subject,
+  html: e.html,
+  text: e.text,
+  headers: e.headers,
+  tags: [{ name: "kind", value: e.kind }],
+});
+
+/** A failed answer: unreachable (no status), rate-limited or a server error may pass later; a refusal (4xx) will not. */
+function failure(error: { message?: string; statusCode?: number | null } | null): SendResult & { ok: false } {
+  const status = error?.statusCode ?? null;
   const retry = status === null || status === 429 || status >= 500;
   return { ok: false, retry, error: `${status ?? "no answer"}: ${error?.message ?? "unknown error"}` };
+}
+
+async function sendResend(e: Envelope): Promise<SendResult> {
+  const client = resendClient();
+  if (typeof client === "string") return { ok: false, retry: false, error: client };
+  const { data, error } = await client.emails.send(payload(e), { idempotencyKey: e.idempotencyKey });
+  if (data?.id) return { ok: true, providerId: data.id };
+  return failure(error as { message?: string; statusCode?: number | null } | null);
+}
+
+/** The most messages one batch request may hold (the service's limit). */
+export const BATCH_LIMIT = 100;
+
+/** Whether the transport sends batches (the e-mail service's batch endpoint; SMTP sends one by one). */
+export function sendsBatches(): boolean {
+  return config().mail.transport !== "smtp";
+}
+
+export type BatchResult = { ok: true; providerIds: string[] } | { ok: false; retry: boolean; error: string };
+
+/**
+ * Sends up to BATCH_LIMIT messages in one request under one idempotency key: the same key with the same messages is
+ * sent once, however often it is retried. All or nothing: the service takes the whole batch or none of it.
+ */
+export async function sendEmailBatch(batchKey: string, list: Envelope[]): Promise<BatchResult> {
+  const client = resendClient();
+  if (typeof client === "string") return { ok: false, retry: false, error: client };
+  const { data, error } = await client.batch.send(list.map(payload), { idempotencyKey: batchKey });
+  const ids = data?.data?.map((d) => d.id) ?? [];
+  if (data && ids.length === list.length) return { ok: true, providerIds: ids };
+  if (data)
+    return { ok: false, retry: true, error: `the service answered ${ids.length} ids for ${list.length} messages` };
+  return failure(error as { message?: string; statusCode?: number | null } | null);
 }
 
 let smtp: nodemailer.Transporter | undefined;

@@ -1,6 +1,6 @@
 import "server-only";
 import { createElement } from "react";
-import { and, between, eq, gte, inArray, lte, ne } from "drizzle-orm";
+import { and, between, eq, gte, inArray, lte, ne, sql } from "drizzle-orm";
 import { getDb, schema } from "@/db/client";
 import { CoachDigestEmail, coachDigestSubject, coachDigestText, type DigestLine } from "@/emails/coach-digest";
 import { renderEmailHtml } from "@/emails/render";
@@ -14,7 +14,7 @@ import {
 import { actorForUser } from "@/features/access/server";
 import { SCREENING_QUESTIONS } from "@/features/athlete-tests/schemas";
 import { unsubscribeToken, type UnsubscribableKind } from "@/features/messages/lib/unsubscribe";
-import { queueMessage } from "@/features/messages/server";
+import { queueMessage, queueMessages, type OutgoingMessage } from "@/features/messages/server";
 import { localDate } from "@/features/platform/lib/dates";
 import { publicOrigin } from "@/features/platform/server/origin";
 import { flatten, type Block } from "@/features/planning/lib/session";
@@ -22,7 +22,8 @@ import { addDays } from "@/features/platform/lib/days";
 import { squadRoster } from "@/features/roster/server";
 import { targetText } from "@/features/zones/lib/format";
 import { zoneSetInForce } from "@/features/zones/lib/zones";
-import { zoneSetsOf } from "@/features/zones/server";
+import { zoneSetsOfMany } from "@/features/zones/server";
+import type { ZoneSetView } from "@/features/zones/lib/views";
 import { dayLabel, digestMonday, retestStage, sessionReminderDay } from "../lib/clock";
 import { signingSecret } from "@/features/platform/server/config";
 
@@ -53,11 +54,10 @@ async function alreadyQueued(keys: string[]): Promise<Set<string>> {
 }
 
 /** Steps of a session with each target in the athlete's own numbers on that day (consecutive equal steps merged). */
-async function reminderSessions(
-  athleteId: string,
+function reminderSessions(
+  zoneSets: ZoneSetView[],
   sessions: { title: string; sport: string; totalS: number; notes: string; structure: unknown; date: string }[],
-): Promise<ReminderSession[]> {
-  const zoneSets = await zoneSetsOf(athleteId);
+): ReminderSession[] {
   return sessions.map((s) => {
     const set = zoneSetInForce(
       zoneSets.filter((z) => z.sport === s.sport),
@@ -90,7 +90,15 @@ async function reminderSessions(
   });
 }
 
-/** Session reminders: for each athlete whose chosen local time has come, the day's sessions, once per athlete and day. */
+/** Athletes whose reminders are gathered, rendered and written together (each group: three queries and one insert). */
+const REMINDER_GROUP = 1000;
+
+/**
+ * Session reminders: for each athlete whose chosen local time has come, the day's sessions, once per athlete and day.
+ * Set-based, so that ten thousand reminders cost a few queries per thousand athletes: the sessions of every due athlete's
+ * day and their zone sets are read in one query each, and the messages are written in bulk (idempotency keys keep it to
+ * one message per athlete and day, also when two runs overlap).
+ */
 export async function queueSessionReminders(now: Date): Promise<number> {
   const db = getDb();
   const athletes = await db
@@ -109,43 +117,63 @@ export async function queueSessionReminders(now: Date): Promise<number> {
     const day = sessionReminderDay(now, a.timeZone, a.timing, a.time);
     return day ? [{ ...a, day, key: `session_reminder:${a.id}:${day}` }] : [];
   });
-  const done = await alreadyQueued(due.map((d) => d.key));
+  const origin = publicOrigin();
   let queued = 0;
-  for (const a of due.filter((d) => !done.has(d.key))) {
-    const sessions = await db
-      .select()
-      .from(schema.plannedSession)
-      .where(
-        and(
-          eq(schema.plannedSession.athleteId, a.id),
-          eq(schema.plannedSession.date, a.day),
-          ne(schema.plannedSession.kind, "retest"),
-        ),
-      );
-    if (!sessions.length) continue;
-    const when = a.day === localDate(now, a.timeZone) ? "today" : "tomorrow";
-    const l = links(a.id, "session_reminder");
-    const props = {
-      name: a.name,
-      dayLabel: dayLabel(a.day),
-      when,
-      sessions: await reminderSessions(a.id, sessions),
-      todayUrl: `${publicOrigin()}/today`,
-      unsubscribeUrl: l.unsubscribeUrl,
-      settingsUrl: l.settingsUrl,
-    } as const;
-    const id = await queueMessage(db, {
-      kind: "session_reminder",
-      to: a.email,
-      userId: a.id,
-      subject: sessionReminderSubject(props),
-      text: sessionReminderText(props),
-      html: await renderEmailHtml(createElement(SessionReminderEmail, props)),
-      headers: l.headers,
-      idempotencyKey: a.key,
-      meta: { date: a.day },
-    });
-    if (id) queued++;
+  for (let g = 0; g < due.length; g += REMINDER_GROUP) {
+    const group = due.slice(g, g + REMINDER_GROUP);
+    const done = await alreadyQueued(group.map((d) => d.key));
+    const open = group.filter((d) => !done.has(d.key));
+    if (!open.length) continue;
+    const wanted = JSON.stringify(open.map((a) => ({ id: a.id, day: a.day })));
+    const sessions = await db.execute<{
+      athleteId: string;
+      date: string;
+      title: string;
+      sport: string;
+      totalS: number;
+      notes: string;
+      structure: unknown;
+    }>(sql`
+      select p.athlete_id as "athleteId", p.date, p.title, p.sport, p.total_s as "totalS", p.notes, p.structure
+      from json_to_recordset(${wanted}::json) as w(id text, day text)
+      join planned_session p on p.athlete_id = w.id and p.date = w.day
+      where p.kind <> 'retest'
+      order by p.athlete_id, p.created_at, p.id`);
+    const byAthlete = new Map<string, (typeof sessions)[number][]>();
+    for (const s of sessions) {
+      const list = byAthlete.get(s.athleteId);
+      if (list) list.push(s);
+      else byAthlete.set(s.athleteId, [s]);
+    }
+    const zoneSets = await zoneSetsOfMany([...byAthlete.keys()]);
+    const messages: OutgoingMessage[] = [];
+    for (const a of open) {
+      const own = byAthlete.get(a.id);
+      if (!own) continue;
+      const when = a.day === localDate(now, a.timeZone) ? "today" : "tomorrow";
+      const l = links(a.id, "session_reminder");
+      const props = {
+        name: a.name,
+        dayLabel: dayLabel(a.day),
+        when,
+        sessions: reminderSessions(zoneSets.get(a.id) ?? [], own),
+        todayUrl: `${origin}/today`,
+        unsubscribeUrl: l.unsubscribeUrl,
+        settingsUrl: l.settingsUrl,
+      } as const;
+      messages.push({
+        kind: "session_reminder",
+        to: a.email,
+        userId: a.id,
+        subject: sessionReminderSubject(props),
+        text: sessionReminderText(props),
+        html: await renderEmailHtml(createElement(SessionReminderEmail, props)),
+        headers: l.headers,
+        idempotencyKey: a.key,
+        meta: { date: a.day },
+      });
+    }
+    queued += (await queueMessages(db, messages)).length;
   }
   return queued;
 }

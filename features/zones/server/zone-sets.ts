@@ -1,7 +1,7 @@
 import "server-only";
 import { randomUUID } from "node:crypto";
 import { desc, eq, sql } from "drizzle-orm";
-import { getDb, schema, type Database } from "@/db/client";
+import { anyOf, getDb, schema, type Database } from "@/db/client";
 import type { ThresholdValues } from "@/features/zones/lib/thresholds";
 import { requireAthleteAccess } from "@/features/access/server";
 import type { Actor } from "@/features/access/lib/rules";
@@ -118,6 +118,19 @@ export async function zoneSetsOf(athleteId: string): Promise<ZoneSetView[]> {
     .where(eq(schema.zoneSet.athleteId, athleteId))
     .orderBy(...newestFirst);
   return rows.map(zoneSetView);
+}
+
+/** `zoneSetsOf` for many athletes in one query (no permission check: callers check). */
+export async function zoneSetsOfMany(athleteIds: string[]): Promise<Map<string, ZoneSetView[]>> {
+  const out = new Map<string, ZoneSetView[]>(athleteIds.map((id) => [id, []]));
+  if (!athleteIds.length) return out;
+  const rows = await getDb()
+    .select()
+    .from(schema.zoneSet)
+    .where(sql`${schema.zoneSet.athleteId} = ${anyOf(athleteIds)}`)
+    .orderBy(...newestFirst);
+  for (const r of rows) out.get(r.athleteId)?.push(zoneSetView(r));
+  return out;
 }
 
 /**
