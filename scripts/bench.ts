@@ -7,8 +7,26 @@
  *   copied to 30 athletes in one action against one session planned (bench-group-plan.ts); the
  *   planner page's first-load JavaScript in kB gzip (bench-planner-js.ts; builds the app when its sources changed); 10 000
  *   session reminders queued and delivered against the same e-mails POSTed one by one (bench-reminders.ts).
+ * - `npm run bench -- --scale`: a 10 000-athlete practice against one squad alone (bench-scale.ts).
  */
+import { spawnSync as spawnScale } from "node:child_process";
 import Papa from "papaparse";
+
+// `npm run bench -- --scale`: only the large-practice comparison (bench-scale.ts; it loads about 6 million rows).
+if (process.argv.includes("--scale")) {
+  const child = spawnScale(
+    process.execPath,
+    [
+      "--import",
+      "tsx",
+      "--import",
+      new URL("./register-server.mjs", import.meta.url).pathname,
+      new URL("./bench-scale.ts", import.meta.url).pathname,
+    ],
+    { stdio: "inherit" },
+  );
+  process.exit(child.status ?? 1);
+}
 import { analyzeCsv, analyzeRead } from "../features/gas-exchange/lib/analyze";
 import { readGasExchangeFile } from "../features/gas-exchange/lib/workbook";
 import { checkWeek, BUDGET_PRESETS } from "../features/planning/lib/budget";

@@ -101,6 +101,7 @@ const REMINDER_GROUP = 1000;
  */
 export async function queueSessionReminders(now: Date): Promise<number> {
   const db = getDb();
+  const local = sql`(${now.toISOString()}::timestamptz at time zone ${schema.athleteProfile.timeZone})`;
   const athletes = await db
     .select({
       id: schema.user.id,
@@ -112,7 +113,18 @@ export async function queueSessionReminders(now: Date): Promise<number> {
     })
     .from(schema.athleteProfile)
     .innerJoin(schema.user, eq(schema.user.id, schema.athleteProfile.userId))
-    .where(and(eq(schema.athleteProfile.remindSessions, true), ne(schema.athleteProfile.reminderTiming, "off")));
+    .where(
+      and(
+        eq(schema.athleteProfile.remindSessions, true),
+        ne(schema.athleteProfile.reminderTiming, "off"),
+        // Only athletes whose reminder time has come today in their own time zone, and not yet reminded for the day:
+        // the database narrows the platform's athletes to those due (the clock's rule below decides).
+        sql`(${local}::time >= ${schema.athleteProfile.reminderTime}::time)`,
+        sql`not exists (select 1 from outbox o where o.idempotency_key = 'session_reminder:' || ${schema.user.id} || ':' ||
+          to_char(${local}::date + case when ${schema.athleteProfile.reminderTiming} = 'morning_of' then 0 else 1 end,
+            'YYYY-MM-DD'))`,
+      ),
+    );
   const due = athletes.flatMap((a) => {
     const day = sessionReminderDay(now, a.timeZone, a.timing, a.time);
     return day ? [{ ...a, day, key: `session_reminder:${a.id}:${day}` }] : [];
