@@ -13,6 +13,8 @@ import { applyMigrations } from "../db/migrate";
 import { createDatabase, startThrowawayCluster } from "./postgres";
 
 const N = Number(process.env.BENCH_REMINDERS ?? 10_000);
+// As the worker runs outside development (scripts/start.ts): React's production build renders the e-mails.
+(process.env as Record<string, string | undefined>).NODE_ENV ??= "production";
 
 async function freePort(): Promise<number> {
   const s = createServer();

@@ -133,7 +133,12 @@ async function main() {
     worker = spawn(
       process.execPath,
       ["--import", "tsx", "--import", "./scripts/register-server.mjs", "scripts/worker.ts"],
-      { cwd: path.resolve(import.meta.dirname, ".."), env, stdio: "inherit" },
+      {
+        cwd: path.resolve(import.meta.dirname, ".."),
+        // Outside development the worker runs React's production build too (e-mails render several times faster).
+        env: { ...env, NODE_ENV: dev ? "development" : "production" },
+        stdio: "inherit",
+      },
     );
     worker.on("exit", (code) => {
       if (!stopping) {
