@@ -1,6 +1,7 @@
 import { sql } from "drizzle-orm";
 import {
   bigint,
+  bigserial,
   boolean,
   customType,
   check,
@@ -576,4 +577,14 @@ export const rosterCache = pgTable("roster_cache", {
   computedFor: text("computed_for"),
   row: jsonb("row").$type<Record<string, unknown>>(),
   computedAt: timestamp("computed_at", { withTimezone: true }),
+});
+
+// ---------------------------------------------------------------------------------------------------------------------
+// The soak's floor (`npm run soak`): rows written one per request by POST /api/soak-floor, a bare insert in one
+// transaction that the real writes are compared with. The route writes only when TIDEMARK_SOAK_FLOOR=1.
+// ---------------------------------------------------------------------------------------------------------------------
+
+export const soakFloor = pgTable("soak_floor", {
+  id: bigserial("id", { mode: "number" }).primaryKey(),
+  at: timestamp("at", { withTimezone: true }).notNull().defaultNow(),
 });

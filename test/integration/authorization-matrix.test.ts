@@ -397,6 +397,12 @@ const MATRIX: Record<string, Cell> = {
     params: (i) => ({ id: i.test! }),
     body: () => ({ vt1: { hrBpm: 140 }, vt2: { hrBpm: 165 } }),
   },
+  // The soak's floor writes only with TIDEMARK_SOAK_FLOOR=1 (never set here): refused to everyone.
+  "POST /api/soak-floor": {
+    ok: [],
+    path: () => "/api/soak-floor",
+    params: () => ({}),
+  },
   "POST /api/unsubscribe/[token]": {
     ok: EVERYONE,
     path: () => "/api/unsubscribe/x",

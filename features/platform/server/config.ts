@@ -49,12 +49,15 @@ const schema = z.object({
   SMTP_USER: optionalText,
   SMTP_PASSWORD: z.string().optional(),
   TIDEMARK_LOCAL_OUTBOX: flag,
+  TIDEMARK_SOAK_FLOOR: flag,
   FAKE_EMAIL_URL: optionalText,
   FAKE_EMAIL_PORT: z.coerce.number().int().min(1).max(65535).default(4010),
 });
 
 export interface Config {
   production: boolean;
+  /** POST /api/soak-floor writes (only for `npm run soak`). */
+  soakFloor: boolean;
   database: { url: string | undefined; poolSize: number };
   auth: { secret: string | undefined; url: string };
   signIn: {
@@ -85,6 +88,7 @@ export function readConfig(env: Record<string, string | undefined>): Config {
   const e = r.data;
   return {
     production: e.NODE_ENV === "production",
+    soakFloor: e.TIDEMARK_SOAK_FLOOR,
     database: { url: e.DATABASE_URL, poolSize: e.DATABASE_POOL_SIZE },
     auth: { secret: e.BETTER_AUTH_SECRET, url: e.BETTER_AUTH_URL.replace(/\/$/, "") },
     signIn: {
