@@ -76,6 +76,26 @@ export async function requireAthleteAccessOrNotFound(
   }
 }
 
+/**
+ * One read of the athlete's memberships for two checks: who may not even view the athlete gets 404 with `message`; who may
+ * view but not `action` gets the usual refusal (403).
+ */
+export async function requireAthleteActionHiddenOtherwise(
+  actor: Actor,
+  athleteId: string,
+  action: "view" | "edit" | "coach",
+  message?: string,
+): Promise<void> {
+  const target = await loadTarget(athleteId);
+  try {
+    checkAthleteAccess(actor, target, "view");
+  } catch (e) {
+    if (e instanceof HttpError && (e.status === 403 || e.status === 404)) throw notFound(message);
+    throw e;
+  }
+  if (action !== "view") checkAthleteAccess(actor, target, action);
+}
+
 /** An account as an actor, for background jobs that act with that account's rights (e.g. a coach's weekly digest). */
 export async function actorForUser(userId: string): Promise<Actor> {
   return { userId, isAdmin: false, memberships: await membershipsOf(userId) };

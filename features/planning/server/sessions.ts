@@ -3,7 +3,7 @@ import { randomUUID } from "node:crypto";
 import { and, asc, eq, gte, inArray, lte, sql } from "drizzle-orm";
 import type { z } from "zod";
 import { getDb, schema, type Database } from "@/db/client";
-import { requireAthleteAccess, requireAthleteAccessOrNotFound } from "@/features/access/server";
+import { requireAthleteAccess, requireAthleteActionHiddenOtherwise } from "@/features/access/server";
 import { isCoachOf, type Actor } from "@/features/access/lib/rules";
 import { editConflict, HttpError, notFound } from "@/features/platform/server/http";
 import { addDays } from "@/features/platform/lib/days";
@@ -146,8 +146,7 @@ export async function createSession(actor: Actor, athleteId: string, input: z.in
 async function loadSession(actor: Actor, id: string, action: "view" | "coach") {
   const [row] = await getDb().select().from(schema.plannedSession).where(eq(schema.plannedSession.id, id));
   if (!row) throw notFound("No such session.");
-  await requireAthleteAccessOrNotFound(actor, row.athleteId, "view", "No such session.");
-  if (action === "coach") await requireAthleteAccess(actor, row.athleteId, "coach");
+  await requireAthleteActionHiddenOtherwise(actor, row.athleteId, action, "No such session.");
   return row;
 }
 
@@ -160,7 +159,7 @@ export async function updateSession(actor: Actor, id: string, patch: z.infer<typ
     ...(patch.notes !== undefined ? { notes: patch.notes } : {}),
     ...(patch.structure !== undefined ? { structure: patch.structure, ...storedTotals(patch.structure) } : {}),
   };
-  await db.transaction(async (tx: Tx) => {
+  const updated = await db.transaction(async (tx: Tx) => {
     // The session as it is now, locked until the change is written: a change made on an older version is refused.
     const [current] = await tx
       .select()
@@ -189,8 +188,11 @@ export async function updateSession(actor: Actor, id: string, patch: z.infer<typ
           .set({ ...fields, ...bump, ...(shift ? { date: addDays(m.date, shift) } : {}) })
           .where(eq(schema.plannedSession.id, m.id));
       }
+      const [after] = await tx.select().from(schema.plannedSession).where(eq(schema.plannedSession.id, id));
+      return after;
     } else {
-      await tx
+      // The row as written comes back with the update: no second read after the transaction.
+      const [after] = await tx
         .update(schema.plannedSession)
         .set({
           ...fields,
@@ -198,10 +200,11 @@ export async function updateSession(actor: Actor, id: string, patch: z.infer<typ
           ...(patch.date ? { date: patch.date } : {}),
           detached: row.seriesId ? true : row.detached,
         })
-        .where(eq(schema.plannedSession.id, id));
+        .where(eq(schema.plannedSession.id, id))
+        .returning();
+      return after;
     }
   });
-  const [updated] = await db.select().from(schema.plannedSession).where(eq(schema.plannedSession.id, id));
   return plannedSessionView(updated!);
 }
 
