@@ -7,6 +7,8 @@
  *   copied to 30 athletes in one action against one session planned (bench-group-plan.ts); the
  *   planner page's first-load JavaScript in kB gzip (bench-planner-js.ts; builds the app when its sources changed); 10 000
  *   session reminders queued and delivered against the same e-mails POSTed one by one (bench-reminders.ts).
+ *   The plan, roster, test and today pages in chromium until no request is pending, against a static page of the app
+ *   (bench-settle.ts).
  * - `npm run bench -- --scale`: a 10 000-athlete practice against one squad alone (bench-scale.ts).
  */
 import { spawnSync as spawnScale } from "node:child_process";
@@ -187,7 +189,13 @@ console.log(
 
 // The roster needs PostgreSQL and the server modules: a child process with the react-server condition.
 const { spawnSync } = await import("node:child_process");
-for (const script of ["./bench-roster.ts", "./bench-weeks.ts", "./bench-group-plan.ts", "./bench-planner-js.ts"]) {
+for (const script of [
+  "./bench-roster.ts",
+  "./bench-weeks.ts",
+  "./bench-group-plan.ts",
+  "./bench-planner-js.ts",
+  "./bench-settle.ts",
+]) {
   const child = spawnSync(
     process.execPath,
     ["--conditions=react-server", "--import", "tsx", new URL(script, import.meta.url).pathname],

@@ -88,7 +88,7 @@ export default async function TodayPage() {
               ))}
             </ul>
           )}
-          <Link href={`/athletes/${actor.userId}/plan`} className="btn-quiet mt-3">
+          <Link prefetch={false} href={`/athletes/${actor.userId}/plan`} className="btn-quiet mt-3">
             My plan and calendar
           </Link>
         </section>
@@ -108,7 +108,7 @@ export default async function TodayPage() {
                 Come rested: an easy day before, no hard training in the last 48 hours, your usual meal 2–3 hours ahead.
                 Answer the readiness questions before the test.
               </p>
-              <Link href={`/athletes/${actor.userId}/screening`} className="btn-quiet mt-3">
+              <Link prefetch={false} href={`/athletes/${actor.userId}/screening`} className="btn-quiet mt-3">
                 Readiness questions
               </Link>
             </>
@@ -141,7 +141,7 @@ export default async function TodayPage() {
               </li>
             ))}
           </ul>
-          <Link href={`/athletes/${actor.userId}`} className="btn-quiet mt-3">
+          <Link prefetch={false} href={`/athletes/${actor.userId}`} className="btn-quiet mt-3">
             My zones, tests and load
           </Link>
         </section>
@@ -165,7 +165,7 @@ export default async function TodayPage() {
                 : `${profile.reminderTiming === "evening_before" ? "evening before" : "morning of"}, ${profile.reminderTime}`}
             </dd>
           </dl>
-          <Link href="/settings" className="btn-quiet mt-4">
+          <Link prefetch={false} href="/settings" className="btn-quiet mt-4">
             Edit profile and reminders
           </Link>
         </section>

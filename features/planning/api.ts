@@ -2,6 +2,7 @@
 import { queryOptions, useMutation, useQuery, useQueryClient, type QueryClient } from "@tanstack/react-query";
 import { apiFetch } from "@/features/platform/lib/api-client";
 import type { Block } from "./lib/session";
+import { planKeys } from "./query-keys";
 import type { WeekSummary } from "./lib/weeks";
 
 export interface SessionDto {
@@ -30,19 +31,17 @@ export interface SessionDto {
 
 /** The planner's queries: one factory per query, so keys are written once (TanStack Query's `queryOptions`). */
 export const planQueries = {
-  /** Every cached range of an athlete's sessions (for invalidation). */
-  sessionsOf: (athleteId: string) => ["sessions", athleteId] as const,
-  /** Every cached range of an athlete's weekly summaries (for invalidation). */
-  weeksOf: (athleteId: string) => ["weeks", athleteId] as const,
+  sessionsOf: planKeys.sessionsOf,
+  weeksOf: planKeys.weeksOf,
   sessions: (athleteId: string, from: string, to: string) =>
     queryOptions({
-      queryKey: [...planQueries.sessionsOf(athleteId), from, to],
+      queryKey: planKeys.sessions(athleteId, from, to),
       queryFn: () => apiFetch<SessionDto[]>(`/api/athletes/${athleteId}/sessions?from=${from}&to=${to}`),
       enabled: !!from,
     }),
   weeks: (athleteId: string, from: string, to: string) =>
     queryOptions({
-      queryKey: [...planQueries.weeksOf(athleteId), from, to],
+      queryKey: planKeys.weeks(athleteId, from, to),
       queryFn: () => apiFetch<WeekSummary[]>(`/api/athletes/${athleteId}/weeks?from=${from}&to=${to}`),
       enabled: !!from,
     }),

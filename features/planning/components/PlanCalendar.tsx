@@ -9,7 +9,7 @@ import { FormAlert, FormNotice } from "@/features/platform/components/form-bits"
 import { useQueryClient } from "@tanstack/react-query";
 import { CopyWeek } from "./CopyWeek";
 import { ApiError, apiFetch } from "@/features/platform/lib/api-client";
-import { addDays } from "@/features/platform/lib/days";
+import { addDays, mondayOf } from "@/features/platform/lib/days";
 import {
   invalidatePlan,
   useCreateSession,
@@ -58,7 +58,11 @@ export function PlanCalendar({
 }) {
   const calendarRef = useRef<FullCalendar>(null);
   const trayRef = useRef<HTMLUListElement>(null);
-  const [range, setRange] = useState<{ from: string; to: string }>({ from: "", to: "" });
+  // The first week shown is known before the calendar mounts: its sessions and summaries come with the page.
+  const [range, setRange] = useState<{ from: string; to: string }>(() => {
+    const from = mondayOf(initialDate);
+    return { from, to: addDays(from, 6) };
+  });
   const [message, setMessage] = useState<{ kind: "ok" | "error"; text: string }>();
   const [selected, setSelected] = useState<SessionDto | null>(null);
   const [scope, setScope] = useState<"one" | "series">("one");

@@ -65,6 +65,8 @@ export function SeasonRibbon({
             <li key={w.weekStart} className="min-w-12 flex-1">
               <Link
                 href={`/athletes/${athleteId}/plan?week=${w.weekStart}`}
+                // A season holds up to 52 of these: fetched when followed, not all ahead in the background.
+                prefetch={false}
                 className={`relative block rounded border px-1 py-1 text-center text-[11px] leading-tight ${BLOCK_STYLE[w.block]} ${flags.length ? "border-alert" : "border-rule"}`}
                 title={`Week of ${w.weekStart}: ${BLOCK_LABELS[w.block]}, ${w.role}, ${w.volumeHours} h target${w.retest ? `, retest${w.retestNote ? ` (${w.retestNote})` : ""}` : ""}${w.events.length ? `, ${w.events.join(", ")}` : ""}${flags.length ? ` — ${flags.join("; ")}` : ""}`}
               >

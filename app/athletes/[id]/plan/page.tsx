@@ -11,7 +11,10 @@ import { SeasonRibbon } from "@/features/planning/components/SeasonRibbon";
 import { SeasonWeekEditor } from "@/features/planning/components/SeasonWeekEditor";
 import { type SeasonWeek } from "@/features/planning/lib/season";
 import { mondayOf } from "@/features/platform/lib/days";
-import { listSeasons, weekSummaries } from "@/features/planning/server";
+import { listSeasons, listSessions, weekSummaries, weekSummariesJson } from "@/features/planning/server";
+import { dehydrate, HydrationBoundary, QueryClient } from "@tanstack/react-query";
+import { planKeys } from "@/features/planning/query-keys";
+import { addDays } from "@/features/platform/lib/days";
 import { listTemplates } from "@/features/planning/server/templates";
 import { isoDate } from "@/features/planning/schemas";
 import { readinessOf } from "@/features/athlete-tests/server/screening";
@@ -52,20 +55,32 @@ export default async function PlanPage({
     ? await weekSummaries(actor, id, seasonWeeks[0]!.weekStart, seasonWeeks[seasonWeeks.length - 1]!.weekStart)
     : [];
   const initialDate = week && isoDate.safeParse(week).success ? week : today;
+  // The calendar's first week, fetched here and handed to the browser with the page, so that the page settles without
+  // asking for it again (the same keys and answers as the client's queries).
+  const firstFrom = mondayOf(initialDate),
+    firstTo = addDays(firstFrom, 6);
+  const [firstSessions, firstWeeks] = await Promise.all([
+    listSessions(actor, id, firstFrom, firstTo),
+    weekSummariesJson(actor, id, firstFrom, firstTo),
+  ]);
+  const prefetched = new QueryClient();
+  prefetched.setQueryData(planKeys.sessions(id, firstFrom, firstTo), JSON.parse(JSON.stringify(firstSessions)));
+  prefetched.setQueryData(planKeys.weeks(id, firstFrom, firstTo), JSON.parse(firstWeeks));
   const openWeek = week ? seasonWeeks.find((w) => w.weekStart === mondayOf(initialDate)) : undefined;
   return (
     <div className="space-y-6">
       <div className="flex flex-wrap items-end justify-between gap-3">
         <div>
           <p className="text-sm font-semibold uppercase tracking-widest text-tide">
-            <Link href={`/athletes/${id}`} className="hover:underline">
+            {/* Fetched when followed: the page's own data comes with it, and nothing more is asked for ahead. */}
+            <Link href={`/athletes/${id}`} prefetch={false} className="hover:underline">
               {data.athlete.name}
             </Link>
           </p>
           <h1 className="text-2xl font-bold">Plan</h1>
         </div>
         {canEdit ? (
-          <Link href="/templates" className="btn-quiet">
+          <Link href="/templates" prefetch={false} className="btn-quiet">
             Session templates
           </Link>
         ) : null}
@@ -108,15 +123,17 @@ export default async function PlanPage({
       ) : (
         <p className="text-ink-soft">No season planned yet.</p>
       )}
-      <PlanCalendar
-        athleteId={id}
-        templates={templates
-          .filter((t) => athleteSquads.has(t.squadId))
-          .map((t) => ({ id: t.id, name: t.name, sport: t.sport, totalS: t.totalS, minutesByZone: t.minutesByZone }))}
-        initialDate={initialDate}
-        canEdit={canEdit}
-        athleteSports={data.profile.sports}
-      />
+      <HydrationBoundary state={dehydrate(prefetched)}>
+        <PlanCalendar
+          athleteId={id}
+          templates={templates
+            .filter((t) => athleteSquads.has(t.squadId))
+            .map((t) => ({ id: t.id, name: t.name, sport: t.sport, totalS: t.totalS, minutesByZone: t.minutesByZone }))}
+          initialDate={initialDate}
+          canEdit={canEdit}
+          athleteSports={data.profile.sports}
+        />
+      </HydrationBoundary>
     </div>
   );
 }
