@@ -1,4 +1,5 @@
 import { EmailLayout } from "./layout";
+import { sentence } from "./text";
 import { UnsubscribeFooter, unsubscribeText } from "./unsubscribe-footer";
 
 export interface RetestReminderProps {
@@ -41,7 +42,7 @@ export function RetestReminderEmail(p: RetestReminderProps) {
       ) : (
         <p>
           Your retest is on <strong>{p.dateLabel}</strong> ({p.stage === "day" ? "tomorrow" : "in seven days"}):{" "}
-          {p.protocol}.
+          {sentence(p.protocol)}
         </p>
       )}
       <p style={{ fontWeight: 700, marginBottom: 4 }}>How to prepare</p>
@@ -75,7 +76,7 @@ export function retestReminderText(p: RetestReminderProps): string {
     "",
     p.stage === "overdue"
       ? `Your retest was planned for ${p.dateLabel} and no new test is recorded yet. Your zones follow your fitness only when they are tested; agree a new date with your coach.`
-      : `Your retest is on ${p.dateLabel} (${p.stage === "day" ? "tomorrow" : "in seven days"}): ${p.protocol}.`,
+      : `Your retest is on ${p.dateLabel} (${p.stage === "day" ? "tomorrow" : "in seven days"}): ${sentence(p.protocol)}`,
     "",
     "How to prepare:",
     ...PREPARE.map((x) => `- ${x}`),

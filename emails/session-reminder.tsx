@@ -1,4 +1,5 @@
 import { EmailLayout } from "./layout";
+import { sentence } from "./text";
 import { UnsubscribeFooter, unsubscribeText } from "./unsubscribe-footer";
 
 export interface ReminderStep {
@@ -11,6 +12,15 @@ export interface ReminderSession {
   minutes: number;
   notes: string;
   steps: ReminderStep[];
+  /** Where the targets' numbers come from when not from the session's own sport (or that there are none yet). */
+  zonesNote?: string | null;
+}
+
+/** "Long run 90 min" is not followed by "· 90 min" again; another title gets its length. */
+export function sessionHeading(s: Pick<ReminderSession, "title" | "minutes">): string {
+  return new RegExp(`\\b${s.minutes}\\s*min\\.?$`).test(s.title.trim())
+    ? s.title.trim()
+    : `${s.title} · ${s.minutes} min`;
 }
 
 export interface SessionReminderProps {
@@ -43,10 +53,9 @@ export function SessionReminderEmail(p: SessionReminderProps) {
       </p>
       {p.sessions.map((s, i) => (
         <div key={i} style={{ margin: "12px 0" }}>
-          <p style={{ margin: 0, fontWeight: 700 }}>
-            {s.title} · {s.minutes} min
-          </p>
-          {s.notes ? <p style={{ margin: "4px 0", color: "#5b6770" }}>{s.notes}</p> : null}
+          <p style={{ margin: 0, fontWeight: 700 }}>{sessionHeading(s)}</p>
+          {s.notes ? <p style={{ margin: "4px 0", color: "#5b6770" }}>{sentence(s.notes)}</p> : null}
+          {s.zonesNote ? <p style={{ margin: "4px 0", color: "#5b6770" }}>{s.zonesNote}</p> : null}
           <ul style={{ margin: "4px 0", paddingLeft: 20 }}>
             {s.steps.map((st, j) => (
               <li key={j}>
@@ -75,8 +84,9 @@ export function sessionReminderText(p: SessionReminderProps): string {
     `Your plan for ${p.when}, ${p.dayLabel}:`,
     ...p.sessions.flatMap((s) => [
       "",
-      `${s.title} · ${s.minutes} min`,
-      ...(s.notes ? [s.notes] : []),
+      sessionHeading(s),
+      ...(s.notes ? [sentence(s.notes)] : []),
+      ...(s.zonesNote ? [s.zonesNote] : []),
       ...s.steps.map((st) => `- ${st.label}: ${st.target}`),
     ]),
     "",

@@ -15,6 +15,8 @@ function amount(s: Extract<Block, { type: "step" }>): string {
   return s.distanceM! >= 1000 ? `${(s.distanceM! / 1000).toFixed(s.distanceM! % 1000 ? 1 : 0)} km` : `${s.distanceM} m`;
 }
 
+const sportName = (sport: string) => ((SPORT_LABELS as Record<string, string>)[sport] ?? sport).toLowerCase();
+
 function Steps({ blocks, zones, sport }: { blocks: Block[]; zones: Zone[] | null; sport: string }) {
   return (
     <ol className="space-y-1">
@@ -53,7 +55,8 @@ export interface SessionCardData {
   totalS: number;
   notes: string;
   structure: unknown[];
-  zoneSet: { effectiveFrom: string; zones: Zone[] } | null;
+  /** `fromSport`: no zones of the session's sport yet, so heart rate from the nearest sport's zones. */
+  zoneSet: { effectiveFrom: string; zones: Zone[]; fromSport?: string | null } | null;
   log: LogView | null;
   compliance: number;
 }
@@ -75,7 +78,13 @@ export function SessionCard({ s, canLog }: { s: SessionCardData; canLog: boolean
       </header>
       {s.notes ? <p className="text-sm">{s.notes}</p> : null}
       <Steps blocks={s.structure as Block[]} zones={s.zoneSet?.zones ?? null} sport={s.sport} />
-      {s.zoneSet ? (
+      {s.zoneSet?.fromSport ? (
+        <p className="text-xs text-ink-soft">
+          No {sportName(s.sport)} zones yet: heart-rate targets from the {sportName(s.zoneSet.fromSport)} zones in force
+          since {s.zoneSet.effectiveFrom}. Heart rate at the same effort differs a little between sports; a{" "}
+          {sportName(s.sport)} test gives this sport its own zones.
+        </p>
+      ) : s.zoneSet ? (
         <p className="text-xs text-ink-soft">Targets from the zones in force since {s.zoneSet.effectiveFrom}.</p>
       ) : null}
       {s.log ? (

@@ -7,7 +7,7 @@ import { requireAthleteAccess, requireAthleteActionHiddenOtherwise } from "@/fea
 import { isCoachOf, type Actor } from "@/features/access/lib/rules";
 import { editConflict, HttpError, notFound } from "@/features/platform/server/http";
 import { addDays } from "@/features/platform/lib/days";
-import { zoneSetInForce } from "@/features/zones/lib/zones";
+import { zonesForSession } from "@/features/zones/lib/zones";
 import { zoneSetsOf } from "@/features/zones/server";
 import { expandDates, rruleText } from "../lib/recurrence";
 import { storedTotals, type Block } from "../lib/session";
@@ -60,15 +60,15 @@ export async function listSessions(actor: Actor, athleteId: string, from: string
     : [];
   const logOf = new Map(logs.map((l) => [l.plannedSessionId, l]));
   return rows.map((r) => {
-    const zones = zoneSetInForce(
-      zoneSets.filter((z) => z.sport === r.sport),
-      r.date,
-    );
+    const found = zonesForSession(zoneSets, r.sport, r.date);
+    const zones = found?.set;
     const log = logOf.get(r.id) ?? null;
     return {
       ...plannedSessionView(r),
       rrule: r.seriesId ? (series.get(r.seriesId) ?? null) : null,
-      zoneSet: zones ? { id: zones.id, effectiveFrom: zones.effectiveFrom, zones: zones.zones } : null,
+      zoneSet: zones
+        ? { id: zones.id, effectiveFrom: zones.effectiveFrom, zones: zones.zones, fromSport: found!.fromSport }
+        : null,
       log: log
         ? {
             ...log,

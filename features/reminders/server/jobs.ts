@@ -16,12 +16,13 @@ import { SCREENING_QUESTIONS } from "@/features/athlete-tests/schemas";
 import { unsubscribeToken, type UnsubscribableKind } from "@/features/messages/lib/unsubscribe";
 import { queueMessage, queueMessages, type OutgoingMessage } from "@/features/messages/server";
 import { localDate } from "@/features/platform/lib/dates";
+import { SPORT_LABELS, type Sport } from "@/features/platform/lib/sports";
 import { publicOrigin } from "@/features/platform/server/origin";
 import { flatten, type Block } from "@/features/planning/lib/session";
 import { addDays } from "@/features/platform/lib/days";
 import { squadRoster } from "@/features/roster/server";
 import { targetText } from "@/features/zones/lib/format";
-import { zoneSetInForce } from "@/features/zones/lib/zones";
+import { zonesForSession } from "@/features/zones/lib/zones";
 import { zoneSetsOfMany } from "@/features/zones/server";
 import type { ZoneSetView } from "@/features/zones/lib/views";
 import { dayLabel, digestMonday, retestStage, sessionReminderDay } from "../lib/clock";
@@ -59,10 +60,9 @@ function reminderSessions(
   sessions: { title: string; sport: string; totalS: number; notes: string; structure: unknown; date: string }[],
 ): ReminderSession[] {
   return sessions.map((s) => {
-    const set = zoneSetInForce(
-      zoneSets.filter((z) => z.sport === s.sport),
-      s.date,
-    );
+    // No zones of the session's sport yet: heart rate from the nearest sport's zones, and the e-mail says so.
+    const found = zonesForSession(zoneSets, s.sport, s.date);
+    const set = found?.set;
     const steps = flatten(s.structure as Block[]);
     const lines: { label: string; target: string; count: number }[] = [];
     for (const st of steps) {
@@ -71,20 +71,23 @@ function reminderSessions(
           ? `${Math.round(st.durationS / 6) / 10} min`
           : `${Math.round((st.distanceM ?? 0) / 100) / 10} km`;
       const numbers = set ? targetText(set.zones[st.zone - 1], s.sport) : null;
-      const target = numbers
-        ? `zone ${st.zone}, ${numbers}`
-        : set
-          ? `zone ${st.zone}`
-          : `zone ${st.zone} (no zone set yet)`;
+      const target = numbers ? `zone ${st.zone}, ${numbers}` : set ? `zone ${st.zone}` : `zone ${st.zone}`;
       const label = `${STEP_LABELS[st.kind]} ${amount}`;
       const last = lines.at(-1);
       if (last && last.label === label && last.target === target) last.count++;
       else lines.push({ label, target, count: 1 });
     }
+    const from = found?.fromSport;
+    const label = (sport: string) => (SPORT_LABELS[sport as Sport] ?? sport).toLowerCase();
     return {
       title: s.title,
       minutes: Math.round(s.totalS / 60),
       notes: s.notes,
+      zonesNote: from
+        ? `No ${label(s.sport)} zones yet: heart-rate targets from your ${label(from)} zones.`
+        : set
+          ? null
+          : "No zones yet: the targets are zones only, without numbers, until your first test.",
       steps: lines.map((l) => ({ label: l.count > 1 ? `${l.count} × ${l.label}` : l.label, target: l.target })),
     };
   });

@@ -122,3 +122,49 @@ export function zoneSetInForce<T extends { effectiveFrom: string }>(sets: T[], d
   for (const s of sets) if (s.effectiveFrom <= date && (!best || s.effectiveFrom > best.effectiveFrom)) best = s;
   return best;
 }
+
+/**
+ * Sports in order of how near their heart-rate response to effort is to each sport's (common practice: similar muscle
+ * mass and posture respond alike; swimming, with the body level in water, runs lowest). Our own order. It is only the
+ * fallback for a session of a sport the athlete has no zones for yet.
+ */
+const NEAREST_SPORTS: Record<string, string[]> = {
+  running: ["cross_country_skiing", "walking", "triathlon", "rowing", "cycling", "swimming"],
+  walking: ["running", "cross_country_skiing", "triathlon", "cycling", "rowing", "swimming"],
+  cross_country_skiing: ["running", "rowing", "walking", "triathlon", "cycling", "swimming"],
+  cycling: ["triathlon", "rowing", "running", "cross_country_skiing", "walking", "swimming"],
+  triathlon: ["running", "cycling", "cross_country_skiing", "rowing", "walking", "swimming"],
+  rowing: ["cross_country_skiing", "cycling", "running", "triathlon", "walking", "swimming"],
+  swimming: ["triathlon", "rowing", "cross_country_skiing", "running", "cycling", "walking"],
+};
+
+/**
+ * The zones for a session: the set in force for its sport on its day; without one, the nearest sport's set in force
+ * (NEAREST_SPORTS), with heart rate only (power and pace do not carry from one sport to another) and `fromSport` naming
+ * where it comes from; null when the athlete has no zones in force at all.
+ */
+export function zonesForSession<T extends { sport: string; effectiveFrom: string; zones: Zone[] }>(
+  sets: T[],
+  sport: string,
+  date: string,
+): { set: T; fromSport: string | null } | null {
+  const own = zoneSetInForce(
+    sets.filter((z) => z.sport === sport),
+    date,
+  );
+  if (own) return { set: own, fromSport: null };
+  const order = NEAREST_SPORTS[sport] ?? [];
+  const others = [...new Set(sets.map((z) => z.sport))].sort(
+    (a, b) => (order.indexOf(a) + 1 || 99) - (order.indexOf(b) + 1 || 99),
+  );
+  for (const other of others) {
+    const set = zoneSetInForce(
+      sets.filter((z) => z.sport === other),
+      date,
+    );
+    if (!set) continue;
+    const zones = set.zones.filter((z) => z.ranges.hrBpm).map((z) => ({ ...z, ranges: { hrBpm: z.ranges.hrBpm } }));
+    if (zones.length) return { set: { ...set, zones }, fromSport: other };
+  }
+  return null;
+}
