@@ -110,6 +110,7 @@ export default async function SquadWeekPage({
                     <th scope="row" className="px-2 text-left">
                       <Link
                         href={`/athletes/${r.athlete.id}/plan?week=${monday}`}
+                        prefetch={false}
                         className="font-semibold text-tide hover:underline"
                       >
                         {r.athlete.name}

@@ -174,7 +174,8 @@ export function RosterTable({ squadId }: { squadId: string }) {
                 data-testid="roster-row"
               >
                 <td className="py-2 pr-3">
-                  <Link href={`/athletes/${r.id}`} className="font-semibold text-tide hover:underline">
+                  {/* A squad may list hundreds: each athlete's page is fetched when followed, not all ahead. */}
+                  <Link href={`/athletes/${r.id}`} prefetch={false} className="font-semibold text-tide hover:underline">
                     {r.name}
                   </Link>
                   <p className="text-xs text-ink-soft">{r.email}</p>
