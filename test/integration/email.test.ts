@@ -284,6 +284,29 @@ describe("delivery in batches, exactly once", () => {
     expect(await deliverPending(new Date(t0.getTime() + 60_000))).toMatchObject({ sent: 0, failed: 0 });
   });
 
+  it("a batch key the service already knows with other content is not sent again, nor one by one: marked failed", async () => {
+    await fetch(`${fake.url}/_fake/reset`, { method: "POST" });
+    // Another request under the same key reached the service before (say, the batch as it was then).
+    const earlier = await fetch(`${fake.url}/emails/batch`, {
+      method: "POST",
+      headers: {
+        "content-type": "application/json",
+        authorization: "Bearer re_local_fake_key",
+        "idempotency-key": "batch-known-key",
+      },
+      body: JSON.stringify([
+        { from: "Tidemark <no-reply@tidemark.test>", to: ["batch8@mail.test"], subject: "Earlier", text: "Earlier." },
+      ]),
+    });
+    expect(earlier.status).toBe(200);
+    await queueMessages(getDb(), [message(8), message(9)]);
+    await query(`update outbox set batch_key = 'batch-known-key' where kind = 'batch_check' and status = 'pending'`);
+    const t0 = new Date("2027-04-04T06:00:00Z");
+    expect(await deliverPending(t0)).toMatchObject({ sent: 0, failed: 2 });
+    expect(arrived()).toHaveLength(0);
+    expect(fake.messages.map((m) => m.subject)).toEqual(["Earlier"]);
+  });
+
   it("messages a worker claimed but never finished are sent once the worker's hold has passed", async () => {
     await fetch(`${fake.url}/_fake/reset`, { method: "POST" });
     await queueMessages(getDb(), [message(7)]);

@@ -51,7 +51,7 @@ export async function deliverPending(now = new Date(), limit = 50): Promise<Deli
       .select()
       .from(schema.outbox)
       .where(and(eq(schema.outbox.status, "pending"), lte(schema.outbox.nextAttemptAt, now)))
-      .orderBy(asc(schema.outbox.createdAt))
+      .orderBy(asc(schema.outbox.createdAt), asc(schema.outbox.id))
       .limit(limit)
       .for("update", { skipLocked: true });
     if (!due.length) return [];
@@ -90,7 +90,9 @@ export async function deliverPending(now = new Date(), limit = 50): Promise<Deli
     else batches.set(m.batchKey!, [m]);
   }
   const outcomes: { m: Row; r: SendResult; batchKey: string }[] = [];
-  for (const [key, list] of batches) {
+  for (const [key, unordered] of batches) {
+    // A batch is always the same request: its messages in one fixed order (a retry under the same key must match).
+    const list = [...unordered].sort((a, b) => (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
     if (key.startsWith("single-") || !sendsBatches()) {
       for (const m of list) outcomes.push({ m, r: await sendEmail(envelope(m)), batchKey: `single-${m.id}` });
       continue;
@@ -98,7 +100,9 @@ export async function deliverPending(now = new Date(), limit = 50): Promise<Deli
     const r = await sendEmailBatch(key, list.map(envelope));
     if (r.ok)
       list.forEach((m, i) => outcomes.push({ m, r: { ok: true, providerId: r.providerIds[i]! }, batchKey: key }));
-    else if (r.retry) for (const m of list) outcomes.push({ m, r, batchKey: key });
+    // A conflict (the key was used with other content) is not retried and not sent one by one: it is marked failed,
+    // because part of it may have been sent before.
+    else if (r.retry || r.conflict) for (const m of list) outcomes.push({ m, r, batchKey: key });
     // Refused: nothing of the batch was sent. One by one, each under its own key (also when retried later).
     else for (const m of list) outcomes.push({ m, r: await sendEmail(envelope(m)), batchKey: `single-${m.id}` });
   }

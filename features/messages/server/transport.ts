@@ -78,7 +78,8 @@ export function sendsBatches(): boolean {
   return config().mail.transport !== "smtp";
 }
 
-export type BatchResult = { ok: true; providerIds: string[] } | { ok: false; retry: boolean; error: string };
+export type BatchResult =
+  { ok: true; providerIds: string[] } | { ok: false; retry: boolean; error: string; conflict?: boolean };
 
 /**
  * Sends up to BATCH_LIMIT messages in one request under one idempotency key: the same key with the same messages is
@@ -92,7 +93,9 @@ export async function sendEmailBatch(batchKey: string, list: Envelope[]): Promis
   if (data && ids.length === list.length) return { ok: true, providerIds: ids };
   if (data)
     return { ok: false, retry: true, error: `the service answered ${ids.length} ids for ${list.length} messages` };
-  return failure(error as { message?: string; statusCode?: number | null } | null);
+  const e = error as { message?: string; statusCode?: number | null } | null;
+  // 409: the key was used before with other content. Whatever was sent then must not be sent again one by one.
+  return e?.statusCode === 409 ? { ...failure(e), conflict: true } : failure(e);
 }
 
 let smtp: nodemailer.Transporter | undefined;
