@@ -8,6 +8,7 @@ import * as weeksRoute from "@/app/api/athletes/[id]/weeks/route";
 import * as seasonsRoute from "@/app/api/athletes/[id]/seasons/route";
 import * as testsRoute from "@/app/api/athletes/[id]/tests/route";
 import * as seasonWeekRoute from "@/app/api/seasons/[id]/weeks/[weekStart]/route";
+import Papa from "papaparse";
 import * as squadWeekRoute from "@/app/api/squads/[id]/week/route";
 import * as squadPlanRoute from "@/app/api/squads/[id]/plan/route";
 import * as copyWeekRoute from "@/app/api/athletes/[id]/weeks/[weekStart]/copy/route";
@@ -366,6 +367,28 @@ describe("sessions and weekly budgets", () => {
     // Outside the squad, its existence is not told.
     expect((await get(other.coach.browser)).status).toBe(404);
     expect((await get(s.coach.browser, "not-a-date")).status).toBe(400);
+
+    // The same week as a download: a line per session with the athlete's week, read back with papaparse.
+    const csv = (who = s.coach.browser) =>
+      who.call(squadWeekRoute, "GET", `/api/squads/${s.squadId}/week`, {
+        params: { id: s.squadId },
+        query: "?week=2028-09-07&format=csv",
+      });
+    const d = await csv();
+    expect(d.status).toBe(200);
+    expect(d.headers.get("content-type")).toMatch(/^text\/csv/);
+    expect(d.headers.get("content-disposition")).toContain('filename="squad-week-2028-09-04.csv"');
+    const lines = Papa.parse<string[]>(
+      String(d.json)
+        .replace(/^\uFEFF/, "")
+        .trim(),
+      { skipEmptyLines: true },
+    ).data;
+    expect(lines[0]!.slice(0, 6)).toEqual(["week_start", "athlete", "date", "title", "kind", "planned_min"]);
+    const aLine = lines.find((l) => l[2] === "2028-09-05")!;
+    expect(aLine.slice(5, 9)).toEqual(["60", "40", "0", "20"]);
+    expect((await csv(s.athleteA.browser)).status).toBe(403);
+    expect((await csv(other.coach.browser)).status).toBe(404);
   });
 
   it("plans a template for several athletes in one action, with a preview of each athlete's week that writes nothing", async () => {

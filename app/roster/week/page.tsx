@@ -75,6 +75,9 @@ export default async function SquadWeekPage({
             Next week →
           </Link>
         </nav>
+        <a href={`/api/squads/${squad.id}/week?week=${monday}&format=csv`} className="btn-quiet text-sm" download>
+          Download this week as CSV
+        </a>
       </div>
       {rows.length > 0 ? (
         <GroupPlanner

@@ -2,7 +2,7 @@
 // neutralised (OWASP "CSV Injection": =, +, -, @, tab, carriage return).
 import Papa from "papaparse";
 import { describe, expect, it } from "vitest";
-import { logsCsv, planCsv, toCsv } from "./csv";
+import { logsCsv, planCsv, squadWeekCsv, toCsv } from "./csv";
 
 describe("CSV downloads", () => {
   it("neutralise cells that start like a formula, and keep everything else as written", () => {
@@ -77,5 +77,56 @@ describe("CSV downloads", () => {
       trimp: "62",
       trimp_method: "banister",
     });
+  });
+
+  it("the squad week: a line per session with the athlete's week, a line for an athlete with none; formulas neutralised", () => {
+    const csv = squadWeekCsv("2027-01-04", [
+      {
+        athlete: { name: "=Ines" },
+        sessions: [
+          {
+            date: "2027-01-05",
+            title: "Tempo",
+            kind: "training",
+            totalS: 3000,
+            minutesByZone: [30, 20, 0],
+            log: "done",
+          },
+        ],
+        week: { overBudget: true, flags: [{ message: "Zone 3 is 25 % of the time." }] },
+      },
+      { athlete: { name: "Jonas" }, sessions: [], week: { overBudget: false, inProgress: true, flags: [] } },
+    ]);
+    const [header, ines, jonas] = Papa.parse<string[]>(csv.trim(), { skipEmptyLines: true }).data;
+    expect(header).toEqual([
+      "week_start",
+      "athlete",
+      "date",
+      "title",
+      "kind",
+      "planned_min",
+      "zone1_min",
+      "zone2_min",
+      "zone3_min",
+      "logged",
+      "week_budget",
+      "week_flags",
+    ]);
+    expect(ines).toEqual([
+      "2027-01-04",
+      "'=Ines",
+      "2027-01-05",
+      "Tempo",
+      "training",
+      "50",
+      "30",
+      "20",
+      "0",
+      "done",
+      "over budget",
+      "Zone 3 is 25 % of the time.",
+    ]);
+    expect(jonas!.slice(0, 2)).toEqual(["2027-01-04", "Jonas"]);
+    expect(jonas!.slice(10)).toEqual(["in progress", ""]);
   });
 });

@@ -155,3 +155,62 @@ export function zonesCsv(rows: ZoneRowOut[]): string {
     ]),
   );
 }
+
+export interface SquadWeekCsvRow {
+  athlete: { name: string };
+  sessions: {
+    date: string;
+    title: string;
+    kind: string;
+    totalS: number;
+    minutesByZone: [number, number, number];
+    log: string | null;
+  }[];
+  week: { overBudget: boolean; inProgress?: boolean; flags: { message: string }[] };
+}
+
+/**
+ * The squad week as a spreadsheet: one line per planned session, each with its athlete's budget state for the week; an
+ * athlete without sessions has one line with the state alone.
+ */
+export function squadWeekCsv(weekStart: string, rows: SquadWeekCsvRow[]): string {
+  const state = (w: SquadWeekCsvRow["week"]) =>
+    w.overBudget ? "over budget" : w.inProgress ? "in progress" : "within budget";
+  const lines: Cell[][] = [];
+  for (const r of rows) {
+    const flags = r.week.flags.map((f) => f.message).join(" ");
+    const base = [weekStart, r.athlete.name];
+    if (!r.sessions.length) lines.push([...base, null, null, null, null, null, null, null, null, state(r.week), flags]);
+    for (const s of r.sessions)
+      lines.push([
+        ...base,
+        s.date,
+        s.title,
+        s.kind,
+        r1(s.totalS / 60),
+        r1(s.minutesByZone[0]),
+        r1(s.minutesByZone[1]),
+        r1(s.minutesByZone[2]),
+        s.log,
+        state(r.week),
+        flags,
+      ]);
+  }
+  return toCsv(
+    [
+      "week_start",
+      "athlete",
+      "date",
+      "title",
+      "kind",
+      "planned_min",
+      "zone1_min",
+      "zone2_min",
+      "zone3_min",
+      "logged",
+      "week_budget",
+      "week_flags",
+    ],
+    lines,
+  );
+}
