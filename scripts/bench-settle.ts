@@ -6,7 +6,8 @@
  * SETTLE_DEBUG=1 lists each load's requests with their start times.
  */
 import postgres from "postgres";
-import { chromium, type Page } from "playwright-core";
+import type { Page } from "playwright-core";
+import { launchChromium } from "./chromium";
 import { applyMigrations } from "../db/migrate";
 import { startAppServer } from "./app-server";
 import { ensureBuild } from "./build";
@@ -44,17 +45,7 @@ try {
   >`select id from athlete_test where athlete_id = ${ines!.id} order by test_date desc limit 1`;
   await sql.end();
 
-  const browser = await chromium.launch({
-    executablePath: process.env.CHROMIUM_PATH ?? "/usr/bin/chromium",
-    args: [
-      "--headless",
-      "--no-sandbox",
-      "--disable-gpu",
-      "--disable-background-networking",
-      "--disable-component-update",
-      "--disable-sync",
-    ],
-  });
+  const browser = await launchChromium();
   const signedIn = async (email: string) => {
     const page = await (await browser.newContext({ viewport: { width: 1440, height: 900 } })).newPage();
     await page.goto(`${origin}/sign-in`);

@@ -11,24 +11,30 @@
  *   (bench-settle.ts).
  * - `npm run bench -- --scale`: a 10 000-athlete practice against one squad alone (bench-scale.ts).
  */
-import { spawnSync as spawnScale } from "node:child_process";
+import { spawnSync } from "node:child_process";
 import Papa from "papaparse";
 
-// `npm run bench -- --scale`: only the large-practice comparison (bench-scale.ts; it loads about 6 million rows).
-if (process.argv.includes("--scale")) {
-  const child = spawnScale(
+/**
+ * Runs a bench script as the scheduler runs the jobs: server-only hooks, no react-server condition (the e-mails render
+ * with react-dom/server, which that condition refuses). Returns its exit status.
+ */
+function runWithServerHooks(script: string): number {
+  const child = spawnSync(
     process.execPath,
     [
       "--import",
       "tsx",
       "--import",
       new URL("./register-server.mjs", import.meta.url).pathname,
-      new URL("./bench-scale.ts", import.meta.url).pathname,
+      new URL(script, import.meta.url).pathname,
     ],
     { stdio: "inherit" },
   );
-  process.exit(child.status ?? 1);
+  return child.status ?? 1;
 }
+
+// `npm run bench -- --scale`: only the large-practice comparison (bench-scale.ts; it loads about 6 million rows).
+if (process.argv.includes("--scale")) process.exit(runWithServerHooks("./bench-scale.ts"));
 import { analyzeCsv, analyzeRead } from "../features/gas-exchange/lib/analyze";
 import { readGasExchangeFile } from "../features/gas-exchange/lib/workbook";
 import { checkWeek, BUDGET_PRESETS } from "../features/planning/lib/budget";
@@ -195,7 +201,6 @@ console.log(
 );
 
 // The roster needs PostgreSQL and the server modules: a child process with the react-server condition.
-const { spawnSync } = await import("node:child_process");
 for (const script of [
   "./bench-roster.ts",
   "./bench-weeks.ts",
@@ -210,21 +215,10 @@ for (const script of [
   );
   if (child.status !== 0) process.exitCode = child.status ?? 1;
 }
-// Reminders in bulk render e-mails with react-dom/server, which the react-server condition refuses: loaded as the
-// scheduler loads the jobs (server-only hooks instead).
+// Reminders in bulk render e-mails, so they run with the server-only hooks instead of the react-server condition.
 {
-  const child = spawnSync(
-    process.execPath,
-    [
-      "--import",
-      "tsx",
-      "--import",
-      new URL("./register-server.mjs", import.meta.url).pathname,
-      new URL("./bench-reminders.ts", import.meta.url).pathname,
-    ],
-    { stdio: "inherit" },
-  );
-  if (child.status !== 0) process.exitCode = child.status ?? 1;
+  const status = runWithServerHooks("./bench-reminders.ts");
+  if (status !== 0) process.exitCode = status;
 }
 
 // The .xlsx path: reading and analysing a workbook against exceljs opening the same workbook (target ≤ 1.5).

@@ -2,7 +2,8 @@
 import fs from "node:fs";
 import { createRequire } from "node:module";
 import path from "node:path";
-import { chromium, type Browser, type Page } from "playwright-core";
+import type { Browser, Page } from "playwright-core";
+import { launchChromium } from "../../scripts/chromium";
 
 export const BASE = process.env.TIDEMARK_BASE_URL ?? "";
 export const SHOTS = path.resolve("test/.artifacts/screenshots");
@@ -10,17 +11,7 @@ export const SHOTS = path.resolve("test/.artifacts/screenshots");
 export async function launch(): Promise<Browser> {
   if (!BASE) throw new Error("TIDEMARK_BASE_URL is not set: run the browser tests through `npm test`.");
   fs.mkdirSync(SHOTS, { recursive: true });
-  return chromium.launch({
-    executablePath: process.env.CHROMIUM_PATH ?? "/usr/bin/chromium",
-    args: [
-      "--headless",
-      "--no-sandbox",
-      "--disable-gpu",
-      "--disable-background-networking",
-      "--disable-component-update",
-      "--disable-sync",
-    ],
-  });
+  return launchChromium();
 }
 
 export async function newPage(browser: Browser): Promise<{ page: Page; problems: string[] }> {
