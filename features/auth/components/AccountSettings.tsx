@@ -62,6 +62,8 @@ export function AccountSettings({ name, email }: { name: string; email: string }
             className="field-input"
             aria-invalid={!!ne.name}
             aria-describedby="account-name-error"
+            // In the server's HTML too, so the field never shows empty while the page is still loading.
+            defaultValue={name}
             {...nameForm.register("name")}
           />
           <FieldError id="account-name-error" message={ne.name?.message} />
