@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { syntheticRamp } from "@/features/gas-exchange/lib/synthetic-ramp";
 import { analyzeBreaths, analyzeCsv } from "./analyze";
+import { labCases, labExport } from "./lab-generator";
 
 // Threshold detection against synthetic ramps whose thresholds are known by construction (model documented in
 // features/gas-exchange/lib/synthetic-ramp.ts: ACSM leg-cycling VO2, V-slope and VE/VCO2 breakpoints after Beaver, Wasserman & Whipp 1986).
@@ -154,4 +155,20 @@ describe("VT1 on ramps of different slopes, with VCO2 trailing through the CO2 s
       expect(a.vt1).not.toBeNull();
       expect(Math.abs(a.vt1!.vo2MlMin / vt1 - 1)).toBeLessThanOrEqual(0.02);
     });
+});
+
+describe("test segment on a noisy measured workload", () => {
+  it("a rowing ramp after a harder warm-up starts at the ramp, not where one stroke's power dips near the end", () => {
+    // A generated rowing test (lab-generator.ts): a warm-up above the ramp's first minutes, then a ramp whose measured
+    // stroke power scatters ±15 % from stroke to stroke, exported as 10-s averages. Before, one dip near the end ended
+    // the segment 80 s before exhaustion.
+    const c = labCases(6).find((x) => x.seed === 1016)!;
+    expect(c.protocol).toBe("rowing-ramp");
+    const { csv, truth } = labExport(c);
+    const a = analyzeCsv(csv);
+    if (!a.ok) throw new Error(a.error);
+    expect(Math.abs(a.onsetS - truth.rampStartS)).toBeLessThanOrEqual(60);
+    expect(Math.abs(a.endS - truth.rampEndS)).toBeLessThanOrEqual(30);
+    expect(a.vt1).not.toBeNull();
+  });
 });

@@ -218,6 +218,9 @@ function timeAtValue(points: Breath[], value: number, f: (b: Breath) => number):
  * stage of this test could (2.5 times the test's usual step interval, at least 150 s: rest, a warm-up, a constant stage).
  * Without a workload the same is done on VO2 itself.
  */
+/** How long (s) an earlier, higher workload must last to end the test segment (common practice: a warm-up lasts minutes). */
+const HIGHER_FOR_S = 60;
+
 function findSegment(points: Breath[], peakEndS: number): { onsetS: number; endS: number; source: "workload" | "vo2" } {
   const hasLoad = points.filter((p) => workload(p) !== null).length > points.length * 0.5;
   const raw = points.map((p) => (hasLoad ? (workload(p) ?? NaN) : p.vo2MlMin));
@@ -253,12 +256,21 @@ function findSegment(points: Breath[], peakEndS: number): { onsetS: number; endS
   // Steps going back in time.
   const steps: number[] = [];
   let level = load[endIdx]!;
+  // A higher workload earlier only ends the run when it lasted (the median of the minute before it is higher too): a
+  // warm-up at a higher load lasts minutes, while a measured stroke power jumps about from one point to the next.
+  const higherFor = (i: number) => {
+    const before: number[] = [];
+    for (let j = i; j >= 0 && points[i]!.timeS - points[j]!.timeS <= HIGHER_FOR_S; j--)
+      if (Number.isFinite(load[j]!)) before.push(load[j]!);
+    before.sort((x, y) => x - y);
+    return before[before.length >> 1]! > level + tol;
+  };
   let lastStep = endIdx;
   let onsetIdx = 0;
   for (let i = endIdx - 1; i >= 0; i--) {
     const l = load[i]!;
     if (!Number.isFinite(l)) continue;
-    if (l > level + tol) {
+    if (l > level + tol && higherFor(i)) {
       onsetIdx = lastStep;
       break;
     }
@@ -510,13 +522,18 @@ function detectVt1(
   // Try the whole stretch below VT2, then without its first 15 % and 30 % (exercise-onset kinetics).
   for (const skip of [0, 0.15, 0.3]) {
     from = first + Math.floor(belowCount * skip);
-    if (belowCount - (from - first) < Math.max(8, minPoints / 2)) break;
+    if (belowCount - (from - first) < Math.max(knot === undefined ? 8 : 6, minPoints / 2)) break;
     below = points.slice(from, first + belowCount);
     axis = axes.x.slice(from, stopAll);
     const ys = axes.co2.slice(from, stopAll);
     const lo = Math.min(...axis.slice(0, below.length)),
       hi = knot ?? Math.max(...axis);
-    const f = fitHinge(axis, ys, { minSegment: 4, range: [lo + 0.1 * (hi - lo), lo + 0.9 * (hi - lo)], knot });
+    const f = fitHinge(axis, ys, {
+      minSegment: 4,
+      range: [lo + 0.1 * (hi - lo), lo + 0.9 * (hi - lo)],
+      knot,
+      posteriorDof: 1,
+    });
     if (!f) break;
     if (f.slopeAfter <= 1 || f.slopeAfter - f.slopeBefore < 0.1 || f.gain < 0.1) {
       // No breakpoint at all: dropping early points would only find one in the noise.

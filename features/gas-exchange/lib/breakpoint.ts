@@ -86,6 +86,14 @@ export interface HingeOptions {
    * are searched below the knot only.
    */
   knot?: number;
+  /**
+   * Report the breakpoint as the mean of its profile likelihood over the searched range instead of the single best
+   * candidate: each candidate x0 is weighted by (rss(x0) / rss_min)^(−ν/2), the likelihood of a Gaussian model with its
+   * variance integrated out, and ν = `posteriorDof` × (n − parameters). With noisy data the least-squares breakpoint jumps
+   * between nearby local minima; the mean over the likelihood has the smaller expected squared error (the posterior mean
+   * under a flat prior). A factor below 1 allows for residuals that are correlated (smoothed data).
+   */
+  posteriorDof?: number;
 }
 
 /** Solves the 4×4 system m·β = r (m row-major, 16 values; r 4 values) by Gaussian elimination with partial pivoting, in the
@@ -198,32 +206,65 @@ export function fitHinge(xsIn: ArrayLike<number>, ysIn: ArrayLike<number>, opts:
     w4 = new Float64Array(20),
     o4 = new Float64Array(4);
   let best: { rss: number; k: number; beta: [number, number, number]; x0: number } | null = null;
+  // Every candidate and its residual, for the likelihood-weighted mean.
+  const keep = !!opts.posteriorDof;
+  const tried = new Float64Array(keep ? n * BETWEEN_POINTS : 0),
+    triedRss = new Float64Array(keep ? n * BETWEEN_POINTS : 0);
+  let nTried = 0;
+  // The least-squares hinge with its breakpoint at x0, between x[k-1] and x[k] (points k..n-1 form the right segment).
+  const solveAt = (k: number, x0: number): { rss: number; beta: [number, number, number] } | null => {
+    const m = c[k]!;
+    const Sh = s1[k]! - m * x0;
+    const Shh = s2[k]! - 2 * x0 * s1[k]! + m * x0 * x0;
+    const Sxh = s2[k]! - x0 * s1[k]!;
+    const Shy = sxy[k]! - x0 * sy[k]!;
+    if (knot === null) {
+      const beta = solve3(n, Sx, Sh, Sxx, Sxh, Shh, Sy, Sxy, Shy);
+      return beta ? { rss: Syy - (beta[0] * Sy + beta[1] * Sxy + beta[2] * Shy), beta } : null;
+    }
+    // With the knot above x0, every point with g > 0 also has h > 0: Σ h·g = Σ_{i≥k} (x − x0)·g.
+    const Shg = sxg[k]! - x0 * sg[k]!;
+    m4.set([n, Sx, Sh, Sg, Sx, Sxx, Sxh, Sxg, Sh, Sxh, Shh, Shg, Sg, Sxg, Shg, Sgg]);
+    r4.set([Sy, Sxy, Shy, Sgy]);
+    const beta = solve4(m4, r4, w4, o4);
+    if (!beta) return null;
+    return {
+      rss: Syy - (beta[0]! * Sy + beta[1]! * Sxy + beta[2]! * Shy + beta[3]! * Sgy),
+      beta: [beta[0]!, beta[1]!, beta[2]!],
+    };
+  };
   for (let k = minSeg; k <= n - minSeg; k++) {
-    // Breakpoint between x[k-1] and x[k]: points k..n-1 form the right segment (h = x − x0 > 0 there).
     if (x[k]! === x[k - 1]!) continue;
     for (let sub = 0; sub < BETWEEN_POINTS; sub++) {
       const x0 = x[k - 1]! + (sub / BETWEEN_POINTS) * (x[k]! - x[k - 1]!);
       if (x0 < lo || x0 > hi) continue;
-      const m = c[k]!;
-      const Sh = s1[k]! - m * x0;
-      const Shh = s2[k]! - 2 * x0 * s1[k]! + m * x0 * x0;
-      const Sxh = s2[k]! - x0 * s1[k]!;
-      const Shy = sxy[k]! - x0 * sy[k]!;
-      if (knot === null) {
-        const beta = solve3(n, Sx, Sh, Sxx, Sxh, Shh, Sy, Sxy, Shy);
-        if (!beta) continue;
-        const rss = Syy - (beta[0] * Sy + beta[1] * Sxy + beta[2] * Shy);
-        if (!best || rss < best.rss) best = { rss, k, beta, x0 };
-        continue;
+      const fit = solveAt(k, x0);
+      if (!fit) continue;
+      if (keep) {
+        tried[nTried] = x0;
+        triedRss[nTried++] = fit.rss;
       }
-      // With the knot above x0, every point with g > 0 also has h > 0: Σ h·g = Σ_{i≥k} (x − x0)·g.
-      const Shg = sxg[k]! - x0 * sg[k]!;
-      m4.set([n, Sx, Sh, Sg, Sx, Sxx, Sxh, Sxg, Sh, Sxh, Shh, Shg, Sg, Sxg, Shg, Sgg]);
-      r4.set([Sy, Sxy, Shy, Sgy]);
-      const beta = solve4(m4, r4, w4, o4);
-      if (!beta) continue;
-      const rss = Syy - (beta[0]! * Sy + beta[1]! * Sxy + beta[2]! * Shy + beta[3]! * Sgy);
-      if (!best || rss < best.rss) best = { rss, k, beta: [beta[0]!, beta[1]!, beta[2]!], x0 };
+      if (!best || fit.rss < best.rss) best = { rss: fit.rss, k, beta: fit.beta, x0 };
+    }
+  }
+  if (best && keep && nTried > 2 && best.rss > 0) {
+    const nu = opts.posteriorDof! * (n - (knot === null ? 4 : 5));
+    let sw = 0,
+      swx = 0;
+    for (let i = 0; i < nTried; i++) {
+      // The candidates rise in x0; each stands for half the gap to each neighbour (a flat prior over x0).
+      const width = (tried[Math.min(i + 1, nTried - 1)]! - tried[Math.max(i - 1, 0)]!) / 2;
+      const w = Math.exp((-nu / 2) * Math.log(Math.max(triedRss[i]!, best.rss) / best.rss)) * width;
+      sw += w;
+      swx += w * tried[i]!;
+    }
+    if (sw > 0) {
+      // Refit the segments at the mean breakpoint, so the reported slopes belong to it.
+      const x0 = swx / sw;
+      let k = minSeg;
+      while (k < n - minSeg && x[k]! <= x0) k++;
+      const fit = solveAt(k, x0);
+      if (fit) best = { rss: fit.rss, k, beta: fit.beta, x0 };
     }
   }
   if (!best) return null;
