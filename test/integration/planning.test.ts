@@ -8,6 +8,7 @@ import * as weeksRoute from "@/app/api/athletes/[id]/weeks/route";
 import * as seasonsRoute from "@/app/api/athletes/[id]/seasons/route";
 import * as testsRoute from "@/app/api/athletes/[id]/tests/route";
 import * as seasonWeekRoute from "@/app/api/seasons/[id]/weeks/[weekStart]/route";
+import ExcelJS from "exceljs";
 import Papa from "papaparse";
 import * as squadWeekRoute from "@/app/api/squads/[id]/week/route";
 import * as squadPlanRoute from "@/app/api/squads/[id]/plan/route";
@@ -389,6 +390,18 @@ describe("sessions and weekly budgets", () => {
     expect(aLine.slice(5, 9)).toEqual(["60", "40", "0", "20"]);
     expect((await csv(s.athleteA.browser)).status).toBe(403);
     expect((await csv(other.coach.browser)).status).toBe(404);
+    // And as a workbook (read back with exceljs): one sheet named for the week, the same line.
+    const x = await s.coach.browser.call(squadWeekRoute, "GET", `/api/squads/${s.squadId}/week`, {
+      params: { id: s.squadId },
+      query: "?week=2028-09-07&format=xlsx",
+    });
+    expect(x.status).toBe(200);
+    expect(x.headers.get("content-disposition")).toContain('filename="squad-week-2028-09-04.xlsx"');
+    const wb = new ExcelJS.Workbook();
+    await wb.xlsx.load(Buffer.from(x.bytes) as unknown as ArrayBuffer);
+    const ws = wb.getWorksheet("Week of 2028-09-04")!;
+    const row = ws.getRows(2, ws.rowCount - 1)!.find((r) => r.getCell(3).value === "2028-09-05")!;
+    expect([6, 7, 8, 9].map((c) => row.getCell(c).value)).toEqual([60, 40, 0, 20]);
   });
 
   it("plans a template for several athletes in one action, with a preview of each athlete's week that writes nothing", async () => {

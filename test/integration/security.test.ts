@@ -1,6 +1,7 @@
 // Attacks that must fail, through the real route handlers on real PostgreSQL: each checks the answer and that nothing was
 // written. (The outbox page and the sign-in redirect are in test/browser/security.test.ts.)
 import { describe, expect, it } from "vitest";
+import ExcelJS from "exceljs";
 import { resetConfig } from "@/features/platform/server/config";
 import * as logRoute from "@/app/api/logs/[id]/route";
 import * as meRoute from "@/app/api/me/route";
@@ -360,8 +361,8 @@ describe("two coaches editing the same thing", () => {
   });
 });
 
-describe("CSV downloads", () => {
-  it("the athlete and their coaches download the plan, logs and zone history; formula cells are neutralised; others get 404", async () => {
+describe("CSV and workbook downloads", () => {
+  it("the athlete and their coaches download the plan, logs and zone history (CSV and .xlsx); formula cells are neutralised; others get 404", async () => {
     const { head, athleteA } = await makeSquad("export");
     const other = await makeSquad("export-other");
     const made = await head.browser.call(sessionsRoute, "POST", `/api/athletes/${athleteA.id}/sessions`, {
@@ -394,6 +395,23 @@ describe("CSV downloads", () => {
     }
     expect((await get(head.browser, "logs.csv")).status).toBe(200);
     expect((await get(head.browser, "zones.csv", "")).status).toBe(200);
+    // The same plan as a workbook, read back with exceljs: the same columns, the formula-like title kept as text.
+    for (const who of [athleteA.browser, head.browser]) {
+      const x = await get(who, "plan.xlsx");
+      expect(x.status).toBe(200);
+      expect(x.headers.get("content-type")).toBe("application/vnd.openxmlformats-officedocument.spreadsheetml.sheet");
+      expect(x.headers.get("content-disposition")).toMatch(/filename="tidemark-plan-2027-03-01-to-2027-03-31.xlsx"/);
+      const wb = new ExcelJS.Workbook();
+      await wb.xlsx.load(Buffer.from(x.bytes) as unknown as ArrayBuffer);
+      const ws = wb.worksheets[0]!;
+      expect((ws.getRow(1).values as unknown[]).slice(1, 5)).toEqual(["date", "title", "sport", "kind"]);
+      expect(ws.getRow(2).getCell(2).type).toBe(ExcelJS.ValueType.String);
+      expect(ws.getRow(2).getCell(2).value).toBe('=HYPERLINK("http://evil.test","x")');
+      expect(ws.getRow(2).getCell(5).value).toBe(45);
+    }
+    expect((await get(head.browser, "logs.xlsx")).status).toBe(200);
+    expect((await get(head.browser, "zones.xlsx", "")).status).toBe(200);
+    expect((await get(other.head.browser, "plan.xlsx")).status).toBe(404);
     expect((await get(other.head.browser, "plan.csv")).status).toBe(404);
     expect((await get(head.browser, "secrets.csv")).status).toBe(404);
     expect((await get(head.browser, "plan.csv", "?from=2020-01-01&to=2027-01-01")).status).toBe(400);

@@ -48,14 +48,16 @@ export class Browser {
     const res = await handler(req, { params: Promise.resolve(opts.params ?? {}) });
     const setCookies = res.headers.getSetCookie();
     for (const c of setCookies) this.absorbCookie(c);
-    const text = await res.text();
+    // The body's bytes (a workbook or a FIT file), and as text for everything else.
+    const bytes = new Uint8Array(await res.arrayBuffer());
+    const text = new TextDecoder().decode(bytes);
     let json: unknown = undefined;
     try {
       json = text ? JSON.parse(text) : undefined;
     } catch {
       json = text;
     }
-    return { status: res.status, json: json as any, headers: res.headers }; // eslint-disable-line @typescript-eslint/no-explicit-any
+    return { status: res.status, json: json as any, headers: res.headers, bytes }; // eslint-disable-line @typescript-eslint/no-explicit-any
   }
 
   private absorbCookie(setCookie: string) {

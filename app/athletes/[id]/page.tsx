@@ -83,20 +83,37 @@ export default async function AthletePage({ params }: { params: Promise<{ id: st
               : ""}
           </p>
         ) : null}
-        <p className="text-sm">
-          Download as CSV (opens in any spreadsheet):{" "}
-          <a className="font-semibold text-tide underline" href={`/api/athletes/${id}/export/plan.csv`} download>
-            plan, a year back and ahead
-          </a>
-          {" · "}
-          <a className="font-semibold text-tide underline" href={`/api/athletes/${id}/export/logs.csv`} download>
-            logs, last year
-          </a>
-          {" · "}
-          <a className="font-semibold text-tide underline" href={`/api/athletes/${id}/export/zones.csv`} download>
-            zone history
-          </a>
-        </p>
+        <div className="text-sm">
+          <p>Download (CSV opens in any spreadsheet program; Excel workbooks keep numbers as numbers):</p>
+          <ul className="mt-1 space-y-1">
+            {(
+              [
+                ["plan", "Plan, a year back and ahead"],
+                ["logs", "Logs, last year"],
+                ["zones", "Zone history"],
+              ] as const
+            ).map(([file, label]) => (
+              <li key={file}>
+                {label}:{" "}
+                <a
+                  className="font-semibold text-tide underline"
+                  href={`/api/athletes/${id}/export/${file}.csv`}
+                  download
+                >
+                  CSV
+                </a>
+                {" · "}
+                <a
+                  className="font-semibold text-tide underline"
+                  href={`/api/athletes/${id}/export/${file}.xlsx`}
+                  download
+                >
+                  Excel (.xlsx)
+                </a>
+              </li>
+            ))}
+          </ul>
+        </div>
       </section>
       <section className="card space-y-4" aria-labelledby="zones-heading">
         <h2 id="zones-heading" className="text-lg font-bold">

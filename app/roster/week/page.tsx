@@ -75,9 +75,14 @@ export default async function SquadWeekPage({
             Next week →
           </Link>
         </nav>
-        <a href={`/api/squads/${squad.id}/week?week=${monday}&format=csv`} className="btn-quiet text-sm" download>
-          Download this week as CSV
-        </a>
+        <span className="flex flex-wrap gap-2">
+          <a href={`/api/squads/${squad.id}/week?week=${monday}&format=csv`} className="btn-quiet text-sm" download>
+            Download this week as CSV
+          </a>
+          <a href={`/api/squads/${squad.id}/week?week=${monday}&format=xlsx`} className="btn-quiet text-sm" download>
+            Download this week as Excel (.xlsx)
+          </a>
+        </span>
       </div>
       {rows.length > 0 ? (
         <GroupPlanner

@@ -7,11 +7,28 @@ import Papa from "papaparse";
 
 export type Cell = string | number | boolean | null | undefined;
 
+/** A download's columns and lines, written as CSV here or as a workbook (xlsx.ts). */
+export interface Table {
+  header: string[];
+  rows: Cell[][];
+}
+
 export function toCsv(header: string[], rows: Cell[][]): string {
   return Papa.unparse(
     { fields: header, data: rows.map((r) => r.map((c) => (c === null || c === undefined ? "" : c))) },
     { escapeFormulae: true, newline: "\r\n" },
   );
+}
+
+const table = (header: string[], rows: Cell[][]): Table => ({ header, rows });
+
+export const planCsv = (rows: PlanRow[]) => csvOf(planTable(rows));
+export const logsCsv = (rows: LogRowOut[]) => csvOf(logsTable(rows));
+export const zonesCsv = (rows: ZoneRowOut[]) => csvOf(zonesTable(rows));
+export const squadWeekCsv = (weekStart: string, rows: SquadWeekCsvRow[]) => csvOf(squadWeekTable(weekStart, rows));
+
+export function csvOf(t: Table): string {
+  return toCsv(t.header, t.rows);
 }
 
 const r1 = (v: number | null | undefined) => (v === null || v === undefined ? null : Math.round(v * 10) / 10);
@@ -27,8 +44,8 @@ export interface PlanRow {
   log: { status: string; durationMin: number | null; rpe: number | null } | null;
 }
 
-export function planCsv(rows: PlanRow[]): string {
-  return toCsv(
+export function planTable(rows: PlanRow[]): Table {
+  return table(
     [
       "date",
       "title",
@@ -78,8 +95,8 @@ export interface LogRowOut {
   skipReason: string | null;
 }
 
-export function logsCsv(rows: LogRowOut[]): string {
-  return toCsv(
+export function logsTable(rows: LogRowOut[]): Table {
+  return table(
     [
       "date",
       "title",
@@ -129,8 +146,8 @@ export interface ZoneRowOut {
   vt2: { hrBpm?: number | null; powerW?: number | null; speedKmh?: number | null };
 }
 
-export function zonesCsv(rows: ZoneRowOut[]): string {
-  return toCsv(
+export function zonesTable(rows: ZoneRowOut[]): Table {
+  return table(
     [
       "sport",
       "effective_from",
@@ -173,7 +190,7 @@ export interface SquadWeekCsvRow {
  * The squad week as a spreadsheet: one line per planned session, each with its athlete's budget state for the week; an
  * athlete without sessions has one line with the state alone.
  */
-export function squadWeekCsv(weekStart: string, rows: SquadWeekCsvRow[]): string {
+export function squadWeekTable(weekStart: string, rows: SquadWeekCsvRow[]): Table {
   const state = (w: SquadWeekCsvRow["week"]) =>
     w.overBudget ? "over budget" : w.inProgress ? "in progress" : "within budget";
   const lines: Cell[][] = [];
@@ -196,7 +213,7 @@ export function squadWeekCsv(weekStart: string, rows: SquadWeekCsvRow[]): string
         flags,
       ]);
   }
-  return toCsv(
+  return table(
     [
       "week_start",
       "athlete",
