@@ -282,6 +282,11 @@ const MATRIX: Record<string, Cell> = {
     params: (i) => ({ id: i.session! }),
     body: () => ({ date: "2027-04-20" }),
   },
+  "GET /api/sessions/[id]/workout": {
+    ok: A_AND_COACH,
+    path: () => "/api/sessions/x/workout",
+    params: (i) => ({ id: i.session! }),
+  },
   "DELETE /api/sessions/[id]": {
     ok: ["coach"],
     path: () => "/api/sessions/x",

@@ -11,6 +11,8 @@ import * as seasonWeekRoute from "@/app/api/seasons/[id]/weeks/[weekStart]/route
 import ExcelJS from "exceljs";
 import Papa from "papaparse";
 import * as squadWeekRoute from "@/app/api/squads/[id]/week/route";
+import * as workoutRoute from "@/app/api/sessions/[id]/workout/route";
+import { Decoder, Stream } from "@garmin/fitsdk";
 import * as squadPlanRoute from "@/app/api/squads/[id]/plan/route";
 import * as copyWeekRoute from "@/app/api/athletes/[id]/weeks/[weekStart]/copy/route";
 import { makeSquad } from "../support/squad";
@@ -142,6 +144,58 @@ describe("sessions and weekly budgets", () => {
     expect(byDate("2027-03-04").zoneSet.zones[0].ranges.hrBpm.max).toBe(140);
     expect(byDate("2027-03-05").zoneSet.effectiveFrom).toBe("2027-03-05");
     expect(byDate("2027-03-08").zoneSet.zones[0].ranges.hrBpm.max).toBe(146);
+  });
+
+  it("a planned session downloads as a FIT workout with the athlete's own zones, for the athlete and the coach only", async () => {
+    const test = await s.coach.browser.call(testsRoute, "POST", `/api/athletes/${s.athleteA.id}/tests`, {
+      params: { id: s.athleteA.id },
+      body: {
+        kind: "manual",
+        meta: { sport: "cycling", protocol: "lab report", date: "2027-05-03", endedBy: "plan" },
+        vt1: { hrBpm: 148, powerW: 210 },
+        vt2: { hrBpm: 170, powerW: 275 },
+      },
+    });
+    expect(test.status).toBe(201);
+    const made = await s.coach.browser.call(sessionsRoute, "POST", `/api/athletes/${s.athleteA.id}/sessions`, {
+      params: { id: s.athleteA.id },
+      body: {
+        date: "2027-05-06",
+        title: "Threshold blocks",
+        sport: "cycling",
+        structure: [
+          { type: "step", kind: "warmup", durationS: 600, zone: 1 },
+          { type: "repeat", times: 3, steps: [{ type: "step", kind: "work", durationS: 480, zone: 2 }] },
+        ],
+      },
+    });
+    expect(made.status).toBe(201);
+    const get = (who: typeof s.coach.browser) =>
+      who.call(workoutRoute, "GET", `/api/sessions/${made.json.id}/workout`, { params: { id: made.json.id } });
+    for (const who of [s.athleteA.browser, s.coach.browser]) {
+      const r = await get(who);
+      expect(r.status).toBe(200);
+      expect(r.headers.get("content-disposition")).toContain('filename="tidemark-2027-05-06-threshold-blocks.fit"');
+      // Decoded with the FIT SDK (the protocol's reference decoder).
+      const decoder = new Decoder(Stream.fromByteArray(Array.from(r.bytes)));
+      expect(decoder.checkIntegrity()).toBe(true);
+      const { messages } = decoder.read();
+      expect(messages.workoutMesgs![0]).toMatchObject({
+        wktName: "Threshold blocks",
+        sport: "cycling",
+        numValidSteps: 3,
+      });
+      // Zone 2 of this athlete's cycling zones: 210–274 W (watts carry the protocol's offset of 1000).
+      expect(messages.workoutStepMesgs![1]).toMatchObject({
+        durationTime: 480,
+        targetType: "power",
+        customTargetPowerLow: 1210,
+        customTargetPowerHigh: 1274,
+      });
+      expect(messages.workoutStepMesgs![2]).toMatchObject({ durationType: "repeatUntilStepsCmplt", repeatSteps: 3 });
+    }
+    expect((await get(s.athleteB.browser)).status).toBe(404);
+    expect((await get(other.coach.browser)).status).toBe(404);
   });
 
   it("a coach of another squad cannot create, move or read sessions for this athlete; the athlete cannot plan", async () => {

@@ -3,10 +3,11 @@ import type { Actor } from "@/features/access/lib/rules";
 import { listLogs } from "@/features/logs/server";
 import { addDays } from "@/features/platform/lib/days";
 import { HttpError } from "@/features/platform/server/http";
-import { listSessions } from "@/features/planning/server";
+import { listSessions, sessionWithZones } from "@/features/planning/server";
 import { getZones } from "@/features/zones/server";
 import { csvOf, logsTable, planTable, zonesTable, type Table } from "../lib/csv";
 import { toXlsx, XLSX_TYPE } from "../lib/xlsx";
+import { encodeWorkout } from "../lib/fit-workout";
 
 export const EXPORT_FILES = ["plan.csv", "logs.csv", "zones.csv", "plan.xlsx", "logs.xlsx", "zones.xlsx"] as const;
 export type ExportFile = (typeof EXPORT_FILES)[number];
@@ -71,4 +72,35 @@ export async function exportFile(
   }
   const logs = await listLogs(actor, athleteId, from, to);
   return asDownload(`tidemark-logs-${from}-to-${to}`, "Logs", logsTable(logs), format);
+}
+
+/** A file name from a session's day and title: letters, digits and dashes only. */
+function slug(s: string): string {
+  return (
+    s
+      .normalize("NFKD")
+      .replace(/[^\w\s-]/g, "")
+      .trim()
+      .replace(/[\s_-]+/g, "-")
+      .toLowerCase()
+      .slice(0, 40) || "session"
+  );
+}
+
+/** A planned session as a FIT workout file, for the athlete and their coaches (the same access as the session). */
+export async function workoutFile(actor: Actor, sessionId: string): Promise<Download> {
+  const { session, zones } = await sessionWithZones(actor, sessionId);
+  if (!session.structure.length)
+    throw new HttpError(409, "This session has no steps to put on a watch: give it a structure first.");
+  return {
+    filename: `tidemark-${session.date}-${slug(session.title)}.fit`,
+    contentType: "application/vnd.ant.fit",
+    body: encodeWorkout({
+      title: session.title,
+      sport: session.sport,
+      structure: session.structure,
+      zones,
+      createdAt: new Date(`${session.date}T00:00:00Z`),
+    }),
+  };
 }

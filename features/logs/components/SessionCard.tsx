@@ -87,6 +87,13 @@ export function SessionCard({ s, canLog }: { s: SessionCardData; canLog: boolean
       ) : s.zoneSet ? (
         <p className="text-xs text-ink-soft">Targets from the zones in force since {s.zoneSet.effectiveFrom}.</p>
       ) : null}
+      {s.structure.length ? (
+        <p className="text-sm">
+          <a className="font-semibold text-tide underline" href={`/api/sessions/${s.id}/workout`} download>
+            Put this session on your watch (.fit workout)
+          </a>
+        </p>
+      ) : null}
       {s.log ? (
         <div>
           <p className="text-xs font-semibold text-ink-soft">

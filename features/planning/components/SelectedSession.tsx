@@ -67,6 +67,13 @@ export function SelectedSession({
       ) : (
         <p className="text-sm text-ink-soft">Not logged yet.</p>
       )}
+      {selected.structure.length ? (
+        <p className="text-sm">
+          <a className="font-semibold text-tide underline" href={`/api/sessions/${selected.id}/workout`} download>
+            Download for a watch (.fit workout)
+          </a>
+        </p>
+      ) : null}
       {canEdit && editing ? (
         <SessionEditor
           athleteId={athleteId}

@@ -150,6 +150,20 @@ async function loadSession(actor: Actor, id: string, action: "view" | "coach") {
   return row;
 }
 
+/**
+ * One session with the zones its targets come from (the sport's set in force on its day, or the nearest sport's heart
+ * rate; null without zones), for the athlete and their coaches; 404 for everyone else.
+ */
+export async function sessionWithZones(actor: Actor, id: string) {
+  const row = await loadSession(actor, id, "view");
+  const found = zonesForSession(await zoneSetsOf(row.athleteId), row.sport, row.date);
+  return {
+    session: plannedSessionView(row),
+    zones: found?.set.zones ?? null,
+    zonesFromSport: found?.fromSport ?? null,
+  };
+}
+
 /** Moves or edits a session, or its whole series from this occurrence on (scope "series"); one transaction. */
 export async function updateSession(actor: Actor, id: string, patch: z.infer<typeof patchSessionSchema>) {
   const row = await loadSession(actor, id, "coach");

@@ -41,12 +41,17 @@ const MEASURE_ORDER: Record<string, Measure[]> = {
   rowing: ["powerW", "hrBpm", "speedKmh"],
 };
 
+/** The measures of a sport, the one it trains with first (heart rate, power, speed for sports not listed). */
+export function measureOrder(sport: string): Measure[] {
+  return MEASURE_ORDER[sport] ?? ["hrBpm", "powerW", "speedKmh"];
+}
+
 /** A step's target in the athlete's own numbers, the sport's own measure first: heart rate, power and, for speed sports,
  * pace. */
 export function targetText(zone: Zone | undefined, sport: string): string | null {
   if (!zone) return null;
   const parts: string[] = [];
-  for (const m of MEASURE_ORDER[sport] ?? (["hrBpm", "powerW", "speedKmh"] as Measure[])) {
+  for (const m of measureOrder(sport)) {
     const r = zone.ranges[m];
     if (!r) continue;
     parts.push(m === "speedKmh" && sport !== "cycling" ? paceText(r) : rangeText(m, r));
