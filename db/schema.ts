@@ -29,17 +29,23 @@ const updatedAt = () =>
 // better-auth's core tables (read through its Drizzle adapter). Field names follow better-auth; columns are snake_case.
 // ---------------------------------------------------------------------------------------------------------------------
 
-export const user = pgTable("user", {
-  id: text("id").primaryKey(),
-  name: text("name").notNull(),
-  email: text("email").notNull().unique(),
-  emailVerified: boolean("email_verified").notNull().default(false),
-  image: text("image"),
-  /** Site operator: manages users and squads; no special access to training data. */
-  isAdmin: boolean("is_admin").notNull().default(false),
-  createdAt: createdAt(),
-  updatedAt: updatedAt(),
-});
+export const user = pgTable(
+  "user",
+  {
+    id: text("id").primaryKey(),
+    name: text("name").notNull(),
+    email: text("email").notNull().unique(),
+    emailVerified: boolean("email_verified").notNull().default(false),
+    image: text("image"),
+    /** Site operator: manages users and squads; no special access to training data. */
+    isAdmin: boolean("is_admin").notNull().default(false),
+    /** The person's units: "metric" or "imperial" (platform/lib/units.ts); every number they read follows it. */
+    units: text("units").notNull().default("metric"),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [check("user_units", sql`${t.units} in ('metric', 'imperial')`)],
+);
 
 export const session = pgTable(
   "session",

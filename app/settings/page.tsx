@@ -6,6 +6,7 @@ import { getNotificationSettings } from "@/features/messages/server/preferences"
 import { FormNotice } from "@/features/platform/components/form-bits";
 import { publicOrigin } from "@/features/platform/server/origin";
 import { AccountSettings } from "@/features/auth/components/AccountSettings";
+import { UnitSettings } from "@/features/auth/components/UnitSettings";
 
 export const metadata = { title: "Settings" };
 
@@ -56,6 +57,12 @@ export default async function SettingsPage({ searchParams }: { searchParams: Pro
         </section>
       ) : null}
       {!isAthlete && !isCoach ? <p className="card">Join a squad to set up reminders and e-mail.</p> : null}
+      <section className="card space-y-2" aria-labelledby="units-h">
+        <h2 id="units-h" className="text-lg font-bold">
+          Units
+        </h2>
+        <UnitSettings initial={actor.units} />
+      </section>
       <section className="card space-y-2" aria-labelledby="account-h">
         <h2 id="account-h" className="text-lg font-bold">
           Your account

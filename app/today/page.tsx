@@ -63,7 +63,7 @@ export default async function TodayPage() {
             Nothing is planned for today: a rest day, or log something you did below.
           </p>
         ) : (
-          todays.map((c) => <SessionCard key={c.id} s={c} canLog />)
+          todays.map((c) => <SessionCard key={c.id} s={c} canLog units={actor.units} />)
         )}
       </section>
       <div className="grid gap-6 md:grid-cols-2">
@@ -127,7 +127,12 @@ export default async function TodayPage() {
             {unplanned.map((u) => `${u.title} (${Math.round(u.durationMin ?? 0)} min)`).join(", ")}.
           </p>
         ) : null}
-        <UnplannedLogForm athleteId={actor.userId} today={today} defaultSport={profile.sports[0] ?? "running"} />
+        <UnplannedLogForm
+          athleteId={actor.userId}
+          today={today}
+          defaultSport={profile.sports[0] ?? "running"}
+          units={actor.units}
+        />
       </section>
       <div className="grid gap-6 md:grid-cols-2">
         <section className="card" aria-labelledby="squad-heading">

@@ -22,8 +22,12 @@ export default async function MyZonesPage() {
     <div className="space-y-6">
       <h1 className="text-2xl font-bold">My zones</h1>
       <section className="card space-y-4" aria-label="Zones in force">
-        <ZonesInForce inForce={zones.inForce} emptyText="No zones yet: your coach derives them from a test." />
-        <ZoneSetList history={zones.history} />
+        <ZonesInForce
+          units={actor.units}
+          inForce={zones.inForce}
+          emptyText="No zones yet: your coach derives them from a test."
+        />
+        <ZoneSetList units={actor.units} history={zones.history} />
       </section>
       <section className="card" aria-labelledby="my-tests">
         <h2 id="my-tests" className="mb-2 text-lg font-bold">

@@ -1,6 +1,9 @@
 // Sign-up, sign-in, squads, invitations and roster visibility through the real route handlers on real PostgreSQL.
 import { beforeAll, describe, expect, it } from "vitest";
 import * as meRoute from "@/app/api/me/route";
+import * as displayRoute from "@/app/api/me/display/route";
+import * as logsRoute from "@/app/api/athletes/[id]/logs/route";
+import * as exportRoute from "@/app/api/athletes/[id]/export/[file]/route";
 import * as athletesRoute from "@/app/api/athletes/route";
 import * as profileRoute from "@/app/api/athletes/[id]/profile/route";
 import * as squadsRoute from "@/app/api/squads/route";
@@ -313,6 +316,57 @@ describe("accounts, squads and invitations", () => {
     // The other device is signed out; this one stays signed in.
     expect((await other.call(meRoute, "GET", "/api/me")).status).toBe(401);
     expect((await b.call(meRoute, "GET", "/api/me")).status).toBe(200);
+  });
+
+  it("a person chooses imperial units: they hold at once, a bad value is refused, downloads follow the choice", async () => {
+    const joined = await joinAs(
+      "Una Units",
+      "una@example.test",
+      await invite(head, squadId, "una@example.test", "athlete"),
+    );
+    const una = joined.browser;
+    const unaId = (await una.call(meRoute, "GET", "/api/me")).json.user.id as string;
+    const display = (body?: unknown) =>
+      una.call(displayRoute, body ? "PATCH" : "GET", "/api/me/display", body ? { body } : {});
+    expect((await display()).json).toEqual({ units: "metric" });
+    const bad = await display({ units: "furlongs" });
+    expect(bad.status).toBe(400);
+    expect(JSON.stringify(bad.json)).toContain("Choose metric or imperial.");
+    const log = await una.call(logsRoute, "POST", `/api/athletes/${unaId}/logs`, {
+      params: { id: unaId },
+      body: {
+        status: "done",
+        clientKey: "6f1c2a0e-5b7d-4c1e-9a3f-2d8e7b6c5a41",
+        date: "2027-02-10",
+        sport: "running",
+        title: "Ten miles",
+        durationMin: 80,
+        distanceKm: 16.09344,
+        rpe: 4,
+      },
+    });
+    expect(log.status).toBe(201);
+    const csv = async () =>
+      String(
+        (
+          await una.call(exportRoute, "GET", `/api/athletes/${unaId}/export/logs.csv`, {
+            params: { id: unaId, file: "logs.csv" },
+            query: "?from=2027-02-01&to=2027-02-28",
+          })
+        ).json,
+      )
+        .replace(/^\uFEFF/, "")
+        .split("\r\n");
+    expect((await csv())[0]).toContain("distance_km");
+    expect((await display({ units: "imperial" })).status).toBe(200);
+    // The next request reads the new choice (the remembered session forgets the old one at once).
+    expect((await display()).json).toEqual({ units: "imperial" });
+    const lines = await csv();
+    expect(lines[0]).toContain("distance_mi");
+    // 16.09344 km is 10 mi exactly (1 mi = 1609.344 m, NIST Handbook 44).
+    expect(lines[1]).toContain(",10,");
+    const [row] = await query<{ units: string }>(`select units from "user" where id = $1`, [unaId]);
+    expect(row!.units).toBe("imperial");
   });
 
   it("a signed-out session cookie, replayed, no longer signs anyone in", async () => {

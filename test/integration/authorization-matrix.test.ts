@@ -251,6 +251,13 @@ const MATRIX: Record<string, Cell> = {
     body: () => ({ coachDigest: true }),
   },
   "GET /api/me": { ok: SIGNED_IN, path: () => "/api/me", params: () => ({}) },
+  "GET /api/me/display": { ok: SIGNED_IN, path: () => "/api/me/display", params: () => ({}) },
+  "PATCH /api/me/display": {
+    ok: SIGNED_IN,
+    path: () => "/api/me/display",
+    params: () => ({}),
+    body: () => ({ units: "metric" }),
+  },
   "GET /api/roster": {
     ok: ["coach"],
     path: () => "/api/roster",

@@ -4,6 +4,7 @@ import ICAL from "ical.js";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { resetConfig } from "@/features/platform/server/config";
 import * as sessionsRoute from "@/app/api/athletes/[id]/sessions/route";
+import * as testsRoute from "@/app/api/athletes/[id]/tests/route";
 import * as calendarRoute from "@/app/api/calendar/[feed]/route";
 import * as feedRoute from "@/app/api/me/calendar-feed/route";
 import * as notificationsRoute from "@/app/api/me/notifications/route";
@@ -125,6 +126,43 @@ describe("session reminders", () => {
     expect(await queueSessionReminders(new Date("2027-01-18T06:00:00Z"))).toBe(0);
     await deliverPending(new Date("2027-01-18T06:00:00Z"));
     expect(received("session_reminder").some((m) => m.subject.includes("After unsubscribing"))).toBe(false);
+  });
+
+  it("a reminder reads in the athlete's units: miles and pace per mile for an imperial runner", async () => {
+    // Athlete B: running zones with speeds (VT1 12 km/h, VT2 14.4 km/h) and imperial units.
+    await query(
+      `insert into athlete_profile (user_id, time_zone, reminder_timing, reminder_time) values ($1, 'UTC', 'morning_of', '07:00')
+       on conflict (user_id) do update set time_zone = 'UTC', reminder_timing = 'morning_of', reminder_time = '07:00'`,
+      [s.athleteB.id],
+    );
+    await query(`update "user" set units = 'imperial' where id = $1`, [s.athleteB.id]);
+    const test = await s.coach.browser.call(testsRoute, "POST", `/api/athletes/${s.athleteB.id}/tests`, {
+      params: { id: s.athleteB.id },
+      body: {
+        kind: "manual",
+        meta: { sport: "running", protocol: "lab report", date: "2027-03-01", endedBy: "plan" },
+        vt1: { hrBpm: 150, speedKmh: 12 },
+        vt2: { hrBpm: 172, speedKmh: 14.4 },
+      },
+    });
+    expect(test.status).toBe(201);
+    const made = await s.coach.browser.call(sessionsRoute, "POST", `/api/athletes/${s.athleteB.id}/sessions`, {
+      params: { id: s.athleteB.id },
+      body: {
+        date: "2027-03-10",
+        title: "Steady miles",
+        sport: "running",
+        structure: [{ type: "step", kind: "work", distanceM: 8046.72, zone: 2 }],
+      },
+    });
+    expect(made.status).toBe(201);
+    expect(await queueSessionReminders(new Date("2027-03-10T07:00:00Z"))).toBe(1);
+    await deliverPending(new Date("2027-03-10T07:00:00Z"));
+    const m = received("session_reminder", s.athleteB.email).find((x) => x.subject === "Today: Steady miles")!;
+    // 8046.72 m = 5 mi; zone 2 = 12.0–14.4 km/h = 8:03–6:43 per mile (hand-worked in platform/lib/units.test.ts).
+    expect(m.text).toContain("5 mi");
+    expect(m.text).toContain("6:43 /mi – 8:03 /mi");
+    expect(m.text).not.toContain("/km");
   });
 });
 

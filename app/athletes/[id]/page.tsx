@@ -119,8 +119,12 @@ export default async function AthletePage({ params }: { params: Promise<{ id: st
         <h2 id="zones-heading" className="text-lg font-bold">
           Zones in force today
         </h2>
-        <ZonesInForce inForce={zones.inForce} emptyText="No zones yet. Record a test to derive them." />
-        <ZoneSetList history={zones.history} canChoose={coaches} />
+        <ZonesInForce
+          units={actor.units}
+          inForce={zones.inForce}
+          emptyText="No zones yet. Record a test to derive them."
+        />
+        <ZoneSetList units={actor.units} history={zones.history} canChoose={coaches} />
       </section>
       <section className="card space-y-3" aria-labelledby="tests-heading">
         <div className="flex flex-wrap items-center justify-between gap-3">

@@ -37,7 +37,7 @@ export default async function TestPage({ params }: { params: Promise<{ id: strin
         </div>
       </div>
       <TestCautions />
-      <TestBody test={test} canEdit={canEdit} />
+      <TestBody test={test} canEdit={canEdit} units={actor.units} />
     </div>
   );
 }

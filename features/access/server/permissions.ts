@@ -4,6 +4,7 @@ import { getDb, schema } from "@/db/client";
 import { getAuth } from "@/features/auth/server";
 import { recallSession, rememberSession, sessionCookieKey } from "@/features/auth/server";
 import { HttpError, notFound, unauthenticated, forbidden } from "@/features/platform/server/http";
+import type { Units } from "@/features/platform/lib/units";
 import {
   canCoachAthlete,
   canEditAthlete,
@@ -20,6 +21,8 @@ export type { Actor } from "../lib/rules";
 export interface SignedInActor extends Actor {
   name: string;
   email: string;
+  /** The units every number this person reads is shown in. */
+  units: Units;
 }
 
 async function membershipsOf(userId: string): Promise<Membership[]> {
@@ -46,7 +49,7 @@ export async function findActor(headers: Headers): Promise<SignedInActor | null>
         startedAt,
       );
   }
-  const u = result.user as typeof result.user & { isAdmin?: boolean };
+  const u = result.user as typeof result.user & { isAdmin?: boolean; units?: string };
   // An account works only once its address is confirmed (a session from before confirmation was required counts as none).
   if (!u.emailVerified) return null;
   return {
@@ -54,6 +57,7 @@ export async function findActor(headers: Headers): Promise<SignedInActor | null>
     name: u.name,
     email: u.email,
     isAdmin: Boolean(u.isAdmin),
+    units: u.units === "imperial" ? "imperial" : "metric",
     memberships: await membershipsOf(u.id),
   };
 }

@@ -7,6 +7,7 @@ import { FuelChart, type FuelChartProps } from "./FuelChart";
 import { mmss } from "@/features/platform/lib/format";
 import { GasExchangeResult, type GasExchangeResultProps } from "./GasExchangeResult";
 import { SegmentEditor, type SegmentEditorProps } from "./SegmentEditor";
+import type { Units } from "@/features/platform/lib/units";
 
 export const KIND_LABELS = {
   gas_exchange: "Gas-exchange test",
@@ -55,10 +56,13 @@ export function TestBody({
   test,
   canEdit,
   interactive = true,
+  units = "metric",
 }: {
   test: TestView;
   canEdit: boolean;
   interactive?: boolean;
+  /** The reader's units, for the zone tables. */
+  units?: Units;
 }) {
   const r = test.result as R;
   return (
@@ -77,10 +81,17 @@ export function TestBody({
           <div className="space-y-4">
             <ZoneTable
               zones={test.zoneSet.zones}
+              sport={test.sport}
+              units={units}
               caption={`Effective from ${test.zoneSet.effectiveFrom} · ${test.zoneSet.source}`}
             />
             {test.zoneSet.fiveZones ? (
-              <ZoneTable zones={test.zoneSet.fiveZones} caption="Five-zone subdivision" />
+              <ZoneTable
+                zones={test.zoneSet.fiveZones}
+                sport={test.sport}
+                units={units}
+                caption="Five-zone subdivision"
+              />
             ) : null}
           </div>
         ) : (

@@ -78,6 +78,8 @@ function createAuth() {
     user: {
       additionalFields: {
         isAdmin: { type: "boolean", required: false, defaultValue: false, input: false },
+        // Metric or imperial (platform/lib/units.ts): changed through PATCH /api/me/display, not at sign-up.
+        units: { type: "string", required: false, defaultValue: "metric", input: false },
       },
     },
     session: {

@@ -4,6 +4,7 @@
  * text instead of running it (OWASP, "CSV Injection").
  */
 import Papa from "papaparse";
+import { distanceIn, type Units } from "@/features/platform/lib/units";
 
 export type Cell = string | number | boolean | null | undefined;
 
@@ -95,7 +96,9 @@ export interface LogRowOut {
   skipReason: string | null;
 }
 
-export function logsTable(rows: LogRowOut[]): Table {
+/** Distances and speeds in the reader's units: km and km/h, or mi and mph (the column names say which). */
+export function logsTable(rows: LogRowOut[], units: Units = "metric"): Table {
+  const imperial = units === "imperial";
   return table(
     [
       "date",
@@ -103,14 +106,14 @@ export function logsTable(rows: LogRowOut[]): Table {
       "sport",
       "status",
       "duration_min",
-      "distance_km",
+      imperial ? "distance_mi" : "distance_km",
       "rpe",
       "zone1_min",
       "zone2_min",
       "zone3_min",
       "hr_avg_bpm",
       "power_avg_w",
-      "speed_avg_kmh",
+      imperial ? "speed_avg_mph" : "speed_avg_kmh",
       "trimp",
       "trimp_method",
       "notes",
@@ -122,14 +125,14 @@ export function logsTable(rows: LogRowOut[]): Table {
       l.sport,
       l.status,
       r1(l.durationMin),
-      l.distanceKm,
+      l.distanceKm === null ? null : distanceIn(l.distanceKm, units),
       l.rpe,
       r1(l.measuredMinByZone?.[0]),
       r1(l.measuredMinByZone?.[1]),
       r1(l.measuredMinByZone?.[2]),
       r1(l.hrAvgBpm),
       r1(l.powerAvgW),
-      r1(l.speedAvgKmh),
+      r1(l.speedAvgKmh === null ? null : distanceIn(l.speedAvgKmh, units)),
       r1(l.trimp),
       l.trimpMethod,
       l.notes,
@@ -146,7 +149,9 @@ export interface ZoneRowOut {
   vt2: { hrBpm?: number | null; powerW?: number | null; speedKmh?: number | null };
 }
 
-export function zonesTable(rows: ZoneRowOut[]): Table {
+export function zonesTable(rows: ZoneRowOut[], units: Units = "metric"): Table {
+  const speed = units === "imperial" ? "speed_mph" : "speed_kmh";
+  const inUnits = (v: number | null | undefined) => (v === null || v === undefined ? null : distanceIn(v, units));
   return table(
     [
       "sport",
@@ -154,10 +159,10 @@ export function zonesTable(rows: ZoneRowOut[]): Table {
       "source",
       "vt1_hr_bpm",
       "vt1_power_w",
-      "vt1_speed_kmh",
+      `vt1_${speed}`,
       "vt2_hr_bpm",
       "vt2_power_w",
-      "vt2_speed_kmh",
+      `vt2_${speed}`,
     ],
     rows.map((z) => [
       z.sport,
@@ -165,10 +170,10 @@ export function zonesTable(rows: ZoneRowOut[]): Table {
       z.source,
       z.vt1.hrBpm,
       z.vt1.powerW,
-      r1(z.vt1.speedKmh),
+      r1(inUnits(z.vt1.speedKmh)),
       z.vt2.hrBpm,
       z.vt2.powerW,
-      r1(z.vt2.speedKmh),
+      r1(inUnits(z.vt2.speedKmh)),
     ]),
   );
 }

@@ -8,6 +8,7 @@ import { getZones } from "@/features/zones/server";
 import { csvOf, logsTable, planTable, zonesTable, type Table } from "../lib/csv";
 import { toXlsx, XLSX_TYPE } from "../lib/xlsx";
 import { encodeWorkout } from "../lib/fit-workout";
+import type { Units } from "@/features/platform/lib/units";
 
 export const EXPORT_FILES = ["plan.csv", "logs.csv", "zones.csv", "plan.xlsx", "logs.xlsx", "zones.xlsx"] as const;
 export type ExportFile = (typeof EXPORT_FILES)[number];
@@ -44,7 +45,7 @@ export function downloadResponse(d: Download): Response {
 
 /**
  * One athlete's plan, logs or zone history as CSV or .xlsx, for the athlete and their coaches (the same access as the
- * pages). Defaults: the plan a year back and a year ahead, logs the last year.
+ * pages), distances and speeds in the reader's units. Defaults: the plan a year back and a year ahead, logs the last year.
  */
 export async function exportFile(
   actor: Actor,
@@ -52,11 +53,12 @@ export async function exportFile(
   file: ExportFile,
   today: string,
   range: { from?: string; to?: string },
+  units: Units = "metric",
 ): Promise<Download> {
   const [what, format] = file.split(".") as ["plan" | "logs" | "zones", "csv" | "xlsx"];
   if (what === "zones") {
     const zones = await getZones(actor, athleteId);
-    return asDownload("tidemark-zone-history", "Zone history", zonesTable(zones.history), format);
+    return asDownload("tidemark-zone-history", "Zone history", zonesTable(zones.history, units), format);
   }
   const from = range.from ?? addDays(today, -365);
   const to = range.to ?? (what === "plan" ? addDays(today, 365) : today);
@@ -71,7 +73,7 @@ export async function exportFile(
     return asDownload(`tidemark-plan-${from}-to-${to}`, "Plan", planTable(sessions), format);
   }
   const logs = await listLogs(actor, athleteId, from, to);
-  return asDownload(`tidemark-logs-${from}-to-${to}`, "Logs", logsTable(logs), format);
+  return asDownload(`tidemark-logs-${from}-to-${to}`, "Logs", logsTable(logs, units), format);
 }
 
 /** A file name from a session's day and title: letters, digits and dashes only. */

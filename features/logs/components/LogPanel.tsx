@@ -1,4 +1,5 @@
 "use client";
+import { distanceIn, distanceText, toKm, type Units } from "@/features/platform/lib/units";
 import { useRouter } from "next/navigation";
 import { useState, type FormEvent } from "react";
 import { FormAlert, FormNotice } from "@/features/platform/components/form-bits";
@@ -40,7 +41,10 @@ export function LogPanel({
   athleteId,
   plannedMin,
   log,
+  units = "metric",
 }: {
+  /** The reader's units: the distance is asked and shown in km or mi (stored in km). */
+  units?: Units;
   sessionId: string;
   athleteId: string;
   plannedMin: number;
@@ -70,7 +74,7 @@ export function LogPanel({
         : {
             status,
             durationMin: num("durationMin"),
-            distanceKm: num("distanceKm"),
+            distanceKm: toKm(num("distanceKm"), units),
             rpe: num("rpe"),
             notes: String(f.get("notes") ?? ""),
           };
@@ -143,7 +147,7 @@ export function LogPanel({
             ) : (
               <span className="num">
                 {log.durationMin != null ? ` · ${Math.round(log.durationMin)} of ${Math.round(plannedMin)} min` : ""}
-                {log.distanceKm != null ? ` · ${log.distanceKm.toFixed(1)} km` : ""}
+                {log.distanceKm != null ? ` · ${distanceText(log.distanceKm * 1000, units)}` : ""}
                 {log.rpe != null ? ` · RPE ${log.rpe} (${anchorOf(log.rpe)})` : " · no RPE yet"}
               </span>
             )}
@@ -209,7 +213,7 @@ export function LogPanel({
                 />
               </label>
               <label className="block">
-                <span className="field-label">Distance (km, optional)</span>
+                <span className="field-label">Distance ({units === "imperial" ? "mi" : "km"}, optional)</span>
                 <input
                   name="distanceKm"
                   type="number"
@@ -218,7 +222,7 @@ export function LogPanel({
                   max={1000}
                   step="any"
                   className="field-input num"
-                  defaultValue={log?.distanceKm ?? ""}
+                  defaultValue={log?.distanceKm != null ? distanceIn(log.distanceKm, units) : ""}
                 />
               </label>
               <label className="block">

@@ -2,29 +2,40 @@ import { SPORT_LABELS } from "@/features/platform/lib/sports";
 import type { Block } from "@/features/planning/lib/session";
 import { targetText } from "@/features/zones/lib/format";
 import type { Zone } from "@/features/zones/lib/zones";
+import { distanceText, type Units } from "@/features/platform/lib/units";
 import { LogPanel, type LogView } from "./LogPanel";
 
 const KIND: Record<string, string> = { warmup: "Warm-up", work: "Work", recovery: "Recovery", cooldown: "Cool-down" };
 const SWATCH = ["bg-zone-1", "bg-zone-2", "bg-zone-3"];
 
-function amount(s: Extract<Block, { type: "step" }>): string {
+function amount(s: Extract<Block, { type: "step" }>, units: Units, sport: string): string {
   if (s.durationS !== undefined)
     return s.durationS % 60 === 0
       ? `${s.durationS / 60} min`
       : `${Math.floor(s.durationS / 60)} min ${s.durationS % 60} s`;
-  return s.distanceM! >= 1000 ? `${(s.distanceM! / 1000).toFixed(s.distanceM! % 1000 ? 1 : 0)} km` : `${s.distanceM} m`;
+  return distanceText(s.distanceM!, units, sport);
 }
 
 const sportName = (sport: string) => ((SPORT_LABELS as Record<string, string>)[sport] ?? sport).toLowerCase();
 
-function Steps({ blocks, zones, sport }: { blocks: Block[]; zones: Zone[] | null; sport: string }) {
+function Steps({
+  blocks,
+  zones,
+  sport,
+  units,
+}: {
+  blocks: Block[];
+  zones: Zone[] | null;
+  sport: string;
+  units: Units;
+}) {
   return (
     <ol className="space-y-1">
       {blocks.map((b, i) =>
         b.type === "repeat" ? (
           <li key={i} className="rounded border border-rule/70 p-2">
             <p className="text-sm font-semibold">{b.times} ×</p>
-            <Steps blocks={b.steps} zones={zones} sport={sport} />
+            <Steps blocks={b.steps} zones={zones} sport={sport} units={units} />
           </li>
         ) : (
           <li key={i} className="flex flex-wrap items-baseline gap-x-2 text-sm">
@@ -33,10 +44,12 @@ function Steps({ blocks, zones, sport }: { blocks: Block[]; zones: Zone[] | null
               className={`inline-block h-3 w-3 rounded-sm border border-ink/20 ${SWATCH[b.zone - 1]}`}
             />
             <span className="font-semibold">{KIND[b.kind]}</span>
-            <span className="num">{amount(b)}</span>
+            <span className="num">{amount(b, units, sport)}</span>
             <span>zone {b.zone}</span>
             <span className="num text-ink-soft">
-              {zones ? (targetText(zones[b.zone - 1], sport) ?? "no numbers in the zone set") : "no zone set yet"}
+              {zones
+                ? (targetText(zones[b.zone - 1], sport, units) ?? "no numbers in the zone set")
+                : "no zone set yet"}
             </span>
           </li>
         ),
@@ -62,7 +75,16 @@ export interface SessionCardData {
 }
 
 /** A planned session with each step's target in the athlete's own numbers, how much of it was done, and its log. */
-export function SessionCard({ s, canLog }: { s: SessionCardData; canLog: boolean }) {
+export function SessionCard({
+  s,
+  canLog,
+  units = "metric",
+}: {
+  s: SessionCardData;
+  canLog: boolean;
+  /** The reader's units (platform/lib/units.ts). */
+  units?: Units;
+}) {
   const plannedMin = s.totalS / 60;
   const fill = Math.min(1, s.compliance);
   return (
@@ -77,7 +99,7 @@ export function SessionCard({ s, canLog }: { s: SessionCardData; canLog: boolean
         </p>
       </header>
       {s.notes ? <p className="text-sm">{s.notes}</p> : null}
-      <Steps blocks={s.structure as Block[]} zones={s.zoneSet?.zones ?? null} sport={s.sport} />
+      <Steps blocks={s.structure as Block[]} zones={s.zoneSet?.zones ?? null} sport={s.sport} units={units} />
       {s.zoneSet?.fromSport ? (
         <p className="text-xs text-ink-soft">
           No {sportName(s.sport)} zones yet: heart-rate targets from the {sportName(s.zoneSet.fromSport)} zones in force
@@ -113,7 +135,9 @@ export function SessionCard({ s, canLog }: { s: SessionCardData; canLog: boolean
       ) : (
         <p className="text-xs font-semibold text-ink-soft">Not logged yet.</p>
       )}
-      {canLog ? <LogPanel sessionId={s.id} athleteId={s.athleteId} plannedMin={plannedMin} log={s.log} /> : null}
+      {canLog ? (
+        <LogPanel sessionId={s.id} athleteId={s.athleteId} plannedMin={plannedMin} log={s.log} units={units} />
+      ) : null}
     </article>
   );
 }

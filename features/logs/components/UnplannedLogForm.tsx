@@ -1,4 +1,5 @@
 "use client";
+import { toKm, type Units } from "@/features/platform/lib/units";
 import { useRouter } from "next/navigation";
 import { useState, type FormEvent } from "react";
 import { SPORT_LABELS, SPORTS } from "@/features/platform/lib/sports";
@@ -12,10 +13,13 @@ export function UnplannedLogForm({
   athleteId,
   today,
   defaultSport,
+  units = "metric",
 }: {
   athleteId: string;
   today: string;
   defaultSport: string;
+  /** The reader's units: the distance is asked in km or mi (stored in km). */
+  units?: Units;
 }) {
   const router = useRouter();
   const [key, setKey] = useState(() => crypto.randomUUID());
@@ -41,7 +45,7 @@ export function UnplannedLogForm({
           sport: f.get("sport"),
           title: f.get("title"),
           durationMin: num("durationMin"),
-          distanceKm: num("distanceKm"),
+          distanceKm: toKm(num("distanceKm"), units),
           rpe: num("rpe"),
           notes: String(f.get("notes") ?? ""),
         }),
@@ -89,7 +93,7 @@ export function UnplannedLogForm({
           <input name="durationMin" type="number" min={1} max={1440} step="any" required className="field-input num" />
         </label>
         <label className="block">
-          <span className="field-label">Distance (km, optional)</span>
+          <span className="field-label">Distance ({units === "imperial" ? "mi" : "km"}, optional)</span>
           <input name="distanceKm" type="number" min={0} max={1000} step="any" className="field-input num" />
         </label>
         <label className="block">

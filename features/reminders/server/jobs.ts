@@ -27,6 +27,7 @@ import { zoneSetsOfMany } from "@/features/zones/server";
 import type { ZoneSetView } from "@/features/zones/lib/views";
 import { dayLabel, digestMonday, retestStage, sessionReminderDay } from "../lib/clock";
 import { signingSecret } from "@/features/platform/server/config";
+import { distanceText, type Units } from "@/features/platform/lib/units";
 
 const STEP_LABELS = { warmup: "Warm-up", work: "Work", recovery: "Recovery", cooldown: "Cool-down" } as const;
 
@@ -58,6 +59,7 @@ async function alreadyQueued(keys: string[]): Promise<Set<string>> {
 function reminderSessions(
   zoneSets: ZoneSetView[],
   sessions: { title: string; sport: string; totalS: number; notes: string; structure: unknown; date: string }[],
+  units: Units = "metric",
 ): ReminderSession[] {
   return sessions.map((s) => {
     // No zones of the session's sport yet: heart rate from the nearest sport's zones, and the e-mail says so.
@@ -69,8 +71,8 @@ function reminderSessions(
       const amount =
         st.durationS != null
           ? `${Math.round(st.durationS / 6) / 10} min`
-          : `${Math.round((st.distanceM ?? 0) / 100) / 10} km`;
-      const numbers = set ? targetText(set.zones[st.zone - 1], s.sport) : null;
+          : distanceText(st.distanceM ?? 0, units, s.sport);
+      const numbers = set ? targetText(set.zones[st.zone - 1], s.sport, units) : null;
       const target = numbers ? `zone ${st.zone}, ${numbers}` : set ? `zone ${st.zone}` : `zone ${st.zone}`;
       const label = `${STEP_LABELS[st.kind]} ${amount}`;
       const last = lines.at(-1);
@@ -110,6 +112,7 @@ export async function queueSessionReminders(now: Date): Promise<number> {
       id: schema.user.id,
       name: schema.user.name,
       email: schema.user.email,
+      units: schema.user.units,
       timeZone: schema.athleteProfile.timeZone,
       timing: schema.athleteProfile.reminderTiming,
       time: schema.athleteProfile.reminderTime,
@@ -171,7 +174,7 @@ export async function queueSessionReminders(now: Date): Promise<number> {
         name: a.name,
         dayLabel: dayLabel(a.day),
         when,
-        sessions: reminderSessions(zoneSets.get(a.id) ?? [], own),
+        sessions: reminderSessions(zoneSets.get(a.id) ?? [], own, a.units === "imperial" ? "imperial" : "metric"),
         todayUrl: `${origin}/today`,
         unsubscribeUrl: l.unsubscribeUrl,
         settingsUrl: l.settingsUrl,

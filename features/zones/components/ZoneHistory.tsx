@@ -3,12 +3,21 @@ import { SPORT_LABELS } from "@/features/platform/lib/sports";
 import type { ZoneSetView } from "../lib/views";
 import { ChooseZoneSet } from "./ChooseZoneSet";
 import { ZoneTable } from "./ZoneTable";
+import { speedStyle, speedText, type Units } from "@/features/platform/lib/units";
 
 function sportName(s: string): string {
   return (SPORT_LABELS as Record<string, string>)[s] ?? s;
 }
 
-export function ZonesInForce({ inForce, emptyText }: { inForce: Record<string, ZoneSetView>; emptyText: string }) {
+export function ZonesInForce({
+  inForce,
+  emptyText,
+  units = "metric",
+}: {
+  inForce: Record<string, ZoneSetView>;
+  emptyText: string;
+  units?: Units;
+}) {
   const sets = Object.values(inForce);
   if (!sets.length) return <p className="text-ink-soft">{emptyText}</p>;
   return (
@@ -17,10 +26,17 @@ export function ZonesInForce({ inForce, emptyText }: { inForce: Record<string, Z
         <div key={z.id} className="space-y-3">
           <ZoneTable
             zones={z.zones}
+            sport={z.sport}
+            units={units}
             caption={`${sportName(z.sport)} · effective from ${z.effectiveFrom} · from a ${z.source}`}
           />
           {z.fiveZones ? (
-            <ZoneTable zones={z.fiveZones} caption={`${sportName(z.sport)} · five-zone subdivision`} />
+            <ZoneTable
+              zones={z.fiveZones}
+              sport={z.sport}
+              units={units}
+              caption={`${sportName(z.sport)} · five-zone subdivision`}
+            />
           ) : null}
         </div>
       ))}
@@ -32,7 +48,15 @@ export function ZonesInForce({ inForce, emptyText }: { inForce: Record<string, Z
  * The athlete's zone sets, newest first. Where two sets of one sport share a day, the one in force is marked and, for a
  * coach, each other one offers to take its place (they would otherwise be chosen silently).
  */
-export function ZoneSetList({ history, canChoose = false }: { history: ZoneSetView[]; canChoose?: boolean }) {
+export function ZoneSetList({
+  history,
+  canChoose = false,
+  units = "metric",
+}: {
+  history: ZoneSetView[];
+  canChoose?: boolean;
+  units?: Units;
+}) {
   if (!history.length) return null;
   // The list is newest first with the chosen set first on its day: the first of each sport and day is in force.
   const firstOfDay = new Map<string, string>();
@@ -75,8 +99,8 @@ export function ZoneSetList({ history, canChoose = false }: { history: ZoneSetVi
           <tr key={z.id} className="border-b border-rule/60">
             <td className="num py-1 pr-3">{z.effectiveFrom}</td>
             <td className="py-1 pr-3">{sportName(z.sport)}</td>
-            <td className="num py-1 pr-3">{describe(z.vt1)}</td>
-            <td className="num py-1 pr-3">{describe(z.vt2)}</td>
+            <td className="num py-1 pr-3">{describe(z.vt1, z.sport, units)}</td>
+            <td className="num py-1 pr-3">{describe(z.vt2, z.sport, units)}</td>
             <td className="py-1 pr-3">
               {z.testId ? (
                 <Link href={`/tests/${z.testId}`} className="text-tide underline">
@@ -106,10 +130,10 @@ export function ZoneSetList({ history, canChoose = false }: { history: ZoneSetVi
   );
 }
 
-function describe(v: ZoneSetView["vt1"]): string {
+function describe(v: ZoneSetView["vt1"], sport: string, units: Units): string {
   const parts: string[] = [];
   if (v.hrBpm != null) parts.push(`${v.hrBpm} bpm`);
   if (v.powerW != null) parts.push(`${v.powerW} W`);
-  if (v.speedKmh != null) parts.push(`${v.speedKmh} km/h`);
+  if (v.speedKmh != null) parts.push(speedText(v.speedKmh, speedStyle(sport, units)));
   return parts.join(" · ") || "—";
 }

@@ -1,11 +1,29 @@
+import { plainSpeed, speedStyle, type Units } from "@/features/platform/lib/units";
 import type { Measure, Zone } from "../lib/zones";
-import { paceText, rangeText } from "../lib/format";
+import { rangeText, speedRangeText } from "../lib/format";
 
 const SWATCH: Record<number, string> = { 1: "bg-zone-1", 2: "bg-zone-2", 3: "bg-zone-3" };
 
-/** A zone table: the zone number always printed beside its colour, every number with its unit. */
-export function ZoneTable({ zones, caption }: { zones: Zone[]; caption: string }) {
+/**
+ * A zone table: the zone number always printed beside its colour, every number with its unit, speeds as the sport says
+ * them in the reader's units (pace and speed for running, speed for cycling, the split for rowing, pace per 100 for
+ * swimming; platform/lib/units.ts).
+ */
+export function ZoneTable({
+  zones,
+  caption,
+  sport,
+  units = "metric",
+}: {
+  zones: Zone[];
+  caption: string;
+  sport: string;
+  units?: Units;
+}) {
   const measures = (Object.keys(zones[0]?.ranges ?? {}) as Measure[]).filter((m) => zones.some((z) => z.ranges[m]));
+  const style = speedStyle(sport, units);
+  // Beside a pace, the plain speed too (a treadmill is set in km/h or mph); a split or a swim pace stands alone.
+  const second = style.kind === "pace" && style.label === "Pace" && sport !== "swimming" ? plainSpeed(units) : null;
   return (
     <table className="w-full border-collapse text-left text-sm" data-testid="zone-table">
       <caption className="mb-2 text-left text-sm font-semibold">{caption}</caption>
@@ -26,12 +44,12 @@ export function ZoneTable({ zones, caption }: { zones: Zone[]; caption: string }
           ) : null}
           {measures.includes("speedKmh") ? (
             <th scope="col" className="py-2 pr-3 font-semibold">
-              Speed
+              {style.label}
             </th>
           ) : null}
-          {measures.includes("speedKmh") ? (
+          {measures.includes("speedKmh") && second ? (
             <th scope="col" className="py-2 pr-3 font-semibold">
-              Pace
+              {second.label}
             </th>
           ) : null}
           <th scope="col" className="py-2 pr-3 font-semibold">
@@ -58,9 +76,11 @@ export function ZoneTable({ zones, caption }: { zones: Zone[]; caption: string }
               <td className="num py-2 pr-3">{rangeText("powerW", z.ranges.powerW)}</td>
             ) : null}
             {measures.includes("speedKmh") ? (
-              <td className="num py-2 pr-3">{rangeText("speedKmh", z.ranges.speedKmh)}</td>
+              <td className="num py-2 pr-3">{speedRangeText(z.ranges.speedKmh, style)}</td>
             ) : null}
-            {measures.includes("speedKmh") ? <td className="num py-2 pr-3">{paceText(z.ranges.speedKmh)}</td> : null}
+            {measures.includes("speedKmh") && second ? (
+              <td className="num py-2 pr-3">{speedRangeText(z.ranges.speedKmh, second)}</td>
+            ) : null}
             <td className="num py-2 pr-3">
               {z.rpe[0]}–{z.rpe[1]}
             </td>

@@ -1,3 +1,4 @@
+import { clock, paceSeconds, speedIn, speedStyle, type SpeedStyle, type Units } from "@/features/platform/lib/units";
 import { formatPace, paceSPerKm, type Measure, type Range, type Zone } from "./zones";
 
 function fmt(measure: Measure, v: number): string {
@@ -31,6 +32,26 @@ export function paceText(r: Range | undefined): string {
   return `${formatPace(paceSPerKm(r.max!) + 1)} – ${formatPace(paceSPerKm(r.min!))}`;
 }
 
+/**
+ * A speed range in a sport's style (platform/lib/units.ts): speeds as "10.0–11.9 mph" (one shown step below the next
+ * zone's edge, as rangeText); paces and splits with the bounds swapped, a closed range a second short of the next zone's
+ * ("5:01 /km – 6:00 /km", "slower than 2:10 /500 m", "1:40 /100 m and faster").
+ */
+export function speedRangeText(r: Range | undefined, style: SpeedStyle): string {
+  if (!r) return "—";
+  if (style.kind === "speed") {
+    const f = (v: number) => speedIn(v, style).toFixed(1);
+    if (r.min === null && r.max !== null) return `below ${f(r.max)} ${style.unit}`;
+    if (r.max === null && r.min !== null) return `${f(r.min)} ${style.unit} and above`;
+    const top = Math.max(Number(f(r.min!)), Number(f(r.max!)) - 0.1);
+    return `${f(r.min!)}–${top.toFixed(1)} ${style.unit}`;
+  }
+  const p = (v: number) => `${clock(paceSeconds(v, style))} ${style.unit}`;
+  if (r.min === null && r.max !== null) return `slower than ${p(r.max)}`;
+  if (r.max === null && r.min !== null) return `${p(r.min)} and faster`;
+  return `${clock(paceSeconds(r.max!, style) + 1)} ${style.unit} – ${p(r.min!)}`;
+}
+
 /** The measures a sport trains with, first to last (common practice): runners, walkers and skiers by pace, then heart
  * rate; cyclists and rowers by power, then heart rate; speed last on the bike. */
 const MEASURE_ORDER: Record<string, Measure[]> = {
@@ -48,13 +69,13 @@ export function measureOrder(sport: string): Measure[] {
 
 /** A step's target in the athlete's own numbers, the sport's own measure first: heart rate, power and, for speed sports,
  * pace. */
-export function targetText(zone: Zone | undefined, sport: string): string | null {
+export function targetText(zone: Zone | undefined, sport: string, units: Units = "metric"): string | null {
   if (!zone) return null;
   const parts: string[] = [];
   for (const m of measureOrder(sport)) {
     const r = zone.ranges[m];
     if (!r) continue;
-    parts.push(m === "speedKmh" && sport !== "cycling" ? paceText(r) : rangeText(m, r));
+    parts.push(m === "speedKmh" ? speedRangeText(r, speedStyle(sport, units)) : rangeText(m, r));
   }
   return parts.length ? parts.join(" · ") : null;
 }

@@ -21,7 +21,7 @@ export default async function TestReportPage({ params }: { params: Promise<{ id:
         <TestHeader test={test} />
         <PrintButton />
       </div>
-      <TestBody test={test} canEdit={false} interactive={false} />
+      <TestBody test={test} canEdit={false} interactive={false} units={actor.units} />
       <TestCautions />
       <p className="text-xs text-ink-soft">
         Report printed from Tidemark. Thresholds: V-slope (Beaver, Wasserman &amp; Whipp 1986) and ventilatory

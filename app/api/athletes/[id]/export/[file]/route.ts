@@ -17,5 +17,5 @@ export const GET = route<RouteContext<"/api/athletes/[id]/export/[file]">>(async
   const actor = await requireActor(req.headers);
   const { id, file } = parseParams(await ctx.params, params);
   const range = parseQuery(req, query, "Give ?from=YYYY-MM-DD&to=YYYY-MM-DD, or neither.");
-  return downloadResponse(await exportFile(actor, id, file, new Date().toISOString().slice(0, 10), range));
+  return downloadResponse(await exportFile(actor, id, file, new Date().toISOString().slice(0, 10), range, actor.units));
 });
