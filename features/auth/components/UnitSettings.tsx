@@ -32,7 +32,7 @@ export function UnitSettings({ initial }: { initial: Units }) {
     >
       {state ? state.kind === "ok" ? <FormNotice>{state.text}</FormNotice> : <FormAlert>{state.text}</FormAlert> : null}
       <fieldset className="space-y-1">
-        <legend className="field-label">Units</legend>
+        <legend className="field-label">Show distances, speeds and paces in</legend>
         {UNIT_SYSTEMS.map((u) => (
           <label key={u} className="flex items-center gap-2">
             <input type="radio" name="units" value={u} checked={units === u} onChange={() => setUnits(u)} />
