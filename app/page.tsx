@@ -32,12 +32,12 @@ export default async function Landing() {
       <aside className="card" aria-label="How a week is checked">
         <p className="text-sm font-semibold">A week against its budget</p>
         <div
-          className="mt-3 flex h-6 overflow-hidden rounded"
+          className="mt-3 flex h-6 overflow-hidden rounded border border-ink"
           role="img"
           aria-label="Example week: zone 1 80 %, zone 2 8 %, zone 3 12 %"
         >
-          <div className="bg-zone-1" style={{ width: "80%" }} />
-          <div className="bg-zone-2" style={{ width: "8%" }} />
+          <div className="border-r border-ink bg-zone-1" style={{ width: "80%" }} />
+          <div className="border-r border-ink bg-zone-2" style={{ width: "8%" }} />
           <div className="bg-zone-3" style={{ width: "12%" }} />
         </div>
         <dl className="mt-3 grid grid-cols-3 gap-2 text-sm">

@@ -135,12 +135,18 @@ describe("CSV downloads from the athlete page", () => {
     await page.waitForURL(/\/athletes\/[0-9a-f-]+$/);
     const [download] = await Promise.all([
       page.waitForEvent("download"),
-      page.getByRole("link", { name: "logs, last year" }).click(),
+      page.getByRole("link", { name: "Logs, last year as CSV" }).click(),
     ]);
     expect(download.suggestedFilename()).toMatch(/^tidemark-logs-\d{4}-\d{2}-\d{2}-to-\d{4}-\d{2}-\d{2}\.csv$/);
     const text = fs.readFileSync((await download.path())!, "utf8").replace(/^\uFEFF/, "");
     expect(text.split("\r\n")[0]).toMatch(/^date,title,sport,status,duration_min/);
     expect(text.split("\r\n").length).toBeGreaterThan(2);
+    // The same logs as a workbook.
+    const [workbook] = await Promise.all([
+      page.waitForEvent("download"),
+      page.getByRole("link", { name: "Logs, last year as Excel workbook" }).click(),
+    ]);
+    expect(workbook.suggestedFilename()).toMatch(/^tidemark-logs-.*\.xlsx$/);
     expect(problems).toEqual([]);
   });
 });

@@ -98,6 +98,7 @@ export default async function AthletePage({ params }: { params: Promise<{ id: st
                 <a
                   className="font-semibold text-tide underline"
                   href={`/api/athletes/${id}/export/${file}.csv`}
+                  aria-label={`${label} as CSV`}
                   download
                 >
                   CSV
@@ -106,6 +107,7 @@ export default async function AthletePage({ params }: { params: Promise<{ id: st
                 <a
                   className="font-semibold text-tide underline"
                   href={`/api/athletes/${id}/export/${file}.xlsx`}
+                  aria-label={`${label} as Excel workbook`}
                   download
                 >
                   Excel (.xlsx)

@@ -39,10 +39,7 @@ function Steps({
           </li>
         ) : (
           <li key={i} className="flex flex-wrap items-baseline gap-x-2 text-sm">
-            <span
-              aria-hidden
-              className={`inline-block h-3 w-3 rounded-sm border border-ink/20 ${SWATCH[b.zone - 1]}`}
-            />
+            <span aria-hidden className={`inline-block h-3 w-3 rounded-sm border border-ink ${SWATCH[b.zone - 1]}`} />
             <span className="font-semibold">{KIND[b.kind]}</span>
             <span className="num">{amount(b, units, sport)}</span>
             <span>zone {b.zone}</span>

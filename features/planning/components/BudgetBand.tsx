@@ -2,6 +2,9 @@
 import type { Fix, WeekSummary } from "../lib/weeks";
 
 const ZONE_BG = ["bg-zone-1", "bg-zone-2", "bg-zone-3"];
+/** Zone segments are outlined in ink: zone 1's light fill alone is too close to the track (WCAG 2.2, 1.4.11; the ratios
+ * are checked in zone-colours.test.ts). */
+const SEGMENT = "border-r border-ink last:border-r-0";
 
 /** A week's planned minutes per zone as a stacked bar against the budget's shares, with its state and reasons. */
 export function BudgetBand({
@@ -55,13 +58,15 @@ export function BudgetBand({
         </p>
       </div>
       <div
-        className="relative mt-1 h-4 overflow-hidden rounded bg-ground"
+        className="relative mt-1 h-4 overflow-hidden rounded border border-ink bg-ground"
         role="img"
         aria-label={`${label}: ${week.plannedMinByZone.map((m, i) => `zone ${i + 1} ${total ? Math.round((100 * m) / total) : 0} %`).join(", ")}`}
       >
         <div className="flex h-full">
           {week.plannedMinByZone.map((m, i) =>
-            total ? <div key={i} className={ZONE_BG[i]} style={{ width: `${(100 * m) / total}%` }} /> : null,
+            total && m > 0 ? (
+              <div key={i} className={`${ZONE_BG[i]} ${SEGMENT}`} style={{ width: `${(100 * m) / total}%` }} />
+            ) : null,
           )}
         </div>
         {/* Budget targets: where zone 1 should end and zone 3 should start. */}
@@ -82,13 +87,19 @@ export function BudgetBand({
             Done <span className="num">{Math.round(done)} min</span>
           </span>
           <div
-            className="flex h-2 flex-1 overflow-hidden rounded bg-ground"
+            className="flex h-2 flex-1 overflow-hidden rounded border border-ink bg-ground"
             role="img"
             aria-label={`Done so far: ${week.doneMinByZone.map((m, i) => `zone ${i + 1} ${Math.round(m)} min`).join(", ")} of ${Math.round(total)} planned minutes`}
           >
             {week.doneMinByZone.map((m, i) =>
               scale ? (
-                <div key={i} className={`${ZONE_BG[i]} opacity-80`} style={{ width: `${(100 * m) / scale}%` }} />
+                m > 0 ? (
+                  <div
+                    key={i}
+                    className={`${ZONE_BG[i]} border-r border-ink`}
+                    style={{ width: `${(100 * m) / scale}%` }}
+                  />
+                ) : null
               ) : null,
             )}
           </div>

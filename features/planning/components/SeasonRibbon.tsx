@@ -2,7 +2,7 @@
 import { useQuery } from "@tanstack/react-query";
 import Link from "next/link";
 import { planQueries } from "../api";
-import { BLOCK_LABELS, type BlockName, type SeasonWeek } from "../lib/season";
+import { BLOCK_LABELS, BLOCK_SHORT, type BlockName, type SeasonWeek } from "../lib/season";
 import type { WeekSummary } from "../lib/weeks";
 
 /** The blocks' own palette (app/globals.css), apart from the zone colours; the competition block is dark with white text. */
@@ -50,6 +50,7 @@ export function SeasonRibbon({
             <li key={b} className="flex items-center gap-1">
               <span aria-hidden className={`inline-block h-3 w-3 rounded-sm border border-rule ${BLOCK_STYLE[b]}`} />
               {BLOCK_LABELS[b]}
+              <span className="text-ink-soft">({BLOCK_SHORT[b]})</span>
             </li>
           ))}
           <li>⟳ retest</li>
@@ -70,11 +71,14 @@ export function SeasonRibbon({
                 className={`relative block rounded border px-1 py-1 text-center text-[11px] leading-tight ${BLOCK_STYLE[w.block]} ${flags.length ? "border-alert" : "border-rule"}`}
                 title={`Week of ${w.weekStart}: ${BLOCK_LABELS[w.block]}, ${w.role}, ${w.volumeHours} h target${w.retest ? `, retest${w.retestNote ? ` (${w.retestNote})` : ""}` : ""}${w.events.length ? `, ${w.events.join(", ")}` : ""}${flags.length ? ` — ${flags.join("; ")}` : ""}`}
               >
+                {/* The block's name as well as its colour (colour is never the only cue). */}
+                <span aria-hidden className="block">
+                  {BLOCK_SHORT[w.block]}
+                </span>
                 <span className="block num">{w.weekStart.slice(5)}</span>
-                <span className="block num font-semibold">{w.volumeHours} h</span>
-                <span className="block">
-                  {w.retest ? "⟳" : "\u00a0"}
-                  {flags.length ? <span className="font-bold text-alert">!</span> : null}
+                <span className="block whitespace-nowrap num font-semibold">
+                  {w.volumeHours} h{w.retest ? " ⟳" : ""}
+                  {flags.length ? <span className="font-bold text-alert"> !</span> : null}
                 </span>
                 <span className="sr-only">
                   : week of {w.weekStart}, {BLOCK_LABELS[w.block]}

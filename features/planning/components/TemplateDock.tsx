@@ -18,9 +18,15 @@ const sportLabel = (s: string) => SPORT_LABELS[s as Sport] ?? s.replaceAll("_", 
 export function ZoneStrip({ minutesByZone }: { minutesByZone: [number, number, number] }) {
   const total = minutesByZone.reduce((a, b) => a + b, 0) || 1;
   return (
-    <div className="flex h-2.5 w-full overflow-hidden rounded-sm border border-rule" aria-hidden>
+    <div className="flex h-2.5 w-full overflow-hidden rounded-sm border border-ink" aria-hidden>
       {minutesByZone.map((m, z) =>
-        m > 0 ? <div key={z} className={ZONE_BG[z]} style={{ width: `${(100 * m) / total}%` }} /> : null,
+        m > 0 ? (
+          <div
+            key={z}
+            className={`${ZONE_BG[z]} border-r border-ink last:border-r-0`}
+            style={{ width: `${(100 * m) / total}%` }}
+          />
+        ) : null,
       )}
     </div>
   );

@@ -27,6 +27,16 @@ export const BLOCK_LABELS: Record<BlockName, string> = {
   transition: "Transition",
 };
 
+/** The same, short enough for one week of the season ribbon (the ribbon's legend pairs each with its full name). */
+export const BLOCK_SHORT: Record<BlockName, string> = {
+  general_preparation: "Gen",
+  specific_preparation: "Spec",
+  pre_competition: "Pre",
+  taper: "Taper",
+  competition: "Comp",
+  transition: "Trans",
+};
+
 /**
  * How much a season bends to an event (common practice of periodised plans; the taper lengths follow the taper
  * meta-analyses of Mujika & Padilla 2003 and Bosquet et al. 2007 for A events):

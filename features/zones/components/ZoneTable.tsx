@@ -62,10 +62,7 @@ export function ZoneTable({
           <tr key={z.zone} className="border-b border-rule/70">
             <th scope="row" className="py-2 pr-3 font-semibold">
               <span className="flex items-center gap-2">
-                <span
-                  aria-hidden
-                  className={`inline-block h-4 w-4 rounded-sm border border-ink/20 ${SWATCH[z.parent]}`}
-                />
+                <span aria-hidden className={`inline-block h-4 w-4 rounded-sm border border-ink ${SWATCH[z.parent]}`} />
                 {z.name}
               </span>
             </th>
