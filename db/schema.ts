@@ -268,6 +268,8 @@ export const notificationSetting = pgTable("notification_setting", {
   coachDigest: boolean("coach_digest").notNull().default(true),
   /** Secret part of the private calendar-feed address; null when the feed is off. */
   calendarToken: text("calendar_token").unique(),
+  /** An e-mail when someone writes on one of the person's session or log threads. */
+  messageEmails: boolean("message_emails").notNull().default(true),
   updatedAt: updatedAt(),
 });
 
@@ -594,3 +596,46 @@ export const soakFloor = pgTable("soak_floor", {
   id: bigserial("id", { mode: "number" }).primaryKey(),
   at: timestamp("at", { withTimezone: true }).notNull().defaultNow(),
 });
+
+// ---------------------------------------------------------------------------------------------------------------------
+// Threads: a short conversation on a planned session or on a log, between the athlete and their coaches (the same access
+// as the session or log itself).
+// ---------------------------------------------------------------------------------------------------------------------
+
+export const threadMessage = pgTable(
+  "thread_message",
+  {
+    id: text("id").primaryKey(),
+    /** The athlete whose session or log this is (who may read it is decided from them). */
+    athleteId: text("athlete_id")
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
+    plannedSessionId: text("planned_session_id").references(() => plannedSession.id, { onDelete: "cascade" }),
+    logId: text("log_id").references(() => sessionLog.id, { onDelete: "cascade" }),
+    authorId: text("author_id")
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
+    body: text("body").notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    check("thread_message_one_subject", sql`(${t.plannedSessionId} is null) <> (${t.logId} is null)`),
+    check("thread_message_body", sql`char_length(${t.body}) between 1 and 1000`),
+    index("thread_message_session_idx").on(t.plannedSessionId, t.createdAt),
+    index("thread_message_log_idx").on(t.logId, t.createdAt),
+    index("thread_message_athlete_idx").on(t.athleteId, t.createdAt),
+  ],
+);
+
+/** How far each person has read each thread ("s:<session id>" or "l:<log id>"). */
+export const threadRead = pgTable(
+  "thread_read",
+  {
+    userId: text("user_id")
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
+    threadKey: text("thread_key").notNull(),
+    lastReadAt: timestamp("last_read_at", { withTimezone: true }).notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.userId, t.threadKey] })],
+);

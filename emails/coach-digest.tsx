@@ -14,15 +14,19 @@ export interface CoachDigestProps {
   overdueRetests: DigestLine[];
   loadFlags: DigestLine[];
   missed: DigestLine[];
+  /** Athletes with messages the coach has not read yet. */
+  unread: DigestLine[];
   rosterUrl: string;
   unsubscribeUrl: string;
   settingsUrl: string;
 }
 
 export function coachDigestSubject(
-  p: Pick<CoachDigestProps, "squad" | "overBudget" | "overdueRetests" | "loadFlags" | "missed">,
+  p: Pick<CoachDigestProps, "squad" | "overBudget" | "overdueRetests" | "loadFlags" | "missed"> &
+    Partial<Pick<CoachDigestProps, "unread">>,
 ): string {
-  const n = p.overBudget.length + p.overdueRetests.length + p.loadFlags.length + p.missed.length;
+  const n =
+    p.overBudget.length + p.overdueRetests.length + p.loadFlags.length + p.missed.length + (p.unread?.length ?? 0);
   return n
     ? `${p.squad}: ${n} thing${n === 1 ? "" : "s"} to look at this week`
     : `${p.squad}: a quiet week, nothing flagged`;
@@ -33,6 +37,7 @@ const SECTIONS = [
   ["overdueRetests", "Retests overdue"],
   ["loadFlags", "Acute:chronic ratio outside 0.8–1.3"],
   ["missed", "Sessions missed last week"],
+  ["unread", "Messages you have not read"],
 ] as const;
 
 export function CoachDigestEmail(p: CoachDigestProps) {

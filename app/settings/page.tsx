@@ -1,7 +1,11 @@
 import { requirePageActor } from "@/features/access/server/current";
 import { getAthleteProfile } from "@/features/athletes/server/profile";
 import { ProfileForm } from "@/features/athletes/components/ProfileForm";
-import { CalendarFeedSettings, CoachDigestSettings } from "@/features/messages/components/EmailSettings";
+import {
+  CalendarFeedSettings,
+  CoachDigestSettings,
+  MessageEmailSettings,
+} from "@/features/messages/components/EmailSettings";
 import { getNotificationSettings } from "@/features/messages/server/preferences";
 import { FormNotice } from "@/features/platform/components/form-bits";
 import { publicOrigin } from "@/features/platform/server/origin";
@@ -54,6 +58,14 @@ export default async function SettingsPage({ searchParams }: { searchParams: Pro
           <CalendarFeedSettings
             initialUrl={settings.calendarToken ? `${publicOrigin()}/api/calendar/${settings.calendarToken}.ics` : null}
           />
+        </section>
+      ) : null}
+      {isAthlete || isCoach ? (
+        <section className="card space-y-2" aria-labelledby="messages-h">
+          <h2 id="messages-h" className="text-lg font-bold">
+            Messages
+          </h2>
+          <MessageEmailSettings initial={settings.messageEmails} />
         </section>
       ) : null}
       {!isAthlete && !isCoach ? <p className="card">Join a squad to set up reminders and e-mail.</p> : null}

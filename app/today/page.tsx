@@ -5,6 +5,7 @@ import { SPORT_LABELS } from "@/features/platform/lib/sports";
 import { describeMe } from "@/features/squads/server/squads";
 import { ROLE_LABELS } from "@/features/squads/schemas";
 import { SessionCard } from "@/features/logs/components/SessionCard";
+import { ThreadPanel } from "@/features/threads/components/ThreadPanel";
 import { UnplannedLogForm } from "@/features/logs/components/UnplannedLogForm";
 import { LOG_STATUS_LABELS } from "@/features/logs/schemas";
 import { sessionCards } from "@/features/logs/server/cards";
@@ -122,10 +123,20 @@ export default async function TodayPage() {
           Log an unplanned session
         </h2>
         {unplanned.length ? (
-          <p className="text-sm text-ink-soft">
-            Logged this week without a plan:{" "}
-            {unplanned.map((u) => `${u.title} (${Math.round(u.durationMin ?? 0)} min)`).join(", ")}.
-          </p>
+          <div className="space-y-2">
+            <p className="text-sm text-ink-soft">Logged this week without a plan:</p>
+            <ul className="space-y-2">
+              {unplanned.map((u) => (
+                <li key={u.id} className="space-y-1 text-sm">
+                  <p>
+                    <span className="font-semibold">{u.title}</span> · {u.date} ·{" "}
+                    <span className="num">{Math.round(u.durationMin ?? 0)} min</span>
+                  </p>
+                  <ThreadPanel kind="log" id={u.id} label="Messages about this log" />
+                </li>
+              ))}
+            </ul>
+          </div>
         ) : null}
         <UnplannedLogForm
           athleteId={actor.userId}

@@ -235,6 +235,17 @@ const MATRIX: Record<string, Cell> = {
     params: (i) => ({ id: i.log! }),
     body: () => ({ rpe: 5 }),
   },
+  "GET /api/logs/[id]/messages": {
+    ok: A_AND_COACH,
+    path: () => "/api/logs/x/messages",
+    params: (i) => ({ id: i.log! }),
+  },
+  "POST /api/logs/[id]/messages": {
+    ok: A_AND_COACH,
+    path: () => "/api/logs/x/messages",
+    params: (i) => ({ id: i.log! }),
+    body: () => ({ body: "How did it feel?" }),
+  },
   "DELETE /api/logs/[id]": {
     ok: A_AND_COACH,
     path: () => "/api/logs/x",
@@ -288,6 +299,17 @@ const MATRIX: Record<string, Cell> = {
     path: () => "/api/sessions/x",
     params: (i) => ({ id: i.session! }),
     body: () => ({ date: "2027-04-20" }),
+  },
+  "GET /api/sessions/[id]/messages": {
+    ok: A_AND_COACH,
+    path: () => "/api/sessions/x/messages",
+    params: (i) => ({ id: i.session! }),
+  },
+  "POST /api/sessions/[id]/messages": {
+    ok: A_AND_COACH,
+    path: () => "/api/sessions/x/messages",
+    params: (i) => ({ id: i.session! }),
+    body: () => ({ body: "Keep it easy." }),
   },
   "GET /api/sessions/[id]/workout": {
     ok: A_AND_COACH,

@@ -119,6 +119,7 @@ const templates = [
       overdueRetests: [],
       loadFlags: [],
       missed: [],
+      unread: [],
       rosterUrl: "http://app.test/roster",
       ...unsub,
     },

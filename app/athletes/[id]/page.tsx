@@ -8,6 +8,8 @@ import { getScreening } from "@/features/athlete-tests/server/screening";
 import { listTests } from "@/features/athlete-tests/server/tests";
 import { HttpError } from "@/features/platform/server/http";
 import { ZoneSetList, ZonesInForce } from "@/features/zones/components/ZoneHistory";
+import { ThreadPanel } from "@/features/threads/components/ThreadPanel";
+import { athleteThreads } from "@/features/threads/server";
 import { getZones } from "@/features/zones/server/zone-sets";
 import { membershipsOfAthlete } from "@/features/access/server/permissions";
 import { LoadChart } from "@/features/load/components/LoadChart";
@@ -33,13 +35,14 @@ export default async function AthletePage({ params }: { params: Promise<{ id: st
     throw e;
   });
   const today = localDate(new Date(), data.profile.timeZone);
-  const [tests, zones, screening, memberships, load, drift] = await Promise.all([
+  const [tests, zones, screening, memberships, load, drift, threads] = await Promise.all([
     listTests(actor, id),
     getZones(actor, id),
     getScreening(actor, id),
     membershipsOfAthlete(id),
     athleteLoad(actor, id, addDays(today, -83), today),
     athleteDrift(actor, id, today),
+    athleteThreads(actor, id),
   ]);
   const coaches = canCoachAthlete(actor, { userId: id, memberships });
   return (
@@ -52,6 +55,38 @@ export default async function AthletePage({ params }: { params: Promise<{ id: st
           Plan and calendar
         </Link>
       </div>
+      <section id="messages" className="card space-y-3" aria-labelledby="messages-heading">
+        <h2 id="messages-heading" className="text-lg font-bold">
+          Messages
+        </h2>
+        {threads.length ? (
+          <ul className="space-y-3">
+            {threads.map((t) => (
+              <li key={`${t.subject.kind}:${t.subject.id}`} className="space-y-1">
+                <p className="text-sm">
+                  <span className="font-semibold">{t.title}</span> · {t.date} ·{" "}
+                  {t.subject.kind === "session" ? "planned session" : "log"} · {t.messages}{" "}
+                  {t.messages === 1 ? "message" : "messages"}
+                  {t.unread ? <span className="ml-1 font-semibold text-alert">{t.unread} new</span> : null}
+                </p>
+                <p className="line-clamp-1 text-sm text-ink-soft">
+                  {t.lastAuthorName}: {t.lastBody}
+                </p>
+                <ThreadPanel
+                  kind={t.subject.kind}
+                  id={t.subject.id}
+                  label={t.unread ? "Read and answer" : "Open the conversation"}
+                />
+              </li>
+            ))}
+          </ul>
+        ) : (
+          <p className="text-sm text-ink-soft">
+            No messages yet. Every planned session and every log has its own conversation: open a session on the plan
+            (or on today&apos;s page) to write one.
+          </p>
+        )}
+      </section>
       <section className="card space-y-3" aria-labelledby="load-heading">
         <h2 id="load-heading" className="text-lg font-bold">
           Load, last 12 weeks

@@ -4,6 +4,7 @@ import { targetText } from "@/features/zones/lib/format";
 import type { Zone } from "@/features/zones/lib/zones";
 import { distanceText, type Units } from "@/features/platform/lib/units";
 import { LogPanel, type LogView } from "./LogPanel";
+import { ThreadPanel } from "@/features/threads/components/ThreadPanel";
 
 const KIND: Record<string, string> = { warmup: "Warm-up", work: "Work", recovery: "Recovery", cooldown: "Cool-down" };
 const SWATCH = ["bg-zone-1", "bg-zone-2", "bg-zone-3"];

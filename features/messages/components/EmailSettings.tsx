@@ -118,3 +118,42 @@ export function CalendarFeedSettings({ initialUrl }: { initialUrl: string | null
     </div>
   );
 }
+
+/** E-mails about new messages on the person's session and log conversations. */
+export function MessageEmailSettings({ initial }: { initial: boolean }) {
+  const [on, setOn] = useState(initial);
+  const [state, setState] = useState<{ kind: "ok" | "error"; text: string } | null>(null);
+  const [busy, setBusy] = useState(false);
+  return (
+    <form
+      className="space-y-3"
+      onSubmit={async (e) => {
+        e.preventDefault();
+        setBusy(true);
+        setState(null);
+        try {
+          await apiFetch("/api/me/notifications", { method: "PATCH", body: JSON.stringify({ messageEmails: on }) });
+          setState({
+            kind: "ok",
+            text: on
+              ? "Saved. A new message on one of your conversations comes by e-mail."
+              : "Saved. New messages wait in Tidemark; no e-mail is sent.",
+          });
+        } catch (err) {
+          setState({ kind: "error", text: err instanceof Error ? err.message : "Saving failed." });
+        } finally {
+          setBusy(false);
+        }
+      }}
+    >
+      {state ? state.kind === "ok" ? <FormNotice>{state.text}</FormNotice> : <FormAlert>{state.text}</FormAlert> : null}
+      <label className="flex items-center gap-2">
+        <input type="checkbox" checked={on} onChange={(e) => setOn(e.target.checked)} />
+        E-mail me when someone writes about one of my sessions or logs
+      </label>
+      <SubmitButton className="btn" disabled={busy}>
+        {busy ? "Saving…" : "Save message e-mails"}
+      </SubmitButton>
+    </form>
+  );
+}

@@ -4,13 +4,14 @@
  */
 import { createHmac, timingSafeEqual } from "node:crypto";
 
-export const UNSUBSCRIBABLE = ["session_reminder", "retest_reminder", "coach_digest"] as const;
+export const UNSUBSCRIBABLE = ["session_reminder", "retest_reminder", "coach_digest", "thread_message"] as const;
 export type UnsubscribableKind = (typeof UNSUBSCRIBABLE)[number];
 
 export const KIND_LABELS: Record<UnsubscribableKind, string> = {
   session_reminder: "session reminders",
   retest_reminder: "retest reminders",
   coach_digest: "the weekly coach digest",
+  thread_message: "e-mails about new messages",
 };
 
 const b64 = (s: string) => Buffer.from(s, "utf8").toString("base64url");

@@ -13,6 +13,8 @@ export interface NotificationSettings {
   timeZone: string;
   coachDigest: boolean;
   calendarToken: string | null;
+  /** An e-mail when someone writes on one of the person's threads. */
+  messageEmails: boolean;
 }
 
 async function settingsRow(userId: string): Promise<NotificationSettings> {
@@ -24,6 +26,7 @@ async function settingsRow(userId: string): Promise<NotificationSettings> {
     timeZone: row?.timeZone ?? "UTC",
     coachDigest: row?.coachDigest ?? true,
     calendarToken: row?.calendarToken ?? null,
+    messageEmails: row?.messageEmails ?? true,
   };
 }
 
@@ -33,7 +36,7 @@ export function getNotificationSettings(actor: Actor): Promise<NotificationSetti
 
 export async function updateNotificationSettings(
   actor: Actor,
-  patch: { timeZone?: string; coachDigest?: boolean },
+  patch: { timeZone?: string; coachDigest?: boolean; messageEmails?: boolean },
 ): Promise<NotificationSettings> {
   await getDb()
     .insert(schema.notificationSetting)
@@ -77,6 +80,7 @@ export async function readUnsubscribeLink(
       remindSessions: schema.athleteProfile.remindSessions,
       remindRetests: schema.athleteProfile.remindRetests,
       coachDigest: schema.notificationSetting.coachDigest,
+      messageEmails: schema.notificationSetting.messageEmails,
     })
     .from(schema.user)
     .leftJoin(schema.athleteProfile, eq(schema.athleteProfile.userId, schema.user.id))
@@ -88,7 +92,9 @@ export async function readUnsubscribeLink(
       ? u.remindSessions
       : parsed.kind === "retest_reminder"
         ? u.remindRetests
-        : u.coachDigest;
+        : parsed.kind === "thread_message"
+          ? u.messageEmails
+          : u.coachDigest;
   return { kind: parsed.kind, label: KIND_LABELS[parsed.kind], email: u.email, alreadyOff: on === false };
 }
 
@@ -115,6 +121,14 @@ export async function unsubscribe(
         .update(schema.athleteProfile)
         .set({ remindRetests: false })
         .where(eq(schema.athleteProfile.userId, parsed.userId));
+    else if (parsed.kind === "thread_message")
+      await tx
+        .insert(schema.notificationSetting)
+        .values({ userId: parsed.userId, messageEmails: false })
+        .onConflictDoUpdate({
+          target: schema.notificationSetting.userId,
+          set: { messageEmails: false, updatedAt: new Date() },
+        });
     else
       await tx
         .insert(schema.notificationSetting)

@@ -7,6 +7,7 @@ import { addDays } from "@/features/platform/lib/days";
 import { SubmitButton } from "@/features/platform/components/SubmitButton";
 import { invalidatePlan, type SessionDto } from "../api";
 import { LOG_WORD, zoneText } from "./session-text";
+import { ThreadPanel } from "@/features/threads/components/ThreadPanel";
 
 // The editor brings the form and validation libraries; it loads when a coach first opens it, not with the calendar.
 const SessionEditor = dynamic(() => import("./SessionEditor").then((m) => m.SessionEditor), {
@@ -74,6 +75,7 @@ export function SelectedSession({
           </a>
         </p>
       ) : null}
+      <ThreadPanel key={selected.id} kind="session" id={selected.id} />
       {canEdit && editing ? (
         <SessionEditor
           athleteId={athleteId}

@@ -346,6 +346,12 @@ export async function queueCoachDigests(now: Date): Promise<number> {
           detail: `acute:chronic ratio ${r.acwr?.toFixed(2) ?? "–"} (${r.loadFlag === "high" ? "above" : "below"} the usual band)`,
         })),
       missed,
+      unread: rows
+        .filter((r) => r.unreadMessages)
+        .map((r) => ({
+          athlete: r.name,
+          detail: `${r.unreadMessages} new ${r.unreadMessages === 1 ? "message" : "messages"} on their sessions and logs`,
+        })),
       rosterUrl: `${publicOrigin()}/roster?squad=${c.squadId}`,
       unsubscribeUrl: l.unsubscribeUrl,
       settingsUrl: l.settingsUrl,

@@ -50,6 +50,8 @@ export interface RosterRow {
   drift: { message: string; direction: "up" | "down" } | null;
   /** Readiness for testing and hard sessions: a hold, a missing or expired screening, a caution on heart rate. */
   readiness: { status: ReadinessStatus; holdHardSessions: boolean; label: string; hrMedication: boolean };
+  /** Messages on the athlete's threads the viewing coach has not read (added per viewer; never stored). */
+  unreadMessages?: number;
 }
 
 const days = (a: string, b: string) =>

@@ -12,6 +12,7 @@ import { DEFAULT_PLANNING_RULES } from "@/features/planning/lib/rules";
 import { rosterRow, type RosterRow } from "../lib/roster";
 import { readinessInputs } from "@/features/athlete-tests/server";
 import { EWMA_HISTORY_DAYS } from "@/features/load/lib/report";
+import { unreadByAthlete } from "@/features/threads/server";
 
 type PlannedRow = Record<string, unknown> & {
   id: string;
@@ -112,7 +113,18 @@ export async function squadRoster(
       from json_to_recordset(${JSON.stringify(updates)}::json) as v(id text, g bigint, day text, row jsonb)
       where c.athlete_id = v.id and c.generation = v.g`);
   }
-  return { squadId: id, rows: athletes.map((a) => fresh.get(a.id) ?? (a.row as unknown as RosterRow)) };
+  // Unread messages are the viewer's own, so they are never part of the stored rows: one query for the squad.
+  const unread = await unreadByAthlete(
+    actor.userId,
+    athletes.map((a) => a.id),
+  );
+  return {
+    squadId: id,
+    rows: athletes.map((a) => ({
+      ...(fresh.get(a.id) ?? (a.row as unknown as RosterRow)),
+      unreadMessages: unread.get(a.id) ?? 0,
+    })),
+  };
 }
 
 /**

@@ -21,6 +21,7 @@ function attention(r: RosterRow): number {
     (r.retestOverdue ? 1 : 0) +
     (r.loadFlag ? 1 : 0) +
     (r.drift ? 1 : 0) +
+    (r.unreadMessages ? 1 : 0) +
     (r.compliance4w !== null && r.compliance4w < 0.7 ? 1 : 0)
   );
 }
@@ -179,6 +180,18 @@ export function RosterTable({ squadId }: { squadId: string }) {
                     {r.name}
                   </Link>
                   <p className="text-xs text-ink-soft">{r.email}</p>
+                  {r.unreadMessages ? (
+                    <p className="mt-1 text-xs">
+                      <Link
+                        href={`/athletes/${r.id}#messages`}
+                        prefetch={false}
+                        className="font-semibold text-tide underline"
+                        data-testid="unread-messages"
+                      >
+                        {r.unreadMessages} new {r.unreadMessages === 1 ? "message" : "messages"}
+                      </Link>
+                    </p>
+                  ) : null}
                   {r.drift ? (
                     <p className="mt-1 max-w-xs text-xs text-alert" data-testid="drift">
                       Zone drift: {r.drift.message}

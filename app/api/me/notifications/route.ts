@@ -6,7 +6,8 @@ import { timeZoneSchema } from "@/features/platform/lib/time-zones";
 
 export const GET = route(async (req) => json(await getNotificationSettings(await requireActor(req.headers))));
 
-/** PATCH {timeZone?, coachDigest?}: the coach digest on or off and the time zone it follows. */
+/** PATCH {timeZone?, coachDigest?, messageEmails?}: the coach digest, the time zone it follows, and e-mails about new
+ * messages on the person's threads. */
 export const PATCH = route(async (req) => {
   const actor = await requireActor(req.headers);
   const body = await readJson(
@@ -15,6 +16,7 @@ export const PATCH = route(async (req) => {
       .object({
         timeZone: timeZoneSchema.optional(),
         coachDigest: z.boolean({ error: "coachDigest is true or false." }).optional(),
+        messageEmails: z.boolean({ error: "messageEmails is true or false." }).optional(),
       })
       .strict()
       .refine((b) => Object.keys(b).length > 0, { message: "Nothing to change." }),

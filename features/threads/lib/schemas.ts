@@ -1,0 +1,21 @@
+import { z } from "zod";
+
+/** Longest message on a thread: a few sentences (the database holds the same limit). */
+export const MESSAGE_MAX = 1000;
+
+/** A message: 1–1000 characters of text after trimming; line breaks are kept, other control characters refused. */
+export const messageSchema = z
+  .object({
+    body: z
+      .string({ error: "Write a message." })
+      .transform((s) => s.replace(/\r\n?/g, "\n").trim())
+      .pipe(
+        z
+          .string()
+          .min(1, "Write a message.")
+          .max(MESSAGE_MAX, `Keep a message under ${MESSAGE_MAX} characters.`)
+          // eslint-disable-next-line no-control-regex
+          .refine((s) => !/[\u0000-\u0009\u000B-\u001F\u007F]/.test(s), "A message holds text and line breaks only."),
+      ),
+  })
+  .strict();

@@ -1,0 +1,2 @@
+/** What other features may use of threads/server. */
+export * from "./threads";
