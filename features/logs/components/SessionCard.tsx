@@ -136,6 +136,7 @@ export function SessionCard({
       {canLog ? (
         <LogPanel sessionId={s.id} athleteId={s.athleteId} plannedMin={plannedMin} log={s.log} units={units} />
       ) : null}
+      <ThreadPanel kind="session" id={s.id} />
     </article>
   );
 }

@@ -14,7 +14,6 @@ export const messageSchema = z
           .string()
           .min(1, "Write a message.")
           .max(MESSAGE_MAX, `Keep a message under ${MESSAGE_MAX} characters.`)
-          // eslint-disable-next-line no-control-regex
           .refine((s) => !/[\u0000-\u0009\u000B-\u001F\u007F]/.test(s), "A message holds text and line breaks only."),
       ),
   })
