@@ -21,7 +21,10 @@ describe("conversations on sessions", () => {
     await athlete.page.goto(`${BASE}/today`);
     const thread = athlete.page.getByTestId("session-card").first().getByTestId("thread");
     await thread.getByText("Messages about this session").click();
-    await thread.getByText(/No messages yet|\(coach\)|Ines Varga/).first().waitFor();
+    await thread
+      .getByText(/No messages yet|\(coach\)|Ines Varga/)
+      .first()
+      .waitFor();
     await thread.getByLabel("Write a message").fill(note);
     await thread.getByRole("button", { name: "Send" }).click();
     await thread.getByText(note).waitFor();
@@ -53,7 +56,10 @@ describe("conversations on sessions", () => {
     await again.getByText("Ease off tomorrow").waitFor();
     await expect(again.innerText()).resolves.toMatch(/\(coach\)[\s\S]*new/);
     await shot(athlete.page, "thread-phone");
-    await athlete.page.getByTestId("session-card").first().screenshot({ path: `${SHOTS}/thread-card.png` });
+    await athlete.page
+      .getByTestId("session-card")
+      .first()
+      .screenshot({ path: `${SHOTS}/thread-card.png` });
     expect(athlete.problems).toEqual([]);
   });
 });
