@@ -39,3 +39,5 @@ export const changePasswordSchema = z
     confirm: z.string(),
   })
   .refine((v) => v.password === v.confirm, { path: ["confirm"], message: "The two new passwords differ." });
+
+export const changeEmailSchema = z.object({ newEmail: email });

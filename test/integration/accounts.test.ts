@@ -1,6 +1,7 @@
 // Sign-up, sign-in, squads, invitations and roster visibility through the real route handlers on real PostgreSQL.
 import { beforeAll, describe, expect, it } from "vitest";
 import * as meRoute from "@/app/api/me/route";
+import * as authRoute from "@/app/api/auth/[...all]/route";
 import * as displayRoute from "@/app/api/me/display/route";
 import * as logsRoute from "@/app/api/athletes/[id]/logs/route";
 import * as exportRoute from "@/app/api/athletes/[id]/export/[file]/route";
@@ -367,6 +368,35 @@ describe("accounts, squads and invitations", () => {
     expect(lines[1]).toContain(",10,");
     const [row] = await query<{ units: string }>(`select units from "user" where id = $1`, [unaId]);
     expect(row!.units).toBe("imperial");
+  });
+
+  it("a person moves their account to a new address: approved from the old one, confirmed from the new one, only then moved", async () => {
+    const b = new Browser("198.51.100.60");
+    await b.signUp("Eli Moss", "eli@example.test");
+    const open = async (kind: string, to: string) => {
+      const rows = await query<{ meta: { url: string } }>(
+        `select meta from outbox where kind = $1 and to_address = $2 order by created_at desc limit 1`,
+        [kind, to],
+      );
+      expect(rows[0], `${kind} to ${to}`).toBeTruthy();
+      const url = new URL(rows[0]!.meta.url);
+      return b.call(authRoute, "GET", url.pathname, { query: url.search });
+    };
+    const emailOf = async () =>
+      (await query<{ email: string }>(`select email from "user" where name = 'Eli Moss'`))[0]!.email;
+    expect((await b.auth("POST", "/change-email", { newEmail: "eli.moss@example.test" })).status).toBe(200);
+    // Nothing has moved yet, and nothing went to the new address: the old one approves first.
+    expect(await emailOf()).toBe("eli@example.test");
+    expect(await query(`select 1 from outbox where to_address = 'eli.moss@example.test'`)).toHaveLength(0);
+    expect((await open("email_change_confirmation", "eli@example.test")).status).toBeLessThan(400);
+    expect(await emailOf()).toBe("eli@example.test");
+    // The new address confirms itself, and the account moves.
+    expect((await open("email_change_verification", "eli.moss@example.test")).status).toBeLessThan(400);
+    expect(await emailOf()).toBe("eli.moss@example.test");
+    expect((await new Browser("198.51.100.61").signIn("eli.moss@example.test")).status).toBe(200);
+    expect((await new Browser("198.51.100.62").signIn("eli@example.test")).status).toBe(401);
+    // This device, still signed in, reads the new address at once.
+    expect((await b.call(meRoute, "GET", "/api/me")).json.user.email).toBe("eli.moss@example.test");
   });
 
   it("a signed-out session cookie, replayed, no longer signs anyone in", async () => {

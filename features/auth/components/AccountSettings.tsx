@@ -7,9 +7,12 @@ import type { z } from "zod";
 import { authErrorMessage, FieldError, FormAlert, FormNotice } from "@/features/platform/components/form-bits";
 import { SubmitButton } from "@/features/platform/components/SubmitButton";
 import { authClient } from "../client";
-import { changeNameSchema, changePasswordSchema } from "../schemas";
+import { changeEmailSchema, changeNameSchema, changePasswordSchema } from "../schemas";
 
-/** The signed-in person's own name and password (every role). Changing the password signs out every other device. */
+/**
+ * The signed-in person's own name, e-mail address and password (every role). Changing the password signs out every other
+ * device; a new address is approved from the old one and confirmed from the new one.
+ */
 export function AccountSettings({ name, email }: { name: string; email: string }) {
   const router = useRouter();
   const [nameSaved, setNameSaved] = useState(false);
@@ -23,6 +26,22 @@ export function AccountSettings({ name, email }: { name: string; email: string }
   const passwordForm = useForm<z.infer<typeof changePasswordSchema>>({
     resolver: zodResolver(changePasswordSchema),
     defaultValues: { currentPassword: "", password: "", confirm: "" },
+  });
+
+  const [emailSent, setEmailSent] = useState<string>();
+  const [emailError, setEmailError] = useState<string>();
+  const emailForm = useForm<z.infer<typeof changeEmailSchema>>({
+    resolver: zodResolver(changeEmailSchema),
+    defaultValues: { newEmail: "" },
+  });
+  const saveEmail = emailForm.handleSubmit(async (v) => {
+    setEmailSent(undefined);
+    setEmailError(undefined);
+    if (v.newEmail === email.toLowerCase()) return setEmailError("That is the address you sign in with already.");
+    const { error } = await authClient.changeEmail({ newEmail: v.newEmail, callbackURL: "/settings" });
+    if (error) return setEmailError(authErrorMessage(error));
+    emailForm.reset();
+    setEmailSent(v.newEmail);
   });
 
   const saveName = nameForm.handleSubmit(async (v) => {
@@ -46,7 +65,8 @@ export function AccountSettings({ name, email }: { name: string; email: string }
     setPasswordSaved(true);
   });
   const ne = nameForm.formState.errors,
-    pe = passwordForm.formState.errors;
+    pe = passwordForm.formState.errors,
+    ee = emailForm.formState.errors;
   return (
     <div className="space-y-6">
       <form onSubmit={saveName} noValidate className="space-y-3">
@@ -70,6 +90,38 @@ export function AccountSettings({ name, email }: { name: string; email: string }
         </div>
         <SubmitButton className="btn" disabled={nameForm.formState.isSubmitting}>
           Save my name
+        </SubmitButton>
+      </form>
+      <form onSubmit={saveEmail} noValidate className="space-y-3">
+        <h3 className="font-semibold">Change your e-mail address</h3>
+        <p className="text-sm text-ink-soft">
+          You sign in as <span className="font-semibold">{email}</span>. A link to approve the change goes to this
+          address first, then a link to confirm the new one goes to it; the account moves only then.
+        </p>
+        <FormAlert>{emailError}</FormAlert>
+        {emailSent ? (
+          <FormNotice>
+            Sent. Open the message at {email} to approve the move to {emailSent}, then the one that arrives at{" "}
+            {emailSent}.
+          </FormNotice>
+        ) : null}
+        <div>
+          <label htmlFor="account-new-email" className="field-label">
+            New e-mail address
+          </label>
+          <input
+            id="account-new-email"
+            type="email"
+            autoComplete="email"
+            className="field-input"
+            aria-invalid={!!ee.newEmail}
+            aria-describedby="account-new-email-error"
+            {...emailForm.register("newEmail")}
+          />
+          <FieldError id="account-new-email-error" message={ee.newEmail?.message} />
+        </div>
+        <SubmitButton className="btn" disabled={emailForm.formState.isSubmitting}>
+          Send the links
         </SubmitButton>
       </form>
       <form onSubmit={savePassword} noValidate className="space-y-3">

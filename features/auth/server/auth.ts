@@ -7,7 +7,13 @@ import { clearFailedSignIns, recordFailedSignIn, signInPausedFor } from "./sign-
 import { drizzleAdapter } from "better-auth/adapters/drizzle";
 import { getDb, schema } from "@/db/client";
 import { forgetSessionToken, forgetUserSessions } from "./session-memo";
-import { sendEmailVerification, sendExistingAccountNotice, sendPasswordReset } from "@/features/messages/server";
+import {
+  sendEmailChangeConfirmation,
+  sendEmailVerification,
+  sendExistingAccountNotice,
+  sendNewAddressVerification,
+  sendPasswordReset,
+} from "@/features/messages/server";
 
 /** Sign-ins per minute per client address: 8, or 60 when no trusted proxy names the address (then every client shares one
  * bucket, and the per-account limit does the fine work). TIDEMARK_SIGN_IN_LIMIT_PER_MIN overrides both. */
@@ -72,10 +78,21 @@ function createAuth() {
       autoSignInAfterVerification: true,
       expiresIn: 24 * 60 * 60,
       sendVerificationEmail: async ({ user, url }) => {
-        await sendEmailVerification({ to: user.email, name: user.name, url });
+        // An account whose address is already confirmed is moving to a new one (the change of address below); any
+        // other is a new account.
+        if (user.emailVerified) await sendNewAddressVerification({ to: user.email, name: user.name, url });
+        else await sendEmailVerification({ to: user.email, name: user.name, url });
       },
     },
     user: {
+      // A change of address is approved from the current address, then confirmed from the new one; only then does the
+      // account move (better-auth's change-email flow with a confirmation).
+      changeEmail: {
+        enabled: true,
+        sendChangeEmailConfirmation: async ({ user, newEmail, url }) => {
+          await sendEmailChangeConfirmation({ to: user.email, name: user.name, newEmail, url });
+        },
+      },
       additionalFields: {
         isAdmin: { type: "boolean", required: false, defaultValue: false, input: false },
         // Metric or imperial (platform/lib/units.ts): changed through PATCH /api/me/display, not at sign-up.

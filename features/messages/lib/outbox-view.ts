@@ -27,7 +27,13 @@ export function localOutboxEnabled(mail: MailSettings): boolean {
 }
 
 /** Messages whose links open an account (reset, invitation, address confirmation): shown masked on the outbox page. */
-export const ACCOUNT_MESSAGE_KINDS = new Set(["password_reset", "invitation", "email_verification"]);
+export const ACCOUNT_MESSAGE_KINDS = new Set([
+  "password_reset",
+  "invitation",
+  "email_verification",
+  "email_change_confirmation",
+  "email_change_verification",
+]);
 
 /** Replaces the secret part of every link in a message's text: what is left says where the link goes, not how to use it. */
 export function maskLinks(text: string): string {

@@ -12,6 +12,14 @@ import {
   SignInPausedEmail,
 } from "@/emails/email-verification";
 import { PasswordResetEmail, passwordResetSubject, passwordResetText } from "@/emails/password-reset";
+import {
+  EmailChangeConfirmationEmail,
+  emailChangeConfirmationSubject,
+  emailChangeConfirmationText,
+  NewAddressEmail,
+  newAddressSubject,
+  newAddressText,
+} from "@/emails/email-change";
 import { renderEmailHtml } from "@/emails/render";
 import { queueMessage } from "./outbox";
 
@@ -82,5 +90,34 @@ export async function sendInvitation(
     text: invitationText(p),
     html: await renderEmailHtml(createElement(InvitationEmail, p)),
     meta: { url: p.url, invitationId: p.invitationId },
+  });
+}
+
+/** A change of address asked for while signed in: the current address approves it first. */
+export async function sendEmailChangeConfirmation(p: {
+  to: string;
+  name: string;
+  newEmail: string;
+  url: string;
+}): Promise<void> {
+  await queueMessage(getDb(), {
+    kind: "email_change_confirmation",
+    to: p.to,
+    subject: emailChangeConfirmationSubject,
+    text: emailChangeConfirmationText(p),
+    html: await renderEmailHtml(createElement(EmailChangeConfirmationEmail, p)),
+    meta: { url: p.url, newEmail: p.newEmail },
+  });
+}
+
+/** Then the new address confirms itself, and the account moves to it. */
+export async function sendNewAddressVerification(p: { to: string; name: string; url: string }): Promise<void> {
+  await queueMessage(getDb(), {
+    kind: "email_change_verification",
+    to: p.to,
+    subject: newAddressSubject,
+    text: newAddressText(p),
+    html: await renderEmailHtml(createElement(NewAddressEmail, p)),
+    meta: { url: p.url },
   });
 }
