@@ -41,6 +41,11 @@ export const user = pgTable(
     isAdmin: boolean("is_admin").notNull().default(false),
     /** The person's units: "metric" or "imperial" (platform/lib/units.ts); every number they read follows it. */
     units: text("units").notNull().default("metric"),
+    /**
+     * A profile a coach set up for an athlete who has no e-mail address yet (squads/server/managed.ts): it cannot sign
+     * in and gets no e-mail until the coach sends it to a real address and the athlete chooses a password.
+     */
+    managed: boolean("managed").notNull().default(false),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
   },

@@ -76,3 +76,42 @@ export function newAddressText(p: NewAddressProps): string {
     "The link expires in 24 hours. Until then the account keeps its old address.",
   ].join("\n");
 }
+
+/** To an athlete whose coach kept their profile: it is theirs once they choose a password. */
+export interface ManagedHandOverProps {
+  name: string;
+  url: string;
+}
+
+export const managedHandOverSubject = "Your coach set up your Tidemark profile: choose a password";
+
+export function ManagedHandOverEmail(p: ManagedHandOverProps) {
+  return (
+    <EmailLayout title={managedHandOverSubject}>
+      <p>Hello {p.name},</p>
+      <p>
+        Your coach keeps your tests, zones and plan in Tidemark under a profile in your name, and hands it over to you
+        at this address. Choose a password, and you sign in with this address from then on:
+      </p>
+      <p>
+        <a href={p.url} style={{ color: "#0f5e63", fontWeight: 700 }}>
+          Choose my password
+        </a>
+      </p>
+      <p style={{ fontSize: 13, color: "#5b6770" }}>
+        The link works for an hour; your coach can send a new one. If you do not know this coach, ignore this message.
+      </p>
+    </EmailLayout>
+  );
+}
+
+export function managedHandOverText(p: ManagedHandOverProps): string {
+  return [
+    `Hello ${p.name},`,
+    "",
+    "Your coach keeps your tests, zones and plan in Tidemark under a profile in your name, and hands it over to you at this address. Choose a password, and you sign in with this address from then on:",
+    p.url,
+    "",
+    "The link works for an hour; your coach can send a new one. If you do not know this coach, ignore this message.",
+  ].join("\n");
+}

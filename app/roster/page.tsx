@@ -3,6 +3,7 @@ import { requirePageActor } from "@/features/access/server/current";
 import { coachedSquadIds, isHeadCoachOf } from "@/features/access/lib/rules";
 import { describeMe } from "@/features/squads/server/squads";
 import { InvitePanel } from "@/features/squads/components/InvitePanel";
+import { AddManagedAthlete } from "@/features/squads/components/ManagedAthleteForms";
 import { RosterTable } from "@/features/squads/components/RosterTable";
 import { fakeEmailOutboxUrl, localOutboxEnabled } from "@/features/messages/server/list";
 
@@ -70,6 +71,9 @@ export default async function RosterPage({ searchParams }: { searchParams: Promi
             <InvitePanel squadId={squad.id} fakeInbox={localOutboxEnabled() ? fakeEmailOutboxUrl() : null} />
           </div>
         ) : null}
+        <div className="max-w-xl">
+          <AddManagedAthlete squadId={squad.id} />
+        </div>
       </div>
     </div>
   );

@@ -74,6 +74,15 @@ async function newSession(): Promise<string> {
   );
   return r.json.id;
 }
+async function newManaged(): Promise<string> {
+  const r = await s.head.browser.call(
+    modules["/app/api/squads/[id]/athletes/route.ts"]!,
+    "POST",
+    "/api/squads/x/athletes",
+    { params: { id: s.squadId }, body: { name: "Matrix Managed", sports: ["running"] } },
+  );
+  return r.json.id;
+}
 async function newLog(): Promise<string> {
   const id = await newSession();
   const r = await s.athleteA.browser.call(
@@ -114,6 +123,13 @@ const MATRIX: Record<string, Cell> = {
     ok: A_AND_COACH,
     path: () => "/api/athletes/x/export/plan.csv",
     params: (i) => ({ id: i.athleteA!, file: "plan.csv" }),
+  },
+  "POST /api/athletes/[id]/hand-over": {
+    ok: ["coach"],
+    path: () => "/api/athletes/x/hand-over",
+    params: (i) => ({ id: i.managed! }),
+    body: () => ({ email: `handed-${Math.random().toString(36).slice(2)}@matrix.test` }),
+    fresh: async () => ({ managed: await newManaged() }),
   },
   "GET /api/athletes/[id]/load": {
     ok: A_AND_COACH,
@@ -322,6 +338,12 @@ const MATRIX: Record<string, Cell> = {
     params: (i) => ({ id: i.session! }),
     fresh: async () => ({ session: await newSession() }),
   },
+  "POST /api/squads/[id]/athletes": {
+    ok: ["coach"],
+    path: () => "/api/squads/x/athletes",
+    params: (i) => ({ id: i.squad! }),
+    body: () => ({ name: "Added Athlete", sports: ["cycling"] }),
+  },
   "GET /api/squads/[id]/invitations": {
     ok: ["coach"],
     path: () => "/api/squads/x/invitations",
@@ -457,6 +479,7 @@ beforeAll(async () => {
   Object.assign(ids, { athleteA: s.athleteA.id, squad: s.squadId });
   ids.session = await newSession();
   ids.log = await newLog();
+  ids.managed = await newManaged();
   ids.template = await newTemplate();
   const season = await s.head.browser.call(
     modules["/app/api/athletes/[id]/seasons/route.ts"]!,

@@ -9,6 +9,8 @@ import { listTests } from "@/features/athlete-tests/server/tests";
 import { HttpError } from "@/features/platform/server/http";
 import { ZoneSetList, ZonesInForce } from "@/features/zones/components/ZoneHistory";
 import { ThreadPanel } from "@/features/threads/components/ThreadPanel";
+import { HandOverManagedAthlete } from "@/features/squads/components/ManagedAthleteForms";
+import { isPlaceholderEmail, shownEmail } from "@/features/squads/lib/managed";
 import { athleteThreads } from "@/features/threads/server";
 import { getZones } from "@/features/zones/server/zone-sets";
 import { membershipsOfAthlete } from "@/features/access/server/permissions";
@@ -50,11 +52,14 @@ export default async function AthletePage({ params }: { params: Promise<{ id: st
       <div>
         <p className="text-sm font-semibold uppercase tracking-widest text-tide">Athlete</p>
         <h1 className="text-2xl font-bold">{data.athlete.name}</h1>
-        <p className="text-sm text-ink-soft">{data.athlete.email}</p>
+        <p className="text-sm text-ink-soft">{shownEmail(data.athlete.email)}</p>
         <Link className="btn mt-3" href={`/athletes/${id}/plan`}>
           Plan and calendar
         </Link>
       </div>
+      {coaches && isPlaceholderEmail(data.athlete.email) ? (
+        <HandOverManagedAthlete athleteId={id} name={data.athlete.name} />
+      ) : null}
       <section id="messages" className="card space-y-3" aria-labelledby="messages-heading">
         <h2 id="messages-heading" className="text-lg font-bold">
           Messages

@@ -1,4 +1,5 @@
 import "server-only";
+import { eq } from "drizzle-orm";
 import { betterAuth } from "better-auth";
 import { APIError, createAuthMiddleware } from "better-auth/api";
 import { personNameSchema } from "../schemas";
@@ -11,6 +12,7 @@ import {
   sendEmailChangeConfirmation,
   sendEmailVerification,
   sendExistingAccountNotice,
+  sendManagedHandOver,
   sendNewAddressVerification,
   sendPasswordReset,
 } from "@/features/messages/server";
@@ -68,7 +70,25 @@ function createAuth() {
         await sendExistingAccountNotice({ to: user.email, name: user.name });
       },
       sendResetPassword: async ({ user, url }) => {
-        await sendPasswordReset({ to: user.email, name: user.name, url });
+        // A profile a coach kept for the athlete (squads/server/managed.ts) is being handed over: the link chooses its
+        // first password.
+        if ((user as { managed?: boolean }).managed)
+          await sendManagedHandOver({ to: user.email, name: user.name, url });
+        else await sendPasswordReset({ to: user.email, name: user.name, url });
+      },
+      // Choosing a password from the link shows the address is the athlete's: a handed-over profile becomes an ordinary
+      // account, with its reminders on.
+      onPasswordReset: async ({ user }) => {
+        if (!(user as { managed?: boolean }).managed) return;
+        await getDb()
+          .update(schema.user)
+          .set({ managed: false, emailVerified: true, updatedAt: new Date() })
+          .where(eq(schema.user.id, user.id));
+        await getDb()
+          .update(schema.athleteProfile)
+          .set({ remindSessions: true, remindRetests: true })
+          .where(eq(schema.athleteProfile.userId, user.id));
+        forgetUserSessions(user.id);
       },
     },
     emailVerification: {
@@ -97,6 +117,7 @@ function createAuth() {
         isAdmin: { type: "boolean", required: false, defaultValue: false, input: false },
         // Metric or imperial (platform/lib/units.ts): changed through PATCH /api/me/display, not at sign-up.
         units: { type: "string", required: false, defaultValue: "metric", input: false },
+        managed: { type: "boolean", required: false, defaultValue: false, input: false },
       },
     },
     session: {

@@ -33,6 +33,7 @@ export const ACCOUNT_MESSAGE_KINDS = new Set([
   "email_verification",
   "email_change_confirmation",
   "email_change_verification",
+  "managed_hand_over",
 ]);
 
 /** Replaces the secret part of every link in a message's text: what is left says where the link goes, not how to use it. */

@@ -14,6 +14,9 @@ import {
 import { PasswordResetEmail, passwordResetSubject, passwordResetText } from "@/emails/password-reset";
 import {
   EmailChangeConfirmationEmail,
+  ManagedHandOverEmail,
+  managedHandOverSubject,
+  managedHandOverText,
   emailChangeConfirmationSubject,
   emailChangeConfirmationText,
   NewAddressEmail,
@@ -118,6 +121,18 @@ export async function sendNewAddressVerification(p: { to: string; name: string; 
     subject: newAddressSubject,
     text: newAddressText(p),
     html: await renderEmailHtml(createElement(NewAddressEmail, p)),
+    meta: { url: p.url },
+  });
+}
+
+/** A managed profile handed over to the athlete's address: the link chooses its first password. */
+export async function sendManagedHandOver(p: { to: string; name: string; url: string }): Promise<void> {
+  await queueMessage(getDb(), {
+    kind: "managed_hand_over",
+    to: p.to,
+    subject: managedHandOverSubject,
+    text: managedHandOverText(p),
+    html: await renderEmailHtml(createElement(ManagedHandOverEmail, p)),
     meta: { url: p.url },
   });
 }

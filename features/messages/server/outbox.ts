@@ -32,7 +32,10 @@ const QUEUE_CHUNK = 500;
  * Writes many messages in a few statements (one per QUEUE_CHUNK), in the caller's transaction when one is given. Returns
  * the new ids of the messages written; a message whose idempotency key was already queued is skipped.
  */
-export async function queueMessages(db: Executor, messages: OutgoingMessage[]): Promise<string[]> {
+export async function queueMessages(db: Executor, messagesIn: OutgoingMessage[]): Promise<string[]> {
+  // An address at a .invalid domain (RFC 2606) can never receive mail: the placeholder of a profile a coach keeps for an
+  // athlete without an address (squads/lib/managed.ts). Such messages are not queued at all.
+  const messages = messagesIn.filter((m) => !/\.invalid$/i.test(m.to.trim()));
   const ids: string[] = [];
   for (let i = 0; i < messages.length; i += QUEUE_CHUNK) {
     const values = messages.slice(i, i + QUEUE_CHUNK).map((message) => ({

@@ -75,7 +75,6 @@ export function SelectedSession({
           </a>
         </p>
       ) : null}
-      <ThreadPanel key={selected.id} kind="session" id={selected.id} />
       {canEdit && editing ? (
         <SessionEditor
           athleteId={athleteId}
@@ -114,6 +113,7 @@ export function SelectedSession({
           </button>
         </div>
       ) : null}
+      <ThreadPanel key={selected.id} kind="session" id={selected.id} />
     </section>
   );
 }

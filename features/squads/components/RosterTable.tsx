@@ -1,5 +1,6 @@
 "use client";
 import Link from "next/link";
+import { shownEmail } from "../lib/managed";
 import { useMemo, useState } from "react";
 import { SPORT_LABELS } from "@/features/platform/lib/sports";
 import type { RosterRow } from "@/features/roster/lib/roster";
@@ -179,7 +180,7 @@ export function RosterTable({ squadId }: { squadId: string }) {
                   <Link href={`/athletes/${r.id}`} prefetch={false} className="font-semibold text-tide hover:underline">
                     {r.name}
                   </Link>
-                  <p className="text-xs text-ink-soft">{r.email}</p>
+                  <p className="text-xs text-ink-soft">{shownEmail(r.email)}</p>
                   {r.unreadMessages ? (
                     <p className="mt-1 text-xs">
                       <Link

@@ -72,7 +72,7 @@ export function ThreadPanel({
       }}
       data-testid="thread"
     >
-      <summary className="cursor-pointer text-sm font-semibold">{label}</summary>
+      <summary className="min-h-6 cursor-pointer py-1 text-sm font-semibold">{label}</summary>
       <div className="mt-2 space-y-2">
         {messages === null && !error ? (
           <p role="status" className="text-sm text-ink-soft">
