@@ -52,14 +52,17 @@ export default async function AthletePage({ params }: { params: Promise<{ id: st
       <div>
         <p className="text-sm font-semibold uppercase tracking-widest text-tide">Athlete</p>
         <h1 className="text-2xl font-bold">{data.athlete.name}</h1>
-        <p className="text-sm text-ink-soft">{shownEmail(data.athlete.email)}</p>
+        <p className="text-sm text-ink-soft">
+          {shownEmail(data.athlete.email)}
+          {data.athlete.managed && !isPlaceholderEmail(data.athlete.email)
+            ? " (handed over; waiting for the athlete to choose a password)"
+            : ""}
+        </p>
         <Link className="btn mt-3" href={`/athletes/${id}/plan`}>
           Plan and calendar
         </Link>
       </div>
-      {coaches && isPlaceholderEmail(data.athlete.email) ? (
-        <HandOverManagedAthlete athleteId={id} name={data.athlete.name} />
-      ) : null}
+      {coaches && data.athlete.managed ? <HandOverManagedAthlete athleteId={id} name={data.athlete.name} /> : null}
       <section id="messages" className="card space-y-3" aria-labelledby="messages-heading">
         <h2 id="messages-heading" className="text-lg font-bold">
           Messages

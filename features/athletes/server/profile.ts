@@ -49,7 +49,7 @@ export async function getAthleteProfile(actor: Actor, athleteId: string) {
   await requireAthleteAccess(actor, athleteId, "view");
   const db = getDb();
   const [u] = await db
-    .select({ id: schema.user.id, name: schema.user.name, email: schema.user.email })
+    .select({ id: schema.user.id, name: schema.user.name, email: schema.user.email, managed: schema.user.managed })
     .from(schema.user)
     .where(eq(schema.user.id, athleteId));
   if (!u) throw notFound("No such athlete.");
