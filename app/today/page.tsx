@@ -64,7 +64,7 @@ export default async function TodayPage() {
             Nothing is planned for today: a rest day, or log something you did below.
           </p>
         ) : (
-          todays.map((c) => <SessionCard key={c.id} s={c} canLog units={actor.units} />)
+          todays.map((c) => <SessionCard key={c.id} s={c} canLog units={actor.units} maxHrBpm={profile.maxHrBpm} />)
         )}
       </section>
       <div className="grid gap-6 md:grid-cols-2">

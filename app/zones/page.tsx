@@ -4,6 +4,7 @@ import { listTests } from "@/features/athlete-tests/server/tests";
 import { KIND_LABELS } from "@/features/athlete-tests/components/TestSummary";
 import { ZoneSetList, ZonesInForce } from "@/features/zones/components/ZoneHistory";
 import { getZones } from "@/features/zones/server/zone-sets";
+import { getAthleteProfile } from "@/features/athletes/server/profile";
 
 export const metadata = { title: "My zones" };
 
@@ -17,13 +18,18 @@ export default async function MyZonesPage() {
       </div>
     );
   }
-  const [zones, tests] = await Promise.all([getZones(actor, actor.userId), listTests(actor, actor.userId)]);
+  const [zones, tests, { profile }] = await Promise.all([
+    getZones(actor, actor.userId),
+    listTests(actor, actor.userId),
+    getAthleteProfile(actor, actor.userId),
+  ]);
   return (
     <div className="space-y-6">
       <h1 className="text-2xl font-bold">My zones</h1>
       <section className="card space-y-4" aria-label="Zones in force">
         <ZonesInForce
           units={actor.units}
+          maxHrBpm={profile.maxHrBpm}
           inForce={zones.inForce}
           emptyText="No zones yet: your coach derives them from a test."
         />

@@ -7,6 +7,7 @@ import { TestCautions } from "@/features/athlete-tests/components/Cautions";
 import { TestBody, TestHeader } from "@/features/athlete-tests/components/TestSummary";
 import { getTest } from "@/features/athlete-tests/server/tests";
 import { HttpError } from "@/features/platform/server/http";
+import { getAthleteProfile } from "@/features/athletes/server/profile";
 
 export const metadata = { title: "Test" };
 
@@ -17,6 +18,7 @@ export default async function TestPage({ params }: { params: Promise<{ id: strin
     if (e instanceof HttpError && e.status === 404) notFound();
     throw e;
   });
+  const maxHrBpm = (await getAthleteProfile(actor, test.athleteId)).profile.maxHrBpm;
   const canEdit = canCoachAthlete(actor, {
     userId: test.athleteId,
     memberships: await membershipsOfAthlete(test.athleteId),
@@ -37,7 +39,7 @@ export default async function TestPage({ params }: { params: Promise<{ id: strin
         </div>
       </div>
       <TestCautions />
-      <TestBody test={test} canEdit={canEdit} units={actor.units} />
+      <TestBody test={test} canEdit={canEdit} units={actor.units} maxHrBpm={maxHrBpm} />
     </div>
   );
 }

@@ -57,12 +57,15 @@ export function TestBody({
   canEdit,
   interactive = true,
   units = "metric",
+  maxHrBpm,
 }: {
   test: TestView;
   canEdit: boolean;
   interactive?: boolean;
   /** The reader's units, for the zone tables. */
   units?: Units;
+  /** The athlete's maximal heart rate, for zone 1's shown lower end. */
+  maxHrBpm?: number | null;
 }) {
   const r = test.result as R;
   return (
@@ -83,6 +86,7 @@ export function TestBody({
               zones={test.zoneSet.zones}
               sport={test.sport}
               units={units}
+              maxHrBpm={maxHrBpm}
               caption={`Effective from ${test.zoneSet.effectiveFrom} · ${test.zoneSet.source}`}
             />
             {test.zoneSet.fiveZones ? (
@@ -90,6 +94,7 @@ export function TestBody({
                 zones={test.zoneSet.fiveZones}
                 sport={test.sport}
                 units={units}
+                maxHrBpm={maxHrBpm}
                 caption="Five-zone subdivision"
               />
             ) : null}

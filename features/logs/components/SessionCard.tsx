@@ -1,7 +1,7 @@
 import { SPORT_LABELS } from "@/features/platform/lib/sports";
 import type { Block } from "@/features/planning/lib/session";
 import { targetText } from "@/features/zones/lib/format";
-import type { Zone } from "@/features/zones/lib/zones";
+import { withShownFloor, type Zone } from "@/features/zones/lib/zones";
 import { distanceText, type Units } from "@/features/platform/lib/units";
 import { LogPanel, type LogView } from "./LogPanel";
 import { ThreadPanel } from "@/features/threads/components/ThreadPanel";
@@ -77,11 +77,14 @@ export function SessionCard({
   s,
   canLog,
   units = "metric",
+  maxHrBpm,
 }: {
   s: SessionCardData;
   canLog: boolean;
   /** The reader's units (platform/lib/units.ts). */
   units?: Units;
+  /** The athlete's maximal heart rate: zone 1 targets read from its light-intensity floor. */
+  maxHrBpm?: number | null;
 }) {
   const plannedMin = s.totalS / 60;
   const fill = Math.min(1, s.compliance);
@@ -97,7 +100,12 @@ export function SessionCard({
         </p>
       </header>
       {s.notes ? <p className="text-sm">{s.notes}</p> : null}
-      <Steps blocks={s.structure as Block[]} zones={s.zoneSet?.zones ?? null} sport={s.sport} units={units} />
+      <Steps
+        blocks={s.structure as Block[]}
+        zones={s.zoneSet ? withShownFloor(s.zoneSet.zones, maxHrBpm) : null}
+        sport={s.sport}
+        units={units}
+      />
       {s.zoneSet?.fromSport ? (
         <p className="text-xs text-ink-soft">
           No {sportName(s.sport)} zones yet: heart-rate targets from the {sportName(s.zoneSet.fromSport)} zones in force

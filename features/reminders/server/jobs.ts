@@ -22,7 +22,7 @@ import { flatten, type Block } from "@/features/planning/lib/session";
 import { addDays } from "@/features/platform/lib/days";
 import { squadRoster } from "@/features/roster/server";
 import { targetText } from "@/features/zones/lib/format";
-import { zonesForSession } from "@/features/zones/lib/zones";
+import { withShownFloor, zonesForSession } from "@/features/zones/lib/zones";
 import { zoneSetsOfMany } from "@/features/zones/server";
 import type { ZoneSetView } from "@/features/zones/lib/views";
 import { dayLabel, digestMonday, retestStage, sessionReminderDay } from "../lib/clock";
@@ -60,6 +60,7 @@ function reminderSessions(
   zoneSets: ZoneSetView[],
   sessions: { title: string; sport: string; totalS: number; notes: string; structure: unknown; date: string }[],
   units: Units = "metric",
+  maxHrBpm: number | null = null,
 ): ReminderSession[] {
   return sessions.map((s) => {
     // No zones of the session's sport yet: heart rate from the nearest sport's zones, and the e-mail says so.
@@ -72,7 +73,7 @@ function reminderSessions(
         st.durationS != null
           ? `${Math.round(st.durationS / 6) / 10} min`
           : distanceText(st.distanceM ?? 0, units, s.sport);
-      const numbers = set ? targetText(set.zones[st.zone - 1], s.sport, units) : null;
+      const numbers = set ? targetText(withShownFloor(set.zones, maxHrBpm)[st.zone - 1], s.sport, units) : null;
       const target = numbers ? `zone ${st.zone}, ${numbers}` : set ? `zone ${st.zone}` : `zone ${st.zone}`;
       const label = `${STEP_LABELS[st.kind]} ${amount}`;
       const last = lines.at(-1);
@@ -113,6 +114,7 @@ export async function queueSessionReminders(now: Date): Promise<number> {
       name: schema.user.name,
       email: schema.user.email,
       units: schema.user.units,
+      maxHrBpm: schema.athleteProfile.maxHrBpm,
       timeZone: schema.athleteProfile.timeZone,
       timing: schema.athleteProfile.reminderTiming,
       time: schema.athleteProfile.reminderTime,
@@ -174,7 +176,12 @@ export async function queueSessionReminders(now: Date): Promise<number> {
         name: a.name,
         dayLabel: dayLabel(a.day),
         when,
-        sessions: reminderSessions(zoneSets.get(a.id) ?? [], own, a.units === "imperial" ? "imperial" : "metric"),
+        sessions: reminderSessions(
+          zoneSets.get(a.id) ?? [],
+          own,
+          a.units === "imperial" ? "imperial" : "metric",
+          a.maxHrBpm,
+        ),
         todayUrl: `${origin}/today`,
         unsubscribeUrl: l.unsubscribeUrl,
         settingsUrl: l.settingsUrl,

@@ -13,10 +13,12 @@ export function ZonesInForce({
   inForce,
   emptyText,
   units = "metric",
+  maxHrBpm,
 }: {
   inForce: Record<string, ZoneSetView>;
   emptyText: string;
   units?: Units;
+  maxHrBpm?: number | null;
 }) {
   const sets = Object.values(inForce);
   if (!sets.length) return <p className="text-ink-soft">{emptyText}</p>;
@@ -28,6 +30,7 @@ export function ZonesInForce({
             zones={z.zones}
             sport={z.sport}
             units={units}
+            maxHrBpm={maxHrBpm}
             caption={`${sportName(z.sport)} · effective from ${z.effectiveFrom} · from a ${z.source}`}
           />
           {z.fiveZones ? (
@@ -35,6 +38,7 @@ export function ZonesInForce({
               zones={z.fiveZones}
               sport={z.sport}
               units={units}
+              maxHrBpm={maxHrBpm}
               caption={`${sportName(z.sport)} · five-zone subdivision`}
             />
           ) : null}

@@ -1,5 +1,5 @@
 import { plainSpeed, speedStyle, type Units } from "@/features/platform/lib/units";
-import type { Measure, Zone } from "../lib/zones";
+import { withShownFloor, type Measure, type Zone } from "../lib/zones";
 import { rangeText, speedRangeText } from "../lib/format";
 
 const SWATCH: Record<number, string> = { 1: "bg-zone-1", 2: "bg-zone-2", 3: "bg-zone-3" };
@@ -10,16 +10,20 @@ const SWATCH: Record<number, string> = { 1: "bg-zone-1", 2: "bg-zone-2", 3: "bg-
  * swimming; platform/lib/units.ts).
  */
 export function ZoneTable({
-  zones,
+  zones: given,
   caption,
   sport,
   units = "metric",
+  maxHrBpm,
 }: {
   zones: Zone[];
   caption: string;
   sport: string;
   units?: Units;
+  /** The athlete's maximal heart rate: zone 1 then reads from its light-intensity floor (zones.ts `withShownFloor`). */
+  maxHrBpm?: number | null;
 }) {
+  const zones = withShownFloor(given, maxHrBpm);
   const measures = (Object.keys(zones[0]?.ranges ?? {}) as Measure[]).filter((m) => zones.some((z) => z.ranges[m]));
   const style = speedStyle(sport, units);
   // Beside a pace, the plain speed too (a treadmill is set in km/h or mph); a split or a swim pace stands alone.

@@ -17,6 +17,8 @@ const STEP: Record<Measure, number> = { hrBpm: 1, powerW: 1, speedKmh: 0.1 };
 export function rangeText(measure: Measure, r: Range | undefined): string {
   if (!r) return "—";
   const unit = MEASURE_UNITS[measure];
+  if (r.min === null && r.max !== null && r.shownFrom !== undefined)
+    return rangeText(measure, { min: r.shownFrom, max: r.max });
   if (r.min === null && r.max !== null) return `below ${fmt(measure, r.max)} ${unit}`;
   if (r.max === null && r.min !== null) return `${fmt(measure, r.min)} ${unit} and above`;
   const top = Number(fmt(measure, r.max!)) - STEP[measure];

@@ -18,6 +18,11 @@ export interface Range {
   min: number | null;
   /** Exclusive upper bound; null = open. */
   max: number | null;
+  /**
+   * Shown only: where an open lower end is said to start (zone 1's heart rate from the light-intensity floor, see
+   * `withShownFloor`). Effort below it still counts as zone 1 (`zoneOf` ignores it).
+   */
+  shownFrom?: number;
 }
 
 export interface Zone {
@@ -167,4 +172,26 @@ export function zonesForSession<T extends { sport: string; effectiveFrom: string
     if (zones.length) return { set: { ...set, zones }, fromSport: other };
   }
   return null;
+}
+
+/**
+ * The share of maximal heart rate where light-intensity exercise begins: below it the ACSM position stand calls
+ * exercise "very light" (Garber et al. 2011, Med Sci Sports Exerc 43:1334–1359, table of intensity classes: very light
+ * < 57 % HRmax, light 57–63 %; the figures from memory of that table).
+ */
+export const LIGHT_FLOOR_OF_HRMAX = 0.57;
+
+/**
+ * Zones as shown to a person: zone 1's open heart-rate range gets a lower end at the light-intensity floor of the
+ * athlete's maximal heart rate ("107–149 bpm" instead of "below 150 bpm"), when the maximum is known and the floor lies
+ * below VT1. Nothing else changes: the zones a session or a file is scored against stay as they are.
+ */
+export function withShownFloor<Z extends Zone>(zones: Z[], maxHrBpm: number | null | undefined): Z[] {
+  if (!maxHrBpm) return zones;
+  const floor = Math.round(LIGHT_FLOOR_OF_HRMAX * maxHrBpm);
+  return zones.map((z) => {
+    const hr = z.ranges.hrBpm;
+    if (z.parent !== 1 || !hr || hr.min !== null || hr.max === null || floor >= hr.max) return z;
+    return { ...z, ranges: { ...z.ranges, hrBpm: { ...hr, shownFrom: floor } } };
+  });
 }
