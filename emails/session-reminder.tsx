@@ -1,6 +1,7 @@
 import { EmailLayout } from "./layout";
 import { sentence } from "./text";
 import { UnsubscribeFooter, unsubscribeText } from "./unsubscribe-footer";
+import { titleWithLength } from "@/features/planning/lib/title";
 
 export interface ReminderStep {
   label: string;
@@ -18,9 +19,7 @@ export interface ReminderSession {
 
 /** "Long run 90 min" is not followed by "· 90 min" again; another title gets its length. */
 export function sessionHeading(s: Pick<ReminderSession, "title" | "minutes">): string {
-  return new RegExp(`\\b${s.minutes}\\s*min\\.?$`).test(s.title.trim())
-    ? s.title.trim()
-    : `${s.title} · ${s.minutes} min`;
+  return titleWithLength(s.title, s.minutes);
 }
 
 export interface SessionReminderProps {

@@ -60,6 +60,19 @@ describe("conversations on sessions", () => {
       .getByTestId("session-card")
       .first()
       .screenshot({ path: `${SHOTS}/thread-card.png` });
+
+    // The same athlete's week on the phone reads as an agenda, and their page offers the downloads (for the tour).
+    await athlete.page.getByRole("link", { name: "My plan and calendar" }).click();
+    await athlete.page.waitForURL(/\/plan/);
+    const agenda = athlete.page.getByTestId("week-agenda");
+    await agenda.getByRole("listitem").first().waitFor();
+    await agenda.screenshot({ path: `${SHOTS}/week-agenda-phone.png` });
+    await athlete.page.goto(`${BASE}/today`);
+    await athlete.page.getByRole("link", { name: "My zones, tests and load" }).click();
+    await athlete.page.waitForURL(/\/athletes\/[0-9a-f-]+$/);
+    const downloads = athlete.page.getByTestId("downloads");
+    await downloads.getByRole("link", { name: "Plan, a year back and ahead as Excel workbook" }).waitFor();
+    await downloads.screenshot({ path: `${SHOTS}/downloads.png` });
     expect(athlete.problems).toEqual([]);
   });
 });

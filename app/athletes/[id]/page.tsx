@@ -126,7 +126,7 @@ export default async function AthletePage({ params }: { params: Promise<{ id: st
               : ""}
           </p>
         ) : null}
-        <div className="text-sm">
+        <div className="text-sm" data-testid="downloads">
           <p>Download (CSV opens in any spreadsheet program; Excel workbooks keep numbers as numbers):</p>
           <ul className="mt-1 space-y-1">
             {(

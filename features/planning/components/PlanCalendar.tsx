@@ -28,6 +28,7 @@ import { TemplateDock } from "./TemplateDock";
 import { SelectedSession } from "./SelectedSession";
 import { LOG_MARK, LOG_WORD } from "./session-text";
 import { useDragPreview } from "./use-drag-preview";
+import { titleWithLength } from "../lib/title";
 
 export interface TrayTemplate {
   id: string;
@@ -422,7 +423,7 @@ export function PlanCalendar({
                         >
                           {x.log ? `${LOG_MARK[x.log.status]} ` : ""}
                           {x.kind === "retest" ? "⟳ " : ""}
-                          {x.title} · {Math.round(x.totalS / 60)} min
+                          {titleWithLength(x.title, Math.round(x.totalS / 60))}
                           {x.minutesByZone[2] > 0 ? ` · zone 3 ${Math.round(x.minutesByZone[2])} min` : ""}
                         </button>
                       </li>

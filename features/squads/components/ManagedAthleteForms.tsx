@@ -40,7 +40,7 @@ export function AddManagedAthlete({ squadId }: { squadId: string }) {
   return (
     <form onSubmit={submit} className="card space-y-3" aria-labelledby="add-managed-h">
       <h2 id="add-managed-h" className="text-lg font-bold">
-        Add an athlete without an e-mail address
+        Add an athlete who has no address yet
       </h2>
       <p className="text-sm text-ink-soft">
         For a test on the spot: the profile is kept by the squad&apos;s coaches, cannot sign in and gets no e-mail. Hand
@@ -105,7 +105,7 @@ export function HandOverManagedAthlete({ athleteId, name }: { athleteId: string;
   return (
     <form onSubmit={submit} className="card space-y-3" aria-labelledby="hand-over-h">
       <h2 id="hand-over-h" className="text-lg font-bold">
-        No e-mail address yet
+        Hand this profile over to the athlete
       </h2>
       <p className="text-sm text-ink-soft">
         This profile is kept by the squad&apos;s coaches. When {name} has an address, send the profile there: a link to
