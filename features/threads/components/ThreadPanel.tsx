@@ -3,7 +3,7 @@ import { useState, type FormEvent } from "react";
 import { ApiError, apiFetch } from "@/features/platform/lib/api-client";
 import { FormAlert } from "@/features/platform/components/form-bits";
 import { SubmitButton } from "@/features/platform/components/SubmitButton";
-import { MESSAGE_MAX } from "../lib/schemas";
+import { MESSAGE_MAX } from "../lib/limits";
 
 interface Message {
   id: string;

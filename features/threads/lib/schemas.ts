@@ -1,7 +1,8 @@
 import { z } from "zod";
 
-/** Longest message on a thread: a few sentences (the database holds the same limit). */
-export const MESSAGE_MAX = 1000;
+import { MESSAGE_MAX } from "./limits";
+
+export { MESSAGE_MAX };
 
 /** A message: 1–1000 characters of text after trimming; line breaks are kept, other control characters refused. */
 export const messageSchema = z
