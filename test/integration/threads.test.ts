@@ -71,6 +71,8 @@ describe("session threads", () => {
     // Both coaches were told by e-mail, the athlete (the author) was not.
     expect((await mailsTo(s.head.email))[0]!.subject).toMatch(/wrote about Hill repeats, Tuesday 6 April 2027/);
     expect((await mailsTo(s.head.email))[0]!.text_body).toContain("> Should I skip Thursday?");
+    // The link opens the athlete's page at its conversations (a log's thread is not on the plan).
+    expect((await mailsTo(s.head.email))[0]!.text_body).toContain(`/athletes/${s.athleteA.id}#messages`);
     expect(await mailsTo(s.coach.email)).toHaveLength(1);
     expect(await mailsTo(s.athleteA.email)).toHaveLength(0);
 

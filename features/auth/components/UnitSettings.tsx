@@ -4,30 +4,24 @@ import { useState } from "react";
 import { FormAlert, FormNotice } from "@/features/platform/components/form-bits";
 import { apiFetch } from "@/features/platform/lib/api-client";
 import { SubmitButton } from "@/features/platform/components/SubmitButton";
+import { useSave } from "@/features/platform/components/use-save";
 import { UNIT_LABELS, UNIT_SYSTEMS, type Units } from "@/features/platform/lib/units";
 
 /** Metric or imperial for every number the person reads: targets, zone tables, e-mails and downloads. */
 export function UnitSettings({ initial }: { initial: Units }) {
   const router = useRouter();
   const [units, setUnits] = useState<Units>(initial);
-  const [state, setState] = useState<{ kind: "ok" | "error"; text: string } | null>(null);
-  const [busy, setBusy] = useState(false);
+  const { state, busy, save } = useSave();
   return (
     <form
       className="space-y-3"
-      onSubmit={async (e) => {
+      onSubmit={(e) => {
         e.preventDefault();
-        setBusy(true);
-        setState(null);
-        try {
+        void save(async () => {
           await apiFetch("/api/me/display", { method: "PATCH", body: JSON.stringify({ units }) });
-          setState({ kind: "ok", text: `Saved. Distances, speeds and paces now read in ${units} units.` });
           router.refresh();
-        } catch (err) {
-          setState({ kind: "error", text: err instanceof Error ? err.message : "Saving failed." });
-        } finally {
-          setBusy(false);
-        }
+          return `Saved. Distances, speeds and paces now read in ${units} units.`;
+        });
       }}
     >
       {state ? state.kind === "ok" ? <FormNotice>{state.text}</FormNotice> : <FormAlert>{state.text}</FormAlert> : null}

@@ -71,28 +71,28 @@ export function stepTarget(zones: Zone[] | null, zone: number, sport: string): W
   return null;
 }
 
+/** Heart rate and power as the protocol's custom targets: the value plus its offset (workout_hr, workout_power). */
+const OFFSET_TARGET = {
+  hrBpm: { targetType: "heartRate", offset: 100 },
+  powerW: { targetType: "power", offset: 1000 },
+} as const;
+
 function targetFields(t: WorkoutTarget | null): Record<string, unknown> {
   if (!t) return { targetType: "open", targetValue: 0 };
+  if (t.measure === "speedKmh")
+    return {
+      targetType: "speed",
+      targetValue: 0,
+      customTargetValueLow: Math.round((t.low / 3.6) * 1000),
+      customTargetValueHigh: Math.round((t.high / 3.6) * 1000),
+    };
   // A zone holds its lower edge and stops below the next zone's (zones.ts `zoneOf`): the high end is one step below it.
-  if (t.measure === "hrBpm")
-    return {
-      targetType: "heartRate",
-      targetValue: 0,
-      customTargetValueLow: Math.round(t.low) + 100,
-      customTargetValueHigh: Math.max(Math.round(t.low), Math.round(t.high) - 1) + 100,
-    };
-  if (t.measure === "powerW")
-    return {
-      targetType: "power",
-      targetValue: 0,
-      customTargetValueLow: Math.round(t.low) + 1000,
-      customTargetValueHigh: Math.max(Math.round(t.low), Math.round(t.high) - 1) + 1000,
-    };
+  const { targetType, offset } = OFFSET_TARGET[t.measure];
   return {
-    targetType: "speed",
+    targetType,
     targetValue: 0,
-    customTargetValueLow: Math.round((t.low / 3.6) * 1000),
-    customTargetValueHigh: Math.round((t.high / 3.6) * 1000),
+    customTargetValueLow: Math.round(t.low) + offset,
+    customTargetValueHigh: Math.max(Math.round(t.low), Math.round(t.high) - 1) + offset,
   };
 }
 

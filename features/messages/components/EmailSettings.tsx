@@ -3,34 +3,25 @@ import { useMemo, useState } from "react";
 import { FormAlert, FormNotice } from "@/features/platform/components/form-bits";
 import { apiFetch } from "@/features/platform/lib/api-client";
 import { SubmitButton } from "@/features/platform/components/SubmitButton";
+import { useSave } from "@/features/platform/components/use-save";
 
 /** The coach's digest setting and time zone. */
 export function CoachDigestSettings({ initial }: { initial: { timeZone: string; coachDigest: boolean } }) {
   const timeZones = useMemo(() => Intl.supportedValuesOf("timeZone"), []);
   const [timeZone, setTimeZone] = useState(initial.timeZone);
   const [coachDigest, setCoachDigest] = useState(initial.coachDigest);
-  const [state, setState] = useState<{ kind: "ok" | "error"; text: string } | null>(null);
-  const [busy, setBusy] = useState(false);
+  const { state, busy, save } = useSave();
   return (
     <form
       className="space-y-3"
-      onSubmit={async (e) => {
+      onSubmit={(e) => {
         e.preventDefault();
-        setBusy(true);
-        setState(null);
-        try {
+        void save(async () => {
           await apiFetch("/api/me/notifications", { method: "PATCH", body: JSON.stringify({ timeZone, coachDigest }) });
-          setState({
-            kind: "ok",
-            text: coachDigest
-              ? `Saved. The digest comes on Mondays at 07:00, ${timeZone} time.`
-              : "Saved. No weekly digest will be sent.",
-          });
-        } catch (err) {
-          setState({ kind: "error", text: err instanceof Error ? err.message : "Saving failed." });
-        } finally {
-          setBusy(false);
-        }
+          return coachDigest
+            ? `Saved. The digest comes on Mondays at 07:00, ${timeZone} time.`
+            : "Saved. No weekly digest will be sent.";
+        });
       }}
     >
       {state ? state.kind === "ok" ? <FormNotice>{state.text}</FormNotice> : <FormAlert>{state.text}</FormAlert> : null}
@@ -122,28 +113,18 @@ export function CalendarFeedSettings({ initialUrl }: { initialUrl: string | null
 /** E-mails about new messages on the person's session and log conversations. */
 export function MessageEmailSettings({ initial }: { initial: boolean }) {
   const [on, setOn] = useState(initial);
-  const [state, setState] = useState<{ kind: "ok" | "error"; text: string } | null>(null);
-  const [busy, setBusy] = useState(false);
+  const { state, busy, save } = useSave();
   return (
     <form
       className="space-y-3"
-      onSubmit={async (e) => {
+      onSubmit={(e) => {
         e.preventDefault();
-        setBusy(true);
-        setState(null);
-        try {
+        void save(async () => {
           await apiFetch("/api/me/notifications", { method: "PATCH", body: JSON.stringify({ messageEmails: on }) });
-          setState({
-            kind: "ok",
-            text: on
-              ? "Saved. A new message on one of your conversations comes by e-mail."
-              : "Saved. New messages wait in Tidemark; no e-mail is sent.",
-          });
-        } catch (err) {
-          setState({ kind: "error", text: err instanceof Error ? err.message : "Saving failed." });
-        } finally {
-          setBusy(false);
-        }
+          return on
+            ? "Saved. A new message on one of your conversations comes by e-mail."
+            : "Saved. New messages wait in Tidemark; no e-mail is sent.";
+        });
       }}
     >
       {state ? state.kind === "ok" ? <FormNotice>{state.text}</FormNotice> : <FormAlert>{state.text}</FormAlert> : null}

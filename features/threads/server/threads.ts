@@ -7,7 +7,6 @@ import { requireAthleteActionHiddenOtherwise } from "@/features/access/server";
 import { notFound } from "@/features/platform/server/http";
 import { publicOrigin } from "@/features/platform/server/origin";
 import { signingSecret } from "@/features/platform/server/config";
-import { mondayOf } from "@/features/platform/lib/days";
 import { queueMessages, type OutgoingMessage } from "@/features/messages/server";
 import { unsubscribeToken } from "@/features/messages/lib/unsubscribe";
 import { renderEmailHtml } from "@/emails/render";
@@ -149,7 +148,7 @@ export async function postMessage(actor: Actor, subject: ThreadSubject, body: st
     })
     .from(schema.user)
     .leftJoin(schema.notificationSetting, eq(schema.notificationSetting.userId, schema.user.id))
-    .where(anyOfUsers([...readers, actor.userId]));
+    .where(inArray(schema.user.id, [...readers, actor.userId]));
   const author = people.find((p) => p.id === actor.userId);
   const authorName = author?.name ?? "Someone";
   const origin = publicOrigin();
@@ -166,7 +165,8 @@ export async function postMessage(actor: Actor, subject: ThreadSubject, body: st
       authorName,
       subjectLine,
       body,
-      url: `${origin}/athletes/${row.athleteId}/plan?week=${mondayOf(row.date)}`,
+      // The athlete's page lists every conversation, a log's too (the plan shows planned sessions only).
+      url: `${origin}/athletes/${row.athleteId}#messages`,
       unsubscribeUrl: `${origin}/unsubscribe/${token}`,
       settingsUrl: `${origin}/settings`,
     };
@@ -215,10 +215,6 @@ export async function postMessage(actor: Actor, subject: ThreadSubject, body: st
     createdAt: createdAt.toISOString(),
     unread: false,
   };
-}
-
-function anyOfUsers(ids: string[]) {
-  return sql`${schema.user.id} = ${anyOf(ids)}`;
 }
 
 /**

@@ -26,8 +26,9 @@ export function ZoneTable({
   const zones = withShownFloor(given, maxHrBpm);
   const measures = (Object.keys(zones[0]?.ranges ?? {}) as Measure[]).filter((m) => zones.some((z) => z.ranges[m]));
   const style = speedStyle(sport, units);
-  // Beside a pace, the plain speed too (a treadmill is set in km/h or mph); a split or a swim pace stands alone.
-  const second = style.kind === "pace" && style.label === "Pace" && sport !== "swimming" ? plainSpeed(units) : null;
+  // Beside a pace per km or mile, the plain speed too (a treadmill is set in km/h or mph); a split or a swim pace stands
+  // alone.
+  const second = style.kind === "pace" && style.metres >= 1000 ? plainSpeed(units) : null;
   return (
     <table className="w-full border-collapse text-left text-sm" data-testid="zone-table">
       <caption className="mb-2 text-left text-sm font-semibold">{caption}</caption>
