@@ -81,7 +81,7 @@ export default async function RootLayout({ children }: { children: ReactNode }) 
             )}
           </nav>
         </header>
-        <Providers>
+        <Providers dateStyle={actor?.dateStyle ?? "iso"}>
           <main id="main" className="mx-auto max-w-6xl px-4 py-8">
             {children}
           </main>

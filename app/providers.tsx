@@ -1,8 +1,10 @@
 "use client";
 import { QueryClient, QueryClientProvider } from "@tanstack/react-query";
 import { useEffect, useState, type ReactNode } from "react";
+import { DateStyleProvider } from "@/features/platform/components/dates";
+import type { DateStyle } from "@/features/platform/lib/date-format";
 
-export function Providers({ children }: { children: ReactNode }) {
+export function Providers({ children, dateStyle }: { children: ReactNode; dateStyle: DateStyle }) {
   const [client] = useState(
     () =>
       new QueryClient({ defaultOptions: { queries: { staleTime: 30_000, retry: 1, refetchOnWindowFocus: false } } }),
@@ -12,5 +14,9 @@ export function Providers({ children }: { children: ReactNode }) {
   useEffect(() => {
     document.documentElement.dataset.hydrated = "true";
   }, []);
-  return <QueryClientProvider client={client}>{children}</QueryClientProvider>;
+  return (
+    <QueryClientProvider client={client}>
+      <DateStyleProvider style={dateStyle}>{children}</DateStyleProvider>
+    </QueryClientProvider>
+  );
 }

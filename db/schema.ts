@@ -41,6 +41,8 @@ export const user = pgTable(
     isAdmin: boolean("is_admin").notNull().default(false),
     /** The person's units: "metric" or "imperial" (platform/lib/units.ts); every number they read follows it. */
     units: text("units").notNull().default("metric"),
+    /** How the person reads dates: "iso", "day-month" or "month-day" (platform/lib/date-format.ts). */
+    dateStyle: text("date_style").notNull().default("iso"),
     /**
      * A profile a coach set up for an athlete who has no e-mail address yet (squads/server/managed.ts): it cannot sign
      * in and gets no e-mail until the coach sends it to a real address and the athlete chooses a password.
@@ -49,7 +51,10 @@ export const user = pgTable(
     createdAt: createdAt(),
     updatedAt: updatedAt(),
   },
-  (t) => [check("user_units", sql`${t.units} in ('metric', 'imperial')`)],
+  (t) => [
+    check("user_units", sql`${t.units} in ('metric', 'imperial')`),
+    check("user_date_style", sql`${t.dateStyle} in ('iso', 'day-month', 'month-day')`),
+  ],
 );
 
 export const session = pgTable(

@@ -10,7 +10,8 @@ import { getNotificationSettings } from "@/features/messages/server/preferences"
 import { FormNotice } from "@/features/platform/components/form-bits";
 import { publicOrigin } from "@/features/platform/server/origin";
 import { AccountSettings } from "@/features/auth/components/AccountSettings";
-import { UnitSettings } from "@/features/auth/components/UnitSettings";
+import { DisplaySettings } from "@/features/auth/components/DisplaySettings";
+import { localDate } from "@/features/platform/lib/dates";
 
 export const metadata = { title: "Settings" };
 
@@ -71,9 +72,12 @@ export default async function SettingsPage({ searchParams }: { searchParams: Pro
       {!isAthlete && !isCoach ? <p className="card">Join a squad to set up reminders and e-mail.</p> : null}
       <section className="card space-y-2" aria-labelledby="units-h">
         <h2 id="units-h" className="text-lg font-bold">
-          Units
+          Units and dates
         </h2>
-        <UnitSettings initial={actor.units} />
+        <DisplaySettings
+          initial={{ units: actor.units, dateStyle: actor.dateStyle }}
+          example={localDate(new Date(), settings.timeZone)}
+        />
       </section>
       <section className="card space-y-2" aria-labelledby="account-h">
         <h2 id="account-h" className="text-lg font-bold">

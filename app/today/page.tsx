@@ -9,6 +9,7 @@ import { ThreadPanel } from "@/features/threads/components/ThreadPanel";
 import { UnplannedLogForm } from "@/features/logs/components/UnplannedLogForm";
 import { LOG_STATUS_LABELS } from "@/features/logs/schemas";
 import { sessionCards } from "@/features/logs/server/cards";
+import { formatDay } from "@/features/platform/lib/date-format";
 import { localDate } from "@/features/platform/lib/dates";
 import { addDays } from "@/features/platform/lib/days";
 import { nextRetestOf } from "@/features/planning/server";
@@ -16,12 +17,6 @@ import { readinessOf } from "@/features/athlete-tests/server/screening";
 import { ReadinessBanner } from "@/features/athlete-tests/components/ReadinessBanner";
 
 export const metadata = { title: "Today" };
-
-// A calendar day is already local to the athlete: format it as a plain date.
-const dayName = (iso: string) =>
-  new Intl.DateTimeFormat("en-GB", { timeZone: "UTC", weekday: "long", day: "numeric", month: "short" }).format(
-    new Date(`${iso}T12:00:00Z`),
-  );
 
 export default async function TodayPage() {
   const actor = await requirePageActor("/today");
@@ -47,6 +42,8 @@ export default async function TodayPage() {
   ]);
   const todays = cards.filter((c) => c.date === today);
   const ahead = cards.filter((c) => c.date > today);
+  // A calendar day is already local to the athlete: written with its weekday, in the athlete's date style.
+  const dayName = (iso: string) => formatDay(iso, actor.dateStyle, { weekday: true });
   const retestIn = retest ? Math.round((Date.parse(retest.date) - Date.parse(today)) / 86_400_000) : null;
   return (
     <div className="space-y-6">
@@ -129,7 +126,7 @@ export default async function TodayPage() {
               {unplanned.map((u) => (
                 <li key={u.id} className="space-y-1 text-sm">
                   <p>
-                    <span className="font-semibold">{u.title}</span> · {u.date} ·{" "}
+                    <span className="font-semibold">{u.title}</span> · {dayName(u.date)} ·{" "}
                     <span className="num">{Math.round(u.durationMin ?? 0)} min</span>
                   </p>
                   <ThreadPanel kind="log" id={u.id} label="Messages about this log" />

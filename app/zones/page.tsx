@@ -1,3 +1,4 @@
+import { formatDay } from "@/features/platform/lib/date-format";
 import Link from "next/link";
 import { requirePageActor } from "@/features/access/server/current";
 import { listTests } from "@/features/athlete-tests/server/tests";
@@ -44,7 +45,7 @@ export default async function MyZonesPage() {
             {tests.map((t) => (
               <li key={t.id}>
                 <Link href={`/tests/${t.id}`} className="text-tide underline">
-                  {KIND_LABELS[t.kind]} · {t.date}
+                  {KIND_LABELS[t.kind]} · {formatDay(t.date, actor.dateStyle)}
                 </Link>
               </li>
             ))}

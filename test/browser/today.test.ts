@@ -62,3 +62,55 @@ describe("today and logging", () => {
     expect(athlete.problems).toEqual([]);
   });
 });
+
+describe("dates as the person writes them", () => {
+  it("an athlete chooses day before month: today, the zones and the calendar read so, with no ISO date left on them", async () => {
+    const { page, problems } = await newPage(browser);
+    await signIn(page, "runner@northfold.test");
+    const iso = /\d{4}-\d{2}-\d{2}/;
+    const dayMonth = "(Mon|Tue|Wed|Thu|Fri|Sat|Sun) \\d{1,2} (Jan|Feb|Mar|Apr|May|Jun|Jul|Aug|Sep|Oct|Nov|Dec)";
+    const main = () => page.locator("main").innerText();
+    try {
+      await page.goto(`${BASE}/settings`);
+      await page.getByLabel(/^Day before month/).check();
+      await page.getByRole("button", { name: "Save units and dates" }).click();
+      await page.getByText(/^Saved\. .* dates read like /).waitFor();
+
+      await page.goto(`${BASE}/today`);
+      await expect(page.getByText(/^Today · /).innerText()).resolves.toMatch(new RegExp(`${dayMonth} \\d{4}$`, "i"));
+      expect(await main()).not.toMatch(iso);
+
+      await page.goto(`${BASE}/zones`);
+      await page
+        .getByText(/effective from \d{1,2} [A-Z][a-z]{2} \d{4}/)
+        .first()
+        .waitFor();
+      expect(await main()).not.toMatch(iso);
+
+      await page.getByRole("link", { name: "Today" }).click();
+      await page.getByRole("link", { name: "My plan and calendar" }).click();
+      const title = page.locator(".fc-toolbar-title");
+      await title.waitFor();
+      // The week's range says its year once, as en-GB writes a range within one year.
+      await expect(title.innerText()).resolves.toMatch(
+        /^\d{1,2} [A-Z][a-z]{2}( \d{4})? – \d{1,2} [A-Z][a-z]{2} \d{4}$/,
+      );
+      const headers = await page.locator(".fc-col-header-cell").allInnerTexts();
+      expect(headers).toHaveLength(7);
+      for (const h of headers) expect(h.trim()).toMatch(new RegExp(`^${dayMonth}$`));
+      await page
+        .getByTestId(/^band-/)
+        .first()
+        .waitFor();
+      expect(await main()).not.toMatch(iso);
+      await shot(page, "plan-day-month-dates");
+    } finally {
+      // Back to the default for the other tests, through the same form.
+      await page.goto(`${BASE}/settings`);
+      await page.getByLabel(/^Year, month, day/).check();
+      await page.getByRole("button", { name: "Save units and dates" }).click();
+      await page.getByText(/^Saved\. /).waitFor();
+    }
+    expect(problems).toEqual([]);
+  });
+});

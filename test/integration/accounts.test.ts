@@ -329,7 +329,7 @@ describe("accounts, squads and invitations", () => {
     const unaId = (await una.call(meRoute, "GET", "/api/me")).json.user.id as string;
     const display = (body?: unknown) =>
       una.call(displayRoute, body ? "PATCH" : "GET", "/api/me/display", body ? { body } : {});
-    expect((await display()).json).toEqual({ units: "metric" });
+    expect((await display()).json).toEqual({ units: "metric", dateStyle: "iso" });
     const bad = await display({ units: "furlongs" });
     expect(bad.status).toBe(400);
     expect(JSON.stringify(bad.json)).toContain("Choose metric or imperial.");
@@ -361,13 +361,37 @@ describe("accounts, squads and invitations", () => {
     expect((await csv())[0]).toContain("distance_km");
     expect((await display({ units: "imperial" })).status).toBe(200);
     // The next request reads the new choice (the remembered session forgets the old one at once).
-    expect((await display()).json).toEqual({ units: "imperial" });
+    expect((await display()).json).toEqual({ units: "imperial", dateStyle: "iso" });
     const lines = await csv();
     expect(lines[0]).toContain("distance_mi");
     // 16.09344 km is 10 mi exactly (1 mi = 1609.344 m, NIST Handbook 44).
     expect(lines[1]).toContain(",10,");
     const [row] = await query<{ units: string }>(`select units from "user" where id = $1`, [unaId]);
     expect(row!.units).toBe("imperial");
+  });
+
+  it("a person chooses how dates read: it holds at once beside the units, a bad value or an empty change is refused", async () => {
+    const joined = await joinAs(
+      "Dora Dates",
+      "dora@example.test",
+      await invite(head, squadId, "dora@example.test", "athlete"),
+    );
+    const dora = joined.browser;
+    const display = (body?: unknown) =>
+      dora.call(displayRoute, body ? "PATCH" : "GET", "/api/me/display", body ? { body } : {});
+    const bad = await display({ dateStyle: "yyyy/dd/mm" });
+    expect(bad.status).toBe(400);
+    expect(JSON.stringify(bad.json)).toContain("Choose how dates read");
+    const empty = await display({});
+    expect(empty.status).toBe(400);
+    expect(JSON.stringify(empty.json)).toContain("Send units, dateStyle or both.");
+    expect((await display({ units: "imperial" })).status).toBe(200);
+    expect((await display({ dateStyle: "day-month" })).json).toEqual({ units: "imperial", dateStyle: "day-month" });
+    // The units chosen before are kept; the next request reads both (the remembered session forgot the old ones).
+    expect((await display()).json).toEqual({ units: "imperial", dateStyle: "day-month" });
+    const userId = (await dora.call(meRoute, "GET", "/api/me")).json.user.id as string;
+    const [row] = await query<{ date_style: string }>(`select date_style from "user" where id = $1`, [userId]);
+    expect(row!.date_style).toBe("day-month");
   });
 
   it("a person moves their account to a new address: approved from the old one, confirmed from the new one, only then moved", async () => {

@@ -50,6 +50,8 @@ beforeAll(async () => {
      on conflict (user_id) do update set time_zone = 'Europe/Oslo', reminder_timing = 'morning_of', reminder_time = '07:00', remind_sessions = true, remind_retests = true`,
     [s.athleteA.id],
   );
+  // This athlete reads dates day before month (Settings → Units and dates); e-mails follow the reader's choice.
+  await query(`update "user" set date_style = 'day-month' where id = $1`, [s.athleteA.id]);
   for (const [d, t] of [
     ["2027-01-15", "Winter tempo"],
     ["2027-01-16", "Winter long run"],
@@ -72,6 +74,8 @@ describe("session reminders", () => {
     const m = received("session_reminder")[0]!;
     expect(m.text).toMatch(/Friday 15 January 2027/);
     expect(m.headers["List-Unsubscribe"]).toMatch(/\/api\/unsubscribe\//);
+    // Month before day from the next e-mail on (the long US form, CLDR en-US).
+    await query(`update "user" set date_style = 'month-day' where id = $1`, [s.athleteA.id]);
 
     expect(await queueSessionReminders(new Date("2027-06-15T04:59:00Z"))).toBe(0);
     expect(await queueSessionReminders(new Date("2027-06-15T05:00:00Z"))).toBe(1);
@@ -81,6 +85,10 @@ describe("session reminders", () => {
         .map((m) => m.subject)
         .sort(),
     ).toEqual(["Summer tempo", "Winter tempo"].map((t) => `Today: ${t}`).sort());
+    expect(received("session_reminder").find((x) => x.subject === "Today: Summer tempo")!.text).toMatch(
+      /Tuesday, June 15, 2027/,
+    );
+    await query(`update "user" set date_style = 'day-month' where id = $1`, [s.athleteA.id]);
   });
 
   it("running the job twice sends once", async () => {

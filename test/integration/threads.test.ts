@@ -36,6 +36,8 @@ beforeAll(async () => {
   await resetDatabase();
   s = await makeSquad("thr");
   other = await makeSquad("thr-other");
+  // The head coach reads dates day before month; the other coach keeps the default (ISO 8601).
+  await query(`update "user" set date_style = 'day-month' where id = $1`, [s.head.id]);
   const made = await s.coach.browser.call(sessionsRoute, "POST", `/api/athletes/${s.athleteA.id}/sessions`, {
     params: { id: s.athleteA.id },
     body: {
@@ -74,6 +76,7 @@ describe("session threads", () => {
     // The link opens the athlete's page at its conversations (a log's thread is not on the plan).
     expect((await mailsTo(s.head.email))[0]!.text_body).toContain(`/athletes/${s.athleteA.id}#messages`);
     expect(await mailsTo(s.coach.email)).toHaveLength(1);
+    expect((await mailsTo(s.coach.email))[0]!.subject).toMatch(/wrote about Hill repeats, Tuesday 2027-04-06/);
     expect(await mailsTo(s.athleteA.email)).toHaveLength(0);
 
     const answer = await write(s.head.browser, { body: "Yes, swap it for an easy spin." });

@@ -16,6 +16,7 @@ import { getZones } from "@/features/zones/server/zone-sets";
 import { membershipsOfAthlete } from "@/features/access/server/permissions";
 import { LoadChart } from "@/features/load/components/LoadChart";
 import { athleteDrift, athleteLoad } from "@/features/load/server/load";
+import { formatDay, localiseDates } from "@/features/platform/lib/date-format";
 import { localDate } from "@/features/platform/lib/dates";
 import { addDays } from "@/features/platform/lib/days";
 import { ReadinessBanner } from "@/features/athlete-tests/components/ReadinessBanner";
@@ -72,7 +73,7 @@ export default async function AthletePage({ params }: { params: Promise<{ id: st
             {threads.map((t) => (
               <li key={`${t.subject.kind}:${t.subject.id}`} className="space-y-1">
                 <p className="text-sm">
-                  <span className="font-semibold">{t.title}</span> · {t.date} ·{" "}
+                  <span className="font-semibold">{t.title}</span> · {formatDay(t.date, actor.dateStyle)} ·{" "}
                   {t.subject.kind === "session" ? "planned session" : "log"} · {t.messages}{" "}
                   {t.messages === 1 ? "message" : "messages"}
                   {t.unread ? <span className="ml-1 font-semibold text-alert">{t.unread} new</span> : null}
@@ -105,12 +106,13 @@ export default async function AthletePage({ params }: { params: Promise<{ id: st
             className="rounded-md border border-alert/40 bg-alert-wash p-3 text-sm text-alert"
             data-testid="drift"
           >
-            <strong>Zone drift ({drift.sport.replaceAll("_", " ")}):</strong> {drift.message} Based on{" "}
-            {drift.baselineSessions} sessions after the zones were set and {drift.recentSessions} recent ones.
+            <strong>Zone drift ({drift.sport.replaceAll("_", " ")}):</strong>{" "}
+            {localiseDates(drift.message, actor.dateStyle)} Based on {drift.baselineSessions} sessions after the zones
+            were set and {drift.recentSessions} recent ones.
           </p>
         ) : null}
         {load.weeks.some((w) => w.load > 0 || w.doneMin > 0) ? (
-          <LoadChart report={load} />
+          <LoadChart report={load} dateStyle={actor.dateStyle} />
         ) : (
           <p className="text-ink-soft">No logged sessions in the last 12 weeks yet.</p>
         )}
@@ -197,7 +199,7 @@ export default async function AthletePage({ params }: { params: Promise<{ id: st
         <p className="text-sm">
           Readiness screening:{" "}
           {screening.latest
-            ? `answered on ${new Date(screening.latest.date).toISOString().slice(0, 10)}${screening.latest.anyYes ? " — at least one yes" : " — all no"}`
+            ? `answered on ${formatDay(new Date(screening.latest.date).toISOString().slice(0, 10), actor.dateStyle)}${screening.latest.anyYes ? " — at least one yes" : " — all no"}`
             : "not answered yet"}
           .{" "}
           <Link href={`/athletes/${id}/screening`} className="font-semibold text-tide underline">
@@ -211,7 +213,7 @@ export default async function AthletePage({ params }: { params: Promise<{ id: st
             {tests.map((t) => (
               <li key={t.id} className="flex flex-wrap items-baseline justify-between gap-2 py-2">
                 <Link href={`/tests/${t.id}`} className="font-semibold text-tide hover:underline">
-                  {KIND_LABELS[t.kind]} · {t.date}
+                  {KIND_LABELS[t.kind]} · {formatDay(t.date, actor.dateStyle)}
                 </Link>
                 <span className="text-sm text-ink-soft">
                   {t.protocol}

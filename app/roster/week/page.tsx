@@ -1,3 +1,4 @@
+import { formatDay } from "@/features/platform/lib/date-format";
 import Link from "next/link";
 import { Fragment } from "react";
 import { coachedSquadIds } from "@/features/access/lib/rules";
@@ -59,7 +60,7 @@ export default async function SquadWeekPage({
               {squad.name}
             </Link>
           </p>
-          <h1 className="text-3xl font-bold">Week of {monday}</h1>
+          <h1 className="text-3xl font-bold">Week of {formatDay(monday, actor.dateStyle)}</h1>
           <p className="num text-sm text-ink-soft">
             {rows.length} athlete{rows.length === 1 ? "" : "s"} · {over} over budget
           </p>
@@ -106,7 +107,7 @@ export default async function SquadWeekPage({
                 {days.map((d, i) => (
                   <th key={d} scope="col" className="px-2 font-semibold">
                     <span className="block">{DAY_NAMES[i]}</span>
-                    <span className="num text-xs font-normal">{d.slice(5)}</span>
+                    <span className="num text-xs font-normal">{formatDay(d, actor.dateStyle, { year: false })}</span>
                   </th>
                 ))}
               </tr>

@@ -4,6 +4,7 @@ import { getDb, schema } from "@/db/client";
 import { getAuth } from "@/features/auth/server";
 import { recallSession, rememberSession, sessionCookieKey } from "@/features/auth/server";
 import { HttpError, notFound, unauthenticated, forbidden } from "@/features/platform/server/http";
+import { dateStyleOf, type DateStyle } from "@/features/platform/lib/date-format";
 import type { Units } from "@/features/platform/lib/units";
 import {
   canCoachAthlete,
@@ -23,6 +24,8 @@ export interface SignedInActor extends Actor {
   email: string;
   /** The units every number this person reads is shown in. */
   units: Units;
+  /** How every date this person reads is written (platform/lib/date-format.ts). */
+  dateStyle: DateStyle;
 }
 
 async function membershipsOf(userId: string): Promise<Membership[]> {
@@ -49,7 +52,7 @@ export async function findActor(headers: Headers): Promise<SignedInActor | null>
         startedAt,
       );
   }
-  const u = result.user as typeof result.user & { isAdmin?: boolean; units?: string };
+  const u = result.user as typeof result.user & { isAdmin?: boolean; units?: string; dateStyle?: string };
   // An account works only once its address is confirmed (a session from before confirmation was required counts as none).
   if (!u.emailVerified) return null;
   return {
@@ -58,6 +61,7 @@ export async function findActor(headers: Headers): Promise<SignedInActor | null>
     email: u.email,
     isAdmin: Boolean(u.isAdmin),
     units: u.units === "imperial" ? "imperial" : "metric",
+    dateStyle: dateStyleOf(u.dateStyle),
     memberships: await membershipsOf(u.id),
   };
 }

@@ -1,4 +1,5 @@
 import Link from "next/link";
+import { Said } from "@/features/platform/components/dates";
 import type { Readiness } from "../lib/readiness";
 
 /**
@@ -29,23 +30,29 @@ export function ReadinessBanner({
           role={hold ? "alert" : "status"}
           className={`rounded-md border p-3 text-sm ${hold ? "border-alert bg-alert-wash text-alert" : "border-alert/40 bg-alert-wash text-alert"}`}
         >
-          <p className="font-bold">{hold ? "Hold hard sessions and testing" : r.label}</p>
+          <p className="font-bold">{hold ? "Hold hard sessions and testing" : <Said>{r.label}</Said>}</p>
           {r.reasons.filter((x) => x.startsWith("Yes:")).length ? (
             <ul className="mt-1 list-disc pl-5">
               {r.reasons
                 .filter((x) => x.startsWith("Yes:"))
                 .map((x) => (
-                  <li key={x}>{x}</li>
+                  <li key={x}>
+                    <Said>{x}</Said>
+                  </li>
                 ))}
             </ul>
           ) : (
             r.reasons.map((x) => (
               <p key={x} className="mt-1">
-                {x}
+                <Said>{x}</Said>
               </p>
             ))
           )}
-          {r.whatToDo ? <p className="mt-1">{r.whatToDo}</p> : null}
+          {r.whatToDo ? (
+            <p className="mt-1">
+              <Said>{r.whatToDo}</Said>
+            </p>
+          ) : null}
           {hold && context === "today" ? (
             <p className="mt-1">
               Easy sessions in zone 1 are fine if you feel well; stop and seek help at once for chest pain, fainting or

@@ -1,4 +1,5 @@
 import Link from "next/link";
+import { Day } from "@/features/platform/components/dates";
 import { SPORT_LABELS } from "@/features/platform/lib/sports";
 import { ZoneTable } from "@/features/zones/components/ZoneTable";
 import type { TestView } from "../lib/views";
@@ -34,7 +35,7 @@ export function TestHeader({ test }: { test: TestView }) {
         </Link>
       </p>
       <h1 className="text-2xl font-bold">
-        {KIND_LABELS[test.kind]} · {test.date}
+        {KIND_LABELS[test.kind]} · <Day value={test.date} />
       </h1>
       <p className="text-sm text-ink-soft">
         {(SPORT_LABELS as Record<string, string>)[test.sport] ?? test.sport} · {test.protocol} · ended{" "}
@@ -45,7 +46,8 @@ export function TestHeader({ test }: { test: TestView }) {
       {test.adjustedAt ? (
         <p className="text-sm text-ink-soft">
           Thresholds adjusted by {test.adjustedBy ?? "a coach"} on{" "}
-          {new Date(test.adjustedAt).toISOString().slice(0, 16).replace("T", " ")} UTC; the detected values are kept.
+          <Day value={new Date(test.adjustedAt).toISOString().slice(0, 10)} />{" "}
+          {new Date(test.adjustedAt).toISOString().slice(11, 16)} UTC; the detected values are kept.
         </p>
       ) : null}
     </div>
@@ -87,7 +89,11 @@ export function TestBody({
               sport={test.sport}
               units={units}
               maxHrBpm={maxHrBpm}
-              caption={`Effective from ${test.zoneSet.effectiveFrom} · ${test.zoneSet.source}`}
+              caption={
+                <>
+                  Effective from <Day value={test.zoneSet.effectiveFrom} /> · {test.zoneSet.source}
+                </>
+              }
             />
             {test.zoneSet.fiveZones ? (
               <ZoneTable

@@ -117,6 +117,8 @@ function createAuth() {
         isAdmin: { type: "boolean", required: false, defaultValue: false, input: false },
         // Metric or imperial (platform/lib/units.ts): changed through PATCH /api/me/display, not at sign-up.
         units: { type: "string", required: false, defaultValue: "metric", input: false },
+        // How dates read (platform/lib/date-format.ts), changed the same way.
+        dateStyle: { type: "string", required: false, defaultValue: "iso", input: false },
         managed: { type: "boolean", required: false, defaultValue: false, input: false },
       },
     },

@@ -1,3 +1,4 @@
+import { formatDay, type DateStyle } from "@/features/platform/lib/date-format";
 import type { LoadReport } from "../lib/report";
 import { ACWR_SAFE_BAND } from "../lib/load";
 
@@ -7,7 +8,7 @@ const ZONE_FILL = ["var(--color-zone-1)", "var(--color-zone-2)", "var(--color-zo
  * Weekly load over the season: the session-RPE load of each week as a column (arbitrary units) over the week's time per zone
  * as a stacked column (minutes), with monotony under each week. Our own design; every number is labelled with its unit.
  */
-export function LoadChart({ report }: { report: LoadReport }) {
+export function LoadChart({ report, dateStyle = "iso" }: { report: LoadReport; dateStyle?: DateStyle }) {
   const weeks = report.weeks;
   const W = 720,
     colW = W / Math.max(1, weeks.length),
@@ -36,7 +37,7 @@ export function LoadChart({ report }: { report: LoadReport }) {
           let y = loadH + gap + zoneH;
           return (
             <g key={w.weekStart}>
-              <title>{`Week of ${w.weekStart}: load ${Math.round(w.load)} AU, ${Math.round(total)} min (zone 1 ${Math.round(w.minByZone[0])}, zone 2 ${Math.round(w.minByZone[1])}, zone 3 ${Math.round(w.minByZone[2])} min)`}</title>
+              <title>{`Week of ${formatDay(w.weekStart, dateStyle)}: load ${Math.round(w.load)} AU, ${Math.round(total)} min (zone 1 ${Math.round(w.minByZone[0])}, zone 2 ${Math.round(w.minByZone[1])}, zone 3 ${Math.round(w.minByZone[2])} min)`}</title>
               <rect x={x} y={loadH - h} width={bw} height={h} fill="var(--color-tide)" rx={2} />
               {w.load > 0 ? (
                 <text x={x + bw / 2} y={loadH - h - 3} fontSize={10} textAnchor="middle" fill="var(--color-ink)">
@@ -60,7 +61,7 @@ export function LoadChart({ report }: { report: LoadReport }) {
                 textAnchor="middle"
                 fill="var(--color-ink-soft)"
               >
-                {w.weekStart.slice(5)}
+                {formatDay(w.weekStart, dateStyle, { year: false })}
               </text>
               <text
                 x={x + bw / 2}

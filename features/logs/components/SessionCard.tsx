@@ -1,3 +1,4 @@
+import { Day } from "@/features/platform/components/dates";
 import { SPORT_LABELS } from "@/features/platform/lib/sports";
 import type { Block } from "@/features/planning/lib/session";
 import { targetText } from "@/features/zones/lib/format";
@@ -113,7 +114,9 @@ export function SessionCard({
           {sportName(s.sport)} test gives this sport its own zones.
         </p>
       ) : s.zoneSet ? (
-        <p className="text-xs text-ink-soft">Targets from the zones in force since {s.zoneSet.effectiveFrom}.</p>
+        <p className="text-xs text-ink-soft">
+          Targets from the zones in force since <Day value={s.zoneSet.effectiveFrom} />.
+        </p>
       ) : null}
       {s.structure.length ? (
         <p className="text-sm">

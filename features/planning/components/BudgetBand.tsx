@@ -1,4 +1,5 @@
 "use client";
+import { useDates } from "@/features/platform/components/dates";
 import type { Fix, WeekSummary } from "../lib/weeks";
 
 const ZONE_BG = ["bg-zone-1", "bg-zone-2", "bg-zone-3"];
@@ -21,7 +22,8 @@ export function BudgetBand({
   const total = week.plannedMinByZone.reduce((a, b) => a + b, 0);
   const done = week.doneMinByZone.reduce((a, b) => a + b, 0);
   const scale = Math.max(total, done);
-  const label = `Week of ${week.weekStart}`;
+  const dates = useDates();
+  const label = `Week of ${dates.day(week.weekStart)}`;
   return (
     <section
       aria-label={`Budget, ${label}`}
@@ -117,7 +119,7 @@ export function BudgetBand({
           {week.overBudget ? <li className="font-semibold text-alert">Over budget</li> : null}
           {week.flags.map((f) => (
             <li key={f.code} data-flag={f.code}>
-              {f.message}
+              {dates.text(f.message)}
             </li>
           ))}
         </ul>
@@ -131,7 +133,7 @@ export function BudgetBand({
           {week.fixes.map((fix, i) => (
             <li key={`${fix.action}-${i}`} className="flex flex-wrap items-center gap-2">
               <span>
-                {i === 0 ? "Suggested fix" : "Or"}: {fix.message}
+                {i === 0 ? "Suggested fix" : "Or"}: {dates.text(fix.message)}
               </span>
               <button type="button" className="btn-quiet py-1" onClick={() => onApplyFix(fix)} disabled={busy}>
                 {i === 0 ? "Apply the fix" : "Apply this one instead"}

@@ -1,5 +1,6 @@
 "use client";
 import { useState } from "react";
+import { useDates } from "@/features/platform/components/dates";
 import { FormAlert, FormNotice } from "@/features/platform/components/form-bits";
 import { apiFetch, ApiError } from "@/features/platform/lib/api-client";
 import { addDays } from "@/features/platform/lib/days";
@@ -24,6 +25,7 @@ export function CopyWeek({
   weekStarts: string[];
   onCopied: () => Promise<unknown> | void;
 }) {
+  const dates = useDates();
   const [week, setWeek] = useState(weekStarts[0] ?? "");
   const [count, setCount] = useState(1);
   const [answer, setAnswer] = useState<Answer | null>(null);
@@ -70,7 +72,7 @@ export function CopyWeek({
           >
             {weekStarts.map((w) => (
               <option key={w} value={w}>
-                {w}
+                {dates.day(w)}
               </option>
             ))}
           </select>
@@ -115,9 +117,11 @@ export function CopyWeek({
               const m = w.after.plannedMinByZone;
               return (
                 <li key={w.weekStart} className="num">
-                  Week of {w.weekStart}: {Math.round(m[0] + m[1] + m[2])} min planned ·{" "}
+                  Week of {dates.day(w.weekStart)}: {Math.round(m[0] + m[1] + m[2])} min planned ·{" "}
                   {w.after.overBudget ? (
-                    <span className="font-semibold text-alert">over budget: {w.after.flags[0]?.message}</span>
+                    <span className="font-semibold text-alert">
+                      over budget: {dates.text(w.after.flags[0]?.message ?? "")}
+                    </span>
                   ) : w.after.inProgress ? (
                     "in progress (under half its target)"
                   ) : (

@@ -1,6 +1,7 @@
 "use client";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
+import { useDates } from "@/features/platform/components/dates";
 import { FormAlert, FormNotice } from "@/features/platform/components/form-bits";
 import { apiFetch, ApiError } from "@/features/platform/lib/api-client";
 import { addDays } from "@/features/platform/lib/days";
@@ -17,8 +18,6 @@ interface Answer {
     weeks: { weekStart: string; before: WeekSummary; after: WeekSummary }[];
   }[];
 }
-
-const DAY_NAMES = ["Mon", "Tue", "Wed", "Thu", "Fri", "Sat", "Sun"];
 
 /**
  * Plan for several athletes of a squad at once: a template on one day, or one athlete's week copied into this or later
@@ -37,6 +36,7 @@ export function GroupPlanner({
   templates: { id: string; name: string; sport: string }[];
 }) {
   const router = useRouter();
+  const dates = useDates();
   const [mode, setMode] = useState<"template" | "week">("template");
   const [templateId, setTemplateId] = useState(templates[0]?.id ?? "");
   const [date, setDate] = useState(monday);
@@ -115,7 +115,7 @@ export function GroupPlanner({
               reset();
             }}
           />
-          One athlete&apos;s week of {monday}
+          One athlete&apos;s week of {dates.day(monday)}
         </label>
       </fieldset>
       {mode === "template" ? (
@@ -153,9 +153,9 @@ export function GroupPlanner({
                 reset();
               }}
             >
-              {days.map((d, i) => (
+              {days.map((d) => (
                 <option key={d} value={d}>
-                  {DAY_NAMES[i]} {d}
+                  {dates.day(d, { weekday: true })}
                 </option>
               ))}
             </select>
@@ -178,7 +178,7 @@ export function GroupPlanner({
             >
               {athletes.map((a) => (
                 <option key={a.id} value={a.id}>
-                  {a.name}, week of {monday}
+                  {a.name}, week of {dates.day(monday)}
                 </option>
               ))}
             </select>
@@ -196,7 +196,7 @@ export function GroupPlanner({
                       reset();
                     }}
                   />
-                  {w}
+                  {dates.day(w)}
                 </label>
               ))}
             </div>
@@ -293,13 +293,15 @@ export function GroupPlanner({
                     <th scope="row" className="py-1 pr-3 text-left font-semibold">
                       {a.name}
                     </th>
-                    <td className="num py-1 pr-3">{w.weekStart}</td>
+                    <td className="num py-1 pr-3">{dates.day(w.weekStart)}</td>
                     <td className="num py-1 pr-3">
                       {total} min (z1 {Math.round(m[0])} · z2 {Math.round(m[1])} · z3 {Math.round(m[2])})
                     </td>
                     <td className="py-1">
                       {w.after.overBudget ? (
-                        <span className="font-semibold text-alert">Over budget: {w.after.flags[0]?.message ?? ""}</span>
+                        <span className="font-semibold text-alert">
+                          Over budget: {dates.text(w.after.flags[0]?.message ?? "")}
+                        </span>
                       ) : w.after.inProgress ? (
                         <span className="text-ink-soft">In progress (under half its target)</span>
                       ) : (

@@ -29,6 +29,7 @@ import { SelectedSession } from "./SelectedSession";
 import { LOG_MARK, LOG_WORD } from "./session-text";
 import { useDragPreview } from "./use-drag-preview";
 import { titleWithLength } from "../lib/title";
+import { useDates } from "@/features/platform/components/dates";
 
 export interface TrayTemplate {
   id: string;
@@ -57,6 +58,7 @@ export function PlanCalendar({
   /** The athlete's sports: the tray shows them first, and a template of another sport asks before it is planned. */
   athleteSports?: string[];
 }) {
+  const dates = useDates();
   const calendarRef = useRef<FullCalendar>(null);
   const trayRef = useRef<HTMLUListElement>(null);
   // The first week shown is known before the calendar mounts: its sessions and summaries come with the page.
@@ -140,7 +142,7 @@ export function PlanCalendar({
           revert?.();
           fail(e);
         },
-        onSuccess: () => setMessage({ kind: "ok", text: `Moved "${s.title}" to ${date}.` }),
+        onSuccess: () => setMessage({ kind: "ok", text: `Moved "${s.title}" to ${dates.day(date)}.` }),
       },
     );
   };
@@ -167,7 +169,10 @@ export function PlanCalendar({
         const n = (r as { ids?: string[] }).ids?.length ?? 1;
         setMessage({
           kind: "ok",
-          text: n > 1 ? `Planned ${n} sessions of "${name}" from ${date}.` : `Planned "${name}" on ${date}.`,
+          text:
+            n > 1
+              ? `Planned ${n} sessions of "${name}" from ${dates.day(date)}.`
+              : `Planned "${name}" on ${dates.day(date)}.`,
         });
         calendarRef.current?.getApi().gotoDate(date);
       },
@@ -268,7 +273,7 @@ export function PlanCalendar({
               &quot;{otherSport(pending.templateId)?.name}&quot; is a{" "}
               {SPORT_LABELS[otherSport(pending.templateId)?.sport as Sport]?.toLowerCase() ?? "different"} template, and
               this athlete trains {athleteSports.map((x) => SPORT_LABELS[x as Sport]?.toLowerCase() ?? x).join(", ")}.
-              Plan it on {pending.date} anyway?
+              Plan it on {dates.day(pending.date)} anyway?
             </p>
             <div className="mt-2 flex gap-2">
               <button
@@ -311,17 +316,15 @@ export function PlanCalendar({
               right: "dayGridWeek,dayGridFourWeek,dayGridMonth",
             }}
             buttonText={{ today: "This week", week: "Week", month: "Month" }}
-            // One date format everywhere in Tidemark: ISO dates (YYYY-MM-DD), weekdays in English.
+            // One date format everywhere in Tidemark: the reader's own date style (platform/lib/date-format.ts).
             titleFormat={(arg) => {
               const iso = (m: { year: number; month: number; day: number }) =>
                 `${m.year}-${String(m.month + 1).padStart(2, "0")}-${String(m.day).padStart(2, "0")}`;
-              return arg.end && iso(arg.end) !== iso(arg.start)
-                ? `${iso(arg.start)} – ${iso(arg.end)}`
-                : iso(arg.start);
+              return dates.range(iso(arg.start), arg.end ? iso(arg.end) : iso(arg.start));
             }}
             dayHeaderContent={(arg) =>
               arg.view.type === "dayGridWeek"
-                ? `${WEEKDAYS[(arg.date.getDay() + 6) % 7]} ${localIso(arg.date).slice(5)}`
+                ? dates.day(localIso(arg.date), { weekday: true, year: false })
                 : WEEKDAYS[(arg.date.getDay() + 6) % 7]
             }
             dayCellContent={(arg) => {
@@ -341,7 +344,7 @@ export function PlanCalendar({
                   )}
                   <span className="num">
                     {arg.date.getDate() === 1 || iso === localIso(arg.view.activeStart)
-                      ? iso.slice(5)
+                      ? dates.day(iso, { year: false })
                       : arg.date.getDate()}
                   </span>
                 </span>
@@ -406,12 +409,9 @@ export function PlanCalendar({
             (_, i) => addDays(range.from, i),
           ).map((day) => {
             const list = (sessions.data ?? []).filter((x) => x.date === day);
-            const wd = WEEKDAYS[(new Date(`${day}T00:00:00Z`).getUTCDay() + 6) % 7];
             return (
               <li key={day} className="rounded-md border border-rule bg-paper px-3 py-2">
-                <p className="num text-sm font-semibold">
-                  {wd} {day}
-                </p>
+                <p className="num text-sm font-semibold">{dates.day(day, { weekday: true })}</p>
                 {list.length ? (
                   <ul className="mt-1 space-y-1">
                     {list.map((x) => (
@@ -472,7 +472,7 @@ export function PlanCalendar({
                   },
                   onSuccess: () => {
                     setSelected(null);
-                    setMessage({ kind: "ok", text: `Moved "${selected.title}" to ${date}.` });
+                    setMessage({ kind: "ok", text: `Moved "${selected.title}" to ${dates.day(date)}.` });
                     calendarRef.current?.getApi().gotoDate(date);
                   },
                 },

@@ -1,6 +1,7 @@
 "use client";
 import { useQuery } from "@tanstack/react-query";
 import Link from "next/link";
+import { useDates } from "@/features/platform/components/dates";
 import { planQueries } from "../api";
 import { BLOCK_LABELS, BLOCK_SHORT, type BlockName, type SeasonWeek } from "../lib/season";
 import type { WeekSummary } from "../lib/weeks";
@@ -31,6 +32,7 @@ export function SeasonRibbon({
   weeks: SeasonWeek[];
   initialSummaries: WeekSummary[];
 }) {
+  const dates = useDates();
   const first = weeks[0]?.weekStart ?? "",
     last = weeks.at(-1)?.weekStart ?? "";
   const summaries = useQuery({
@@ -63,25 +65,27 @@ export function SeasonRibbon({
         {weeks.map((w) => {
           const flags = overBudget[w.weekStart] ?? [];
           return (
-            <li key={w.weekStart} className="min-w-12 flex-1">
+            <li key={w.weekStart} className="min-w-14 flex-1">
               <Link
                 href={`/athletes/${athleteId}/plan?week=${w.weekStart}`}
                 // A season holds up to 52 of these: fetched when followed, not all ahead in the background.
                 prefetch={false}
                 className={`relative block rounded border px-1 py-1 text-center text-[11px] leading-tight ${BLOCK_STYLE[w.block]} ${flags.length ? "border-alert" : "border-rule"}`}
-                title={`Week of ${w.weekStart}: ${BLOCK_LABELS[w.block]}, ${w.role}, ${w.volumeHours} h target${w.retest ? `, retest${w.retestNote ? ` (${w.retestNote})` : ""}` : ""}${w.events.length ? `, ${w.events.join(", ")}` : ""}${flags.length ? ` — ${flags.join("; ")}` : ""}`}
+                title={dates.text(
+                  `Week of ${w.weekStart}: ${BLOCK_LABELS[w.block]}, ${w.role}, ${w.volumeHours} h target${w.retest ? `, retest${w.retestNote ? ` (${w.retestNote})` : ""}` : ""}${w.events.length ? `, ${w.events.join(", ")}` : ""}${flags.length ? ` — ${flags.join("; ")}` : ""}`,
+                )}
               >
                 {/* The block's name as well as its colour (colour is never the only cue). */}
                 <span aria-hidden className="block">
                   {BLOCK_SHORT[w.block]}
                 </span>
-                <span className="block num">{w.weekStart.slice(5)}</span>
+                <span className="block num">{dates.day(w.weekStart, { year: false })}</span>
                 <span className="block whitespace-nowrap num font-semibold">
                   {w.volumeHours} h{w.retest ? " ⟳" : ""}
                   {flags.length ? <span className="font-bold text-alert"> !</span> : null}
                 </span>
                 <span className="sr-only">
-                  : week of {w.weekStart}, {BLOCK_LABELS[w.block]}
+                  : week of {dates.day(w.weekStart)}, {BLOCK_LABELS[w.block]}
                   {w.retest ? ", retest" : ""}
                   {flags.length ? ", over budget" : ""}
                 </span>

@@ -1,4 +1,5 @@
 "use client";
+import { Day, Said } from "@/features/platform/components/dates";
 import { useQueryClient } from "@tanstack/react-query";
 import { useRouter } from "next/navigation";
 import { useForm, useWatch } from "react-hook-form";
@@ -71,7 +72,7 @@ export function SeasonWeekEditor({
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-3" aria-labelledby="week-edit-h">
       <h2 id="week-edit-h" className="font-bold">
-        Week of {week.weekStart}
+        Week of <Day value={week.weekStart} />
         {week.events.length ? ` · ${week.events.join(", ")}` : ""}
       </h2>
       <FormAlert>{formState.errors.root?.message}</FormAlert>
@@ -127,7 +128,11 @@ export function SeasonWeekEditor({
           <input type="checkbox" {...register("retest")} /> Retest this week
         </label>
       </div>
-      {week.retest && week.retestNote ? <p className="text-sm text-ink-soft">{week.retestNote}</p> : null}
+      {week.retest && week.retestNote ? (
+        <p className="text-sm text-ink-soft">
+          <Said>{week.retestNote}</Said>
+        </p>
+      ) : null}
       {week.role === "taper" || week.role === "event" || week.role === "recovery" ? (
         <p className="text-sm text-ink-soft">
           A retest in a {week.role === "event" ? "race" : week.role} week would cost the event or measure a tired

@@ -3,6 +3,7 @@ import dynamic from "next/dynamic";
 import { useQueryClient } from "@tanstack/react-query";
 import { useState } from "react";
 import { apiFetch } from "@/features/platform/lib/api-client";
+import { Day, useDates } from "@/features/platform/components/dates";
 import { addDays } from "@/features/platform/lib/days";
 import { SubmitButton } from "@/features/platform/components/SubmitButton";
 import { invalidatePlan, type SessionDto } from "../api";
@@ -48,7 +49,7 @@ export function SelectedSession({
   return (
     <section className="card space-y-2" aria-label="Selected session">
       <h3 className="font-bold">
-        {selected.title} · {selected.date}
+        {selected.title} · <Day value={selected.date} weekday />
       </h3>
       <p className="num text-sm">
         {Math.round(selected.totalS / 60)} min · {zoneText(selected.minutesByZone)}
@@ -160,6 +161,7 @@ function DuplicateButton({
   athleteId: string;
 }) {
   const qc = useQueryClient();
+  const dates = useDates();
   const [busy, setBusy] = useState(false);
   return (
     <button
@@ -171,7 +173,7 @@ function DuplicateButton({
         try {
           await apiFetch(`/api/sessions/${sessionId}`, { method: "POST", body: JSON.stringify({ date }) });
           await invalidatePlan(qc, athleteId);
-          onDone(`Copied to ${date}.`);
+          onDone(`Copied to ${dates.day(date)}.`);
         } catch (e) {
           onError(e);
         } finally {

@@ -1,6 +1,7 @@
 "use client";
 import { useRouter } from "next/navigation";
 import { useState, type ReactNode } from "react";
+import { useDates } from "@/features/platform/components/dates";
 import { apiFetch, ApiError } from "@/features/platform/lib/api-client";
 import { SPORT_LABELS, type Sport } from "@/features/platform/lib/sports";
 
@@ -78,6 +79,8 @@ export function SquadDayCell({
   children: ReactNode;
 }) {
   const router = useRouter();
+  const dates = useDates();
+  const shown = dates.day(date);
   const [over, setOver] = useState(false);
   const [open, setOpen] = useState(false);
   const [choice, setChoice] = useState(templates[0]?.id ?? "");
@@ -103,7 +106,7 @@ export function SquadDayCell({
         method: "POST",
         body: JSON.stringify({ mode: "template", templateId, date, athleteIds: [athlete.id] }),
       });
-      setStatus({ ok: true, text: `Planned "${name}" for ${athlete.name} on ${date}.` });
+      setStatus({ ok: true, text: `Planned "${name}" for ${athlete.name} on ${shown}.` });
       setOpen(false);
       router.refresh();
     } catch (e) {
@@ -145,7 +148,7 @@ export function SquadDayCell({
         >
           <p id={`other-sport-${athlete.id}-${date}`}>
             &quot;{pending.name}&quot; is a {sportName(pending.sport)} template, and {athlete.name} trains{" "}
-            {athlete.sports.map(sportName).join(", ")}. Plan it on {date} anyway?
+            {athlete.sports.map(sportName).join(", ")}. Plan it on {shown} anyway?
           </p>
           <div className="flex gap-1">
             <button
@@ -166,7 +169,7 @@ export function SquadDayCell({
         open ? (
           <div className="mt-1 space-y-1">
             <label className="sr-only" htmlFor={`plan-${athlete.id}-${date}`}>
-              Template for {athlete.name} on {date}
+              Template for {athlete.name} on {shown}
             </label>
             <select
               id={`plan-${athlete.id}-${date}`}
@@ -198,7 +201,7 @@ export function SquadDayCell({
             + Plan
             <span className="sr-only">
               {" "}
-              a template for {athlete.name} on {date}
+              a template for {athlete.name} on {shown}
             </span>
           </button>
         )

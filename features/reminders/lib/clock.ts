@@ -2,6 +2,7 @@
  * When a reminder is due, from an instant and a person's IANA time zone (Node's Intl time-zone data), so that "07:00 in
  * Oslo" is 06:00 UTC in winter and 05:00 UTC in summer. Pure: the jobs pass the clock in.
  */
+import type { DateStyle } from "@/features/platform/lib/date-format";
 import { addDays } from "@/features/platform/lib/days";
 
 export interface LocalTime {
@@ -83,15 +84,17 @@ export function digestMonday(now: Date, timeZone: string): string | null {
   return local.weekday === 1 && local.minutes >= minutesOf(DIGEST_TIME) ? local.date : null;
 }
 
-/** A day written out for people, e.g. "Tuesday 5 January 2027". */
+/**
+ * A day written out for people in an e-mail, in the reader's date style (platform/lib/date-format.ts): "Tuesday 5 January
+ * 2027" (day before month, en-GB), "Tuesday, January 5, 2027" (month before day, en-US) or "Tuesday 2027-01-05" (ISO).
+ */
 const weekdayName = new Intl.DateTimeFormat("en-GB", { weekday: "long", timeZone: "UTC" });
-const dayMonthYear = new Intl.DateTimeFormat("en-GB", {
-  day: "numeric",
-  month: "long",
-  year: "numeric",
-  timeZone: "UTC",
-});
-export function dayLabel(date: string): string {
+const longDate = (locale: string) =>
+  new Intl.DateTimeFormat(locale, { weekday: "long", day: "numeric", month: "long", year: "numeric", timeZone: "UTC" });
+const LONG = { "day-month": longDate("en-GB"), "month-day": longDate("en-US") };
+export function dayLabel(date: string, style: DateStyle): string {
   const noon = new Date(`${date}T12:00:00Z`);
-  return `${weekdayName.format(noon)} ${dayMonthYear.format(noon)}`;
+  if (style === "iso") return `${weekdayName.format(noon)} ${date}`;
+  // en-GB writes "Tuesday 5 January 2027" (some ICU versions put a comma after the weekday: one form everywhere).
+  return style === "day-month" ? LONG[style].format(noon).replace(/^(\w+), /, "$1 ") : LONG[style].format(noon);
 }

@@ -16,6 +16,7 @@ import { SCREENING_QUESTIONS } from "@/features/athlete-tests/schemas";
 import { unsubscribeToken, type UnsubscribableKind } from "@/features/messages/lib/unsubscribe";
 import { queueMessage, queueMessages, type OutgoingMessage } from "@/features/messages/server";
 import { localDate } from "@/features/platform/lib/dates";
+import { dateStyleOf, formatDay } from "@/features/platform/lib/date-format";
 import { SPORT_LABELS, type Sport } from "@/features/platform/lib/sports";
 import { publicOrigin } from "@/features/platform/server/origin";
 import { flatten, type Block } from "@/features/planning/lib/session";
@@ -114,6 +115,7 @@ export async function queueSessionReminders(now: Date): Promise<number> {
       name: schema.user.name,
       email: schema.user.email,
       units: schema.user.units,
+      dateStyle: schema.user.dateStyle,
       maxHrBpm: schema.athleteProfile.maxHrBpm,
       timeZone: schema.athleteProfile.timeZone,
       timing: schema.athleteProfile.reminderTiming,
@@ -174,7 +176,7 @@ export async function queueSessionReminders(now: Date): Promise<number> {
       const l = links(a.id, "session_reminder");
       const props = {
         name: a.name,
-        dayLabel: dayLabel(a.day),
+        dayLabel: dayLabel(a.day, dateStyleOf(a.dateStyle)),
         when,
         sessions: reminderSessions(
           zoneSets.get(a.id) ?? [],
@@ -216,6 +218,7 @@ export async function queueRetestReminders(now: Date): Promise<number> {
       sport: schema.plannedSession.sport,
       name: schema.user.name,
       email: schema.user.email,
+      dateStyle: schema.user.dateStyle,
       timeZone: schema.athleteProfile.timeZone,
       time: schema.athleteProfile.reminderTime,
     })
@@ -257,7 +260,7 @@ export async function queueRetestReminders(now: Date): Promise<number> {
       name: r.name,
       stage: r.stage,
       date: r.date,
-      dateLabel: dayLabel(r.date),
+      dateLabel: dayLabel(r.date, dateStyleOf(r.dateStyle)),
       protocol: `${r.title} (${r.sport})${r.notes ? ` — ${r.notes}` : ""}`,
       questions: SCREENING_QUESTIONS.map((q) => q.text),
       screeningUrl: `${publicOrigin()}/athletes/${r.athleteId}/screening`,
@@ -290,6 +293,7 @@ export async function queueCoachDigests(now: Date): Promise<number> {
       squad: schema.squad.name,
       name: schema.user.name,
       email: schema.user.email,
+      dateStyle: schema.user.dateStyle,
       timeZone: schema.notificationSetting.timeZone,
       digest: schema.notificationSetting.coachDigest,
     })
@@ -333,13 +337,13 @@ export async function queueCoachDigests(now: Date): Promise<number> {
       .filter((m) => !m.status || m.status === "skipped")
       .map((m) => ({
         athlete: nameOf.get(m.athleteId) ?? "",
-        detail: `${m.title} on ${m.date} ${m.status === "skipped" ? "was skipped" : "has no log"}`,
+        detail: `${m.title} on ${formatDay(m.date, dateStyleOf(c.dateStyle))} ${m.status === "skipped" ? "was skipped" : "has no log"}`,
       }));
     const l = links(c.userId, "coach_digest");
     const props = {
       name: c.name,
       squad: c.squad,
-      weekLabel: dayLabel(c.monday),
+      weekLabel: dayLabel(c.monday, dateStyleOf(c.dateStyle)),
       overBudget: rows
         .filter((r) => r.week.overBudget)
         .map((r) => ({ athlete: r.name, detail: r.week.flags.join(" ") })),

@@ -1,6 +1,7 @@
 "use client";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useState } from "react";
+import { Day } from "@/features/platform/components/dates";
 import { useForm } from "react-hook-form";
 import { FieldError, FormAlert, FormNotice } from "@/features/platform/components/form-bits";
 import { useInvitations, useInvite, useWithdrawInvitation } from "../api";
@@ -99,8 +100,7 @@ export function InvitePanel({ squadId, fakeInbox }: { squadId: string; fakeInbox
             {invitations.data.map((i) => (
               <li key={i.id} className="flex flex-wrap items-center gap-x-2">
                 <span>
-                  {i.email} · {ROLE_LABELS[i.role]} · expires{" "}
-                  <time dateTime={i.expiresAt}>{i.expiresAt.slice(0, 10)}</time>
+                  {i.email} · {ROLE_LABELS[i.role]} · expires <Day value={i.expiresAt.slice(0, 10)} />
                 </span>
                 <button
                   type="button"

@@ -2,6 +2,7 @@
 import Link from "next/link";
 import { shownEmail } from "../lib/managed";
 import { useMemo, useState } from "react";
+import { useDates } from "@/features/platform/components/dates";
 import { SPORT_LABELS } from "@/features/platform/lib/sports";
 import type { RosterRow } from "@/features/roster/lib/roster";
 import { useRoster } from "../api";
@@ -69,6 +70,7 @@ function Fill({ value, label }: { value: number | null; label: string }) {
 
 export function RosterTable({ squadId }: { squadId: string }) {
   const { data, isPending, isError, error, refetch } = useRoster(squadId);
+  const dates = useDates();
   const [sort, setSort] = useState<SortKey>("name");
   const [filter, setFilter] = useState<Filter>("all");
   const [search, setSearch] = useState("");
@@ -234,8 +236,11 @@ export function RosterTable({ squadId }: { squadId: string }) {
                       Overdue
                     </span>
                   ) : null}
-                  <span className="num"> {r.nextRetest ?? (r.retestOverdue ? "" : "none planned")}</span>
-                  {r.retestNote ? <p className="text-xs text-ink-soft">{r.retestNote}</p> : null}
+                  <span className="num">
+                    {" "}
+                    {r.nextRetest ? dates.day(r.nextRetest) : r.retestOverdue ? "" : "none planned"}
+                  </span>
+                  {r.retestNote ? <p className="text-xs text-ink-soft">{dates.text(r.retestNote)}</p> : null}
                 </td>
                 <td className="py-2 pr-3">
                   {r.week.overBudget ? (

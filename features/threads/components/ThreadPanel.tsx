@@ -1,6 +1,7 @@
 "use client";
 import { useState, type FormEvent } from "react";
 import { ApiError, apiFetch } from "@/features/platform/lib/api-client";
+import { useDates } from "@/features/platform/components/dates";
 import { FormAlert } from "@/features/platform/components/form-bits";
 import { SubmitButton } from "@/features/platform/components/SubmitButton";
 import { MESSAGE_MAX } from "../lib/limits";
@@ -14,7 +15,12 @@ interface Message {
   unread: boolean;
 }
 
-const when = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", hour: "2-digit", minute: "2-digit" });
+/** A message's moment in the reader's own clock: the local calendar day in their date style, then the time (24-hour). */
+function moment(instant: string, day: (ymd: string, o?: { year?: boolean }) => string): string {
+  const d = new Date(instant);
+  const two = (n: number) => String(n).padStart(2, "0");
+  return `${day(`${d.getFullYear()}-${two(d.getMonth() + 1)}-${two(d.getDate())}`, { year: false })} ${two(d.getHours())}:${two(d.getMinutes())}`;
+}
 
 /**
  * The short conversation on a session or a log between the athlete and their coaches: folded until opened (then loaded,
@@ -31,6 +37,7 @@ export function ThreadPanel({
   label?: string;
   startOpen?: boolean;
 }) {
+  const dates = useDates();
   const base = `/api/${kind === "session" ? "sessions" : "logs"}/${id}/messages`;
   const [messages, setMessages] = useState<Message[] | null>(null);
   const [error, setError] = useState<string>();
@@ -90,7 +97,7 @@ export function ThreadPanel({
                 <p className="text-xs text-ink-soft">
                   <span className="font-semibold text-ink">{m.authorName}</span>
                   {m.authorRole === "coach" ? " (coach)" : ""} ·{" "}
-                  <time dateTime={m.createdAt}>{when.format(new Date(m.createdAt))}</time>
+                  <time dateTime={m.createdAt}>{moment(m.createdAt, dates.day)}</time>
                   {m.unread ? <span className="ml-1 font-semibold text-alert">new</span> : null}
                 </p>
                 <p className="whitespace-pre-wrap">{m.body}</p>

@@ -12,6 +12,7 @@ import { unsubscribeToken } from "@/features/messages/lib/unsubscribe";
 import { renderEmailHtml } from "@/emails/render";
 import { ThreadMessageEmail, threadMessageSubject, threadMessageText } from "@/emails/thread-message";
 import { dayLabel } from "@/features/reminders/lib/clock";
+import { dateStyleOf, type DateStyle } from "@/features/platform/lib/date-format";
 
 /** What a thread is on: a planned session or a log (each has its own). */
 export type ThreadSubject = { kind: "session" | "log"; id: string };
@@ -145,6 +146,7 @@ export async function postMessage(actor: Actor, subject: ThreadSubject, body: st
       name: schema.user.name,
       email: schema.user.email,
       messageEmails: schema.notificationSetting.messageEmails,
+      dateStyle: schema.user.dateStyle,
     })
     .from(schema.user)
     .leftJoin(schema.notificationSetting, eq(schema.notificationSetting.userId, schema.user.id))
@@ -152,10 +154,11 @@ export async function postMessage(actor: Actor, subject: ThreadSubject, body: st
   const author = people.find((p) => p.id === actor.userId);
   const authorName = author?.name ?? "Someone";
   const origin = publicOrigin();
-  const subjectLine =
+  // The day is written in each reader's own date style.
+  const subjectLine = (style: DateStyle) =>
     subject.kind === "session"
-      ? `${row.title}, ${dayLabel(row.date)}`
-      : `the log "${row.title}", ${dayLabel(row.date)}`;
+      ? `${row.title}, ${dayLabel(row.date, style)}`
+      : `the log "${row.title}", ${dayLabel(row.date, style)}`;
   const mails: OutgoingMessage[] = [];
   for (const p of people) {
     if (p.id === actor.userId || p.messageEmails === false) continue;
@@ -163,7 +166,7 @@ export async function postMessage(actor: Actor, subject: ThreadSubject, body: st
     const props = {
       name: p.name,
       authorName,
-      subjectLine,
+      subjectLine: subjectLine(dateStyleOf(p.dateStyle)),
       body,
       // The athlete's page lists every conversation, a log's too (the plan shows planned sessions only).
       url: `${origin}/athletes/${row.athleteId}#messages`,

@@ -1,11 +1,13 @@
 "use client";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
+import { useDates } from "@/features/platform/components/dates";
 import { apiFetch, ApiError } from "@/features/platform/lib/api-client";
 
 /** Puts one of several zone sets of the same sport and day in force (coaches). */
 export function ChooseZoneSet({ id, date }: { id: string; date: string }) {
   const router = useRouter();
+  const { day } = useDates();
   const [busy, setBusy] = useState(false);
   const [error, setError] = useState<string | null>(null);
   return (
@@ -27,7 +29,7 @@ export function ChooseZoneSet({ id, date }: { id: string; date: string }) {
           }
         }}
       >
-        Use this one from {date}
+        Use this one from {day(date)}
       </button>
       {error ? (
         <span role="alert" className="ml-2 text-xs text-alert">

@@ -1,4 +1,5 @@
 import Link from "next/link";
+import { Day } from "@/features/platform/components/dates";
 import { SPORT_LABELS } from "@/features/platform/lib/sports";
 import type { ZoneSetView } from "../lib/views";
 import { ChooseZoneSet } from "./ChooseZoneSet";
@@ -31,7 +32,11 @@ export function ZonesInForce({
             sport={z.sport}
             units={units}
             maxHrBpm={maxHrBpm}
-            caption={`${sportName(z.sport)} · effective from ${z.effectiveFrom} · from a ${z.source}`}
+            caption={
+              <>
+                {sportName(z.sport)} · effective from <Day value={z.effectiveFrom} /> · from a {z.source}
+              </>
+            }
           />
           {z.fiveZones ? (
             <ZoneTable
@@ -101,7 +106,9 @@ export function ZoneSetList({
       <tbody>
         {history.map((z) => (
           <tr key={z.id} className="border-b border-rule/60">
-            <td className="num py-1 pr-3">{z.effectiveFrom}</td>
+            <td className="num py-1 pr-3">
+              <Day value={z.effectiveFrom} />
+            </td>
             <td className="py-1 pr-3">{sportName(z.sport)}</td>
             <td className="num py-1 pr-3">{describe(z.vt1, z.sport, units)}</td>
             <td className="num py-1 pr-3">{describe(z.vt2, z.sport, units)}</td>

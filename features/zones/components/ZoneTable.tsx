@@ -1,3 +1,4 @@
+import type { ReactNode } from "react";
 import { plainSpeed, speedStyle, type Units } from "@/features/platform/lib/units";
 import { withShownFloor, type Measure, type Zone } from "../lib/zones";
 import { rangeText, speedRangeText } from "../lib/format";
@@ -17,7 +18,7 @@ export function ZoneTable({
   maxHrBpm,
 }: {
   zones: Zone[];
-  caption: string;
+  caption: ReactNode;
   sport: string;
   units?: Units;
   /** The athlete's maximal heart rate: zone 1 then reads from its light-intensity floor (zones.ts `withShownFloor`). */

@@ -1,3 +1,4 @@
+import { formatDay } from "@/features/platform/lib/date-format";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { requirePageActor } from "@/features/access/server/current";
@@ -51,8 +52,10 @@ export default async function ScreeningPage({ params }: { params: Promise<{ id: 
           <ul className="mt-1 space-y-1">
             {screening.clearances.map((c) => (
               <li key={c.recordedAt.toISOString()}>
-                {c.clearedOn}: {c.clearedBy} ({c.role}){c.note ? ` — ${c.note}` : ""}{" "}
-                <span className="text-ink-soft">(recorded {c.recordedAt.toISOString().slice(0, 10)})</span>
+                {formatDay(c.clearedOn, actor.dateStyle)}: {c.clearedBy} ({c.role}){c.note ? ` — ${c.note}` : ""}{" "}
+                <span className="text-ink-soft">
+                  (recorded {formatDay(c.recordedAt.toISOString().slice(0, 10), actor.dateStyle)})
+                </span>
               </li>
             ))}
           </ul>
@@ -71,7 +74,10 @@ export default async function ScreeningPage({ params }: { params: Promise<{ id: 
         <p className="text-xs text-ink-soft">
           Earlier answers:{" "}
           {screening.history
-            .map((h) => `${new Date(h.date).toISOString().slice(0, 10)} (${h.anyYes ? "a yes" : "all no"})`)
+            .map(
+              (h) =>
+                `${formatDay(new Date(h.date).toISOString().slice(0, 10), actor.dateStyle)} (${h.anyYes ? "a yes" : "all no"})`,
+            )
             .join(", ")}
         </p>
       ) : null}

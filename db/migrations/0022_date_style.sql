@@ -1,0 +1,2 @@
+ALTER TABLE "user" ADD COLUMN "date_style" text DEFAULT 'iso' NOT NULL;--> statement-breakpoint
+ALTER TABLE "user" ADD CONSTRAINT "user_date_style" CHECK ("user"."date_style" in ('iso', 'day-month', 'month-day'));
