@@ -171,4 +171,21 @@ describe("test segment on a noisy measured workload", () => {
     expect(Math.abs(a.endS - truth.rampEndS)).toBeLessThanOrEqual(30);
     expect(a.vt1).not.toBeNull();
   });
+
+  it("a continuous ramp exported as 15- or 30-s averages starts where the ramp starts, not three rows later", () => {
+    // Each row of such an export rises by about the ramp's own increment, which is under the step tolerance: before, the
+    // segment began up to 144 s after the ramp (18 of 72 thirty-second exports more than 45 s late).
+    const ramps = labCases(6).filter(
+      (c) => (c.style === "avg-30s" || c.style === "avg-15s") && /ramp|speed-grade/.test(c.protocol),
+    );
+    expect(ramps.length).toBe(144);
+    for (const c of ramps) {
+      const { csv, truth } = labExport(c);
+      const a = analyzeCsv(csv);
+      if (!a.ok) throw new Error(a.error);
+      const late = a.onsetS - truth.rampStartS;
+      expect(late, `${c.protocol} ${c.style} seed ${c.seed}`).toBeLessThanOrEqual(60);
+      expect(late, `${c.protocol} ${c.style} seed ${c.seed}`).toBeGreaterThanOrEqual(-90);
+    }
+  });
 });

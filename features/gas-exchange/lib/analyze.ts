@@ -290,6 +290,17 @@ function findSegment(points: Breath[], peakEndS: number): { onsetS: number; endS
   // A level start longer than one of the test's own steps is a warm-up, not a stage: the test starts where it ends.
   const usualStep = steps.length >= 2 ? [...steps].sort((x, y) => x - y)[steps.length >> 1]! : 180;
   if (lastStep > onsetIdx && points[lastStep]!.timeS - points[onsetIdx]!.timeS > 1.5 * usualStep) onsetIdx = lastStep;
+  // A continuous ramp rises by less than the step tolerance from one point to the next, so the walk above finds its start
+  // up to a tolerance late (three rows of a 30-s export). Follow the rise back while it keeps falling by a ramp's own
+  // increment (at least half the typical change, at most twice it): a jump from a lower warm-up is larger and ends it.
+  for (let i = onsetIdx; i > 0; i--) {
+    const here = load[i]!,
+      before = load[i - 1]!;
+    if (!Number.isFinite(here) || !Number.isFinite(before)) break;
+    const fall = here - before;
+    if (!(fall > 0.5 * jitter && fall <= 2 * jitter) || jitter <= 0) break;
+    onsetIdx = i - 1;
+  }
   return { onsetS: points[Math.max(0, onsetIdx)]!.timeS, endS, source: hasLoad ? "workload" : "vo2" };
 }
 

@@ -1,4 +1,5 @@
 import "server-only";
+import { formatDay } from "@/features/platform/lib/date-format";
 import { createHash, randomBytes, randomUUID } from "node:crypto";
 import { and, asc, eq, inArray, isNull, sql } from "drizzle-orm";
 import { getDb, schema } from "@/db/client";
@@ -156,7 +157,8 @@ export async function inviteToSquad(actor: SignedInActor, squadId: string, input
       squadName: squadRow.name,
       roleLabel: `${ROLE_LABELS[input.role] === "athlete" ? "an" : "a"} ${ROLE_LABELS[input.role]}`,
       url,
-      expiresOn: expiresAt.toISOString().slice(0, 10),
+      // The invited person has no settings yet: the date reads as the inviting coach writes dates.
+      expiresOn: formatDay(expiresAt.toISOString().slice(0, 10), actor.dateStyle),
     });
   });
   return { id, email: input.email, role: input.role, expiresAt };
