@@ -444,6 +444,12 @@ const VSLOPE_LOWER = [0.6, 1.15] as const;
 const VT1_ONSET_S = 60;
 /** Half-width of the time window over which VO2 is smoothed for the V-slope axis. */
 const SMOOTH_HALF_S = 45;
+/**
+ * ...and at least this many rows on each side of a point: ±45 s holds three 15-s bins of a breath-by-breath file on each
+ * side, but only one row of an export averaged every 30 s, whose V-slope axis then kept most of the rows' scatter. Such an
+ * export is smoothed over ±90 s, the same three rows a side; breath files and 10- or 15-s exports are unchanged.
+ */
+const SMOOTH_SIDE_ROWS = 3;
 /** Half-width of the time window of the local line whose slope says how fast VCO2 and VE are changing. */
 const SLOPE_HALF_S = 60;
 /**
@@ -485,8 +491,8 @@ function localSlope(points: Breath[], halfS: number, values: number[]): number[]
  * the V-slope's corner and, wherever the workload rises unevenly (steps, a walk-to-run change), draws loops that pull the
  * breakpoint about.
  */
-function vSlopeAxes(points: Breath[]): { x: number[]; co2: number[]; ve: number[] } {
-  const smooth = localLinear(points, SMOOTH_HALF_S, (p) => p.vo2MlMin);
+function vSlopeAxes(points: Breath[], spacingS: number): { x: number[]; co2: number[]; ve: number[] } {
+  const smooth = localLinear(points, Math.max(SMOOTH_HALF_S, SMOOTH_SIDE_ROWS * spacingS), (p) => p.vo2MlMin);
   // The slopes of the gases as measured (not of the ratios), which follow the smooth course of the test.
   const dVco2 = localSlope(
     points,
@@ -511,8 +517,9 @@ function detectVt1(
   bodyMassKg: number | null | undefined,
   mrtS: number,
   minPoints = MIN_POINTS,
+  spacingS = 15,
 ): { vt1: Threshold | null; reason: string | null } {
-  const axes = vSlopeAxes(points);
+  const axes = vSlopeAxes(points, spacingS);
   const first = points.findIndex((p) => p.timeS >= points[0]!.timeS + VT1_ONSET_S);
   const endBelow = vt2 ? points.findIndex((p) => p.timeS >= vt2.timeS) : points.length;
   const belowCount = (endBelow < 0 ? points.length : endBelow) - Math.max(0, first);
@@ -581,7 +588,7 @@ function detectVt1(
   const lo = Math.min(...axisBelow),
     hi = Math.max(...axisBelow);
   // VE's slope from the points below VT2 only: above it VE climbs steeply, which would inflate the last minute below it.
-  const veBelow = vSlopeAxes(below);
+  const veBelow = vSlopeAxes(below, spacingS);
   const eqO2 = fitHinge(veBelow.x, veBelow.ve, {
     minSegment: 4,
     range: [lo + 0.1 * (hi - lo), lo + 0.9 * (hi - lo)],
@@ -771,7 +778,7 @@ export function analyzeBreaths(breaths: Breath[], opts: AnalysisOptions = {}): A
   }
   const mrtS = opts.meanResponseTimeS ?? DEFAULT_MRT_S;
   const { vt2, reason: vt2Reason } = detectVt2(detection, mass, mrtS);
-  const { vt1, reason: vt1Reason } = detectVt1(detection, vt2, mass, mrtS, minPoints);
+  const { vt1, reason: vt1Reason } = detectVt1(detection, vt2, mass, mrtS, minPoints, spacingS);
   if (!vt2 && vt2Reason) warnings.push(vt2Reason);
   if (!vt1 && vt1Reason) warnings.push(vt1Reason);
   if (vt1 && peak.vo2MlMin) {
